@@ -1,0 +1,235 @@
+package exacteq
+
+import (
+	_ "embed"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/buildssa"
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/edge"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/analyzerdoc"
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/provenance"
+)
+
+//go:embed doc.go
+var doc string
+
+// Analyzer reports exact equality tests on floating-point values that
+// rounding makes unreliable.
+var Analyzer = &analysis.Analyzer{
+	Name:     "exacteq",
+	Doc:      analyzerdoc.Extract(doc, "exacteq"),
+	URL:      "docs/exacteq.md",
+	Requires: []*analysis.Analyzer{inspect.Analyzer, buildssa.Analyzer},
+	Run:      run,
+}
+
+// Categories of diagnostics, one per kind of hazard.
+const (
+	catNaN      = "nan"
+	catComputed = "computed"
+	catLiteral  = "literal"
+	catLoop     = "loop"
+	catAggr     = "aggregate"
+	catTestify  = "testify"
+)
+
+// checker holds what one run needs.
+type checker struct {
+	pass    *analysis.Pass
+	track   *provenance.Tracker
+	decls   map[*types.Const]ast.Expr
+	globals constval.Globals
+	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
+	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	ssainfo := pass.ResultOf[buildssa.Analyzer].(*buildssa.SSA)
+	c := &checker{
+		pass:    pass,
+		track:   provenance.NewTracker(ssainfo.Pkg),
+		decls:   constval.Decls(pass.TypesInfo, pass.Files),
+		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
+		cmps:    make(map[token.Pos]*ssa.BinOp),
+		calls:   make(map[token.Pos]*ssa.Call),
+	}
+	c.index(ssainfo.SrcFuncs)
+	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
+	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
+		switch n := cur.Node().(type) {
+		case *ast.BinaryExpr:
+			if n.Op == token.EQL || n.Op == token.NEQ {
+				c.comparison(cur, n)
+			}
+		case *ast.CaseClause:
+			c.caseClause(cur, n)
+		case *ast.CallExpr:
+			c.testifyCall(cur, n)
+		}
+	}
+	return nil, nil
+}
+
+// index records, in one walk of the package's SSA, every equality test and
+// every call by source position.
+func (c *checker) index(funcs []*ssa.Function) {
+	for _, fn := range funcs {
+		for _, b := range fn.Blocks {
+			for _, instr := range b.Instrs {
+				switch v := instr.(type) {
+				case *ssa.BinOp:
+					if (v.Op == token.EQL || v.Op == token.NEQ) && v.Pos().IsValid() {
+						c.cmps[v.Pos()] = v
+					}
+				case *ssa.Call:
+					if v.Pos().IsValid() {
+						c.calls[v.Pos()] = v
+					}
+				}
+			}
+		}
+	}
+}
+
+// operand pairs an operand's syntax with its SSA value.
+type operand struct {
+	expr ast.Expr
+	val  ssa.Value
+}
+
+// comparison examines one == or != expression.
+func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
+	bin := c.cmps[n.OpPos]
+	if bin == nil {
+		return // folded to a constant or not built: nothing happens at run time
+	}
+	x, y := operand{n.X, bin.X}, operand{n.Y, bin.Y}
+	t := c.pass.TypesInfo.TypeOf(n.X)
+	switch {
+	case provenance.IsFloat(t):
+		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) {
+			return
+		}
+		c.scalar(cur, n, n.Op, x, y)
+	case holdsFloat(t, 0):
+		c.aggregate(n, x, y)
+	}
+}
+
+// caseClause examines the cases of an expression switch on a float value.
+func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
+	sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
+	if !ok || sw.Tag == nil || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(sw.Tag)) {
+		return // a type switch, a tagless switch or a switch on a non-float
+	}
+	for _, e := range cc.List {
+		if bin := c.cmps[e.Pos()]; bin != nil {
+			c.scalar(cur, nil, token.EQL, operand{sw.Tag, bin.X}, operand{e, bin.Y})
+		}
+	}
+}
+
+// scalar applies the computed-value rules to a float comparison; n is nil
+// for a switch case, which gets no fix.
+func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
+	if c.exempt(x) || c.exempt(y) {
+		return
+	}
+	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
+	if cx && cy {
+		if provenance.DependsOn(x.val, y.val) || provenance.DependsOn(y.val, x.val) {
+			return // one operand is derived from the other on purpose
+		}
+		c.reportComputed(cur, n, op, x, y)
+		return
+	}
+	if cx {
+		c.literal(cur, n, op, x, y)
+	} else if cy {
+		c.literal(cur, n, op, y, x)
+	}
+}
+
+// exempt reports whether an operand makes any comparison deliberate: exact
+// zero, an infinity, or ±math.MaxFloat64.
+func (c *checker) exempt(o operand) bool {
+	if call, ok := provenance.Strip(o.val).(*ssa.Call); ok {
+		if fn := call.Common().StaticCallee(); fn != nil && fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && fn.Name() == "Inf" {
+			return true
+		}
+	}
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, o.expr)
+	if !ok {
+		f, ok := constval.Float(provenance.Strip(o.val), c.globals)
+		return ok && f == 0
+	}
+	if v.Kind() == constant.Complex {
+		return constant.Sign(constant.Real(v)) == 0 && constant.Sign(constant.Imag(v)) == 0
+	}
+	if constant.Sign(v) == 0 {
+		return true
+	}
+	f, _ := constant.Float64Val(v)
+	return f > 1.79e308 || f < -1.79e308
+}
+
+// holdsFloat reports whether t is an array or struct with a float element
+// at some depth.
+func holdsFloat(t types.Type, depth int) bool {
+	if depth > 8 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Array:
+		return provenance.IsFloat(u.Elem()) || holdsFloat(u.Elem(), depth+1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if provenance.IsFloat(f.Type()) || holdsFloat(f.Type(), depth+1) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// inForCond reports whether cur lies in the condition of a for statement,
+// possibly inside && and || chains and parentheses, returning the statement.
+func inForCond(cur inspector.Cursor) (*ast.ForStmt, bool) {
+	for {
+		k := cur.ParentEdgeKind()
+		switch k {
+		case edge.ForStmt_Cond:
+			return cur.Parent().Node().(*ast.ForStmt), true
+		case edge.ParenExpr_X, edge.BinaryExpr_X, edge.BinaryExpr_Y:
+			if b, ok := cur.Parent().Node().(*ast.BinaryExpr); ok && b.Op != token.LAND && b.Op != token.LOR {
+				return nil, false
+			}
+			cur = cur.Parent()
+		default:
+			return nil, false
+		}
+	}
+}
+
+// fileOf returns the file enclosing cur.
+func fileOf(cur inspector.Cursor) *ast.File {
+	for f := range cur.Enclosing((*ast.File)(nil)) {
+		return f.Node().(*ast.File)
+	}
+	return nil
+}
+
+// isTestFile reports whether the file enclosing cur is a _test.go file.
+func (c *checker) isTestFile(cur inspector.Cursor) bool {
+	return strings.HasSuffix(c.pass.Fset.File(cur.Node().Pos()).Name(), "_test.go")
+}

@@ -1,0 +1,156 @@
+package exacteq
+
+import (
+	"fmt"
+	"go/ast"
+	"go/token"
+	"math"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/provenance"
+)
+
+// maxSteps bounds the simulation of a loop with constant start, step and
+// bound; longer loops are judged without it.
+const maxSteps = 1 << 20
+
+// loopCondition handles == and != in a for condition where one operand is a
+// float loop variable stepped by arithmetic on itself. It reports whether
+// the comparison was such a loop test (reported or proven to terminate).
+func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand) bool {
+	if _, ok := inForCond(cur); !ok {
+		return false
+	}
+	v, bound, varLeft := x, y, true
+	phi, ok := provenance.Strip(x.val).(*ssa.Phi)
+	if !ok || provenance.Of(phi) != provenance.LoopCarried {
+		v, bound, varLeft = y, x, false
+		if phi, ok = provenance.Strip(y.val).(*ssa.Phi); !ok || provenance.Of(phi) != provenance.LoopCarried {
+			return false
+		}
+	}
+	step, _ := provenance.LoopStep(phi)
+	sim := c.simulate(phi, step, bound.val)
+	if sim.hits {
+		return true // the constant loop lands on the bound exactly
+	}
+	name := fixes.Source(c.pass.Fset, v.expr)
+	bnd := fixes.Source(c.pass.Fset, bound.expr)
+	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; test with < or > instead", name, n.Op, bnd)
+	if sim.known {
+		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; test with < or > instead",
+			name, numeric.Short(sim.start), numeric.Short(sim.step), bnd, numeric.Short(sim.before), numeric.Short(sim.after),
+			map[token.Token]string{token.NEQ: "never stops", token.EQL: "never runs to the bound"}[n.Op])
+	}
+	d := analysis.Diagnostic{Pos: n.Pos(), End: n.End(), Category: catLoop, Message: msg}
+	if rel, ok := direction(n.Op, step, phi, varLeft); ok {
+		edit := analysis.TextEdit{Pos: n.OpPos, End: n.OpPos + token.Pos(len(n.Op.String())), NewText: []byte(rel)}
+		fixes.Report(c.pass, d, fixes.Safe("Replace "+n.Op.String()+" with "+rel, edit))
+		return true
+	}
+	fixes.Report(c.pass, d)
+	return true
+}
+
+// direction returns the ordered test that replaces x != bound for a loop
+// variable moving by a constant additive step: < when it grows, > when it
+// shrinks (mirrored when the variable is the right operand).
+func direction(op token.Token, step *ssa.BinOp, phi *ssa.Phi, varLeft bool) (string, bool) {
+	if op != token.NEQ || (step.Op != token.ADD && step.Op != token.SUB) {
+		return "", false
+	}
+	other := step.Y
+	if provenance.Strip(step.Y) == phi {
+		if step.Op == token.SUB {
+			return "", false // x = k - x alternates
+		}
+		other = step.X
+	}
+	s, ok := constval.Float(provenance.Strip(other), nil)
+	if !ok || s == 0 || math.IsNaN(s) {
+		return "", false
+	}
+	grows := (s > 0) == (step.Op == token.ADD)
+	if grows == varLeft {
+		return "<", true
+	}
+	return ">", true
+}
+
+// simulation is the outcome of running a constant loop.
+type simulation struct {
+	known         bool // start, step and bound are constants and the run was conclusive
+	hits          bool // the variable lands exactly on the bound
+	start, step   float64
+	before, after float64 // the values on either side of the bound
+}
+
+// simulate runs x = x op step from the loop's constant start, in the
+// variable's own format, until x equals the bound, passes it, stops moving
+// or maxSteps is reached.
+func (c *checker) simulate(phi *ssa.Phi, step *ssa.BinOp, boundVal ssa.Value) simulation {
+	var start ssa.Value
+	for _, e := range phi.Edges {
+		if provenance.Strip(e) != step {
+			start = e
+		}
+	}
+	other := step.Y
+	if provenance.Strip(step.Y) == phi {
+		other = step.X
+	}
+	x0, ok1 := constval.Float(provenance.Strip(start), c.globals)
+	s, ok2 := constval.Float(provenance.Strip(other), c.globals)
+	b, ok3 := constval.Float(provenance.Strip(boundVal), c.globals)
+	if start == nil || !ok1 || !ok2 || !ok3 || isComplex(phi.Type()) {
+		return simulation{}
+	}
+	round := func(v float64) float64 { return v }
+	if format(phi.Type()) == numeric.Float32 {
+		round = func(v float64) float64 { return float64(float32(v)) }
+	}
+	x0, s, b = round(x0), round(s), round(b)
+	x, swapped := x0, provenance.Strip(step.Y) == phi
+	for range maxSteps {
+		if x == b {
+			return simulation{known: true, hits: true}
+		}
+		next := round(apply(step.Op, x, s, swapped))
+		if next == x || math.IsNaN(next) || math.IsInf(next, 0) || (x < b) != (next < b) && next != b {
+			additive := step.Op == token.ADD || step.Op == token.SUB && !swapped
+			if step.Op == token.SUB {
+				s = -s
+			}
+			return simulation{known: additive && next != x, start: x0, step: s, before: x, after: next}
+		}
+		x = next
+	}
+	return simulation{}
+}
+
+// apply performs one update; swapped means the variable is the right operand.
+func apply(op token.Token, x, s float64, swapped bool) float64 {
+	switch op {
+	case token.ADD:
+		return x + s
+	case token.SUB:
+		if swapped {
+			return s - x
+		}
+		return x - s
+	case token.MUL:
+		return x * s
+	case token.QUO:
+		if swapped {
+			return s / x
+		}
+		return x / s
+	}
+	return math.NaN()
+}

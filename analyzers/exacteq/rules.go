@@ -1,0 +1,270 @@
+package exacteq
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/provenance"
+)
+
+// nan reports a comparison with math.NaN(), which is always false (==) or
+// always true (!=): NaN is unordered with every value, itself included
+// (IEEE 754-2019 §5.11).
+func (c *checker) nan(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand) bool {
+	other := x
+	switch {
+	case c.isNaNCall(y.expr):
+	case c.isNaNCall(x.expr):
+		other = y
+	default:
+		return false
+	}
+	always := map[token.Token]string{token.EQL: "false", token.NEQ: "true"}[n.Op]
+	d := analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catNaN,
+		Message: fmt.Sprintf("comparison with math.NaN() is always %s: NaN is unequal to every value, itself included; test with math.IsNaN", always),
+	}
+	name, edits, ok := c.importMath(cur, n.Pos())
+	if !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(other.expr)) || isComplex(c.pass.TypesInfo.TypeOf(other.expr)) {
+		fixes.Report(c.pass, d)
+		return true
+	}
+	arg := fixes.Source(c.pass.Fset, other.expr)
+	if !types.Identical(c.pass.TypesInfo.TypeOf(other.expr), types.Typ[types.Float64]) {
+		arg = "float64(" + arg + ")"
+	}
+	text := name + ".IsNaN(" + arg + ")"
+	if n.Op == token.NEQ {
+		text = "!" + text
+	}
+	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, append(edits, fixes.Replace(n, text))...))
+	return true
+}
+
+// isNaNCall reports whether e is a call of math.NaN.
+func (c *checker) isNaNCall(e ast.Expr) bool {
+	call, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN"
+}
+
+func isComplex(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsComplex != 0
+}
+
+// format returns the float format that judges values of type t: float32
+// when t admits float32 (a type parameter may), else float64.
+func format(t types.Type) numeric.Format {
+	if provenance.Admits32(t) {
+		return numeric.Float32
+	}
+	return numeric.Float64
+}
+
+// rtol returns the relative tolerance the fixes use for format f: 1e-9 for
+// float64 (about 4.5e6 ulps: nine significant digits, common practice) and
+// 1e-5 for float32 (about 84 ulps).
+func rtol(f numeric.Format) string {
+	if f == numeric.Float32 {
+		return "1e-5"
+	}
+	return "1e-9"
+}
+
+// reportComputed reports the exact comparison of two computed values.
+func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
+	t := c.pass.TypesInfo.TypeOf(x.expr)
+	f := format(t)
+	node := ast.Node(n)
+	if n == nil {
+		node = y.expr
+	}
+	d := analysis.Diagnostic{
+		Pos: node.Pos(), End: node.End(), Category: catComputed,
+		Message: fmt.Sprintf("exact %s between two computed %s values: each carries rounding error (up to %.3g relative per operation, more where fused multiply-add differs by platform); compare within a tolerance such as %s relative",
+			op, typeName(t), f.U, rtol(f)),
+	}
+	fixes.Report(c.pass, d, c.toleranceFix(cur, n, x, y, t)...)
+}
+
+// literal reports a computed value x compared with a constant y that its
+// type cannot represent exactly.
+func (c *checker) literal(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr)
+	if !ok || v.Kind() == constant.Complex {
+		return // not a constant, or complex: only real literals are judged
+	}
+	t := c.pass.TypesInfo.TypeOf(x.expr)
+	f := format(t)
+	stored, exact := storedValue(v, f)
+	if exact {
+		return // the constant is stored exactly: a deliberate target value
+	}
+	node := ast.Node(n)
+	if n == nil {
+		node = y.expr
+	}
+	d := analysis.Diagnostic{
+		Pos: node.Pos(), End: node.End(), Category: catLiteral,
+		Message: fmt.Sprintf("exact %s between a computed %s value and %s, which %s stores as %s: one rounding error (ulp %.3g there) makes the test fail; compare within a tolerance such as %s relative",
+			op, typeName(t), fixes.Source(c.pass.Fset, y.expr), f.Name, numeric.Decimal(stored, 34), ulp(stored, f), rtol(f)),
+	}
+	fixes.Report(c.pass, d, c.toleranceFix(cur, n, x, y, t)...)
+}
+
+// storedValue returns the value format f stores for constant v, and whether
+// that is exact.
+func storedValue(v constant.Value, f numeric.Format) (float64, bool) {
+	if f == numeric.Float32 {
+		s, exact := constant.Float32Val(v)
+		return float64(s), exact
+	}
+	return constant.Float64Val(v)
+}
+
+func ulp(x float64, f numeric.Format) float64 {
+	if f == numeric.Float32 {
+		return float64(numeric.Ulp32(float32(x)))
+	}
+	return numeric.Ulp(x)
+}
+
+// typeName returns t as the message shows it, qualified relative to nothing.
+func typeName(t types.Type) string {
+	return types.TypeString(t, func(*types.Package) string { return "" })
+}
+
+// toleranceFix returns the fix replacing an exact comparison by a relative
+// tolerance test, or none when the operands cannot be repeated safely, the
+// comparison is a switch case, or the values are complex.
+func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand, t types.Type) []fixes.Fix {
+	if n == nil || isComplex(t) || !c.pure(x.expr) || !c.pure(y.expr) {
+		return nil
+	}
+	name, edits, ok := c.importMath(cur, n.Pos())
+	if !ok {
+		return nil
+	}
+	conv := func(s string) string { return s }
+	if !types.Identical(t, types.Typ[types.Float64]) {
+		conv = func(s string) string { return "float64(" + s + ")" }
+	}
+	xs, ys := fixes.Operand(c.pass.Fset, x.expr), fixes.Operand(c.pass.Fset, y.expr)
+	rel := map[token.Token]string{token.EQL: " <= ", token.NEQ: " > "}[n.Op]
+	scale := fmt.Sprintf("%s.Max(%[1]s.Abs(%s), %[1]s.Abs(%s))", name, conv(xs), conv(ys))
+	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr); ok && constant.Sign(v) > 0 {
+		scale = conv(ys) // a positive constant is its own magnitude
+	}
+	text := fmt.Sprintf("%s.Abs(%s)%s%s*%s", name, conv(xs+" - "+ys), rel, rtol(format(t)), scale)
+	return []fixes.Fix{fixes.Judgement("Compare within relative tolerance "+rtol(format(t)), append(edits, fixes.Replace(n, text))...)}
+}
+
+// importMath returns the name for package math at pos and the edits that
+// import it if needed.
+func (c *checker) importMath(cur inspector.Cursor, pos token.Pos) (string, []analysis.TextEdit, bool) {
+	return fixes.Import(c.pass.TypesInfo, fileOf(cur), pos, "math")
+}
+
+// pure reports whether e can be evaluated twice without a visible effect:
+// names, field selections, indexing, constants, arithmetic, conversions and
+// calls of math functions on such operands.
+func (c *checker) pure(e ast.Expr) bool {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.Ident, *ast.BasicLit:
+		return true
+	case *ast.SelectorExpr:
+		if sel, ok := c.pass.TypesInfo.Selections[e]; ok {
+			return sel.Kind() == types.FieldVal && c.pure(e.X)
+		}
+		return true // a qualified identifier
+	case *ast.IndexExpr:
+		_, isMap := c.pass.TypesInfo.TypeOf(e.X).Underlying().(*types.Map)
+		return !isMap && c.pure(e.X) && c.pure(e.Index)
+	case *ast.UnaryExpr:
+		return (e.Op == token.SUB || e.Op == token.ADD) && c.pure(e.X)
+	case *ast.BinaryExpr:
+		return c.pure(e.X) && c.pure(e.Y)
+	case *ast.CallExpr:
+		if tv := c.pass.TypesInfo.Types[e.Fun]; tv.IsType() {
+			return len(e.Args) == 1 && c.pure(e.Args[0]) // conversion
+		}
+		fn, ok := typeutil.Callee(c.pass.TypesInfo, e).(*types.Func)
+		if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
+			return false
+		}
+		for _, a := range e.Args {
+			if !c.pure(a) {
+				return false
+			}
+		}
+		return true
+	}
+	return false
+}
+
+// aggregate reports == or != on arrays or structs when both operands are
+// built from computed floats.
+func (c *checker) aggregate(n *ast.BinaryExpr, x, y operand) {
+	if !c.computedAggregate(x.val) || !c.computedAggregate(y.val) {
+		return
+	}
+	t := c.pass.TypesInfo.TypeOf(n.X)
+	c.pass.Report(analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catAggr,
+		Message: fmt.Sprintf("%s on %s values compares their float elements exactly, and both hold computed floats carrying rounding error; compare the elements within a tolerance", n.Op, typeName(t)),
+	})
+}
+
+// computedAggregate reports whether v is a local array or struct into which
+// this function stores a computed float.
+func (c *checker) computedAggregate(v ssa.Value) bool {
+	load, ok := provenance.Strip(v).(*ssa.UnOp)
+	if !ok || load.Op != token.MUL {
+		return false
+	}
+	alloc, ok := load.X.(*ssa.Alloc)
+	if !ok {
+		return false
+	}
+	return c.storesComputed(alloc, 3)
+}
+
+// storesComputed reports whether a computed float is stored through addr or
+// an element or field address derived from it.
+func (c *checker) storesComputed(addr ssa.Value, depth int) bool {
+	if depth == 0 || addr.Referrers() == nil {
+		return false
+	}
+	for _, r := range *addr.Referrers() {
+		switch r := r.(type) {
+		case *ssa.Store:
+			if r.Addr == addr && provenance.IsFloat(r.Val.Type()) && c.track.Computed(r.Val) {
+				return true
+			}
+		case *ssa.FieldAddr:
+			if c.storesComputed(r, depth-1) {
+				return true
+			}
+		case *ssa.IndexAddr:
+			if c.storesComputed(r, depth-1) {
+				return true
+			}
+		}
+	}
+	return false
+}

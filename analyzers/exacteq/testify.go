@@ -1,0 +1,121 @@
+package exacteq
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/types"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/provenance"
+)
+
+// testifyEqual maps testify's exact-equality assertions to the tolerance
+// assertion that replaces them ("" where testify has none).
+var testifyEqual = map[string]string{
+	"Equal": "InEpsilon", "Equalf": "InEpsilonf",
+	"EqualValues": "InEpsilon", "EqualValuesf": "InEpsilonf",
+	"Exactly": "InEpsilon", "Exactlyf": "InEpsilonf",
+	"NotEqual": "", "NotEqualf": "", "NotEqualValues": "", "NotEqualValuesf": "",
+}
+
+// testifyCall reports testify's Equal-style assertions that compare floats
+// exactly under the same rules as ==.
+func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok || fn.Pkg() == nil || !isTestify(fn.Pkg().Path()) {
+		return
+	}
+	replacement, ok := testifyEqual[fn.Name()]
+	if !ok {
+		return
+	}
+	first, recv := 1, 0 // assert.Equal(t, expected, actual)
+	if fn.Signature().Recv() != nil {
+		first, recv = 0, 1 // a.Equal(expected, actual); SSA passes a first
+	}
+	sc := c.calls[call.Lparen]
+	if sc == nil || len(call.Args) < first+2 || len(sc.Common().Args) < recv+first+2 {
+		return
+	}
+	args := sc.Common().Args[recv+first:]
+	exp, act := operand{call.Args[first], args[0]}, operand{call.Args[first+1], args[1]}
+	t := c.pass.TypesInfo.TypeOf(act.expr)
+	if !provenance.IsFloat(t) || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(exp.expr)) || c.exempt(exp) || c.exempt(act) {
+		return
+	}
+	why := c.testifyHazard(exp, act, format(t))
+	if why == "" {
+		return
+	}
+	d := analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catTestify,
+		Message: fmt.Sprintf("%s.%s compares %s values exactly, but %s; use %s with a relative tolerance such as %s",
+			fn.Pkg().Name(), fn.Name(), typeName(t), why, firstNonEmpty(replacement, "InEpsilon"), rtol(format(t))),
+	}
+	fixes.Report(c.pass, d, c.inEpsilonFix(call, exp, first, replacement, format(t))...)
+}
+
+func isTestify(path string) bool {
+	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")
+}
+
+// testifyHazard explains why an assertion's exact comparison is unreliable,
+// or returns "" when it is not.
+func (c *checker) testifyHazard(exp, act operand, f numeric.Format) string {
+	ce, ca := c.track.Computed(exp.val), c.track.Computed(act.val)
+	switch {
+	case ce && ca && !provenance.DependsOn(exp.val, act.val) && !provenance.DependsOn(act.val, exp.val):
+		return "both are computed and carry rounding error"
+	case ce || ca:
+		lit := exp
+		if ce {
+			lit = act
+		}
+		v, ok := constval.Exact(c.pass.TypesInfo, c.decls, lit.expr)
+		if !ok || v.Kind() == constant.Complex {
+			return ""
+		}
+		if stored, exact := storedValue(v, f); !exact {
+			return fmt.Sprintf("one is computed and %s is stored as %s", fixes.Source(c.pass.Fset, lit.expr), numeric.Decimal(stored, 34))
+		}
+	}
+	return ""
+}
+
+// inEpsilonFix rewrites Equal(t, expected, actual, ...) as
+// InEpsilon(t, expected, actual, rtol, ...) when expected is a nonzero
+// constant (InEpsilon fails on a zero expected value).
+func (c *checker) inEpsilonFix(call *ast.CallExpr, exp operand, first int, replacement string, f numeric.Format) []fixes.Fix {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, exp.expr)
+	if replacement == "" || !ok || constant.Sign(v) == 0 {
+		return nil
+	}
+	var sel *ast.Ident
+	switch fun := ast.Unparen(call.Fun).(type) {
+	case *ast.SelectorExpr:
+		sel = fun.Sel
+	case *ast.Ident:
+		sel = fun
+	default:
+		return nil
+	}
+	act := call.Args[first+1]
+	return []fixes.Fix{fixes.Judgement("Use "+replacement+" with relative tolerance "+rtol(f),
+		fixes.Replace(sel, replacement),
+		analysis.TextEdit{Pos: act.End(), End: act.End(), NewText: []byte(", " + rtol(f))})}
+}
+
+func firstNonEmpty(a, b string) string {
+	if a != "" {
+		return a
+	}
+	return b
+}

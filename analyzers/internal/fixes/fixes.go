@@ -1,0 +1,176 @@
+// Package fixes builds roundoff's suggested fixes: text edits over existing
+// positions, the import they need, and the policy that decides which fixes
+// may be applied without a person reading them.
+package fixes
+
+import (
+	"bytes"
+	"go/ast"
+	"go/format"
+	"go/token"
+	"go/types"
+	"strconv"
+	"strings"
+	"sync/atomic"
+
+	"golang.org/x/tools/go/analysis"
+)
+
+// A Fix is a suggested fix together with whether it is safe to apply
+// unattended, as `go fix` and `go vet -fix` do: a safe fix keeps the
+// program's meaning apart from the hazard it removes; any other fix carries
+// a judgement (a tolerance, a step) that a person should confirm.
+type Fix struct {
+	analysis.SuggestedFix
+	Unattended bool
+}
+
+// Safe returns a fix that may be applied without review.
+func Safe(msg string, edits ...analysis.TextEdit) Fix {
+	return Fix{analysis.SuggestedFix{Message: msg, TextEdits: edits}, true}
+}
+
+// Judgement returns a fix that embodies a numerical choice and needs review.
+func Judgement(msg string, edits ...analysis.TextEdit) Fix {
+	return Fix{analysis.SuggestedFix{Message: msg, TextEdits: edits}, false}
+}
+
+var unattendedOnly atomic.Bool
+
+// KeepUnattendedOnly makes Report drop every fix that needs review. The
+// driver sets it when roundoff runs under `go fix` or `go vet`, which apply
+// the first fix of every diagnostic without showing it to anyone.
+func KeepUnattendedOnly(on bool) { unattendedOnly.Store(on) }
+
+// Report reports d with the given fixes, safe ones first, leaving out the
+// ones that need review when the driver asked for unattended fixes only.
+func Report(pass *analysis.Pass, d analysis.Diagnostic, fs ...Fix) {
+	for _, safe := range []bool{true, false} {
+		for _, f := range fs {
+			if f.Unattended == safe && (safe || !unattendedOnly.Load()) {
+				d.SuggestedFixes = append(d.SuggestedFixes, f.SuggestedFix)
+			}
+		}
+	}
+	pass.Report(d)
+}
+
+// Replace returns the edit that replaces node n with text.
+func Replace(n ast.Node, text string) analysis.TextEdit {
+	return analysis.TextEdit{Pos: n.Pos(), End: n.End(), NewText: []byte(text)}
+}
+
+// Source returns n printed in gofmt style, without comments.
+func Source(fset *token.FileSet, n ast.Node) string {
+	var buf bytes.Buffer
+	if err := format.Node(&buf, fset, n); err != nil {
+		panic(err) // n came from the parser, so it always prints
+	}
+	return buf.String()
+}
+
+// Operand returns expression e printed for use as an operand of a binary
+// operator: parenthesised unless it binds tighter than any binary operator.
+func Operand(fset *token.FileSet, e ast.Expr) string {
+	switch ast.Unparen(e).(type) {
+	case *ast.BinaryExpr, *ast.UnaryExpr, *ast.StarExpr:
+		return "(" + Source(fset, ast.Unparen(e)) + ")"
+	}
+	return Source(fset, e)
+}
+
+// Import returns the name under which file refers to the package at path,
+// adding the import when it is missing. The name must resolve to that
+// package at pos; ok is false when a local declaration shadows it, in which
+// case the caller offers no fix.
+func Import(info *types.Info, file *ast.File, pos token.Pos, path string) (name string, edits []analysis.TextEdit, ok bool) {
+	name = defaultName(path)
+	for _, spec := range file.Imports {
+		if p, _ := strconv.Unquote(spec.Path.Value); p != path {
+			continue
+		}
+		if spec.Name != nil {
+			name = spec.Name.Name
+		}
+		if name == "_" || name == "." {
+			break // not usable by name; fall through to adding a fresh import
+		}
+		return name, nil, resolvesTo(info, file, pos, name, path)
+	}
+	if !resolvesTo(info, file, pos, name, "") {
+		return "", nil, false // the name is taken by something else
+	}
+	return name, []analysis.TextEdit{importEdit(file, path)}, true
+}
+
+// defaultName returns the last element of an import path.
+func defaultName(path string) string {
+	for i := len(path) - 1; i >= 0; i-- {
+		if path[i] == '/' {
+			return path[i+1:]
+		}
+	}
+	return path
+}
+
+// resolvesTo reports whether name at pos refers to the package at path,
+// or, with path "", whether name is free at pos.
+func resolvesTo(info *types.Info, file *ast.File, pos token.Pos, name, path string) bool {
+	scope := info.Scopes[file]
+	if scope == nil {
+		return false
+	}
+	inner := scope.Innermost(pos)
+	if inner == nil {
+		inner = scope
+	}
+	_, obj := inner.LookupParent(name, pos)
+	if path == "" {
+		return obj == nil || obj.Parent() == types.Universe
+	}
+	pkg, ok := obj.(*types.PkgName)
+	return ok && pkg.Imported().Path() == path
+}
+
+// importEdit returns the edit that adds an import of path to file, in
+// sorted position within the first import declaration when there is one.
+func importEdit(file *ast.File, path string) analysis.TextEdit {
+	quoted := strconv.Quote(path)
+	for _, decl := range file.Decls {
+		gen, ok := decl.(*ast.GenDecl)
+		if !ok || gen.Tok != token.IMPORT {
+			continue
+		}
+		if !gen.Lparen.IsValid() { // import "x": turn into a group of two
+			spec := gen.Specs[0].(*ast.ImportSpec)
+			if spec.Path.Value > quoted {
+				return analysis.TextEdit{Pos: gen.Pos(), End: gen.Pos(), NewText: []byte("import " + quoted + "\n")}
+			}
+			return analysis.TextEdit{Pos: gen.End(), End: gen.End(), NewText: []byte("\nimport " + quoted)}
+		}
+		return groupEdit(gen, quoted)
+	}
+	end := file.Name.End()
+	return analysis.TextEdit{Pos: end, End: end, NewText: []byte("\n\nimport " + quoted)}
+}
+
+// groupEdit adds quoted (a standard-library path) to a parenthesised import
+// declaration: after the last standard-library import that sorts before it,
+// else before the first import, else inside the empty group.
+func groupEdit(gen *ast.GenDecl, quoted string) analysis.TextEdit {
+	var after *ast.ImportSpec
+	for _, s := range gen.Specs {
+		spec := s.(*ast.ImportSpec)
+		if spec.Path.Value < quoted && !strings.Contains(strings.SplitN(spec.Path.Value, "/", 2)[0], ".") {
+			after = spec
+		}
+	}
+	switch {
+	case after != nil:
+		return analysis.TextEdit{Pos: after.End(), End: after.End(), NewText: []byte("\n\t" + quoted)}
+	case len(gen.Specs) > 0:
+		first := gen.Specs[0].Pos()
+		return analysis.TextEdit{Pos: first, End: first, NewText: []byte(quoted + "\n\t")}
+	}
+	return analysis.TextEdit{Pos: gen.Rparen, End: gen.Rparen, NewText: []byte("\t" + quoted + "\n")}
+}

@@ -1,0 +1,91 @@
+// Package numeric holds the floating-point facts every roundoff analyzer
+// reasons with: machine epsilon, unit roundoff, the spacing of floats at a
+// magnitude, and the optimal finite-difference steps. Every value is derived
+// from the math package at start-up rather than typed in, so it follows the
+// IEEE 754-2019 binary formats exactly.
+package numeric
+
+import (
+	"math"
+	"math/big"
+	"strconv"
+	"strings"
+)
+
+// Format describes one IEEE 754-2019 binary floating-point format.
+type Format struct {
+	Name string  // "float64" or "float32"
+	Eps  float64 // machine epsilon: the spacing of floats just above 1
+	U    float64 // unit roundoff: Eps/2, the largest relative error of one correctly rounded operation
+	Bits int     // significand precision in bits, hidden bit included
+}
+
+var (
+	// Float64 is the binary64 format.
+	Float64 = Format{Name: "float64", Eps: math.Nextafter(1, 2) - 1, U: (math.Nextafter(1, 2) - 1) / 2, Bits: 53}
+	// Float32 is the binary32 format.
+	Float32 = Format{Name: "float32", Eps: float64(math.Nextafter32(1, 2) - 1), U: float64(math.Nextafter32(1, 2)-1) / 2, Bits: 24}
+)
+
+// SqrtEps returns sqrt(Eps): the relative precision to which a minimizer
+// can be located by comparing function values, and the optimal relative
+// forward-difference step.
+func (f Format) SqrtEps() float64 { return math.Sqrt(f.Eps) }
+
+// CbrtEps returns Eps^(1/3), the optimal relative central-difference step.
+func (f Format) CbrtEps() float64 { return math.Cbrt(f.Eps) }
+
+// QuartEps returns Eps^(1/4), the optimal relative second-difference step.
+func (f Format) QuartEps() float64 { return math.Sqrt(math.Sqrt(f.Eps)) }
+
+// Ulp returns the spacing of float64 values at magnitude |x|: the distance
+// from |x| to the next float64 away from zero. It is +Inf for ±Inf and NaN
+// for NaN.
+func Ulp(x float64) float64 {
+	x = math.Abs(x)
+	return math.Nextafter(x, math.Inf(1)) - x
+}
+
+// Ulp32 returns the spacing of float32 values at magnitude |x|.
+func Ulp32(x float32) float32 {
+	x = float32(math.Abs(float64(x)))
+	return math.Nextafter32(x, float32(math.Inf(1))) - x
+}
+
+// AbsorbingMagnitude returns the smallest power-of-two magnitude |x| at which
+// a step of size |h| is absorbed (x+h == x) in format f: |h| < ulp(x)/2 holds
+// from there on.
+func (f Format) AbsorbingMagnitude(h float64) float64 {
+	// ulp(x) = 2^(e-(Bits-1)) for 2^e <= |x|; need ulp > 2|h|,
+	// except that at ulp == 2|h| ties go to even and x survives only half the time.
+	_, e := math.Frexp(math.Abs(h)) // |h| = m·2^e, m in [0.5, 1)
+	return math.Ldexp(1, e+f.Bits)
+}
+
+// Decimal returns the exact decimal value of x, which every binary float
+// has, cut to the given number of significant digits with a trailing "..."
+// when digits are dropped: Decimal(0.1, 34) is
+// "0.1000000000000000055511151231257827...".
+func Decimal(x float64, digits int) string {
+	f := new(big.Float).SetFloat64(x)
+	if exactDigits(f.Text('g', 1100)) <= digits {
+		return f.Text('g', -1)
+	}
+	cut := f.Text('g', digits)
+	if i := strings.IndexByte(cut, 'e'); i >= 0 {
+		return cut[:i] + "..." + cut[i:]
+	}
+	return cut + "..."
+}
+
+// exactDigits counts the significant digits of a decimal string.
+func exactDigits(s string) int {
+	s = strings.TrimLeft(strings.TrimPrefix(s, "-"), "0.")
+	if i := strings.IndexAny(s, "eE"); i >= 0 {
+		s = s[:i]
+	}
+	return len(strings.ReplaceAll(s, ".", ""))
+}
+
+// Short formats x in the shortest form that reads back as the same float64.
+func Short(x float64) string { return strconv.FormatFloat(x, 'g', -1, 64) }

@@ -1,0 +1,322 @@
+// Package provenance tells where an SSA value comes from: a constant, a
+// parameter, a load, inexact floating-point arithmetic, a math-function
+// call, a loop-carried update. Analyzers use it to separate values that
+// carry rounding error (computed) from values that were only copied, loaded
+// or chosen, which compare exactly by design.
+package provenance
+
+import (
+	"go/constant"
+	"go/token"
+	"go/types"
+	"math"
+
+	"golang.org/x/tools/go/ssa"
+)
+
+// Kind is the immediate origin of a value, after conversions are looked
+// through.
+type Kind int
+
+// The kinds of origin.
+const (
+	Other       Kind = iota // anything not listed below
+	Constant                // a compile-time constant
+	Parameter               // a function parameter or free variable
+	Load                    // a load from a field, element, pointer or package variable
+	Arithmetic              // the result of +, -, *, / on floating-point values
+	MathCall                // the result of a math function that rounds
+	ExactCall               // the result of a math function that does not round (Abs, Floor, Max...)
+	Call                    // the result of any other call
+	LoopCarried             // a loop-header merge updated by arithmetic on itself
+	Merge                   // any other merge of values from branches
+)
+
+// Tracker answers provenance questions for the functions of one package,
+// remembering its answers. It is not safe for concurrent use.
+type Tracker struct {
+	pkg      *ssa.Package
+	computed map[ssa.Value]bool
+	returns  map[*ssa.Function][]bool // per result: whether some return is computed
+}
+
+// NewTracker returns an empty Tracker for the functions of pkg.
+func NewTracker(pkg *ssa.Package) *Tracker {
+	return &Tracker{pkg: pkg, computed: make(map[ssa.Value]bool), returns: make(map[*ssa.Function][]bool)}
+}
+
+// Strip looks through value-preserving wrappers: float-to-float
+// conversions, type changes and interface boxing.
+func Strip(v ssa.Value) ssa.Value {
+	for {
+		switch w := v.(type) {
+		case *ssa.ChangeType:
+			v = w.X
+		case *ssa.MakeInterface:
+			v = w.X
+		case *ssa.Convert:
+			if !IsFloat(w.X.Type()) {
+				return v
+			}
+			v = w.X
+		default:
+			return v
+		}
+	}
+}
+
+// Of returns the immediate origin of v.
+func Of(v ssa.Value) Kind {
+	switch v := Strip(v).(type) {
+	case *ssa.Const:
+		return Constant
+	case *ssa.Parameter, *ssa.FreeVar:
+		return Parameter
+	case *ssa.UnOp:
+		if v.Op == token.MUL {
+			return Load
+		}
+		if v.Op == token.SUB {
+			return Of(v.X)
+		}
+	case *ssa.Field, *ssa.Index, *ssa.Lookup:
+		return Load
+	case *ssa.BinOp:
+		if isArith(v.Op) && IsFloat(v.Type()) {
+			return Arithmetic
+		}
+	case *ssa.Call:
+		return callKind(v.Common())
+	case *ssa.Extract:
+		if c, ok := v.Tuple.(*ssa.Call); ok {
+			return callKind(c.Common())
+		}
+	case *ssa.Phi:
+		if _, ok := LoopStep(v); ok {
+			return LoopCarried
+		}
+		return Merge
+	}
+	return Other
+}
+
+func callKind(c *ssa.CallCommon) Kind {
+	switch MathRounding(c) {
+	case Rounds:
+		return MathCall
+	case Exact:
+		return ExactCall
+	}
+	return Call
+}
+
+func isArith(op token.Token) bool {
+	return op == token.ADD || op == token.SUB || op == token.MUL || op == token.QUO
+}
+
+// LoopStep reports whether phi is a loop-carried variable updated by
+// arithmetic on itself (x = x + step, x = x * k): it returns that update.
+// A variable that passes through another merge or a call on its way back
+// (a clamp such as x = math.Min(x+h, end)) is not such a variable.
+func LoopStep(phi *ssa.Phi) (*ssa.BinOp, bool) {
+	for _, e := range phi.Edges {
+		b, ok := Strip(e).(*ssa.BinOp)
+		if !ok || !isArith(b.Op) {
+			continue
+		}
+		if Strip(b.X) == phi || Strip(b.Y) == phi {
+			return b, true
+		}
+	}
+	return nil, false
+}
+
+// Computed reports whether v carries rounding error from floating-point
+// work done in this package: inexact arithmetic, a rounding math function,
+// a call of a package function whose result is computed, or a merge of
+// which some input is computed. Constants, parameters, loads, exact math
+// functions (Abs, Floor, Max...) and calls of unknown functions are not
+// computed. Multiplying or dividing by a power of two is exact and passes
+// the provenance of the other operand through.
+func (t *Tracker) Computed(v ssa.Value) bool {
+	v = Strip(v)
+	if c, ok := t.computed[v]; ok {
+		return c
+	}
+	t.computed[v] = false // cycles through merges count as not computed
+	c := t.compute(v)
+	t.computed[v] = c
+	return c
+}
+
+func (t *Tracker) compute(v ssa.Value) bool {
+	switch v := v.(type) {
+	case *ssa.UnOp:
+		return v.Op == token.SUB && t.Computed(v.X)
+	case *ssa.BinOp:
+		if !isArith(v.Op) || !IsFloat(v.Type()) {
+			return false
+		}
+		if x, ok := exactScaling(v); ok {
+			return t.Computed(x)
+		}
+		return true
+	case *ssa.Phi:
+		for _, e := range v.Edges {
+			if t.Computed(e) {
+				return true
+			}
+		}
+	case *ssa.Call:
+		return t.callComputed(v.Common(), 0)
+	case *ssa.Extract:
+		if c, ok := v.Tuple.(*ssa.Call); ok {
+			return t.callComputed(c.Common(), v.Index)
+		}
+	}
+	return false
+}
+
+// exactScaling reports whether b multiplies or divides by a power of two,
+// returning the other operand.
+func exactScaling(b *ssa.BinOp) (ssa.Value, bool) {
+	if b.Op != token.MUL && b.Op != token.QUO {
+		return nil, false
+	}
+	if powerOfTwo(b.Y) {
+		return b.X, true
+	}
+	if b.Op == token.MUL && powerOfTwo(b.X) {
+		return b.Y, true
+	}
+	return nil, false
+}
+
+func powerOfTwo(v ssa.Value) bool {
+	c, ok := Strip(v).(*ssa.Const)
+	if !ok || c.Value == nil || (c.Value.Kind() != constant.Float && c.Value.Kind() != constant.Int) {
+		return false
+	}
+	f, _ := constant.Float64Val(c.Value)
+	frac, _ := math.Frexp(math.Abs(f))
+	return frac == 0.5
+}
+
+func (t *Tracker) callComputed(c *ssa.CallCommon, index int) bool {
+	switch MathRounding(c) {
+	case Rounds:
+		return true
+	case Exact:
+		return false
+	}
+	fn := c.StaticCallee()
+	if fn == nil || fn.Blocks == nil || fn.Package() != t.pkg {
+		return false // unknown, abstract or from another package: no claim
+	}
+	res := t.resultComputed(fn)
+	return index < len(res) && res[index]
+}
+
+// resultComputed summarises, per result, whether fn returns a computed value
+// on some path.
+func (t *Tracker) resultComputed(fn *ssa.Function) []bool {
+	if res, ok := t.returns[fn]; ok {
+		return res
+	}
+	n := fn.Signature.Results().Len()
+	res := make([]bool, n)
+	t.returns[fn] = res // recursion sees "not computed" until finished
+	for _, b := range fn.Blocks {
+		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
+		if !ok {
+			continue
+		}
+		for i, r := range ret.Results {
+			res[i] = res[i] || t.Computed(r)
+		}
+	}
+	return res
+}
+
+// DependsOn reports whether v is computed from w through arithmetic,
+// conversions and math-function calls, without crossing a merge: as in
+// m := (a+b)/2 compared with a, or x*c compared with x.
+func DependsOn(v, w ssa.Value) bool {
+	return dependsOn(Strip(v), Strip(w), 8)
+}
+
+func dependsOn(v, w ssa.Value, depth int) bool {
+	if v == w {
+		return true
+	}
+	if depth == 0 {
+		return false
+	}
+	var ops []ssa.Value
+	switch v := v.(type) {
+	case *ssa.BinOp:
+		ops = []ssa.Value{v.X, v.Y}
+	case *ssa.UnOp:
+		if v.Op == token.SUB {
+			ops = []ssa.Value{v.X}
+		}
+	case *ssa.Call:
+		if MathRounding(v.Common()) != NotMath {
+			ops = v.Common().Args
+		}
+	}
+	for _, op := range ops {
+		if dependsOn(Strip(op), w, depth-1) {
+			return true
+		}
+	}
+	return false
+}
+
+// IsFloat reports whether t is a floating-point or complex type, a named
+// type over one, or a type parameter whose type set holds only such types.
+func IsFloat(t types.Type) bool {
+	return allTerms(t, func(b *types.Basic) bool {
+		return b.Info()&(types.IsFloat|types.IsComplex) != 0
+	})
+}
+
+// Admits32 reports whether t is float32 or complex64, or a type parameter
+// whose type set includes one of them.
+func Admits32(t types.Type) bool {
+	return !allTerms(t, func(b *types.Basic) bool {
+		return b.Kind() != types.Float32 && b.Kind() != types.Complex64 && b.Kind() != types.UntypedFloat
+	})
+}
+
+// allTerms reports whether every type in t's type set has a basic underlying
+// type satisfying pred (for a non-parameter type, its one underlying type).
+func allTerms(t types.Type, pred func(*types.Basic) bool) bool {
+	tp, ok := types.Unalias(t).(*types.TypeParam)
+	if !ok {
+		b, ok := t.Underlying().(*types.Basic)
+		return ok && pred(b)
+	}
+	iface, _ := tp.Constraint().Underlying().(*types.Interface)
+	if iface == nil {
+		return false
+	}
+	seen := false
+	for i := range iface.NumEmbeddeds() {
+		u, ok := iface.EmbeddedType(i).(*types.Union)
+		if !ok {
+			if !allTerms(iface.EmbeddedType(i), pred) {
+				return false
+			}
+			seen = true
+			continue
+		}
+		for j := range u.Len() {
+			if !allTerms(u.Term(j).Type(), pred) {
+				return false
+			}
+		}
+		seen = true
+	}
+	return seen
+}

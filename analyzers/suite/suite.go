@@ -1,0 +1,20 @@
+// Package suite lists every roundoff analyzer, in one place, and the one
+// setting the driver passes down to them.
+package suite
+
+import (
+	"golang.org/x/tools/go/analysis"
+
+	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/internal/fixes"
+)
+
+// Analyzers is the roundoff suite.
+var Analyzers = []*analysis.Analyzer{
+	exacteq.Analyzer,
+}
+
+// Unattended tells every analyzer whether its fixes will be applied without
+// review (under go fix and go vet), in which case only the fixes that need
+// no numerical judgement are offered.
+func Unattended(on bool) { fixes.KeepUnattendedOnly(on) }

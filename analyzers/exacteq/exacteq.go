@@ -147,7 +147,7 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
 	if cx && cy {
-		if provenance.DependsOn(x.val, y.val) || provenance.DependsOn(y.val, x.val) {
+		if derived(x.val, y.val) {
 			return // one operand is derived from the other on purpose
 		}
 		c.reportComputed(cur, n, op, x, y)
@@ -158,6 +158,15 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 	} else if cy {
 		c.literal(cur, n, op, y, x)
 	}
+}
+
+// derived reports whether the operands are related in a way that makes an
+// exact comparison deliberate: one computed or merged from the other, both
+// copies of the same value, or a tolerance test of the same pair nearby.
+func derived(x, y ssa.Value) bool {
+	return provenance.DependsOn(x, y) || provenance.DependsOn(y, x) ||
+		provenance.MergedFrom(x, y) || provenance.MergedFrom(y, x) ||
+		provenance.SameSources(x, y) || provenance.Differenced(x, y)
 }
 
 // exempt reports whether an operand makes any comparison deliberate: exact

@@ -220,8 +220,10 @@ func (c *checker) pure(e ast.Expr) bool {
 // aggregate reports == or != on arrays or structs when both operands are
 // built from computed floats.
 func (c *checker) aggregate(n *ast.BinaryExpr, x, y operand) {
-	if !c.computedAggregate(x.val) || !c.computedAggregate(y.val) {
-		return
+	ax, okx := c.computedAggregate(x.val)
+	ay, oky := c.computedAggregate(y.val)
+	if !okx || !oky || ax == ay {
+		return // not both computed, or a variable against its own earlier value
 	}
 	t := c.pass.TypesInfo.TypeOf(n.X)
 	c.pass.Report(analysis.Diagnostic{
@@ -230,18 +232,15 @@ func (c *checker) aggregate(n *ast.BinaryExpr, x, y operand) {
 	})
 }
 
-// computedAggregate reports whether v is a local array or struct into which
-// this function stores a computed float.
-func (c *checker) computedAggregate(v ssa.Value) bool {
+// computedAggregate reports whether v is loaded from a local array or
+// struct into which this function stores a computed float, and returns it.
+func (c *checker) computedAggregate(v ssa.Value) (*ssa.Alloc, bool) {
 	load, ok := provenance.Strip(v).(*ssa.UnOp)
 	if !ok || load.Op != token.MUL {
-		return false
+		return nil, false
 	}
 	alloc, ok := load.X.(*ssa.Alloc)
-	if !ok {
-		return false
-	}
-	return c.storesComputed(alloc, 3)
+	return alloc, ok && c.storesComputed(alloc, 3)
 }
 
 // storesComputed reports whether a computed float is stored through addr or

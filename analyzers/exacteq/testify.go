@@ -72,7 +72,7 @@ func isTestify(path string) bool {
 func (c *checker) testifyHazard(exp, act operand, f numeric.Format) string {
 	ce, ca := c.track.Computed(exp.val), c.track.Computed(act.val)
 	switch {
-	case ce && ca && !provenance.DependsOn(exp.val, act.val) && !provenance.DependsOn(act.val, exp.val):
+	case ce && ca && !derived(exp.val, act.val):
 		return "both are computed and carry rounding error"
 	case ce || ca:
 		lit := exp

@@ -10,6 +10,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/ssa"
 )
@@ -168,10 +169,10 @@ func (t *Tracker) compute(v ssa.Value) bool {
 			}
 		}
 	case *ssa.Call:
-		return t.callComputed(v.Common(), 0)
+		return t.callComputed(v.Parent(), v.Common(), 0)
 	case *ssa.Extract:
 		if c, ok := v.Tuple.(*ssa.Call); ok {
-			return t.callComputed(c.Common(), v.Index)
+			return t.callComputed(c.Parent(), c.Common(), v.Index)
 		}
 	}
 	return false
@@ -202,7 +203,7 @@ func powerOfTwo(v ssa.Value) bool {
 	return frac == 0.5
 }
 
-func (t *Tracker) callComputed(c *ssa.CallCommon, index int) bool {
+func (t *Tracker) callComputed(caller *ssa.Function, c *ssa.CallCommon, index int) bool {
 	switch MathRounding(c) {
 	case Rounds:
 		return true
@@ -213,8 +214,17 @@ func (t *Tracker) callComputed(c *ssa.CallCommon, index int) bool {
 	if fn == nil || fn.Blocks == nil || fn.Package() != t.pkg {
 		return false // unknown, abstract or from another package: no claim
 	}
+	if caller != nil && inTestFile(caller) && !inTestFile(fn) {
+		return false // a test comparing two routes through the code under test does so on purpose
+	}
 	res := t.resultComputed(fn)
 	return index < len(res) && res[index]
+}
+
+// inTestFile reports whether fn is declared in a _test.go file.
+func inTestFile(fn *ssa.Function) bool {
+	f := fn.Prog.Fset.File(fn.Pos())
+	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }
 
 // resultComputed summarises, per result, whether fn returns a computed value
@@ -236,6 +246,92 @@ func (t *Tracker) resultComputed(fn *ssa.Function) []bool {
 		}
 	}
 	return res
+}
+
+// MergedFrom reports whether v is a merge (possibly of merges) with w
+// among its inputs, where w is defined before the merge: as in
+// s := t; if cond { s = t*k }; if s == t, a test of whether the branch
+// changed s. A loop-carried input from a later iteration does not count.
+func MergedFrom(v, w ssa.Value) bool {
+	return mergedFrom(Strip(v), Strip(w), 4)
+}
+
+func mergedFrom(v, w ssa.Value, depth int) bool {
+	phi, ok := v.(*ssa.Phi)
+	if !ok || depth == 0 {
+		return false
+	}
+	for _, e := range phi.Edges {
+		e = Strip(e)
+		if e == w && definedBefore(w, phi.Block()) || mergedFrom(e, w, depth-1) {
+			return true
+		}
+	}
+	return false
+}
+
+// definedBefore reports whether w is available on entry to block b.
+func definedBefore(w ssa.Value, b *ssa.BasicBlock) bool {
+	instr, ok := w.(ssa.Instruction)
+	if !ok || instr.Block() == nil {
+		return true // constants, parameters, free variables, globals
+	}
+	return instr.Block() != b && instr.Block().Dominates(b)
+}
+
+// SameSources reports whether v and w are both merges that draw on a
+// common non-constant input: copies of the same value shuffled through
+// branches, as the points a and c of Brent's zero finder are, whose exact
+// comparison asks which copy is which.
+func SameSources(v, w ssa.Value) bool {
+	pv, ok1 := Strip(v).(*ssa.Phi)
+	pw, ok2 := Strip(w).(*ssa.Phi)
+	if !ok1 || !ok2 {
+		return false
+	}
+	seen := sources(pv, make(map[ssa.Value]bool), 6)
+	for src := range sources(pw, make(map[ssa.Value]bool), 6) {
+		if _, isConst := src.(*ssa.Const); seen[src] && !isConst {
+			return true
+		}
+	}
+	return false
+}
+
+// sources collects the values feeding phi through chains of merges.
+func sources(phi *ssa.Phi, acc map[ssa.Value]bool, depth int) map[ssa.Value]bool {
+	if acc[phi] || depth == 0 {
+		return acc
+	}
+	acc[phi] = true
+	for _, e := range phi.Edges {
+		e = Strip(e)
+		if p, ok := e.(*ssa.Phi); ok {
+			sources(p, acc, depth-1)
+		} else {
+			acc[e] = true
+		}
+	}
+	return acc
+}
+
+// Differenced reports whether the function also subtracts one of v and w
+// from the other, as a tolerance test |v-w| <= tol does: an exact test of
+// the same pair is then a shortcut or a special case, not the only test.
+func Differenced(v, w ssa.Value) bool {
+	v, w = Strip(v), Strip(w)
+	for _, x := range []ssa.Value{v, w} {
+		refs := x.Referrers()
+		if refs == nil {
+			continue
+		}
+		for _, r := range *refs {
+			if b, ok := r.(*ssa.BinOp); ok && b.Op == token.SUB && (Strip(b.X) == v && Strip(b.Y) == w || Strip(b.X) == w && Strip(b.Y) == v) {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // DependsOn reports whether v is computed from w through arithmetic,

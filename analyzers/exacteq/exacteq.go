@@ -47,7 +47,7 @@ const (
 type checker struct {
 	pass    *analysis.Pass
 	track   *provenance.Tracker
-	decls   map[*types.Const]ast.Expr
+	decls   map[types.Object]ast.Expr
 	globals constval.Globals
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
@@ -57,7 +57,7 @@ func run(pass *analysis.Pass) (any, error) {
 	ssainfo := pass.ResultOf[buildssa.Analyzer].(*buildssa.SSA)
 	c := &checker{
 		pass:    pass,
-		track:   provenance.NewTracker(ssainfo.Pkg),
+		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
 		decls:   constval.Decls(pass.TypesInfo, pass.Files),
 		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
 		cmps:    make(map[token.Pos]*ssa.BinOp),
@@ -146,7 +146,7 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
-	if cx && cy {
+	if cx && cy || cx && c.track.Stored(y.val) || cy && c.track.Stored(x.val) {
 		if derived(x.val, y.val) {
 			return // one operand is derived from the other on purpose
 		}

@@ -8,6 +8,10 @@ import (
 	"roundoff/analyzers/exacteq"
 )
 
-func TestSmoke(t *testing.T) {
-	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "smoke")
+func TestHazards(t *testing.T) {
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "hazards")
+}
+
+func TestIdioms(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "idioms", "generic")
 }

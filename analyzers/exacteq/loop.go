@@ -5,6 +5,7 @@ import (
 	"go/ast"
 	"go/token"
 	"math"
+	"strconv"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -44,8 +45,12 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	bnd := fixes.Source(c.pass.Fset, bound.expr)
 	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; test with < or > instead", name, n.Op, bnd)
 	if sim.known {
+		short := numeric.Short
+		if format(phi.Type()) == numeric.Float32 {
+			short = func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 32) }
+		}
 		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; test with < or > instead",
-			name, numeric.Short(sim.start), numeric.Short(sim.step), bnd, numeric.Short(sim.before), numeric.Short(sim.after),
+			name, short(sim.start), short(sim.step), bnd, short(sim.before), short(sim.after),
 			map[token.Token]string{token.NEQ: "never stops", token.EQL: "never runs to the bound"}[n.Op])
 	}
 	d := analysis.Diagnostic{Pos: n.Pos(), End: n.End(), Category: catLoop, Message: msg}

@@ -58,6 +58,9 @@ func (c *checker) isNaNCall(e ast.Expr) bool {
 	if !ok {
 		return false
 	}
+	if c.pass.TypesInfo.Types[call.Fun].IsType() && len(call.Args) == 1 {
+		return c.isNaNCall(call.Args[0]) // float32(math.NaN())
+	}
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
 	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN"
 }
@@ -164,13 +167,15 @@ func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y ope
 	if !types.Identical(t, types.Typ[types.Float64]) {
 		conv = func(s string) string { return "float64(" + s + ")" }
 	}
-	xs, ys := fixes.Operand(c.pass.Fset, x.expr), fixes.Operand(c.pass.Fset, y.expr)
+	xs, ys := fixes.Source(c.pass.Fset, x.expr), fixes.Source(c.pass.Fset, y.expr)
+	sub := token.SUB.Precedence()
+	diff := fixes.Operand(c.pass.Fset, x.expr, sub) + " - " + fixes.Operand(c.pass.Fset, y.expr, sub+1)
 	rel := map[token.Token]string{token.EQL: " <= ", token.NEQ: " > "}[n.Op]
-	scale := fmt.Sprintf("%s.Max(%[1]s.Abs(%s), %[1]s.Abs(%s))", name, conv(xs), conv(ys))
+	scale := fmt.Sprintf("%[1]s.Max(%[1]s.Abs(%[2]s), %[1]s.Abs(%[3]s))", name, conv(xs), conv(ys))
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr); ok && constant.Sign(v) > 0 {
-		scale = conv(ys) // a positive constant is its own magnitude
+		scale = fixes.Operand(c.pass.Fset, y.expr, token.MUL.Precedence()+1) // a positive constant is its own magnitude
 	}
-	text := fmt.Sprintf("%s.Abs(%s)%s%s*%s", name, conv(xs+" - "+ys), rel, rtol(format(t)), scale)
+	text := fmt.Sprintf("%s.Abs(%s)%s%s*%s", name, conv(diff), rel, rtol(format(t)), scale)
 	return []fixes.Fix{fixes.Judgement("Compare within relative tolerance "+rtol(format(t)), append(edits, fixes.Replace(n, text))...)}
 }
 

@@ -7,6 +7,7 @@ package main
 
 import (
 	"os"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis/multichecker"
@@ -15,8 +16,9 @@ import (
 )
 
 func main() {
-	// go vet and go fix hand the tool one .cfg file per package and apply
-	// the first fix of every diagnostic unseen.
-	suite.Unattended(strings.HasSuffix(os.Args[len(os.Args)-1], ".cfg"))
+	// go fix and go vet -fix hand the tool -fix and one .cfg file per
+	// package, and apply the first fix of every diagnostic unseen.
+	args := os.Args[1:]
+	suite.Unattended(len(args) > 0 && strings.HasSuffix(args[len(args)-1], ".cfg") && slices.Contains(args, "-fix"))
 	multichecker.Main(suite.Analyzers...)
 }

@@ -14,44 +14,70 @@ import (
 	"golang.org/x/tools/go/ssa"
 )
 
-// Exact returns the exact value of the constant expression e as written:
-// literals and constants declared in this package keep their decimal value;
-// constants from other packages have only the value the type checker kept.
-// decls maps this package's constants to their initialising expressions.
-func Exact(info *types.Info, decls map[*types.Const]ast.Expr, e ast.Expr) (constant.Value, bool) {
-	tv, ok := info.Types[e]
-	if !ok || tv.Value == nil {
-		return nil, false // not a constant expression
+// Exact returns the exact value of e as the source writes it, when e is a
+// constant expression or names a variable that holds one: literals, and
+// constants and never-reassigned variables of this package (followed through
+// decls, see Decls), keep their decimal value, so 0.1 stays one tenth rather
+// than the float64 nearest to it; constants from other packages have only
+// the value the type checker kept.
+func Exact(info *types.Info, decls map[types.Object]ast.Expr, e ast.Expr) (constant.Value, bool) {
+	return exact(info, decls, e, 8)
+}
+
+func exact(info *types.Info, decls map[types.Object]ast.Expr, e ast.Expr, depth int) (constant.Value, bool) {
+	if depth == 0 {
+		return nil, false
 	}
 	switch e := ast.Unparen(e).(type) {
 	case *ast.BasicLit:
 		v := constant.MakeFromLiteral(e.Value, e.Kind, 0)
 		return v, v.Kind() != constant.Unknown
 	case *ast.Ident, *ast.SelectorExpr:
-		if c, ok := uses(info, e).(*types.Const); ok {
-			if init, ok := decls[c]; ok {
-				return Exact(info, decls, init)
-			}
+		if init, ok := decls[uses(info, e)]; ok {
+			return exact(info, decls, init, depth-1)
 		}
 	case *ast.UnaryExpr:
-		if x, ok := Exact(info, decls, e.X); ok {
+		if x, ok := exact(info, decls, e.X, depth-1); ok && (e.Op == token.SUB || e.Op == token.ADD) {
 			return constant.UnaryOp(e.Op, x, 0), true
 		}
 	case *ast.BinaryExpr:
-		x, okx := Exact(info, decls, e.X)
-		y, oky := Exact(info, decls, e.Y)
+		x, okx := exact(info, decls, e.X, depth-1)
+		y, oky := exact(info, decls, e.Y, depth-1)
 		if okx && oky && isArith(e.Op) {
-			if e.Op == token.QUO && constant.Sign(y) == 0 {
-				break // typed integer division by zero does not type-check; be safe
-			}
-			if e.Op == token.QUO && x.Kind() == constant.Int && y.Kind() == constant.Int {
-				return constant.BinaryOp(x, token.QUO_ASSIGN, y), true // integer division
-			}
-			return constant.BinaryOp(x, e.Op, y), true
+			return binary(e.Op, x, y, isInteger(info.TypeOf(e)))
 		}
-	case *ast.CallExpr: // conversion T(x): the type checker rounds; keep its value
+	case *ast.CallExpr:
+		if tv, ok := info.Types[e.Fun]; ok && tv.IsType() && len(e.Args) == 1 && isNumeric(tv.Type) {
+			return exact(info, decls, e.Args[0], depth-1) // the conversion's rounding is what callers judge
+		}
 	}
-	return tv.Value, true
+	if tv, ok := info.Types[e]; ok && tv.Value != nil {
+		return tv.Value, true
+	}
+	return nil, false
+}
+
+// binary applies an arithmetic operator to two exact constants with Go's
+// rules: division of an integer type truncates; division by zero has no
+// value.
+func binary(op token.Token, x, y constant.Value, integer bool) (constant.Value, bool) {
+	if op == token.QUO && constant.Sign(y) == 0 {
+		return nil, false
+	}
+	if op == token.QUO && integer {
+		op = token.QUO_ASSIGN // integer division
+	}
+	return constant.BinaryOp(x, op, y), true
+}
+
+func isNumeric(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsNumeric != 0
+}
+
+func isInteger(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
 }
 
 // uses returns the object an identifier or qualified identifier refers to.
@@ -69,32 +95,82 @@ func isArith(op token.Token) bool {
 	return op == token.ADD || op == token.SUB || op == token.MUL || op == token.QUO
 }
 
-// Decls maps every constant declared in files to its initialising
-// expression, following the implicit repetition of const blocks.
-func Decls(info *types.Info, files []*ast.File) map[*types.Const]ast.Expr {
-	decls := make(map[*types.Const]ast.Expr)
+// Decls maps the constants declared in files, and the variables (local or
+// package-level) that are initialised once and never assigned again nor
+// have their address taken, to their initialising expressions. Constant
+// blocks' implicit repetition is followed; iota-dependent constants are left
+// out.
+func Decls(info *types.Info, files []*ast.File) map[types.Object]ast.Expr {
+	decls := make(map[types.Object]ast.Expr)
+	changed := make(map[types.Object]bool)
 	for _, f := range files {
-		for _, d := range f.Decls {
-			gen, ok := d.(*ast.GenDecl)
-			if !ok || gen.Tok != token.CONST {
-				continue
+		ast.Inspect(f, func(n ast.Node) bool {
+			switch n := n.(type) {
+			case *ast.GenDecl:
+				if n.Tok == token.CONST || n.Tok == token.VAR {
+					valueSpecs(info, n, decls)
+				}
+			case *ast.AssignStmt:
+				assignments(info, n, decls, changed)
+			case *ast.IncDecStmt:
+				markChanged(info, n.X, changed)
+			case *ast.UnaryExpr:
+				if n.Op == token.AND {
+					markChanged(info, n.X, changed)
+				}
+			case *ast.RangeStmt:
+				markChanged(info, n.Key, changed)
+				markChanged(info, n.Value, changed)
 			}
-			var last []ast.Expr
-			for _, s := range gen.Specs {
-				spec := s.(*ast.ValueSpec)
-				if len(spec.Values) > 0 {
-					last = spec.Values
-				}
-				for i, name := range spec.Names {
-					c, ok := info.Defs[name].(*types.Const)
-					if ok && i < len(last) && !usesIota(last[i]) {
-						decls[c] = last[i]
-					}
-				}
+			return true
+		})
+	}
+	for obj := range changed {
+		delete(decls, obj)
+	}
+	return decls
+}
+
+// valueSpecs records the initialisers of a const or var declaration.
+func valueSpecs(info *types.Info, gen *ast.GenDecl, decls map[types.Object]ast.Expr) {
+	var last []ast.Expr
+	for _, s := range gen.Specs {
+		spec := s.(*ast.ValueSpec)
+		if len(spec.Values) > 0 || gen.Tok == token.VAR {
+			last = spec.Values
+		}
+		if len(last) != len(spec.Names) {
+			continue // a multi-value call, or no initialiser
+		}
+		for i, name := range spec.Names {
+			if obj := info.Defs[name]; obj != nil && !usesIota(last[i]) {
+				decls[obj] = last[i]
 			}
 		}
 	}
-	return decls
+}
+
+// assignments records x := e definitions and marks every other assignment.
+func assignments(info *types.Info, as *ast.AssignStmt, decls map[types.Object]ast.Expr, changed map[types.Object]bool) {
+	for i, lhs := range as.Lhs {
+		id, ok := lhs.(*ast.Ident)
+		if ok && as.Tok == token.DEFINE && info.Defs[id] != nil && len(as.Lhs) == len(as.Rhs) {
+			decls[info.Defs[id]] = as.Rhs[i]
+			continue
+		}
+		markChanged(info, lhs, changed)
+	}
+}
+
+// markChanged records that the variable named by e is assigned.
+func markChanged(info *types.Info, e ast.Expr, changed map[types.Object]bool) {
+	if id, ok := ast.Unparen(e).(*ast.Ident); ok {
+		if obj := info.Uses[id]; obj != nil {
+			changed[obj] = true
+		} else if obj := info.Defs[id]; obj != nil {
+			changed[obj] = true
+		}
+	}
 }
 
 // usesIota reports whether e mentions iota, whose value depends on the spec.
@@ -182,7 +258,9 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 		visit(init)
 	}
 	for _, fn := range funcs {
-		visit(fn)
+		if fn != pkg.Func("init") { // already visited
+			visit(fn)
+		}
 	}
 	for g := range vals {
 		if stores[g] != 1 || escaped[g] {

@@ -70,13 +70,14 @@ func Source(fset *token.FileSet, n ast.Node) string {
 }
 
 // Operand returns expression e printed for use as an operand of a binary
-// operator: parenthesised unless it binds tighter than any binary operator.
-func Operand(fset *token.FileSet, e ast.Expr) string {
-	switch ast.Unparen(e).(type) {
-	case *ast.BinaryExpr, *ast.UnaryExpr, *ast.StarExpr:
-		return "(" + Source(fset, ast.Unparen(e)) + ")"
+// operator of precedence prec (go/token's scale: 4 for + and -, 5 for * and
+// /): parenthesised when it is a binary expression binding less tightly.
+// Pass prec+1 for the right operand of a non-associative operator such as -.
+func Operand(fset *token.FileSet, e ast.Expr, prec int) string {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && b.Op.Precedence() < prec {
+		return "(" + Source(fset, b) + ")"
 	}
-	return Source(fset, e)
+	return Source(fset, ast.Unparen(e))
 }
 
 // Import returns the name under which file refers to the package at path,
@@ -84,33 +85,34 @@ func Operand(fset *token.FileSet, e ast.Expr) string {
 // package at pos; ok is false when a local declaration shadows it, in which
 // case the caller offers no fix.
 func Import(info *types.Info, file *ast.File, pos token.Pos, path string) (name string, edits []analysis.TextEdit, ok bool) {
-	name = defaultName(path)
 	for _, spec := range file.Imports {
 		if p, _ := strconv.Unquote(spec.Path.Value); p != path {
 			continue
 		}
+		name = defaultName(path)
 		if spec.Name != nil {
 			name = spec.Name.Name
 		}
-		if name == "_" || name == "." {
-			break // not usable by name; fall through to adding a fresh import
+		if name != "_" && name != "." { // a blank or dot import is no use by name
+			return name, nil, resolvesTo(info, file, pos, name, path)
 		}
-		return name, nil, resolvesTo(info, file, pos, name, path)
 	}
+	name = defaultName(path)
 	if !resolvesTo(info, file, pos, name, "") {
 		return "", nil, false // the name is taken by something else
 	}
 	return name, []analysis.TextEdit{importEdit(file, path)}, true
 }
 
-// defaultName returns the last element of an import path.
+// defaultName returns the name a standard-library import path declares:
+// its last element, or the one before a major-version suffix (math/rand/v2).
 func defaultName(path string) string {
-	for i := len(path) - 1; i >= 0; i-- {
-		if path[i] == '/' {
-			return path[i+1:]
-		}
+	elems := strings.Split(path, "/")
+	last := elems[len(elems)-1]
+	if len(elems) > 1 && len(last) > 1 && last[0] == 'v' && strings.Trim(last[1:], "0123456789") == "" {
+		return elems[len(elems)-2]
 	}
-	return path
+	return last
 }
 
 // resolvesTo reports whether name at pos refers to the package at path,
@@ -155,22 +157,24 @@ func importEdit(file *ast.File, path string) analysis.TextEdit {
 }
 
 // groupEdit adds quoted (a standard-library path) to a parenthesised import
-// declaration: after the last standard-library import that sorts before it,
-// else before the first import, else inside the empty group.
+// declaration, on a line of its own: before the first import that follows
+// the last standard-library import sorting before it (or before the first
+// import), else at the end of the group. Inserting before a spec keeps
+// trailing comments with the imports they belong to.
 func groupEdit(gen *ast.GenDecl, quoted string) analysis.TextEdit {
-	var after *ast.ImportSpec
-	for _, s := range gen.Specs {
+	at := 0
+	for i, s := range gen.Specs {
 		spec := s.(*ast.ImportSpec)
 		if spec.Path.Value < quoted && !strings.Contains(strings.SplitN(spec.Path.Value, "/", 2)[0], ".") {
-			after = spec
+			at = i + 1
 		}
 	}
-	switch {
-	case after != nil:
-		return analysis.TextEdit{Pos: after.End(), End: after.End(), NewText: []byte("\n\t" + quoted)}
-	case len(gen.Specs) > 0:
-		first := gen.Specs[0].Pos()
-		return analysis.TextEdit{Pos: first, End: first, NewText: []byte(quoted + "\n\t")}
+	if at < len(gen.Specs) {
+		pos := gen.Specs[at].Pos()
+		if doc := gen.Specs[at].(*ast.ImportSpec).Doc; doc != nil {
+			pos = doc.Pos()
+		}
+		return analysis.TextEdit{Pos: pos, End: pos, NewText: []byte(quoted + "\n\t")}
 	}
 	return analysis.TextEdit{Pos: gen.Rparen, End: gen.Rparen, NewText: []byte("\t" + quoted + "\n")}
 }

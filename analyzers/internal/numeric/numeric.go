@@ -43,6 +43,12 @@ func (f Format) QuartEps() float64 { return math.Sqrt(math.Sqrt(f.Eps)) }
 // for NaN.
 func Ulp(x float64) float64 {
 	x = math.Abs(x)
+	switch {
+	case math.IsInf(x, 0):
+		return x
+	case x == math.MaxFloat64:
+		return x - math.Nextafter(x, 0) // the spacing below, 2^971
+	}
 	return math.Nextafter(x, math.Inf(1)) - x
 }
 
@@ -63,28 +69,44 @@ func (f Format) AbsorbingMagnitude(h float64) float64 {
 }
 
 // Decimal returns the exact decimal value of x, which every binary float
-// has, cut to the given number of significant digits with a trailing "..."
-// when digits are dropped: Decimal(0.1, 34) is
+// has, cut (not rounded) to the given number of significant digits with a
+// trailing "..." when digits are dropped: Decimal(0.1, 34) is
 // "0.1000000000000000055511151231257827...".
 func Decimal(x float64, digits int) string {
-	f := new(big.Float).SetFloat64(x)
-	if exactDigits(f.Text('g', 1100)) <= digits {
-		return f.Text('g', -1)
+	if x == 0 || math.IsInf(x, 0) || math.IsNaN(x) {
+		return Short(x)
 	}
-	cut := f.Text('g', digits)
-	if i := strings.IndexByte(cut, 'e'); i >= 0 {
-		return cut[:i] + "..." + cut[i:]
+	// %e with enough digits is exact for every float64 (at most 767 significant digits).
+	e := new(big.Float).SetFloat64(x).Text('e', 800)
+	mant, exp, _ := strings.Cut(e, "e")
+	sign := ""
+	if mant[0] == '-' {
+		sign, mant = "-", mant[1:]
 	}
-	return cut + "..."
+	ds := strings.TrimRight(strings.Replace(mant, ".", "", 1), "0")
+	more := ""
+	if len(ds) > digits {
+		ds, more = ds[:digits], "..."
+	}
+	p, _ := strconv.Atoi(exp)
+	return sign + positional(ds, p, more)
 }
 
-// exactDigits counts the significant digits of a decimal string.
-func exactDigits(s string) int {
-	s = strings.TrimLeft(strings.TrimPrefix(s, "-"), "0.")
-	if i := strings.IndexAny(s, "eE"); i >= 0 {
-		s = s[:i]
+// positional writes the digit string ds (d.ddd times 10^p), followed by
+// more, without an exponent when p is moderate, else in e-notation.
+func positional(ds string, p int, more string) string {
+	switch {
+	case p < -7 || p > 20:
+		if len(ds) > 1 {
+			ds = ds[:1] + "." + ds[1:]
+		}
+		return ds + more + "e" + strconv.Itoa(p)
+	case p < 0:
+		return "0." + strings.Repeat("0", -p-1) + ds + more
+	case len(ds) <= p+1:
+		return ds + strings.Repeat("0", p+1-len(ds)) + more
 	}
-	return len(strings.ReplaceAll(s, ".", ""))
+	return ds[:p+1] + "." + ds[p+1:] + more
 }
 
 // Short formats x in the shortest form that reads back as the same float64.

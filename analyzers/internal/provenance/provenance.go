@@ -37,13 +37,16 @@ const (
 // remembering its answers. It is not safe for concurrent use.
 type Tracker struct {
 	pkg      *ssa.Package
+	funcs    []*ssa.Function
 	computed map[ssa.Value]bool
 	returns  map[*ssa.Function][]bool // per result: whether some return is computed
+	fields   map[*types.Var]bool      // fields receiving computed floats; nil until needed
 }
 
-// NewTracker returns an empty Tracker for the functions of pkg.
-func NewTracker(pkg *ssa.Package) *Tracker {
-	return &Tracker{pkg: pkg, computed: make(map[ssa.Value]bool), returns: make(map[*ssa.Function][]bool)}
+// NewTracker returns an empty Tracker for pkg, whose source functions
+// (nested ones included) are funcs.
+func NewTracker(pkg *ssa.Package, funcs []*ssa.Function) *Tracker {
+	return &Tracker{pkg: pkg, funcs: funcs, computed: make(map[ssa.Value]bool), returns: make(map[*ssa.Function][]bool)}
 }
 
 // Strip looks through value-preserving wrappers: float-to-float
@@ -388,27 +391,33 @@ func Admits32(t types.Type) bool {
 // allTerms reports whether every type in t's type set has a basic underlying
 // type satisfying pred (for a non-parameter type, its one underlying type).
 func allTerms(t types.Type, pred func(*types.Basic) bool) bool {
-	tp, ok := types.Unalias(t).(*types.TypeParam)
-	if !ok {
-		b, ok := t.Underlying().(*types.Basic)
-		return ok && pred(b)
+	if tp, ok := types.Unalias(t).(*types.TypeParam); ok {
+		t = tp.Constraint()
 	}
-	iface, _ := tp.Constraint().Underlying().(*types.Interface)
-	if iface == nil {
-		return false
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return pred(u)
+	case *types.Interface:
+		return ifaceTerms(u, pred)
 	}
+	return false
+}
+
+// ifaceTerms applies allTerms to the type set of a constraint interface,
+// expanding unions and embedded interfaces; an interface without type terms
+// admits every type and fails.
+func ifaceTerms(iface *types.Interface, pred func(*types.Basic) bool) bool {
 	seen := false
 	for i := range iface.NumEmbeddeds() {
-		u, ok := iface.EmbeddedType(i).(*types.Union)
-		if !ok {
-			if !allTerms(iface.EmbeddedType(i), pred) {
-				return false
+		terms := []types.Type{iface.EmbeddedType(i)}
+		if u, ok := iface.EmbeddedType(i).(*types.Union); ok {
+			terms = terms[:0]
+			for j := range u.Len() {
+				terms = append(terms, u.Term(j).Type())
 			}
-			seen = true
-			continue
 		}
-		for j := range u.Len() {
-			if !allTerms(u.Term(j).Type(), pred) {
+		for _, term := range terms {
+			if !allTerms(term, pred) {
 				return false
 			}
 		}

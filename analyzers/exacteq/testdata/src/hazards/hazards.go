@@ -1,0 +1,130 @@
+// Package hazards holds exact comparisons that rounding makes unreliable.
+package hazards
+
+import "math"
+
+// Celsius is a named float type.
+type Celsius float64
+
+const target = 0.7 // not representable in binary
+
+const limit float64 = 0.1
+
+var step = 0.1 // never reassigned
+
+func literal(a, b float64) bool {
+	s := a + b
+	return s == 0.3 // want `exact == between a computed float64 value and 0.3, which float64 stores as 0.2999999999999999888977697537484345\.\.\.: one rounding error \(ulp 5.55e-17 there\)`
+}
+
+func literalNeq(a, b float64) bool {
+	return a*b != 0.1 // want `exact != between a computed float64 value and 0.1, which float64 stores as 0.1000000000000000055511151231257827\.\.\.`
+}
+
+func literalLeft(a, b float64) bool {
+	return 0.1 == a/b // want `exact == between a computed float64 value and 0.1`
+}
+
+func namedConst(a, b float64) bool {
+	return a-b == target // want `and target, which float64 stores as 0.6999999999999999555910790149937383\.\.\.`
+}
+
+func typedConst(a float64) bool {
+	return math.Sqrt(a) == limit // want `and limit, which float64 stores as 0.1000000000000000055511151231257827\.\.\.`
+}
+
+func localOnce(a, b float64) bool {
+	want := 0.3
+	return a+b == want // want `and want, which float64 stores as 0.29999`
+}
+
+func twoComputed(x, y, u, v float64) bool {
+	return x*y == u/v // want `exact == between two computed float64 values: each carries rounding error \(up to 1.11e-16 relative per operation`
+}
+
+func twoComputedNeq(x, y, u, v float64) bool {
+	return x+y != u-v // want `exact != between two computed float64 values`
+}
+
+func mathCalls(x, y float64) bool {
+	return math.Sqrt(x) == math.Cbrt(y) // want `two computed float64 values`
+}
+
+func sum(xs []float64) float64 {
+	s := 0.0
+	for _, x := range xs {
+		s += x
+	}
+	return s
+}
+
+func sameFunction(xs, ys []float64) bool {
+	return sum(xs) == sum(ys) // want `two computed float64 values`
+}
+
+func accumulated(xs []float64, a, b float64) bool {
+	total := 0.0
+	for _, x := range xs {
+		total += x
+	}
+	return total == a*b // want `two computed float64 values`
+}
+
+func nan(x float64) bool {
+	return x == math.NaN() // want `comparison with math.NaN\(\) is always false: NaN is unequal to every value, itself included`
+}
+
+func nanNeq(x float64) bool {
+	return math.NaN() != x // want `comparison with math.NaN\(\) is always true`
+}
+
+func nan32(x float32) bool {
+	return x == float32(math.NaN()) // want `comparison with math.NaN\(\) is always false`
+}
+
+func float32Literal(a, b float32) bool {
+	return a+b == 0.3 // want `exact == between a computed float32 value and 0.3, which float32 stores as 0.300000011920928955078125: one rounding error \(ulp 2.98e-08 there\)`
+}
+
+func named(t1, t2 Celsius) bool {
+	return (t1+t2)/3 == 36.6 // want `computed Celsius value and 36.6, which float64 stores as 36.60000000000000142108547152020037\.\.\.`
+}
+
+func complexValues(z, w complex128) bool {
+	return z*w == z+w // want `two computed complex128 values`
+}
+
+func switchCase(a, b float64) int {
+	switch a + b {
+	case 0.1: // want `exact == between a computed float64 value and 0.1`
+		return 1
+	case 0.5:
+		return 2 // 0.5 is exact: a deliberate target
+	}
+	return 0
+}
+
+func arrays(a, b, c, d float64) bool {
+	p := [2]float64{a + b, c}
+	q := [2]float64{c * d, a}
+	return p == q // want `== on \[2\]float64 values compares their float elements exactly`
+}
+
+type point struct{ X, Y float64 }
+
+func structs(a, b, c float64) bool {
+	var p, q point
+	p.X = a * b
+	q.X = b * c
+	return p != q // want `!= on point values compares their float elements exactly`
+}
+
+type road struct{ dist []float64 }
+
+func (r *road) relax(to int, d float64) { r.dist[to] = d }
+
+func tie(r *road, from, to int, w float64) bool {
+	joint := r.dist[from] + w
+	r.relax(to, joint)
+	return joint == r.dist[from+1] // want `two computed float64 values`
+}

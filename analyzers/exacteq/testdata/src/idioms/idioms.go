@@ -1,0 +1,206 @@
+// Package idioms holds exact comparisons that are deliberate and must not be
+// reported.
+package idioms
+
+import (
+	"math"
+	"sort"
+	"strconv"
+)
+
+func nanSelfTest(x float64) bool {
+	return x != x // the NaN self-test
+}
+
+func zeroGuard(a, b float64) float64 {
+	d := a - b
+	if d == 0 { // guard before a division: exact zero is the point
+		return 0
+	}
+	return 1 / d
+}
+
+func underflow(y float64) bool {
+	return math.Exp(y) == 0 // underflow detection
+}
+
+func zeroPivot(a [][]float64, k int) bool {
+	return a[k][k] == 0 // a zero pivot
+}
+
+func blasBeta(beta float64, y []float64) {
+	if beta == 0 { // BLAS-style shortcut on a parameter
+		for i := range y {
+			y[i] = 0
+		}
+	}
+}
+
+type settings struct{ Step float64 }
+
+func defaults(s *settings) {
+	if s.Step == 0 { // defaulting an unset field
+		s.Step = 1e-3
+	}
+}
+
+func unitAlpha(alpha float64, x []float64) {
+	if alpha == 1 { // a sentinel on an unmodified parameter
+		return
+	}
+	for i := range x {
+		x[i] *= alpha
+	}
+}
+
+func infinities(a, b float64) bool {
+	s := a * b
+	return s == math.Inf(1) || s == math.Inf(-1) || s == math.MaxFloat64 || -s == -math.MaxFloat64
+}
+
+func sorted(a []float64) bool {
+	sort.Float64s(a)
+	for i := 1; i < len(a); i++ {
+		if a[i] == a[i-1] { // duplicates of loaded values
+			return true
+		}
+	}
+	return false
+}
+
+func knot(xs []float64, x float64) int {
+	for i, k := range xs {
+		if x == k { // an exact knot hit in interpolation
+			return i
+		}
+	}
+	return -1
+}
+
+func exactFunctions(x, y float64) bool {
+	return math.Abs(x) == y || math.Max(x, y) == math.Min(x, y) || math.Trunc(x) == math.Floor(y)
+}
+
+func integerTest(x float64) bool {
+	return x == math.Floor(x) // integer test
+}
+
+func integerTestComputed(a, b float64) bool {
+	v := a * b
+	return v == math.Floor(v) // the floor is derived from v on purpose
+}
+
+func bisectionStop(a, b float64) bool {
+	m := (a + b) / 2
+	return m == a || m == b // no float left between a and b
+}
+
+func overflowTest(x, c float64) bool {
+	return x*c == x // the product is derived from x on purpose
+}
+
+func machineEpsilon() float64 {
+	eps := 1.0
+	for 1+eps != 1 { // halving until absorbed is the point
+		eps /= 2
+	}
+	return eps
+}
+
+func clampedLoop(t0, t1, h float64) int {
+	n := 0
+	for t := t0; t != t1; t = math.Min(t+h, t1) { // clamped to the bound: lands on it
+		n++
+	}
+	return n
+}
+
+func clampedBranch(x, hi float64) bool {
+	if x > hi {
+		x = hi
+	}
+	return x == hi // merge of copies: the clamp took effect
+}
+
+func unknownCalls(s, u string) bool {
+	a, _ := strconv.ParseFloat(s, 64)
+	b, _ := strconv.ParseFloat(u, 64)
+	return a == b // results of functions from other packages
+}
+
+func changed(tscal, x float64, big bool) bool {
+	uscal := tscal
+	if big {
+		uscal = tscal / x
+	}
+	return uscal == tscal // did the branch change uscal?
+}
+
+func brentCopies(f func(float64) float64, a, b float64) float64 {
+	c := b
+	for range 50 {
+		if f(b)*f(c) > 0 {
+			c = a
+		}
+		if math.Abs(f(c)) < math.Abs(f(b)) {
+			a, b, c = b, c, b
+		}
+		if a == c { // which copy is which: both are merges of the same points
+			return b
+		}
+		a, b = b, b+0.5*(c-b)
+	}
+	return b
+}
+
+func fastPath(got, want, tol float64) bool {
+	g, w := got*2+1, want*2+1
+	if g == w { // a shortcut before the tolerance test of the same pair
+		return true
+	}
+	return math.Abs(g-w) <= tol*math.Abs(w)
+}
+
+type box struct{ MinX, MaxX float64 }
+
+func split(b box) box {
+	old := b
+	b.MinX += (b.MaxX - b.MinX) / 2
+	if b == old { // the box against its own earlier value
+		panic("plane too big")
+	}
+	return b
+}
+
+func exactLoop() int {
+	n := 0
+	for x := 0.0; x != 1; x += 0.25 { // quarters add exactly: the loop lands on 1
+		n++
+	}
+	return n
+}
+
+func scaleShortcut(sl, su float64) bool {
+	scale := sl * su
+	return scale != 1 // a representable sentinel: skipping work when exactly 1
+}
+
+func loads(p, q struct{ X float64 }) bool {
+	return p.X == q.X
+}
+
+func params(x, y float64) bool {
+	return x == y
+}
+
+func complexZero(z, w complex128) bool {
+	return z*w == 0
+}
+
+func halves(a float64) bool {
+	return a*0.5 == a/4*2 // scaling by powers of two is exact
+}
+
+func representableLiteral(a, b float64) bool {
+	return a+b == 0.5 // 0.5 is stored exactly
+}

@@ -1,0 +1,3 @@
+module glazebad
+
+go 1.26

@@ -1,0 +1,3 @@
+module kilnlab
+
+go 1.26

@@ -1,17 +1,76 @@
 package exacteq_test
 
 import (
+	"math/big"
+	"os"
+	"os/exec"
+	"path/filepath"
 	"testing"
 
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/suite"
 )
 
 func TestHazards(t *testing.T) {
-	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "hazards")
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "hazards", "runfix")
 }
 
 func TestIdioms(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "idioms", "generic")
+}
+
+func TestTestFiles(t *testing.T) {
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "gauge")
+}
+
+// TestUnattended checks that under go fix only the fixes that need no
+// judgement are offered: the golden file keeps every tolerance comparison.
+func TestUnattended(t *testing.T) {
+	suite.Unattended(true)
+	defer suite.Unattended(false)
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "unattended")
+}
+
+// TestFixedProgramRuns runs testdata/src/runfix before and after its fixes
+// (the golden file) and checks that each fix changes the outcome as claimed.
+func TestFixedProgramRuns(t *testing.T) {
+	// IEEE 754-2019 binary64: 0.1 and 0.2 round to 53-bit significands, and
+	// their sum rounds to a different double than 0.3 does. Checked here
+	// with math/big at 200 bits, independently of float64 arithmetic.
+	exactSum := new(big.Float).SetPrec(200).Add(big.NewFloat(0.1), big.NewFloat(0.2))
+	roundedSum, _ := new(big.Float).SetPrec(53).SetMode(big.ToNearestEven).Set(exactSum).Float64()
+	require.NotEqual(t, roundedSum, 0.3, "binary64 0.1+0.2 must differ from binary64 0.3")
+
+	src := filepath.Join("testdata", "src", "runfix")
+	before := runProgram(t, filepath.Join(src, "main.go"))
+	after := runProgram(t, filepath.Join(src, "main.go.golden"))
+
+	// Before: the exact tests fail, and the loop passes 1 without equalling
+	// it (0.9999999999999999, then 1.0999999999999999), stopped only by its cap.
+	assert.Equal(t, "sum equals 0.3: false\nreading is NaN: false\nsteps: 1000\n", before)
+	// After: the tolerance test accepts the rounded sum, math.IsNaN sees
+	// the NaN (IEEE 754-2019 §5.11: NaN is unordered with everything), and
+	// the loop runs the 10 steps that exact arithmetic gives for 0 to 1 by 0.1.
+	assert.Equal(t, "sum equals 0.3: true\nreading is NaN: true\nsteps: 10\n", after)
+}
+
+// runProgram copies one Go source file into a scratch module as main.go,
+// runs it and returns its standard output.
+func runProgram(t *testing.T, file string) string {
+	t.Helper()
+	dir := t.TempDir()
+	src, err := os.ReadFile(file)
+	require.NoError(t, err)
+	require.NoError(t, os.WriteFile(filepath.Join(dir, "main.go"), src, 0o644))
+	require.NoError(t, os.WriteFile(filepath.Join(dir, "go.mod"), []byte("module runfix\n\ngo 1.26\n"), 0o644))
+	cmd := exec.Command("go", "run", ".")
+	cmd.Dir = dir
+	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOWORK=off")
+	out, err := cmd.Output()
+	require.NoError(t, err)
+	return string(out)
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/token"
+	"go/types"
 	"math"
 	"strconv"
 
@@ -25,7 +26,8 @@ const maxSteps = 1 << 20
 // float loop variable stepped by arithmetic on itself. It reports whether
 // the comparison was such a loop test (reported or proven to terminate).
 func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand) bool {
-	if _, ok := inForCond(cur); !ok {
+	loop, ok := inForCond(cur)
+	if !ok {
 		return false
 	}
 	v, bound, varLeft := x, y, true
@@ -43,49 +45,59 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	}
 	name := fixes.Source(c.pass.Fset, v.expr)
 	bnd := fixes.Source(c.pass.Fset, bound.expr)
-	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; test with < or > instead", name, n.Op, bnd)
+	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; stop with an ordered test half a step short of the bound instead", name, n.Op, bnd)
 	if sim.known {
 		short := numeric.Short
 		if format(phi.Type()) == numeric.Float32 {
 			short = func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 32) }
 		}
-		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; test with < or > instead",
+		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; stop with an ordered test half a step short of the bound instead",
 			name, short(sim.start), short(sim.step), bnd, short(sim.before), short(sim.after),
 			map[token.Token]string{token.NEQ: "never stops", token.EQL: "never runs to the bound"}[n.Op])
 	}
 	d := analysis.Diagnostic{Pos: n.Pos(), End: n.End(), Category: catLoop, Message: msg}
-	if rel, ok := direction(n.Op, step, phi, varLeft); ok {
-		edit := analysis.TextEdit{Pos: n.OpPos, End: n.OpPos + token.Pos(len(n.Op.String())), NewText: []byte(rel)}
-		fixes.Report(c.pass, d, fixes.Safe("Replace "+n.Op.String()+" with "+rel, edit))
-		return true
-	}
-	fixes.Report(c.pass, d)
+	fixes.Report(c.pass, d, c.halfStepFix(n, loop, v, bound, step, phi, varLeft)...)
 	return true
 }
 
-// direction returns the ordered test that replaces x != bound for a loop
-// variable moving by a constant additive step: < when it grows, > when it
-// shrinks (mirrored when the variable is the right operand).
-func direction(op token.Token, step *ssa.BinOp, phi *ssa.Phi, varLeft bool) (string, bool) {
-	if op != token.NEQ || (step.Op != token.ADD && step.Op != token.SUB) {
-		return "", false
+// halfStepFix replaces x != bound, for a loop variable moving by a constant
+// step s written in the loop's post statement (x += s or x -= s), with an
+// ordered test half a step short of the bound: x < bound - 0.5*s when x
+// grows. A loop that lands on the bound exactly runs as before, and one
+// that would miss it by rounding stops after the iterations exact
+// arithmetic gives, instead of running one more at bound - ulp.
+func (c *checker) halfStepFix(n *ast.BinaryExpr, loop *ast.ForStmt, v, bound operand, step *ssa.BinOp, phi *ssa.Phi, varLeft bool) []fixes.Fix {
+	post, ok := loop.Post.(*ast.AssignStmt)
+	if n.Op != token.NEQ || !ok || len(post.Lhs) != 1 || (post.Tok != token.ADD_ASSIGN && post.Tok != token.SUB_ASSIGN) ||
+		!sameVar(c.pass.TypesInfo, post.Lhs[0], v.expr) || !c.pure(post.Rhs[0]) || !c.pure(bound.expr) {
+		return nil
 	}
 	other := step.Y
 	if provenance.Strip(step.Y) == phi {
-		if step.Op == token.SUB {
-			return "", false // x = k - x alternates
-		}
 		other = step.X
 	}
-	s, ok := constval.Float(provenance.Strip(other), nil)
+	s, ok := constval.Float(provenance.Strip(other), c.globals)
 	if !ok || s == 0 || math.IsNaN(s) {
-		return "", false
+		return nil // the step's sign, hence the direction, is unknown
 	}
-	grows := (s > 0) == (step.Op == token.ADD)
-	if grows == varLeft {
-		return "<", true
+	grows, back := (s > 0) == (post.Tok == token.ADD_ASSIGN), " - "
+	if post.Tok == token.SUB_ASSIGN {
+		back = " + "
 	}
-	return ">", true
+	limit := fixes.Operand(c.pass.Fset, bound.expr, token.ADD.Precedence()) + back + "0.5*" + fixes.Operand(c.pass.Fset, post.Rhs[0], token.MUL.Precedence()+1)
+	rel := map[bool]string{true: " < ", false: " > "}[grows == varLeft]
+	text := fixes.Source(c.pass.Fset, v.expr) + rel + limit
+	if !varLeft {
+		text = limit + rel + fixes.Source(c.pass.Fset, v.expr)
+	}
+	return []fixes.Fix{fixes.Safe("Stop half a step before the bound: "+text, fixes.Replace(n, text))}
+}
+
+// sameVar reports whether a and b name the same variable.
+func sameVar(info *types.Info, a, b ast.Expr) bool {
+	ia, ok1 := ast.Unparen(a).(*ast.Ident)
+	ib, ok2 := ast.Unparen(b).(*ast.Ident)
+	return ok1 && ok2 && info.ObjectOf(ia) != nil && info.ObjectOf(ia) == info.ObjectOf(ib)
 }
 
 // simulation is the outcome of running a constant loop.

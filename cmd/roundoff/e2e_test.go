@@ -53,7 +53,7 @@ const (
 	nanSrc     = "\tif reading == math.NaN() {\n"
 	nanFixed   = "\tif math.IsNaN(reading) {\n"
 	loopSrc    = "\tfor frac := 0.0; frac != 1; frac += 0.1 {\n"
-	loopLess   = "\tfor frac := 0.0; frac < 1; frac += 0.1 {\n"
+	loopLess   = "\tfor frac := 0.0; frac < 1-0.5*0.1; frac += 0.1 {\n"
 	literalSrc = "\treturn share == 0.3\n"
 	literalTol = "\treturn math.Abs(share-0.3) <= 1e-9*0.3\n"
 )

@@ -9,8 +9,9 @@ import (
 )
 
 // Extract returns the section of the package comment in src (the text of a
-// doc.go file) headed "# Analyzer <name>": its first line is
-// "<name>: <title>", the rest the full explanation. It panics when the
+// doc.go file) headed "# Analyzer <name>", whose first line is
+// "<name>: <title>"; the result starts at the title, the rest being the full
+// explanation. It panics when the
 // section is missing, which is a mistake in the analyzer's own source.
 func Extract(src, name string) string {
 	f, err := parser.ParseFile(token.NewFileSet(), "doc.go", src, parser.ParseComments|parser.PackageClauseOnly)
@@ -28,8 +29,9 @@ func Extract(src, name string) string {
 		section = section[:j]
 	}
 	section = strings.TrimSpace(section)
-	if !strings.HasPrefix(section, name+": ") {
+	title, ok := strings.CutPrefix(section, name+": ")
+	if !ok {
 		panic("analyzerdoc: section must start with \"" + name + ": <title>\"")
 	}
-	return section
+	return title
 }

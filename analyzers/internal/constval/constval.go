@@ -37,13 +37,14 @@ func exact(info *types.Info, decls map[types.Object]ast.Expr, e ast.Expr, depth 
 			return exact(info, decls, init, depth-1)
 		}
 	case *ast.UnaryExpr:
-		if x, ok := exact(info, decls, e.X, depth-1); ok && (e.Op == token.SUB || e.Op == token.ADD) {
+		// Fold only what the compiler folds: arithmetic on variables rounds at run time.
+		if x, ok := exact(info, decls, e.X, depth-1); ok && isConst(info, e) && (e.Op == token.SUB || e.Op == token.ADD) {
 			return constant.UnaryOp(e.Op, x, 0), true
 		}
 	case *ast.BinaryExpr:
 		x, okx := exact(info, decls, e.X, depth-1)
 		y, oky := exact(info, decls, e.Y, depth-1)
-		if okx && oky && isArith(e.Op) {
+		if okx && oky && isConst(info, e) && isArith(e.Op) {
 			return binary(e.Op, x, y, isInteger(info.TypeOf(e)))
 		}
 	case *ast.CallExpr:
@@ -68,6 +69,12 @@ func binary(op token.Token, x, y constant.Value, integer bool) (constant.Value, 
 		op = token.QUO_ASSIGN // integer division
 	}
 	return constant.BinaryOp(x, op, y), true
+}
+
+// isConst reports whether e is a compile-time constant expression.
+func isConst(info *types.Info, e ast.Expr) bool {
+	tv, ok := info.Types[e]
+	return ok && tv.Value != nil
 }
 
 func isNumeric(t types.Type) bool {

@@ -1,0 +1,73 @@
+package gauge
+
+import (
+	"math"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+)
+
+func TestExactLiteral(t *testing.T) {
+	x := 0.1
+	got := x * 3
+	if got != 0.3 { // want `exact != between a computed float64 value and 0.3`
+		t.Fail()
+	}
+}
+
+func TestTwoComputed(t *testing.T) {
+	a, b := 0.1, 0.2
+	if a+b != b*1.5 { // want `exact != between two computed float64 values`
+		t.Fail()
+	}
+}
+
+func TestAssertLiteral(t *testing.T) {
+	x, y := 0.1, 0.2
+	assert.Equal(t, 0.3, x+y) // want `assert.Equal compares float64 values exactly, but one is computed and 0.3 is stored as 0.2999999999999999888977697537484345\.\.\.; use InEpsilon with a relative tolerance such as 1e-9`
+}
+
+func TestAssertfLiteral(t *testing.T) {
+	x := 0.7
+	assert.Equalf(t, 0.1, x/7, "case %d", 1) // want `assert.Equalf compares float64 values exactly`
+}
+
+func TestRequireLiteral(t *testing.T) {
+	x := 0.7
+	require.Equal(t, 0.1, x/7) // want `require.Equal compares float64 values exactly`
+}
+
+func TestMethodForm(t *testing.T) {
+	a := assert.New(t)
+	s := math.Sqrt(0.02)
+	a.Equal(0.1, s*s) // want `assert.Equal compares float64 values exactly`
+}
+
+func TestTwoComputedAssert(t *testing.T) {
+	x, y := 0.1, 0.2
+	assert.Equal(t, x*3, y+0.1) // want `assert.Equal compares float64 values exactly, but both are computed and carry rounding error`
+}
+
+func TestNotEqual(t *testing.T) {
+	x := 0.3
+	assert.NotEqual(t, 0.1, x/3) // want `assert.NotEqual compares float64 values exactly`
+}
+
+// The idioms below compare exactly on purpose and must stay silent.
+
+func TestExpectedExact(t *testing.T) {
+	assert.Equal(t, 0.5, Scale(3)) // the result of the code under test against a value
+	require.Equal(t, 2.0, Offset(3, 1))
+	assert.Equal(t, 0.25, 0.5*0.5) // constant expression: folded exactly
+}
+
+func TestRoutes(t *testing.T) {
+	if Scale(1) != Offset(0.3, 0) { // two routes through the code under test: deliberate
+		t.Fail()
+	}
+	x := 0.1
+	assert.Equal(t, Scale(x), Scale(x)) // the same call twice
+	y := 3.0 * 2
+	assert.Equal(t, 6.0, y) // representable
+}

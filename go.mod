@@ -5,6 +5,7 @@ go 1.26.0
 require (
 	github.com/stretchr/testify v1.12.1
 	golang.org/x/tools v0.52.0
+	gonum.org/v1/gonum v0.17.0
 )
 
 require (

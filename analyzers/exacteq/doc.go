@@ -15,7 +15,10 @@
 //
 //   - both operands are computed: produced by inexact arithmetic or a
 //     rounding math function in this package (a+b == c, f(x) == f(y) for a
-//     function f of this package, accumulated sums);
+//     function f of this package, accumulated sums), or one is computed and
+//     the other is loaded from a struct field (or a slice or array held in
+//     one) into which the package stores computed floats, such as a table
+//     of path lengths;
 //   - a computed operand is compared with a decimal constant the type cannot
 //     represent (0.1, 0.3); the message shows the value actually stored;
 //   - an operand is math.NaN(): such a comparison is always false (==) or
@@ -24,24 +27,37 @@
 //     compares every element exactly;
 //   - a loop condition tests a float loop variable, stepped by arithmetic on
 //     itself, with == or != (for x := 0.0; x != 1; x += 0.1 never stops); when
-//     start, step and bound are constants the loop is simulated and reported
-//     only if the bound is missed;
-//   - testify's assert or require Equal compares floats that way in tests.
+//     start, step and bound are constants the loop is simulated in the
+//     variable's own format and reported only if the bound is missed;
+//   - in tests, testify's assert or require Equal (and its variants) compares
+//     floats under the same rules.
 //
 // It leaves alone the idioms that compare exactly on purpose: the NaN test
-// x != x; comparisons with exact zero; parameters, fields, loads and copies
-// compared with anything (sentinels such as alpha == 1, sorting and
-// deduplication, knot hits in interpolation); values merged from branches;
-// results of math functions that do not round (Abs, Floor, Max...) and of
-// functions from other packages; comparisons with infinities or
-// math.MaxFloat64; an operand derived from the other on purpose (the
-// bisection stop m == a where m := (a+b)/2, the overflow test x*c == x); and
-// loop variables clamped to the bound.
+// x != x; comparisons with exact zero, with infinities and with
+// ±math.MaxFloat64; parameters, fields, loads and copies compared with
+// anything (sentinels such as alpha == 1, sorting and deduplication, knot
+// hits in interpolation); computed values compared with a constant the type
+// stores exactly (scale != 1 shortcuts); results of math functions that do
+// not round (Abs, Floor, Max...) and of functions from other packages; an
+// operand derived from the other on purpose (the bisection stop m == a where
+// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x)); a value
+// against a merge that has it as an input (did the branch change it?);
+// copies of the same value shuffled through branches (the points a and c of
+// Brent's zero finder); a variable against its own earlier value; a pair
+// whose difference the same function also tests against a tolerance (the
+// exact test is a shortcut); loop variables clamped to the bound; and, in
+// _test.go files, results and fields produced by the code under test, which
+// a test compares with a second route through that code on purpose.
 //
-// Fixes: math.NaN() comparisons become math.IsNaN(x) and float loop
-// conditions become < or > by the sign of the step; both are safe to apply
-// unattended. Comparisons of computed values become a relative-tolerance test
-// math.Abs(a-b) <= rtol*math.Max(math.Abs(a), math.Abs(b)) with rtol 1e-9
-// for float64 (1e-5 for float32), and testify's Equal becomes InEpsilon; the
-// tolerance is a judgement, so go fix and go vet -fix do not apply these.
+// Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
+// condition x != b with a constant step s in the loop's post statement
+// becomes x < b-0.5*s (or > for a falling loop): a loop that lands on the
+// bound runs as before, and one that would miss it stops after the
+// iterations exact arithmetic gives. Both are safe to apply unattended.
+// Comparisons of computed values become a relative-tolerance test
+// math.Abs(a-b) <= rtol*math.Max(math.Abs(a), math.Abs(b)) (rtol*c for a
+// positive constant c) with rtol 1e-9 for float64 and 1e-5 for float32, and
+// testify's Equal becomes InEpsilon when the expected value is a nonzero
+// constant; the tolerance is a judgement, so go fix and go vet -fix do not
+// apply these, only standalone roundoff -fix does.
 package exacteq

@@ -172,10 +172,8 @@ func derived(x, y ssa.Value) bool {
 // exempt reports whether an operand makes any comparison deliberate: exact
 // zero, an infinity, or ±math.MaxFloat64.
 func (c *checker) exempt(o operand) bool {
-	if call, ok := provenance.Strip(o.val).(*ssa.Call); ok {
-		if fn := call.Common().StaticCallee(); fn != nil && fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && fn.Name() == "Inf" {
-			return true
-		}
+	if provenance.IsInf(o.val) {
+		return true
 	}
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, o.expr)
 	if !ok {

@@ -57,8 +57,8 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	}
 	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catTestify,
-		Message: fmt.Sprintf("%s.%s compares %s values exactly, but %s; use %s with a relative tolerance such as %s",
-			fn.Pkg().Name(), fn.Name(), typeName(t), why, firstNonEmpty(replacement, "InEpsilon"), rtol(format(t))),
+		Message: fmt.Sprintf("%s.%s compares %s values exactly, but %s; %s",
+			fn.Pkg().Name(), fn.Name(), typeName(t), why, remedy(replacement, rtol(format(t)))),
 	}
 	fixes.Report(c.pass, d, c.inEpsilonFix(call, exp, first, replacement, format(t))...)
 }
@@ -113,9 +113,10 @@ func (c *checker) inEpsilonFix(call *ast.CallExpr, exp operand, first int, repla
 		analysis.TextEdit{Pos: act.End(), End: act.End(), NewText: []byte(", " + rtol(f))})}
 }
 
-func firstNonEmpty(a, b string) string {
-	if a != "" {
-		return a
+// remedy says what to assert instead.
+func remedy(replacement, tol string) string {
+	if replacement == "" {
+		return "assert that they differ by more than a relative tolerance such as " + tol
 	}
-	return b
+	return "use " + replacement + " with a relative tolerance such as " + tol
 }

@@ -8,6 +8,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"gonum.org/v1/gonum/floats/scalar"
 
 	"roundoff/analyzers/internal/numeric"
 )
@@ -268,4 +269,15 @@ func TestShort(t *testing.T) {
 	assert.Equal(t, "0.1", numeric.Short(0.1))
 	assert.Equal(t, "2.220446049250313e-16", numeric.Short(numeric.Float64.Eps)) // NUMERICS.md
 	assert.Equal(t, "5e-324", numeric.Short(math.SmallestNonzeroFloat64))
+}
+
+// TestUlpAgainstGonum checks Ulp against gonum's floats/scalar.EqualWithinULP,
+// an independent implementation of ULP distance: x and x+Ulp(x) are one ULP
+// apart, x and x+2·Ulp(x) are not.
+func TestUlpAgainstGonum(t *testing.T) {
+	for _, x := range []float64{1, 0.1, 3, 1e8, 1e9, 1e-300, 123456.789} {
+		u := numeric.Ulp(x)
+		assert.True(t, scalar.EqualWithinULP(x, x+u, 1), x)
+		assert.False(t, scalar.EqualWithinULP(x, x+2*u, 1), x)
+	}
 }

@@ -13,24 +13,42 @@ const (
 	Exact                   // result is exact: no rounding happens (Abs, Floor, Max...)
 )
 
-// exactMath lists the math functions whose float results involve no rounding
-// (IEEE 754-2019 §5.3 and §5.5 operations, and selections); every other
-// float-valued math function rounds.
+// exactMath lists the math and math/cmplx functions whose float results
+// involve no rounding (IEEE 754-2019 §5.3 and §5.5 operations, selections
+// and constructors); every other float-valued function of those packages
+// rounds. Ldexp rounds only when its result is subnormal.
 var exactMath = map[string]bool{
-	"Abs": true, "Ceil": true, "Copysign": true, "Floor": true, "Float32frombits": true,
-	"Float64frombits": true, "Frexp": true, "Inf": true, "Ldexp": true, "Max": true,
-	"Min": true, "Mod": true, "Modf": true, "NaN": true, "Nextafter": true,
-	"Nextafter32": true, "Remainder": true, "Round": true, "RoundToEven": true, "Trunc": true,
+	"math.Abs": true, "math.Ceil": true, "math.Copysign": true, "math.Floor": true,
+	"math.Float32frombits": true, "math.Float64frombits": true, "math.Frexp": true,
+	"math.Inf": true, "math.Ldexp": true, "math.Max": true, "math.Min": true,
+	"math.Mod": true, "math.Modf": true, "math.NaN": true, "math.Nextafter": true,
+	"math.Nextafter32": true, "math.Remainder": true, "math.Round": true,
+	"math.RoundToEven": true, "math.Trunc": true,
+	"math/cmplx.Conj": true, "math/cmplx.Inf": true, "math/cmplx.NaN": true,
 }
 
 // MathRounding classifies the callee of c.
 func MathRounding(c *ssa.CallCommon) Rounding {
 	fn := c.StaticCallee()
-	if fn == nil || fn.Pkg == nil || fn.Pkg.Pkg.Path() != "math" && fn.Pkg.Pkg.Path() != "math/cmplx" {
+	if fn == nil || fn.Pkg == nil {
 		return NotMath
 	}
-	if exactMath[fn.Name()] && fn.Pkg.Pkg.Path() == "math" {
+	path := fn.Pkg.Pkg.Path()
+	switch {
+	case path != "math" && path != "math/cmplx":
+		return NotMath
+	case exactMath[path+"."+fn.Name()]:
 		return Exact
 	}
 	return Rounds
+}
+
+// IsInf reports whether v is the result of math.Inf or math/cmplx.Inf.
+func IsInf(v ssa.Value) bool {
+	call, ok := Strip(v).(*ssa.Call)
+	if !ok {
+		return false
+	}
+	fn := call.Common().StaticCallee()
+	return fn != nil && fn.Pkg != nil && fn.Name() == "Inf" && (fn.Pkg.Pkg.Path() == "math" || fn.Pkg.Pkg.Path() == "math/cmplx")
 }

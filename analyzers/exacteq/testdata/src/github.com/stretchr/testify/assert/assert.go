@@ -2,7 +2,9 @@
 package assert
 
 // TestingT is the subset of *testing.T the assertions need.
-type TestingT interface{ Errorf(format string, args ...any) }
+type TestingT interface {
+	Errorf(format string, args ...any)
+}
 
 func Equal(t TestingT, expected, actual any, msgAndArgs ...any) bool        { return true }
 func Equalf(t TestingT, expected, actual any, msg string, args ...any) bool { return true }

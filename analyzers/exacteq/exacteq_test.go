@@ -2,8 +2,6 @@ package exacteq_test
 
 import (
 	"math/big"
-	"os"
-	"os/exec"
 	"path/filepath"
 	"testing"
 
@@ -12,6 +10,7 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/internal/testrun"
 	"roundoff/analyzers/suite"
 )
 
@@ -46,8 +45,8 @@ func TestFixedProgramRuns(t *testing.T) {
 	require.NotEqual(t, roundedSum, 0.3, "binary64 0.1+0.2 must differ from binary64 0.3")
 
 	src := filepath.Join("testdata", "src", "runfix")
-	before := runProgram(t, filepath.Join(src, "main.go"))
-	after := runProgram(t, filepath.Join(src, "main.go.golden"))
+	before := testrun.Output(t, filepath.Join(src, "main.go"))
+	after := testrun.Output(t, filepath.Join(src, "main.go.golden"))
 
 	// Before: the exact tests fail, and the loop passes 1 without equalling
 	// it (0.9999999999999999, then 1.0999999999999999), stopped only by its cap.
@@ -56,21 +55,4 @@ func TestFixedProgramRuns(t *testing.T) {
 	// the NaN (IEEE 754-2019 §5.11: NaN is unordered with everything), and
 	// the loop runs the 10 steps that exact arithmetic gives for 0 to 1 by 0.1.
 	assert.Equal(t, "sum equals 0.3: true\nreading is NaN: true\nsteps: 10\n", after)
-}
-
-// runProgram copies one Go source file into a scratch module as main.go,
-// runs it and returns its standard output.
-func runProgram(t *testing.T, file string) string {
-	t.Helper()
-	dir := t.TempDir()
-	src, err := os.ReadFile(file)
-	require.NoError(t, err)
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "main.go"), src, 0o644))
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "go.mod"), []byte("module runfix\n\ngo 1.26\n"), 0o644))
-	cmd := exec.Command("go", "run", ".")
-	cmd.Dir = dir
-	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOWORK=off")
-	out, err := cmd.Output()
-	require.NoError(t, err)
-	return string(out)
 }

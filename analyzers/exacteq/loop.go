@@ -69,7 +69,7 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 func (c *checker) halfStepFix(n *ast.BinaryExpr, loop *ast.ForStmt, v, bound operand, step *ssa.BinOp, phi *ssa.Phi, varLeft bool) []fixes.Fix {
 	post, ok := loop.Post.(*ast.AssignStmt)
 	if n.Op != token.NEQ || !ok || len(post.Lhs) != 1 || (post.Tok != token.ADD_ASSIGN && post.Tok != token.SUB_ASSIGN) ||
-		!sameVar(c.pass.TypesInfo, post.Lhs[0], v.expr) || !c.pure(post.Rhs[0]) || !c.pure(bound.expr) {
+		!sameVar(c.pass.TypesInfo, post.Lhs[0], v.expr) || !fixes.Pure(c.pass.TypesInfo, post.Rhs[0]) || !fixes.Pure(c.pass.TypesInfo, bound.expr) {
 		return nil
 	}
 	other := step.Y

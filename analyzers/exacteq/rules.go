@@ -125,7 +125,7 @@ func (c *checker) literal(cur inspector.Cursor, n *ast.BinaryExpr, op token.Toke
 	d := analysis.Diagnostic{
 		Pos: node.Pos(), End: node.End(), Category: catLiteral,
 		Message: fmt.Sprintf("exact %s between a computed %s value and %s, which %s stores as %s: one rounding error (ulp %.3g there) makes the test fail; compare within a tolerance such as %s relative",
-			op, typeName(t), fixes.Source(c.pass.Fset, y.expr), f.Name, numeric.Decimal(stored, 34), ulp(stored, f), rtol(f)),
+			op, typeName(t), fixes.Source(c.pass.Fset, y.expr), f.Name, numeric.Decimal(stored, 34), f.Spacing(stored), rtol(f)),
 	}
 	fixes.Report(c.pass, d, c.toleranceFix(cur, n, x, y, t)...)
 }
@@ -140,13 +140,6 @@ func storedValue(v constant.Value, f numeric.Format) (float64, bool) {
 	return constant.Float64Val(v)
 }
 
-func ulp(x float64, f numeric.Format) float64 {
-	if f == numeric.Float32 {
-		return float64(numeric.Ulp32(float32(x)))
-	}
-	return numeric.Ulp(x)
-}
-
 // typeName returns t as the message shows it, qualified relative to nothing.
 func typeName(t types.Type) string {
 	return types.TypeString(t, func(*types.Package) string { return "" })
@@ -156,7 +149,7 @@ func typeName(t types.Type) string {
 // tolerance test, or none when the operands cannot be repeated safely, the
 // comparison is a switch case, or the values are complex.
 func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand, t types.Type) []fixes.Fix {
-	if n == nil || isComplex(t) || !c.pure(x.expr) || !c.pure(y.expr) {
+	if n == nil || isComplex(t) || !fixes.Pure(c.pass.TypesInfo, x.expr) || !fixes.Pure(c.pass.TypesInfo, y.expr) {
 		return nil
 	}
 	name, edits, ok := c.importMath(cur, n.Pos())
@@ -183,43 +176,6 @@ func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y ope
 // import it if needed.
 func (c *checker) importMath(cur inspector.Cursor, pos token.Pos) (string, []analysis.TextEdit, bool) {
 	return fixes.Import(c.pass.TypesInfo, fileOf(cur), pos, "math")
-}
-
-// pure reports whether e can be evaluated twice without a visible effect:
-// names, field selections, indexing, constants, arithmetic, conversions and
-// calls of math functions on such operands.
-func (c *checker) pure(e ast.Expr) bool {
-	switch e := ast.Unparen(e).(type) {
-	case *ast.Ident, *ast.BasicLit:
-		return true
-	case *ast.SelectorExpr:
-		if sel, ok := c.pass.TypesInfo.Selections[e]; ok {
-			return sel.Kind() == types.FieldVal && c.pure(e.X)
-		}
-		return true // a qualified identifier
-	case *ast.IndexExpr:
-		_, isMap := c.pass.TypesInfo.TypeOf(e.X).Underlying().(*types.Map)
-		return !isMap && c.pure(e.X) && c.pure(e.Index)
-	case *ast.UnaryExpr:
-		return (e.Op == token.SUB || e.Op == token.ADD) && c.pure(e.X)
-	case *ast.BinaryExpr:
-		return c.pure(e.X) && c.pure(e.Y)
-	case *ast.CallExpr:
-		if tv := c.pass.TypesInfo.Types[e.Fun]; tv.IsType() {
-			return len(e.Args) == 1 && c.pure(e.Args[0]) // conversion
-		}
-		fn, ok := typeutil.Callee(c.pass.TypesInfo, e).(*types.Func)
-		if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
-			return false
-		}
-		for _, a := range e.Args {
-			if !c.pure(a) {
-				return false
-			}
-		}
-		return true
-	}
-	return false
 }
 
 // aggregate reports == or != on arrays or structs when both operands are

@@ -5,12 +5,14 @@ package suite
 import (
 	"golang.org/x/tools/go/analysis"
 
+	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
 	"roundoff/analyzers/internal/fixes"
 )
 
 // Analyzers is the roundoff suite.
 var Analyzers = []*analysis.Analyzer{
+	epsfloor.Analyzer,
 	exacteq.Analyzer,
 }
 

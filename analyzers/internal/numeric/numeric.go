@@ -14,17 +14,20 @@ import (
 
 // Format describes one IEEE 754-2019 binary floating-point format.
 type Format struct {
-	Name string  // "float64" or "float32"
-	Eps  float64 // machine epsilon: the spacing of floats just above 1
-	U    float64 // unit roundoff: Eps/2, the largest relative error of one correctly rounded operation
-	Bits int     // significand precision in bits, hidden bit included
+	Name     string  // "float64" or "float32"
+	Eps      float64 // machine epsilon: the spacing of floats just above 1
+	U        float64 // unit roundoff: Eps/2, the largest relative error of one correctly rounded operation
+	Bits     int     // significand precision in bits, hidden bit included
+	Smallest float64 // the smallest positive (subnormal) value
 }
 
 var (
 	// Float64 is the binary64 format.
-	Float64 = Format{Name: "float64", Eps: math.Nextafter(1, 2) - 1, U: (math.Nextafter(1, 2) - 1) / 2, Bits: 53}
+	Float64 = Format{Name: "float64", Eps: math.Nextafter(1, 2) - 1, U: (math.Nextafter(1, 2) - 1) / 2, Bits: 53,
+		Smallest: math.Nextafter(0, 1)}
 	// Float32 is the binary32 format.
-	Float32 = Format{Name: "float32", Eps: float64(math.Nextafter32(1, 2) - 1), U: float64(math.Nextafter32(1, 2)-1) / 2, Bits: 24}
+	Float32 = Format{Name: "float32", Eps: float64(math.Nextafter32(1, 2) - 1), U: float64(math.Nextafter32(1, 2)-1) / 2, Bits: 24,
+		Smallest: float64(math.Nextafter32(0, 1))}
 )
 
 // SqrtEps returns sqrt(Eps): the relative precision to which a minimizer
@@ -50,6 +53,14 @@ func Ulp(x float64) float64 {
 		return x - math.Nextafter(x, 0) // the spacing below, 2^971
 	}
 	return math.Nextafter(x, math.Inf(1)) - x
+}
+
+// Spacing returns the spacing of values of format f at magnitude |x|.
+func (f Format) Spacing(x float64) float64 {
+	if f == Float32 {
+		return float64(Ulp32(float32(x)))
+	}
+	return Ulp(x)
 }
 
 // Ulp32 returns the spacing of float32 values at magnitude |x|.

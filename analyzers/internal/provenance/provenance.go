@@ -384,7 +384,7 @@ func IsFloat(t types.Type) bool {
 // whose type set includes one of them.
 func Admits32(t types.Type) bool {
 	return !allTerms(t, func(b *types.Basic) bool {
-		return b.Kind() != types.Float32 && b.Kind() != types.Complex64 && b.Kind() != types.UntypedFloat
+		return b.Kind() != types.Float32 && b.Kind() != types.Complex64
 	})
 }
 

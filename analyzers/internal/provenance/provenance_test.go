@@ -356,7 +356,7 @@ func TestIsFloatAdmits32(t *testing.T) {
 		{"float32", types.Typ[types.Float32], true, true},
 		{"complex64", types.Typ[types.Complex64], true, true},
 		{"complex128", types.Typ[types.Complex128], true, false},
-		{"untyped float", types.Typ[types.UntypedFloat], true, true}, // documented: may become float32
+		{"untyped float", types.Typ[types.UntypedFloat], true, false}, // default type float64 (Go spec, constants)
 		{"int", types.Typ[types.Int], false, false},
 		{"string", types.Typ[types.String], false, false},
 		{"Celsius", pkg.Scope().Lookup("Celsius").Type(), true, true},

@@ -1,0 +1,210 @@
+package epsfloor
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/types"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/tolerance"
+)
+
+// apiParam describes a tolerance parameter of a well-known API.
+type apiParam struct {
+	index  int            // argument index, receiver excluded
+	kind   tolerance.Kind // Absolute or Relative
+	values [2]int         // indices of the compared values, whose constant size tells the magnitude
+}
+
+// apis lists the tolerance parameters of well-known APIs, keyed by package
+// path and function (or method) name. Zero means exact comparison on
+// purpose in all of them and is never reported. Add entries here.
+var apis = map[string][]apiParam{
+	"gonum.org/v1/gonum/floats/scalar.EqualWithinAbs": {{2, tolerance.Absolute, [2]int{0, 1}}},
+	"gonum.org/v1/gonum/floats/scalar.EqualWithinRel": {{2, tolerance.Relative, [2]int{1, 2}}},
+	// EqualWithinAbsOrRel and EqualApprox pass when either test does: only
+	// the relative part can make them exact, and only with a tiny absolute part.
+	"gonum.org/v1/gonum/floats.EqualApprox":              {{2, tolerance.Relative, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InDelta":         {{3, tolerance.Absolute, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InDeltaf":        {{3, tolerance.Absolute, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InDeltaSlice":    {{3, tolerance.Absolute, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InDeltaSlicef":   {{3, tolerance.Absolute, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InEpsilon":       {{3, tolerance.Relative, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InEpsilonf":      {{3, tolerance.Relative, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InEpsilonSlice":  {{3, tolerance.Relative, [2]int{1, 2}}},
+	"github.com/stretchr/testify/assert.InEpsilonSlicef": {{3, tolerance.Relative, [2]int{1, 2}}},
+}
+
+// apiParams returns the table entries for fn; testify's require package
+// mirrors assert, and methods on *assert.Assertions drop the leading t.
+func apiParams(fn *types.Func) []apiParam {
+	if fn.Pkg() == nil {
+		return nil
+	}
+	path := fn.Pkg().Path()
+	if path == "github.com/stretchr/testify/require" {
+		path = "github.com/stretchr/testify/assert"
+	}
+	ps := apis[path+"."+fn.Name()]
+	if fn.Signature().Recv() == nil || len(ps) == 0 {
+		return ps
+	}
+	shifted := make([]apiParam, len(ps))
+	for i, p := range ps {
+		shifted[i] = apiParam{p.index - 1, p.kind, [2]int{p.values[0] - 1, p.values[1] - 1}}
+	}
+	return shifted
+}
+
+// call reports constant tolerances passed to a function that uses the
+// parameter as one: a well-known API, or a function with a recorded use.
+func (c *checker) call(call *ast.CallExpr) {
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok {
+		return
+	}
+	for _, p := range apiParams(fn) {
+		if p.index < len(call.Args) {
+			u := use{Kind: p.kind, Where: fn.Name()}
+			c.site(call.Args[p.index], u, c.apiMagnitude(call, p), fmt.Sprintf("passed to %s.%s, which uses it as", fn.Pkg().Name(), fn.Name()))
+		}
+	}
+	sig := fn.Signature()
+	for i, u := range c.paramUses(fn) {
+		if i < len(call.Args) && !(sig.Variadic() && i == sig.Params().Len()-1) {
+			c.site(call.Args[i], u, 0, fmt.Sprintf("passed as %s to %s, which uses it as", sig.Params().At(i).Name(), fn.Name()))
+		}
+	}
+}
+
+// paramUses returns the tolerance parameters of fn, known in this package
+// or from a fact.
+func (c *checker) paramUses(fn *types.Func) map[int]use {
+	if ps, ok := c.params[fn.Origin()]; ok {
+		return ps
+	}
+	var f paramsFact
+	if c.pass.ImportObjectFact(fn.Origin(), &f) {
+		return f.Params
+	}
+	return nil
+}
+
+// fieldUse returns the tolerance use of a field, known in this package or
+// from a fact.
+func (c *checker) fieldUse(field *types.Var) (use, bool) {
+	if u, ok := c.fields[field]; ok {
+		return u, true
+	}
+	var f fieldFact
+	if c.pass.ImportObjectFact(field, &f) {
+		return f.Use, true
+	}
+	return use{}, false
+}
+
+// apiMagnitude returns the size of a compared value of an API call that is
+// a constant, or 0.
+func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
+	for _, i := range p.values {
+		if i >= len(call.Args) {
+			continue
+		}
+		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, call.Args[i]); ok && constant.Sign(v) != 0 {
+			return abs(value(v, numeric.Float64))
+		}
+	}
+	return 0
+}
+
+// compositeLit reports constant tolerances set in a struct literal.
+func (c *checker) compositeLit(lit *ast.CompositeLit) {
+	st, ok := typeOf(c.pass.TypesInfo, lit).Underlying().(*types.Struct)
+	if !ok {
+		return
+	}
+	for i, elt := range lit.Elts {
+		field, val := st.Field(min(i, st.NumFields()-1)), elt
+		if kv, ok := elt.(*ast.KeyValueExpr); ok {
+			id, ok := kv.Key.(*ast.Ident)
+			if !ok {
+				return
+			}
+			field, _ = c.pass.TypesInfo.Uses[id].(*types.Var)
+			val = kv.Value
+		}
+		if u, ok := c.fieldUse(field); ok && field != nil {
+			c.site(val, u, 0, fmt.Sprintf("set as field %s, which %s uses as", field.Name(), u.Where))
+		}
+	}
+}
+
+// typeOf returns the type of a composite literal, looking through pointers
+// for &T{...} elided in slices of pointers.
+func typeOf(info *types.Info, lit *ast.CompositeLit) types.Type {
+	t := info.TypeOf(lit)
+	if p, ok := t.Underlying().(*types.Pointer); ok {
+		return p.Elem()
+	}
+	return t
+}
+
+// assign reports constant tolerances assigned to a field, as in the
+// defaulting idiom if s.Tol == 0 { s.Tol = 1e-18 }.
+func (c *checker) assign(as *ast.AssignStmt) {
+	if len(as.Lhs) != len(as.Rhs) {
+		return
+	}
+	for i, lhs := range as.Lhs {
+		sel, ok := ast.Unparen(lhs).(*ast.SelectorExpr)
+		if !ok {
+			continue
+		}
+		if field, ok := fieldOf(c.pass.TypesInfo, sel); ok {
+			if u, ok := c.fieldUse(field); ok {
+				c.site(as.Rhs[i], u, 0, fmt.Sprintf("assigned to field %s, which %s uses as", field.Name(), u.Where))
+			}
+		}
+	}
+}
+
+// site reports a constant val that reaches a tolerance of the given use.
+func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val)
+	if !ok {
+		return
+	}
+	f := u.format()
+	tol := value(v, f)
+	res := tolerance.Judge(u.Kind, tol, f, mag)
+	if res == tolerance.Resolvable {
+		return
+	}
+	src := fixes.Source(c.pass.Fset, val)
+	kind := map[tolerance.Kind]string{tolerance.Absolute: "an absolute", tolerance.Relative: "a relative"}[u.Kind]
+	d := analysis.Diagnostic{
+		Pos: val.Pos(), End: val.End(), Category: category(res),
+		Message: fmt.Sprintf("%s, %s %s tolerance, %s", withValue(src, tol), how, kind, explain(res, tol, f, mag)),
+	}
+	var fs []fixes.Fix
+	switch res {
+	case tolerance.BelowRoundoff:
+		fs = append(fs, fixes.Judgement("Use 4 ulps as the relative tolerance: "+fewUlps(f), fixes.Replace(val, fewUlps(f))))
+	case tolerance.Subnormal:
+		fs = append(fs, fixes.Judgement("Use "+f.Name+" epsilon: "+epsLit(f), fixes.Replace(val, epsLit(f))))
+	}
+	fixes.Report(c.pass, d, fs...)
+}
+
+func abs(x float64) float64 {
+	if x < 0 {
+		return -x
+	}
+	return x
+}

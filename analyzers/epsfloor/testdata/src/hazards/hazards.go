@@ -1,0 +1,147 @@
+// Package hazards holds tolerances below what the float type resolves.
+package hazards
+
+import "math"
+
+const tight = 1e-18
+
+var loose = 1e-20 // never reassigned
+
+func relLiteral(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-17*math.Abs(b) // want `relative tolerance 1e-17 is below the unit roundoff of float64 \(1.11e-16\): two different float64 values always differ by more, so the test is exact equality; use a few ulps, such as 4\*0x1p-52 \(8.9e-16\)`
+}
+
+func relQuotient(a, b float64) bool {
+	return math.Abs(a-b)/math.Abs(b) < 1e-20 // want `relative tolerance 1e-20 is below the unit roundoff`
+}
+
+func relMax(a, b float64) bool {
+	return math.Abs(a-b) < tight*math.Max(math.Abs(a), math.Abs(b)) // want `relative tolerance tight \(1e-18\) is below the unit roundoff`
+}
+
+func relInner(a, b float64) bool {
+	return math.Abs((a-b)/b) < 1e-19 // want `relative tolerance 1e-19 is below`
+}
+
+func relFlipped(a, b float64) bool {
+	return 1e-17*math.Abs(a) >= math.Abs(a-b) // want `relative tolerance 1e-17 is below`
+}
+
+func relVariable(a, b float64) bool {
+	d := math.Abs(a - b)
+	r := d / math.Abs(a)
+	return r < loose // want `relative tolerance loose \(1e-20\) is below`
+}
+
+func absTight(a, b float64) bool {
+	return math.Abs(a-b) < 1e-20 // want `absolute tolerance 1e-20 is below float64 epsilon \(2.22e-16\): the test can hold for unequal values only when they are below about 4.5e-05 \(tol/eps\), and is exact equality above; add a relative term`
+}
+
+func absKnown(x float64) bool {
+	return math.Abs(x-1) <= 1e-17 // want `absolute tolerance 1e-17 is below half the spacing of float64 values at 1 \(1.11e-16\): the test passes only on exact equality`
+}
+
+func absNeq(x, y float64) bool {
+	return math.Abs(x-y) > 5e-17 // want `absolute tolerance 5e-17 is below float64 epsilon`
+}
+
+func subnormal(a, b float64) bool {
+	return math.Abs(a-b) < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 \(5e-324\) is the smallest positive float64: it says how small a number can be, not how close two can be \(float64 epsilon is 2.22e-16\)`
+}
+
+func subnormalLiteral(a, b float64) bool {
+	return math.Abs(a-b) <= 4.9406564584124654e-324 // want `is the smallest positive float64`
+}
+
+func float32Rel(a, b float32) bool {
+	return math.Abs(float64(a-b)) < 1e-9*math.Abs(float64(b)) // want `relative tolerance 1e-9 is below the unit roundoff of float32 \(5.96e-08\)`
+}
+
+func float32Native(a, b float32) bool {
+	d := a - b
+	if d < 0 {
+		d = -d
+	}
+	return float32(math.Abs(float64(a-b))) < 1e-9 // want `absolute tolerance 1e-9 is below float32 epsilon \(1.19e-07\)`
+}
+
+// Real is a type set that admits float32.
+type Real interface{ ~float32 | ~float64 }
+
+func generic[T Real](a, b T) bool {
+	return T(math.Abs(float64(a-b))) < 1e-12 // want `absolute tolerance 1e-12 is below float32 epsilon`
+}
+
+func newton(f, df func(float64) float64, theta float64) float64 {
+	for range 50 {
+		theta -= f(theta) / df(theta)
+		if math.Abs(theta) < 1e-16 { // want `tolerance 1e-16 tests the iterate theta itself, not its change: \|theta\| < 1e-16 holds only for a root within 1e-16 of zero`
+			break
+		}
+	}
+	return theta
+}
+
+func absorbedAdd() float64 {
+	p := 0.4985 + math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 0.4985: it is below half the spacing of float64 values there \(2.78e-17\), so the sum rounds back to exactly 0.4985`
+	return p
+}
+
+func absorbedSub() float64 {
+	return 1 - math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 1`
+}
+
+func absorbedLeft() float64 {
+	return 1e-30 + 1 // want `1e-30 has no effect on 1`
+}
+
+func absorbed32() float32 {
+	var x float32 = 1 + 1e-9 // want `1e-9 has no effect on 1: it is below half the spacing of float32 values there \(5.96e-08\)`
+	return x
+}
+
+// Options configures a solver.
+type Options struct {
+	RelTol float64 // want RelTol:"a relative tolerance of float64 in converged"
+	AbsTol float64 // want AbsTol:"an? absolute tolerance of float64 in close"
+}
+
+func (o *Options) converged(a, b float64) bool {
+	return math.Abs(a-b) <= o.RelTol*math.Abs(b)
+}
+
+func (o *Options) close(a, b float64) bool {
+	return math.Abs(a-b) < o.AbsTol
+}
+
+func defaults(o *Options) {
+	if o.RelTol == 0 {
+		o.RelTol = 1e-18 // want `1e-18, assigned to field RelTol, which converged uses as a relative tolerance, is below the unit roundoff`
+	}
+	if o.AbsTol == 0 {
+		o.AbsTol = 1e-30 // want `1e-30, assigned to field AbsTol, which close uses as an absolute tolerance, is below float64 epsilon`
+	}
+}
+
+func literalField() *Options {
+	return &Options{RelTol: 1e-19} // want `1e-19, set as field RelTol, which converged uses as a relative tolerance, is below`
+}
+
+func solve(a, b, tol float64) bool { // want solve:"parameter 2 is a relative tolerance of float64 in solve"
+	return math.Abs(a-b) <= tol*math.Abs(a)
+}
+
+func callsSolve(a, b float64) bool {
+	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve, which uses it as a relative tolerance, is below`
+}
+
+func stepTest(x float64) float64 {
+	for range 50 {
+		step := x/2 - 1
+		x -= step
+		if math.Abs(step) < 1e-16*math.Abs(x) { // want `relative tolerance 1e-16 is below the unit roundoff of float64`
+			break
+		}
+	}
+	return x
+}

@@ -1,0 +1,126 @@
+// Package idioms holds tolerances and tiny constants that are right, and
+// must not be reported.
+package idioms
+
+import "math"
+
+const safmin = 0x1p-1022 // smallest normal: a safe minimum
+
+func unitRoundoff(a, b float64) bool {
+	return math.Abs(a-b) <= 0x1p-53*math.Abs(b) // u itself: converged to full precision
+}
+
+func betweenUAndEps(a, b float64) bool {
+	return math.Abs(a-b) <= 1.5e-16*math.Abs(b) // between u and eps: say nothing
+}
+
+func epsRelative(a, b float64) bool {
+	return math.Abs(a-b) <= 2.220446049250313e-16*math.Max(math.Abs(a), math.Abs(b))
+}
+
+func saneRelative(a, b float64) bool {
+	return math.Abs(a-b) < 1e-12*math.Abs(b)
+}
+
+func saneAbsolute(a, b float64) bool {
+	return math.Abs(a-b) < 1e-9
+}
+
+func zeroTolerance(a, b float64) bool {
+	return math.Abs(a-b) <= 0 // exact on purpose
+}
+
+func safeMinimum(a, b float64) bool {
+	return math.Abs(a-b) < safmin // an underflow guard, not a tolerance
+}
+
+func smallNumber(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-292 // LAPACK-style small number
+}
+
+func divisionGuard(d float64) float64 {
+	if math.Abs(d) < 1e-300 { // a single magnitude guarding a division
+		d = 1e-300
+	}
+	return 1 / d
+}
+
+func tinyDenominator(x, y float64) float64 {
+	return x / (y + 1e-30) // not a comparison
+}
+
+func squared(re, im float64) bool {
+	abs2 := re*re + im*im
+	return abs2 < 1e-16 // |z| < 1e-8: a threshold on a squared quantity
+}
+
+func mixed(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-30+1e-12*math.Abs(b) // atol + rtol·|b|
+}
+
+func floors(x float64) float64 {
+	return math.Max(x, 1e-20) // a floor, not a comparison
+}
+
+func physical(m float64) float64 {
+	const planck = 6.62607015e-34 // a physical constant in arithmetic
+	return m * planck
+}
+
+var table = []float64{1e-20, 1e-30, 1e-40} // constants in a data table
+
+func knownTinyMagnitude(x float64) bool {
+	return math.Abs(x-1e-20) < 1e-30 // values near 1e-20 are 1.5e-36 apart: resolvable
+}
+
+func magnitudeTest(r float64) bool {
+	return math.Abs(r) < 1e-20 // a residual, not an iterate or a difference
+}
+
+func iterateSane(x float64) float64 {
+	for range 10 {
+		x -= x / 2
+		if math.Abs(x) < 1e-6 { // a sane threshold
+			break
+		}
+	}
+	return x
+}
+
+func negativeSentinel(a, b, tol float64) bool { // want negativeSentinel:"parameter 2 is an absolute tolerance of float64 in negativeSentinel"
+	return math.Abs(a-b) < tol
+}
+
+func sentinelCalls(a, b float64) bool {
+	return negativeSentinel(a, b, -1) || negativeSentinel(a, b, 0) || negativeSentinel(a, b, math.NaN())
+}
+
+func representableSum() float64 {
+	return 1 + 0x1p-52 // the next float after 1: has an effect
+}
+
+func halfUlp() float64 {
+	return 1 - 0x1p-53 // the float just below 1 is 1-2^-53: representable
+}
+
+func intSum() int {
+	return 1 + 2 // not a float
+}
+
+type config struct {
+	Tol float64 // want Tol:"a relative tolerance of float64 in close"
+}
+
+func (c config) close(a, b float64) bool {
+	return math.Abs(a-b) < c.Tol*math.Abs(b)
+}
+
+func saneField() config {
+	return config{Tol: 1e-10}
+}
+
+func saneDefault(c *config) {
+	if c.Tol == 0 {
+		c.Tol = 4 * 0x1p-52
+	}
+}

@@ -1,0 +1,19 @@
+// Package tolapi offers a solver whose tolerance is a parameter and a field.
+package tolapi
+
+import "math"
+
+// Settings configures Refine.
+type Settings struct {
+	RelTol float64 // want RelTol:"a relative tolerance of float64 in Refine"
+}
+
+// Refine reports whether a and b agree to the settings' tolerance.
+func Refine(s Settings, a, b float64) bool {
+	return math.Abs(a-b) <= s.RelTol*math.Abs(b)
+}
+
+// Agree reports whether a and b agree to within tol, absolutely.
+func Agree(a, b, tol float64) bool { // want Agree:"parameter 2 is an absolute tolerance of float64 in Agree"
+	return math.Abs(a-b) < tol
+}

@@ -146,11 +146,13 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
-	if cx && cy || cx && c.track.Stored(y.val) || cy && c.track.Stored(x.val) {
-		if derived(x.val, y.val) {
-			return // one operand is derived from the other on purpose
+	if cx && cy {
+		if !derived(x.val, y.val) {
+			c.reportComputed(cur, n, op, x, y, nil)
 		}
-		c.reportComputed(cur, n, op, x, y)
+		return
+	}
+	if cx && c.stored(cur, n, op, x, y) || cy && c.stored(cur, n, op, y, x) {
 		return
 	}
 	if cx {
@@ -158,6 +160,21 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 	} else if cy {
 		c.literal(cur, n, op, y, x)
 	}
+}
+
+// stored reports a computed value x compared with y, a load of a field into
+// which the package stores computed values, unless x is derived from y or
+// stored into that very field (a cache key). It reports whether y was such
+// a load.
+func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) bool {
+	field := c.track.StoredField(y.val)
+	if field == nil {
+		return false
+	}
+	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) {
+		c.reportComputed(cur, n, op, x, y, field)
+	}
+	return true
 }
 
 // derived reports whether the operands are related in a way that makes an

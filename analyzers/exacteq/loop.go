@@ -45,15 +45,19 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	}
 	name := fixes.Source(c.pass.Fset, v.expr)
 	bnd := fixes.Source(c.pass.Fset, bound.expr)
-	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; stop with an ordered test half a step short of the bound instead", name, n.Op, bnd)
+	remedy := "stop with an ordered test instead"
+	if step.Op == token.ADD || step.Op == token.SUB {
+		remedy = "stop with an ordered test half a step short of the bound instead"
+	}
+	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; %s", name, n.Op, bnd, remedy)
 	if sim.known {
 		short := numeric.Short
 		if format(phi.Type()) == numeric.Float32 {
 			short = func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 32) }
 		}
-		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; stop with an ordered test half a step short of the bound instead",
+		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; %s",
 			name, short(sim.start), short(sim.step), bnd, short(sim.before), short(sim.after),
-			map[token.Token]string{token.NEQ: "never stops", token.EQL: "never runs to the bound"}[n.Op])
+			map[token.Token]string{token.NEQ: "never stops", token.EQL: "never runs to the bound"}[n.Op], remedy)
 	}
 	d := analysis.Diagnostic{Pos: n.Pos(), End: n.End(), Category: catLoop, Message: msg}
 	fixes.Report(c.pass, d, c.halfStepFix(n, loop, v, bound, step, phi, varLeft)...)
@@ -67,9 +71,8 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 // that would miss it by rounding stops after the iterations exact
 // arithmetic gives, instead of running one more at bound - ulp.
 func (c *checker) halfStepFix(n *ast.BinaryExpr, loop *ast.ForStmt, v, bound operand, step *ssa.BinOp, phi *ssa.Phi, varLeft bool) []fixes.Fix {
-	post, ok := loop.Post.(*ast.AssignStmt)
-	if n.Op != token.NEQ || !ok || len(post.Lhs) != 1 || (post.Tok != token.ADD_ASSIGN && post.Tok != token.SUB_ASSIGN) ||
-		!sameVar(c.pass.TypesInfo, post.Lhs[0], v.expr) || !fixes.Pure(c.pass.TypesInfo, post.Rhs[0]) || !fixes.Pure(c.pass.TypesInfo, bound.expr) {
+	s0, add, ok := postStep(c.pass.TypesInfo, loop.Post, v.expr)
+	if n.Op != token.NEQ || !ok || !fixes.Pure(c.pass.TypesInfo, s0) || !fixes.Pure(c.pass.TypesInfo, bound.expr) {
 		return nil
 	}
 	other := step.Y
@@ -80,17 +83,37 @@ func (c *checker) halfStepFix(n *ast.BinaryExpr, loop *ast.ForStmt, v, bound ope
 	if !ok || s == 0 || math.IsNaN(s) {
 		return nil // the step's sign, hence the direction, is unknown
 	}
-	grows, back := (s > 0) == (post.Tok == token.ADD_ASSIGN), " - "
-	if post.Tok == token.SUB_ASSIGN {
+	grows, back := (s > 0) == add, " - "
+	if !add {
 		back = " + "
 	}
-	limit := fixes.Operand(c.pass.Fset, bound.expr, token.ADD.Precedence()) + back + "0.5*" + fixes.Operand(c.pass.Fset, post.Rhs[0], token.MUL.Precedence()+1)
+	limit := fixes.Operand(c.pass.Fset, bound.expr, token.ADD.Precedence()) + back + "0.5*" + fixes.Operand(c.pass.Fset, s0, token.MUL.Precedence()+1)
 	rel := map[bool]string{true: " < ", false: " > "}[grows == varLeft]
 	text := fixes.Source(c.pass.Fset, v.expr) + rel + limit
 	if !varLeft {
 		text = limit + rel + fixes.Source(c.pass.Fset, v.expr)
 	}
 	return []fixes.Fix{fixes.Safe("Stop half a step before the bound: "+text, fixes.Replace(n, text))}
+}
+
+// postStep reads a loop's post statement as a constant-step update of the
+// variable x: x += s, x -= s, x = x + s or x = x - s. It returns s and
+// whether the step is added.
+func postStep(info *types.Info, post ast.Stmt, x ast.Expr) (ast.Expr, bool, bool) {
+	as, ok := post.(*ast.AssignStmt)
+	if !ok || len(as.Lhs) != 1 || len(as.Rhs) != 1 || !sameVar(info, as.Lhs[0], x) {
+		return nil, false, false
+	}
+	switch as.Tok {
+	case token.ADD_ASSIGN, token.SUB_ASSIGN:
+		return as.Rhs[0], as.Tok == token.ADD_ASSIGN, true
+	case token.ASSIGN:
+		b, ok := ast.Unparen(as.Rhs[0]).(*ast.BinaryExpr)
+		if ok && (b.Op == token.ADD || b.Op == token.SUB) && sameVar(info, b.X, x) {
+			return b.Y, b.Op == token.ADD, true
+		}
+	}
+	return nil, false, false
 }
 
 // sameVar reports whether a and b name the same variable.

@@ -89,18 +89,23 @@ func rtol(f numeric.Format) string {
 	return "1e-9"
 }
 
-// reportComputed reports the exact comparison of two computed values.
-func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
+// reportComputed reports the exact comparison of two computed values; field
+// is set when y is a load of a field that holds computed values.
+func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand, field *types.Var) {
 	t := c.pass.TypesInfo.TypeOf(x.expr)
 	f := format(t)
 	node := ast.Node(n)
 	if n == nil {
 		node = y.expr
 	}
+	what := fmt.Sprintf("two computed %s values", typeName(t))
+	if field != nil {
+		what = fmt.Sprintf("a computed %s value and field %s, which this package fills with computed values", typeName(t), field.Name())
+	}
 	d := analysis.Diagnostic{
 		Pos: node.Pos(), End: node.End(), Category: catComputed,
-		Message: fmt.Sprintf("exact %s between two computed %s values: each carries rounding error (up to %.3g relative per operation, more where fused multiply-add differs by platform); compare within a tolerance such as %s relative",
-			op, typeName(t), f.U, rtol(f)),
+		Message: fmt.Sprintf("exact %s between %s: each carries rounding error (up to %.3g relative per operation, more where fused multiply-add differs by platform); compare within a tolerance such as %s relative",
+			op, what, f.U, rtol(f)),
 	}
 	fixes.Report(c.pass, d, c.toleranceFix(cur, n, x, y, t)...)
 }

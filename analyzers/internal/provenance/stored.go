@@ -7,26 +7,46 @@ import (
 	"golang.org/x/tools/go/ssa"
 )
 
-// Stored reports whether v is a load from a struct field (or an element of
-// a slice or array held in one) into which this package stores computed
-// floats: running path lengths kept in a distance table, costs cached on
-// graph nodes. Such a load carries the rounding error of what was stored.
+// StoredField returns the struct field v is loaded from (directly, or as
+// an element of a slice or array held in it) when this package stores
+// computed floats into that field: running path lengths kept in a distance
+// table, costs cached on graph nodes. Such a load carries the rounding
+// error of what was stored. It returns nil for anything else.
 //
-// In _test.go files it is always false: a test reading what the code under
-// test stored, to compare with its own computation, does so on purpose.
-func (t *Tracker) Stored(v ssa.Value) bool {
+// In _test.go files it always returns nil: a test reading what the code
+// under test stored, to compare with its own computation, does so on
+// purpose.
+func (t *Tracker) StoredField(v ssa.Value) *types.Var {
 	v = Strip(v)
 	field := loadedField(v)
 	if field == nil {
-		return false
+		return nil
 	}
 	if instr, ok := v.(ssa.Instruction); ok && inTestFile(instr.Parent()) {
-		return false
+		return nil
 	}
 	if t.fields == nil {
 		t.scanStores()
 	}
-	return t.fields[field]
+	if !t.fields[field] {
+		return nil
+	}
+	return field
+}
+
+// StoredInto reports whether v itself is stored into field: a cache that
+// compares a key with the one it keeps does so exactly on purpose.
+func StoredInto(v ssa.Value, field *types.Var) bool {
+	refs := Strip(v).Referrers()
+	if refs == nil {
+		return false
+	}
+	for _, r := range *refs {
+		if st, ok := r.(*ssa.Store); ok && addrField(st.Addr) == field {
+			return true
+		}
+	}
+	return false
 }
 
 // loadedField returns the struct field a load reads, directly or through

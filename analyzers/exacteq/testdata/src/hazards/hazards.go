@@ -126,5 +126,5 @@ func (r *road) relax(to int, d float64) { r.dist[to] = d }
 func tie(r *road, from, to int, w float64) bool {
 	joint := r.dist[from] + w
 	r.relax(to, joint)
-	return joint == r.dist[from+1] // want `two computed float64 values`
+	return joint == r.dist[from+1] // want `exact == between a computed float64 value and field dist, which this package fills with computed values`
 }

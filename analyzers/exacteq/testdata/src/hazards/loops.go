@@ -55,3 +55,19 @@ func loopAnd(limit int) int {
 	}
 	return n
 }
+
+func loopPlainAssign() int {
+	n := 0
+	for x := 0.0; x != 1; x = x + 0.1 { // want `float loop variable x goes from 0 in steps of 0.1 and never equals 1`
+		n++
+	}
+	return n
+}
+
+func loopTimes() int {
+	n := 0
+	for x := 1.0; x != 2; x *= 1.1 { // want `float loop variable x is tested with != against 2 but changes by rounded arithmetic and may step over it, so the loop may never stop; stop with an ordered test instead`
+		n++
+	}
+	return n
+}

@@ -204,3 +204,14 @@ func halves(a float64) bool {
 func representableLiteral(a, b float64) bool {
 	return a+b == 0.5 // 0.5 is stored exactly
 }
+
+type memo struct{ key, val float64 }
+
+func (m *memo) lookup(a, b float64) float64 {
+	k := a * b
+	if m.key == k { // a cache compares the key it stored last
+		return m.val
+	}
+	m.key, m.val = k, math.Sqrt(k)
+	return m.val
+}

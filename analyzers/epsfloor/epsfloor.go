@@ -85,18 +85,20 @@ func (f *fieldFact) String() string { return f.Use.String() }
 
 // checker holds what one run needs.
 type checker struct {
-	pass   *analysis.Pass
-	decls  map[types.Object]ast.Expr
-	params map[*types.Func]map[int]use // this package's functions
-	fields map[*types.Var]use          // this package's fields
+	pass      *analysis.Pass
+	decls     map[types.Object]ast.Expr
+	params    map[*types.Func]map[int]use // this package's functions
+	fields    map[*types.Var]use          // this package's fields
+	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
-		pass:   pass,
-		decls:  constval.Decls(pass.TypesInfo, pass.Files),
-		params: make(map[*types.Func]map[int]use),
-		fields: make(map[*types.Var]use),
+		pass:      pass,
+		decls:     constval.Decls(pass.TypesInfo, pass.Files),
+		params:    make(map[*types.Func]map[int]use),
+		fields:    make(map[*types.Var]use),
+		defaulted: make(map[*ast.FuncDecl]map[*types.Var][]ast.Expr),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	// First the tolerance tests, which also learn the tolerance parameters
@@ -105,14 +107,15 @@ func run(pass *analysis.Pass) (any, error) {
 		c.comparison(cur, cur.Node().(*ast.BinaryExpr))
 	}
 	c.exportFacts()
+	known := c.known()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
-		switch n := cur.Node().(type) {
+		n := cur.Node()
+		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
+			c.site(val, u, 0, how)
+		})
+		switch n := n.(type) {
 		case *ast.CallExpr:
 			c.call(n)
-		case *ast.CompositeLit:
-			c.compositeLit(n)
-		case *ast.AssignStmt:
-			c.assign(n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		}
@@ -131,19 +134,44 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.constantTol(cur, t, f, value(v, f))
 		return
 	}
-	u := use{Kind: t.Kind, Float32: f == numeric.Float32}
-	switch tol := ast.Unparen(t.Tol).(type) {
-	case *ast.Ident:
-		if fn, i, ok := paramOf(c.pass.TypesInfo, cur, tol); ok && t.Kind != tolerance.Magnitude {
-			u.Where = fn.Name()
+	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur)}
+	if t.Kind == tolerance.Magnitude {
+		return
+	}
+	if field := tolerance.FieldOf(c.pass.TypesInfo, t.Tol); field != nil && field.Pkg() == c.pass.Pkg {
+		c.fields[field] = u
+		return
+	}
+	id, ok := ast.Unparen(t.Tol).(*ast.Ident)
+	if !ok {
+		return
+	}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		decl := fd.Node().(*ast.FuncDecl)
+		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
 			c.learnParam(fn, i, u)
 		}
-	case *ast.SelectorExpr:
-		if field, ok := fieldOf(c.pass.TypesInfo, tol); ok && t.Kind != tolerance.Magnitude && field.Pkg() == c.pass.Pkg {
-			u.Where = enclosingName(cur)
-			c.fields[field] = u
-		}
+		c.defaults(decl, id, u)
 	}
+}
+
+// defaults reports constants given to the tolerance id in the defaulting
+// idiom if tol == 0 { tol = c } within the function.
+func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
+	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
+	for _, val := range c.defaultsOf(decl)[v] {
+		c.site(val, u, 0, "given as the default of "+id.Name)
+	}
+}
+
+// defaultsOf returns the defaulting idioms of a function, computed once.
+func (c *checker) defaultsOf(decl *ast.FuncDecl) map[*types.Var][]ast.Expr {
+	d, ok := c.defaulted[decl]
+	if !ok {
+		d = tolerance.Defaults(c.pass.TypesInfo, decl.Body)
+		c.defaulted[decl] = d
+	}
+	return d
 }
 
 // learnParam records parameter i of fn as a tolerance.
@@ -182,38 +210,6 @@ func value(v constant.Value, f numeric.Format) float64 {
 	}
 	x, _ := constant.Float64Val(constant.ToFloat(v))
 	return x
-}
-
-// paramOf reports whether id names a parameter of the function declaration
-// enclosing cur, returning the function and the parameter's index.
-func paramOf(info *types.Info, cur inspector.Cursor, id *ast.Ident) (*types.Func, int, bool) {
-	obj, ok := info.Uses[id].(*types.Var)
-	if !ok {
-		return nil, 0, false
-	}
-	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
-		fn, ok := info.Defs[fd.Node().(*ast.FuncDecl).Name].(*types.Func)
-		if !ok {
-			return nil, 0, false
-		}
-		params := fn.Signature().Params()
-		for i := range params.Len() {
-			if params.At(i) == obj {
-				return fn, i, true
-			}
-		}
-	}
-	return nil, 0, false
-}
-
-// fieldOf returns the struct field a selector reads.
-func fieldOf(info *types.Info, sel *ast.SelectorExpr) (*types.Var, bool) {
-	s, ok := info.Selections[sel]
-	if !ok || s.Kind() != types.FieldVal {
-		return nil, false
-	}
-	v, ok := s.Obj().(*types.Var)
-	return v, ok
 }
 
 // enclosingName names the function declaration around cur, for messages.

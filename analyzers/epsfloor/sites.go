@@ -62,8 +62,7 @@ func apiParams(fn *types.Func) []apiParam {
 	return shifted
 }
 
-// call reports constant tolerances passed to a function that uses the
-// parameter as one: a well-known API, or a function with a recorded use.
+// call reports constant tolerances passed to a well-known API.
 func (c *checker) call(call *ast.CallExpr) {
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
 	if !ok {
@@ -72,41 +71,36 @@ func (c *checker) call(call *ast.CallExpr) {
 	for _, p := range apiParams(fn) {
 		if p.index < len(call.Args) {
 			u := use{Kind: p.kind, Where: fn.Name()}
-			c.site(call.Args[p.index], u, c.apiMagnitude(call, p), fmt.Sprintf("passed to %s.%s, which uses it as", fn.Pkg().Name(), fn.Name()))
-		}
-	}
-	sig := fn.Signature()
-	for i, u := range c.paramUses(fn) {
-		if i < len(call.Args) && !(sig.Variadic() && i == sig.Params().Len()-1) {
-			c.site(call.Args[i], u, 0, fmt.Sprintf("passed as %s to %s, which uses it as", sig.Params().At(i).Name(), fn.Name()))
+			c.site(call.Args[p.index], u, c.apiMagnitude(call, p), fmt.Sprintf("passed to %s.%s", fn.Pkg().Name(), fn.Name()))
 		}
 	}
 }
 
-// paramUses returns the tolerance parameters of fn, known in this package
-// or from a fact.
-func (c *checker) paramUses(fn *types.Func) map[int]use {
-	if ps, ok := c.params[fn.Origin()]; ok {
-		return ps
+// known returns where this package, and the packages it imports through
+// facts, use parameters and fields as tolerances.
+func (c *checker) known() tolerance.Lookup[use] {
+	return tolerance.Lookup[use]{
+		Params: func(fn *types.Func) map[int]use {
+			if ps, ok := c.params[fn]; ok {
+				return ps
+			}
+			var f paramsFact
+			if c.pass.ImportObjectFact(fn, &f) {
+				return f.Params
+			}
+			return nil
+		},
+		Field: func(field *types.Var) (use, bool) {
+			if u, ok := c.fields[field]; ok {
+				return u, true
+			}
+			var f fieldFact
+			if c.pass.ImportObjectFact(field, &f) {
+				return f.Use, true
+			}
+			return use{}, false
+		},
 	}
-	var f paramsFact
-	if c.pass.ImportObjectFact(fn.Origin(), &f) {
-		return f.Params
-	}
-	return nil
-}
-
-// fieldUse returns the tolerance use of a field, known in this package or
-// from a fact.
-func (c *checker) fieldUse(field *types.Var) (use, bool) {
-	if u, ok := c.fields[field]; ok {
-		return u, true
-	}
-	var f fieldFact
-	if c.pass.ImportObjectFact(field, &f) {
-		return f.Use, true
-	}
-	return use{}, false
 }
 
 // apiMagnitude returns the size of a compared value of an API call that is
@@ -123,57 +117,6 @@ func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
 	return 0
 }
 
-// compositeLit reports constant tolerances set in a struct literal.
-func (c *checker) compositeLit(lit *ast.CompositeLit) {
-	st, ok := typeOf(c.pass.TypesInfo, lit).Underlying().(*types.Struct)
-	if !ok {
-		return
-	}
-	for i, elt := range lit.Elts {
-		field, val := st.Field(min(i, st.NumFields()-1)), elt
-		if kv, ok := elt.(*ast.KeyValueExpr); ok {
-			id, ok := kv.Key.(*ast.Ident)
-			if !ok {
-				return
-			}
-			field, _ = c.pass.TypesInfo.Uses[id].(*types.Var)
-			val = kv.Value
-		}
-		if u, ok := c.fieldUse(field); ok && field != nil {
-			c.site(val, u, 0, fmt.Sprintf("set as field %s, which %s uses as", field.Name(), u.Where))
-		}
-	}
-}
-
-// typeOf returns the type of a composite literal, looking through pointers
-// for &T{...} elided in slices of pointers.
-func typeOf(info *types.Info, lit *ast.CompositeLit) types.Type {
-	t := info.TypeOf(lit)
-	if p, ok := t.Underlying().(*types.Pointer); ok {
-		return p.Elem()
-	}
-	return t
-}
-
-// assign reports constant tolerances assigned to a field, as in the
-// defaulting idiom if s.Tol == 0 { s.Tol = 1e-18 }.
-func (c *checker) assign(as *ast.AssignStmt) {
-	if len(as.Lhs) != len(as.Rhs) {
-		return
-	}
-	for i, lhs := range as.Lhs {
-		sel, ok := ast.Unparen(lhs).(*ast.SelectorExpr)
-		if !ok {
-			continue
-		}
-		if field, ok := fieldOf(c.pass.TypesInfo, sel); ok {
-			if u, ok := c.fieldUse(field); ok {
-				c.site(as.Rhs[i], u, 0, fmt.Sprintf("assigned to field %s, which %s uses as", field.Name(), u.Where))
-			}
-		}
-	}
-}
-
 // site reports a constant val that reaches a tolerance of the given use.
 func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val)
@@ -187,10 +130,9 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 		return
 	}
 	src := fixes.Source(c.pass.Fset, val)
-	kind := map[tolerance.Kind]string{tolerance.Absolute: "an absolute", tolerance.Relative: "a relative"}[u.Kind]
 	d := analysis.Diagnostic{
 		Pos: val.Pos(), End: val.End(), Category: category(res),
-		Message: fmt.Sprintf("%s, %s %s tolerance, %s", withValue(src, tol), how, kind, explain(res, tol, f, mag)),
+		Message: fmt.Sprintf("%s, %s (%s), %s", withValue(src, tol), how, u, explain(res, tol, f, mag)),
 	}
 	var fs []fixes.Fix
 	switch res {

@@ -14,7 +14,6 @@ import (
 	"sync/atomic"
 
 	"golang.org/x/tools/go/analysis"
-	"golang.org/x/tools/go/types/typeutil"
 )
 
 // A Fix is a suggested fix together with whether it is safe to apply
@@ -178,41 +177,4 @@ func groupEdit(gen *ast.GenDecl, quoted string) analysis.TextEdit {
 		return analysis.TextEdit{Pos: pos, End: pos, NewText: []byte(quoted + "\n\t")}
 	}
 	return analysis.TextEdit{Pos: gen.Rparen, End: gen.Rparen, NewText: []byte("\t" + quoted + "\n")}
-}
-
-// Pure reports whether e can be evaluated twice without a visible effect:
-// names, field selections, indexing, constants, arithmetic, conversions and
-// calls of math functions on such operands.
-func Pure(info *types.Info, e ast.Expr) bool {
-	switch e := ast.Unparen(e).(type) {
-	case *ast.Ident, *ast.BasicLit:
-		return true
-	case *ast.SelectorExpr:
-		if sel, ok := info.Selections[e]; ok {
-			return sel.Kind() == types.FieldVal && Pure(info, e.X)
-		}
-		return true // a qualified identifier
-	case *ast.IndexExpr:
-		_, isMap := info.TypeOf(e.X).Underlying().(*types.Map)
-		return !isMap && Pure(info, e.X) && Pure(info, e.Index)
-	case *ast.UnaryExpr:
-		return (e.Op == token.SUB || e.Op == token.ADD) && Pure(info, e.X)
-	case *ast.BinaryExpr:
-		return Pure(info, e.X) && Pure(info, e.Y)
-	case *ast.CallExpr:
-		if tv := info.Types[e.Fun]; tv.IsType() {
-			return len(e.Args) == 1 && Pure(info, e.Args[0]) // conversion
-		}
-		fn, ok := typeutil.Callee(info, e).(*types.Func)
-		if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
-			return false
-		}
-		for _, a := range e.Args {
-			if !Pure(info, a) {
-				return false
-			}
-		}
-		return true
-	}
-	return false
 }

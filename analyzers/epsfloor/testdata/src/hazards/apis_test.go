@@ -11,12 +11,12 @@ import (
 
 func TestAPIs(t *testing.T) {
 	x := 0.1 * 3
-	_ = scalar.EqualWithinRel(x, 0.3, 1e-18)         // want `1e-18, passed to scalar.EqualWithinRel, which uses it as a relative tolerance, is below the unit roundoff`
-	_ = scalar.EqualWithinAbs(1, x, 1e-17)           // want `1e-17, passed to scalar.EqualWithinAbs, which uses it as an absolute tolerance, is below half the spacing of float64 values at 1`
-	_ = floats.EqualApprox([]float64{x}, nil, 1e-20) // want `1e-20, passed to floats.EqualApprox, which uses it as a relative tolerance`
-	assert.InDelta(t, 100.0, x, 1e-15)               // want `1e-15, passed to assert.InDelta, which uses it as an absolute tolerance, is below half the spacing of float64 values at 100 \(7.11e-15\)`
-	assert.InEpsilon(t, 0.3, x, 1e-17)               // want `1e-17, passed to assert.InEpsilon, which uses it as a relative tolerance`
-	require.InDelta(t, x, 0.3, 1e-20)                // want `1e-20, passed to require.InDelta, which uses it as an absolute tolerance, is below half the spacing of float64 values at 0.3 \(2.78e-17\)`
+	_ = scalar.EqualWithinRel(x, 0.3, 1e-18)         // want `1e-18, passed to scalar.EqualWithinRel \(a relative tolerance of float64 in [A-Za-z]+\), is below the unit roundoff`
+	_ = scalar.EqualWithinAbs(1, x, 1e-17)           // want `1e-17, passed to scalar.EqualWithinAbs \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 1`
+	_ = floats.EqualApprox([]float64{x}, nil, 1e-20) // want `1e-20, passed to floats.EqualApprox \(a relative tolerance of float64 in [A-Za-z]+\)`
+	assert.InDelta(t, 100.0, x, 1e-15)               // want `1e-15, passed to assert.InDelta \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 100 \(7.11e-15\)`
+	assert.InEpsilon(t, 0.3, x, 1e-17)               // want `1e-17, passed to assert.InEpsilon \(a relative tolerance of float64 in [A-Za-z]+\)`
+	require.InDelta(t, x, 0.3, 1e-20)                // want `1e-20, passed to require.InDelta \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 0.3 \(2.78e-17\)`
 	a := assert.New(t)
-	a.InEpsilon(0.3, x, 1e-18) // want `1e-18, passed to assert.InEpsilon, which uses it as a relative tolerance`
+	a.InEpsilon(0.3, x, 1e-18) // want `1e-18, passed to assert.InEpsilon \(a relative tolerance of float64 in [A-Za-z]+\)`
 }

@@ -116,15 +116,15 @@ func (o *Options) close(a, b float64) bool {
 
 func defaults(o *Options) {
 	if o.RelTol == 0 {
-		o.RelTol = 1e-18 // want `1e-18, assigned to field RelTol, which converged uses as a relative tolerance, is below the unit roundoff`
+		o.RelTol = 1e-18 // want `1e-18, assigned to field RelTol \(a relative tolerance of float64 in converged\), is below the unit roundoff`
 	}
 	if o.AbsTol == 0 {
-		o.AbsTol = 1e-30 // want `1e-30, assigned to field AbsTol, which close uses as an absolute tolerance, is below float64 epsilon`
+		o.AbsTol = 1e-30 // want `1e-30, assigned to field AbsTol \(an absolute tolerance of float64 in close\), is below float64 epsilon`
 	}
 }
 
 func literalField() *Options {
-	return &Options{RelTol: 1e-19} // want `1e-19, set as field RelTol, which converged uses as a relative tolerance, is below`
+	return &Options{RelTol: 1e-19} // want `1e-19, set as field RelTol \(a relative tolerance of float64 in converged\), is below`
 }
 
 func solve(a, b, tol float64) bool { // want solve:"parameter 2 is a relative tolerance of float64 in solve"
@@ -132,7 +132,7 @@ func solve(a, b, tol float64) bool { // want solve:"parameter 2 is a relative to
 }
 
 func callsSolve(a, b float64) bool {
-	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve, which uses it as a relative tolerance, is below`
+	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve \(a relative tolerance of float64 in [A-Za-z]+\), is below`
 }
 
 func stepTest(x float64) float64 {
@@ -144,4 +144,11 @@ func stepTest(x float64) float64 {
 		}
 	}
 	return x
+}
+
+func withDefault(a, b, tol float64) bool { // want withDefault:"parameter 2 is a relative tolerance of float64 in withDefault"
+	if tol == 0 {
+		tol = 1e-20 // want `1e-20, given as the default of tol \(a relative tolerance of float64 in withDefault\), is below the unit roundoff`
+	}
+	return math.Abs(a-b) <= tol*math.Abs(b)
 }

@@ -135,8 +135,8 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur)}
-	if t.Kind == tolerance.Magnitude {
-		return
+	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
+		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, t.Tol); field != nil && field.Pkg() == c.pass.Pkg {
 		c.fields[field] = u

@@ -7,6 +7,7 @@ import (
 
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/stoptol"
 	"roundoff/analyzers/internal/fixes"
 )
 
@@ -14,6 +15,7 @@ import (
 var Analyzers = []*analysis.Analyzer{
 	epsfloor.Analyzer,
 	exacteq.Analyzer,
+	stoptol.Analyzer,
 }
 
 // Unattended tells every analyzer whether its fixes will be applied without

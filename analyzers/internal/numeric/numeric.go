@@ -63,6 +63,15 @@ func (f Format) Spacing(x float64) float64 {
 	return Ulp(x)
 }
 
+// SpacingAbove returns the smallest magnitude from which the spacing of
+// values of format f exceeds tol, a power of two: from there on, two
+// different values are always more than tol apart, so |a-b| < tol holds
+// only when a == b.
+func (f Format) SpacingAbove(tol float64) float64 {
+	_, e := math.Frexp(tol) // tol = m·2^e with m in [0.5, 1), so 2^(e-1) <= tol < 2^e
+	return math.Ldexp(1, e+f.Bits-1)
+}
+
 // Ulp32 returns the spacing of float32 values at magnitude |x|.
 func Ulp32(x float32) float32 {
 	x = float32(math.Abs(float64(x)))

@@ -21,13 +21,14 @@ type Kind int
 
 // The kinds of test.
 const (
-	Absolute  Kind = iota + 1 // |a-b| against tol
-	Relative                  // |a-b| against tol·scale, or |a-b|/scale against tol
-	Magnitude                 // |x| against tol
+	Absolute          Kind = iota + 1 // |a-b| against tol
+	Relative                          // |a-b| against tol·scale, or |a-b|/scale against tol
+	Magnitude                         // |x| against tol
+	RelativeMagnitude                 // |x| against tol·scale, or |x|/scale against tol
 )
 
 func (k Kind) String() string {
-	return [...]string{"unknown", "absolute", "relative", "magnitude"}[k]
+	return [...]string{"unknown", "absolute", "relative", "magnitude", "relative magnitude"}[k]
 }
 
 // Test is a recognised tolerance test.
@@ -42,12 +43,22 @@ type Test struct {
 // Recognize reads cmp, an ordered comparison, as a tolerance test. decls
 // maps variables assigned once to their initialisers (constval.Decls).
 func Recognize(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.BinaryExpr) (Test, bool) {
+	return recognize(reader{info, decls, false}, cmp)
+}
+
+// RecognizeWidth is Recognize that also reads a bare difference b-a as an
+// absolute measure, as loop tests on a bracket's width are written
+// (for b-a > tol); callers must know the difference is not signed.
+func RecognizeWidth(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.BinaryExpr) (Test, bool) {
+	return recognize(reader{info, decls, true}, cmp)
+}
+
+func recognize(r reader, cmp *ast.BinaryExpr) (Test, bool) {
 	switch cmp.Op {
 	case token.LSS, token.LEQ, token.GTR, token.GEQ:
 	default:
 		return Test{}, false
 	}
-	r := reader{info, decls}
 	for _, sides := range [][2]ast.Expr{{cmp.X, cmp.Y}, {cmp.Y, cmp.X}} {
 		if t, ok := r.test(sides[0], sides[1]); ok {
 			t.Cmp = cmp
@@ -60,6 +71,7 @@ func Recognize(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.Binar
 type reader struct {
 	info  *types.Info
 	decls map[types.Object]ast.Expr
+	bare  bool // a bare difference is a width
 }
 
 // test reads m as a measure and tol as its tolerance.
@@ -73,10 +85,14 @@ func (r reader) test(m, tol ast.Expr) (Test, bool) {
 		return Test{}, false
 	}
 	if scale != nil {
-		if t.Kind != Absolute {
-			return Test{}, false // a scaled tolerance on a relative or magnitude measure: not a shape we judge
+		switch t.Kind {
+		case Absolute:
+			t.Kind, t.Scale = Relative, scale
+		case Magnitude:
+			t.Kind, t.Scale = RelativeMagnitude, scale
+		default:
+			return Test{}, false // a scaled tolerance on a relative measure: not a shape we judge
 		}
-		t.Kind, t.Scale = Relative, scale
 	}
 	t.Tol = coef
 	return t, true
@@ -86,24 +102,30 @@ func (r reader) test(m, tol ast.Expr) (Test, bool) {
 func (r reader) measure(e ast.Expr) (Test, bool) {
 	e = r.follow(e)
 	if q, ok := e.(*ast.BinaryExpr); ok && q.Op == token.QUO {
-		if t, ok := r.measure(q.X); ok && t.Kind == Absolute && !r.isConst(q.Y) {
+		t, ok := r.measure(q.X)
+		switch {
+		case !ok || r.isConst(q.Y):
+		case t.Kind == Absolute:
 			return Test{Kind: Relative, A: t.A, B: t.B, Scale: q.Y}, true
+		case t.Kind == Magnitude:
+			return Test{Kind: RelativeMagnitude, A: t.A, Scale: q.Y}, true
 		}
 		return Test{}, false
+	}
+	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB && r.bare {
+		return Test{Kind: Absolute, A: d.X, B: d.Y}, true
 	}
 	arg, ok := r.absArg(e)
 	if !ok {
 		return Test{}, false
 	}
-	switch x := r.follow(arg).(type) {
-	case *ast.BinaryExpr:
+	if x, ok := r.follow(arg).(*ast.BinaryExpr); ok {
 		if x.Op == token.SUB {
 			return Test{Kind: Absolute, A: x.X, B: x.Y}, true
 		}
 		if d, ok := r.follow(x.X).(*ast.BinaryExpr); ok && x.Op == token.QUO && d.Op == token.SUB && !r.isConst(x.Y) {
 			return Test{Kind: Relative, A: d.X, B: d.Y, Scale: x.Y}, true
 		}
-		return Test{}, false
 	}
 	return Test{Kind: Magnitude, A: arg}, true
 }

@@ -1,0 +1,341 @@
+package stoptol
+
+import (
+	"fmt"
+	"go/ast"
+	"go/token"
+	"go/types"
+	"regexp"
+	"strconv"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/tolerance"
+)
+
+// verdict is what is wrong with a tolerance of a given use, if anything.
+type verdict int
+
+const (
+	fine     verdict = iota
+	tight            // tighter than the method can locate x
+	unscaled         // absolute, and below sqrt(eps): fails once |x| is large
+	floor            // below what any float resolves: epsfloor's to report
+)
+
+// judge classifies a constant tolerance tol of use u. A difference of two
+// x values (not a step) below the format's resolution is epsfloor's.
+func judge(u use, tol float64) verdict {
+	f := u.format()
+	kind := map[bool]tolerance.Kind{false: tolerance.Absolute, true: tolerance.Relative}[u.Relative]
+	switch {
+	case !(tol > 0) || tol <= tolerance.UnderflowGuard:
+		return fine
+	case !u.Step && tolerance.Judge(kind, tol, f, 0) != tolerance.Resolvable:
+		return floor
+	case u.Class == minimize && tol < f.SqrtEps():
+		return tight
+	case u.Class == root && u.Relative && u.Step && tol < f.U:
+		return tight
+	case u.Class == root && !u.Relative && tol < f.SqrtEps():
+		return unscaled
+	}
+	return fine
+}
+
+// explain says why tolerance tol of use u fails, for a message.
+func explain(v verdict, u use, tol float64) string {
+	f := u.format()
+	switch {
+	case v == tight && u.Class == minimize:
+		return fmt.Sprintf("comparing function values locates a minimum only to about sqrt(eps)·max(1,|x|) = %.3g·max(1,|x|) in %s (Brent 1973), so the test wastes iterations or never passes; use at least %s",
+			f.SqrtEps(), f.Name, sqrtEpsLit(f))
+	case v == tight:
+		return fmt.Sprintf("a step below the unit roundoff of %s (%.3g) relative to |x| cannot be resolved, so the test passes only for a zero step; use a few ulps, such as %s", f.Name, f.U, fewUlps(f))
+	}
+	return fmt.Sprintf("it ignores |x|: from |x| = %.3g on, adjacent %s values are more than %.3g apart and the test can never pass; scale it with |x|",
+		f.SpacingAbove(tol), f.Name, tol)
+}
+
+// loop judges the stopping tests of one loop.
+func (c *checker) loop(cur inspector.Cursor, l *loop) {
+	allX, risky := len(l.exits) > 0, false
+	for _, e := range l.exits {
+		tests := c.xtests(e, l)
+		if len(tests) == 0 {
+			allX = false
+		}
+		for _, t := range tests {
+			if c.test(cur, t, l) {
+				risky = true
+			}
+		}
+	}
+	if allX && !l.other && !l.capped && risky {
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: l.stmt.For, End: l.stmt.For + 3, Category: catNoCap,
+			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and nothing caps the iterations; add an iteration limit", l.class, numeric.Float64.Eps),
+		})
+	}
+	c.backtrack(l)
+}
+
+// xtests returns the tolerance tests on x quantities within an exit
+// condition: differences of x variables, steps, and their relative forms.
+func (c *checker) xtests(cond ast.Expr, l *loop) []tolerance.Test {
+	var out []tolerance.Test
+	ast.Inspect(cond, func(n ast.Node) bool {
+		b, ok := n.(*ast.BinaryExpr)
+		if !ok {
+			return !isFuncLit(n)
+		}
+		t, ok := tolerance.RecognizeWidth(c.pass.TypesInfo, c.decls, b)
+		if ok && c.onX(t, l) {
+			out = append(out, t)
+			return false
+		}
+		return true
+	})
+	return out
+}
+
+func isFuncLit(n ast.Node) bool { _, ok := n.(*ast.FuncLit); return ok }
+
+// onX reports whether a test measures x: a difference of two variables the
+// loop updates (a bracket, successive iterates) or a step added to one.
+func (c *checker) onX(t tolerance.Test, l *loop) bool {
+	info := c.pass.TypesInfo
+	switch t.Kind {
+	case tolerance.Absolute, tolerance.Relative:
+		a, b := varOf(info, t.A), varOf(info, t.B)
+		return a != nil && b != nil && a != b && l.xvars[a] && l.xvars[b]
+	case tolerance.Magnitude, tolerance.RelativeMagnitude:
+		s := varOf(info, t.A)
+		return s != nil && l.steps[s]
+	}
+	return false
+}
+
+// test judges one stopping test, reporting a constant tolerance that is
+// too tight and learning a parameter or field one. It reports whether the
+// test puts termination at risk: a tolerance too tight for some |x|, or
+// one a caller chooses.
+func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
+	f := formatOf(c.pass.TypesInfo.TypeOf(t.A))
+	u := use{
+		Class:    l.class,
+		Relative: t.Kind == tolerance.Relative || t.Kind == tolerance.RelativeMagnitude,
+		Step:     t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude,
+		Float32:  f == numeric.Float32,
+		Where:    enclosingName(cur),
+	}
+	src := c.resolve(cur, t.Tol, u)
+	if !src.constant {
+		return src.learned
+	}
+	v := judge(u, src.value)
+	switch v {
+	case fine:
+		return false
+	case floor:
+		return true // epsfloor reports the test itself
+	}
+	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: t.Cmp.Pos(), End: t.Cmp.End(), Category: cat,
+		Message: fmt.Sprintf("%s %s: %s", describe(u, fixes.Source(c.pass.Fset, t.Tol), src.value), "in this "+l.class.String(), explain(v, u, src.value)),
+	}, c.scaledFix(cur, t, u, v)...)
+	return true
+}
+
+// describe names a tolerance for a message.
+func describe(u use, src string, tol float64) string {
+	if _, err := strconv.ParseFloat(src, 64); err != nil {
+		src += " (" + numeric.Short(tol) + ")"
+	}
+	kind := map[bool]string{false: "absolute", true: "relative"}[u.Relative]
+	what := map[bool]string{false: "x-tolerance", true: "step tolerance"}[u.Step]
+	return kind + " " + what + " " + src
+}
+
+// site reports a constant val reaching a stopping tolerance of use u.
+func (c *checker) site(val ast.Expr, u use, how string) {
+	tv, ok := c.pass.TypesInfo.Types[val]
+	if !ok || tv.Value == nil {
+		return
+	}
+	tol := value(tv.Value, u.format())
+	if u.Grad {
+		if tol > 0 && tol < u.format().SqrtEps() && tol > tolerance.UnderflowGuard {
+			c.reportGrad(val, fmt.Sprintf("%s, %s (%s),", withValue(fixes.Source(c.pass.Fset, val), tol), how, u))
+		}
+		return
+	}
+	v := judge(u, tol)
+	if v == fine || v == floor {
+		return
+	}
+	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
+	d := analysis.Diagnostic{
+		Pos: val.Pos(), End: val.End(), Category: cat,
+		Message: fmt.Sprintf("%s, %s (%s), is too tight: %s", withValue(fixes.Source(c.pass.Fset, val), tol), how, u, explain(v, u, tol)),
+	}
+	var fs []fixes.Fix
+	if v == tight && u.Class == minimize {
+		fs = append(fs, fixes.Judgement("Use sqrt(eps): "+sqrtEpsLit(u.format()), fixes.Replace(val, sqrtEpsLit(u.format()))))
+	}
+	fixes.Report(c.pass, d, fs...)
+}
+
+// withValue writes a constant as the source does, adding its value when
+// the source is not a literal.
+func withValue(src string, tol float64) string {
+	if _, err := strconv.ParseFloat(src, 64); err == nil {
+		return src
+	}
+	return src + " (" + numeric.Short(tol) + ")"
+}
+
+// sqrtEpsLit writes sqrt(eps) of f exactly: 2^-26 for float64; for float32,
+// whose sqrt(eps) is 2^-11.5, the power of two just above it.
+func sqrtEpsLit(f numeric.Format) string {
+	if f == numeric.Float32 {
+		return "0x1p-11"
+	}
+	return "0x1p-26"
+}
+
+// fewUlps writes 4 ulps at 1 of f exactly.
+func fewUlps(f numeric.Format) string {
+	if f == numeric.Float32 {
+		return "4*0x1p-23"
+	}
+	return "4*0x1p-52"
+}
+
+// scaledFix returns the fix for a too-tight or unscaled test on a
+// difference written in the comparison: in a minimization the test becomes
+// |b-a| <= 2*(sqrt(eps)*|b| + tol), in a root finding tol + 4ulps·|b|.
+// A tight relative tolerance is raised to the format's floor instead.
+func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v verdict) []fixes.Fix {
+	f := u.format()
+	if u.Relative {
+		lit := sqrtEpsLit(f)
+		if u.Class == root {
+			lit = fewUlps(f)
+		}
+		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}
+	}
+	if t.Kind != tolerance.Absolute || !within(t.B, t.Cmp) || !fixes.Pure(c.pass.TypesInfo, t.B) ||
+		!types.Identical(c.pass.TypesInfo.TypeOf(t.B), types.Typ[types.Float64]) {
+		return nil
+	}
+	name, edits, ok := fixes.Import(c.pass.TypesInfo, fileOf(cur), t.Cmp.Pos(), "math")
+	if !ok {
+		return nil
+	}
+	tol, b := fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()), fixes.Source(c.pass.Fset, t.B)
+	text := fmt.Sprintf("2*(%[1]s*%[2]s.Abs(%[3]s) + %[4]s)", sqrtEpsLit(f), name, b, tol)
+	msg := "Scale by |x| with sqrt(eps): "
+	if v == unscaled {
+		text = fmt.Sprintf("%[1]s + %[2]s*%[3]s.Abs(%[4]s)", tol, fewUlps(f), name, b)
+		msg = "Add 4 ulps of |x|: "
+	}
+	return []fixes.Fix{fixes.Judgement(msg+text, append(edits, fixes.Replace(t.Tol, text))...)}
+}
+
+// within reports whether n lies inside outer.
+func within(n, outer ast.Node) bool {
+	return n != nil && n.Pos() >= outer.Pos() && n.End() <= outer.End()
+}
+
+// fileOf returns the file enclosing cur.
+func fileOf(cur inspector.Cursor) *ast.File {
+	for f := range cur.Enclosing((*ast.File)(nil)) {
+		return f.Node().(*ast.File)
+	}
+	return nil
+}
+
+// gradNorm matches expressions that name a gradient norm.
+var gradNorm = regexp.MustCompile(`(?i)grad.*norm|norm.*grad|\bgnorm`)
+
+// gradient reports an absolute threshold on a gradient norm below
+// sqrt(eps), which ignores the scale of f.
+func (c *checker) gradient(cur inspector.Cursor, n *ast.BinaryExpr) {
+	t, ok := tolerance.Recognize(c.pass.TypesInfo, c.decls, n)
+	if !ok {
+		t, ok = magnitudeTest(n)
+	}
+	if !ok || t.Kind != tolerance.Magnitude ||
+		!gradNorm.MatchString(fixes.Source(c.pass.Fset, t.A)) && !gradNorm.MatchString(fixes.Source(c.pass.Fset, c.followed(t.A))) {
+		return
+	}
+	u := use{Grad: true, Float32: formatOf(c.pass.TypesInfo.TypeOf(t.A)) == numeric.Float32, Where: enclosingName(cur)}
+	src := c.resolve(cur, t.Tol, u)
+	if src.constant && src.value > 0 && src.value < u.format().SqrtEps() && src.value > tolerance.UnderflowGuard {
+		c.reportGrad(n, "absolute gradient-norm threshold "+withValue(fixes.Source(c.pass.Fset, t.Tol), src.value))
+	}
+}
+
+// magnitudeTest reads norm < tol, where norm is not wrapped in math.Abs
+// (a norm is never negative).
+func magnitudeTest(n *ast.BinaryExpr) (tolerance.Test, bool) {
+	if n.Op != token.LSS && n.Op != token.LEQ {
+		return tolerance.Test{}, false
+	}
+	return tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: n.X, Tol: n.Y}, true
+}
+
+// followed looks through a local variable assigned once.
+func (c *checker) followed(e ast.Expr) ast.Expr {
+	if id, ok := ast.Unparen(e).(*ast.Ident); ok {
+		if init, ok := c.decls[c.pass.TypesInfo.Uses[id]]; ok {
+			return init
+		}
+	}
+	return e
+}
+
+// reportGrad reports a gradient threshold that ignores the scale of f.
+func (c *checker) reportGrad(n ast.Node, what string) {
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catFScale,
+		Message: what + " ignores the scale of f and may stop a minimization too early or never: the gradient at a minimizer found to working precision scales with |f| (when f is of order 1e-14, every gradient is below 1e-12); scale it by 1+|f| (Gill, Murray & Wright 1981)",
+	})
+}
+
+// backtrack reports a loop that shrinks a step by a constant factor until a
+// sufficient-decrease test holds, with no floor on the step and no cap.
+func (c *checker) backtrack(l *loop) {
+	if l.capped || l.other || len(l.exits) == 0 || len(l.shrunk) == 0 {
+		return
+	}
+	for _, e := range l.exits {
+		b, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		if !ok || !l.decreaseTest(c.pass.TypesInfo, b) || !mentionsAny(c.pass.TypesInfo, b, l.shrunk) {
+			return // another exit, such as a floor on the step
+		}
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: l.stmt.For, End: l.stmt.For + 3, Category: catBacktrack,
+		Message: "backtracking loop shrinks the step until a sufficient-decrease test holds, with no floor on the step and no iteration cap: when the direction is not a descent direction or rounding hides the decrease, it runs until the step underflows to 0 (about 1075 halvings in float64) and returns a zero step; stop at a minimum step and cap the iterations",
+	})
+}
+
+// mentionsAny reports whether e refers to one of vars.
+func mentionsAny(info *types.Info, e ast.Expr, vars map[*types.Var]bool) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok {
+			if v, ok := info.Uses[id].(*types.Var); ok && vars[v] {
+				found = true
+			}
+		}
+		return !found
+	})
+	return found
+}

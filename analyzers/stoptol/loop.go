@@ -1,0 +1,413 @@
+package stoptol
+
+import (
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"strings"
+
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
+)
+
+// class is what a loop does, as far as its stopping test is concerned.
+type class int
+
+const (
+	unknown  class = iota
+	minimize       // derivative-free minimization: compares function values
+	root           // root finding or derivative-based search: sign tests, quotient steps
+)
+
+func (c class) String() string {
+	return [...]string{"loop", "minimization", "root finding"}[c]
+}
+
+// loop holds what stoptol learns about one for statement.
+type loop struct {
+	stmt   *ast.ForStmt
+	exits  []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
+	other  bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
+	capped bool       // an integer comparison bounds the iterations
+	class  class
+	xvars  map[*types.Var]bool // float variables assigned in the loop, function values excepted
+	fvars  map[*types.Var]bool // variables assigned a function value in the loop
+	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
+	stepped map[*types.Var]bool // the variables they are added to
+	shrunk map[*types.Var]bool // variables scaled down by a constant factor below 1
+}
+
+// readLoop collects the exits, the cap, the variables and the class of a
+// for statement; fvars are the function values of the enclosing function.
+func readLoop(info *types.Info, stmt *ast.ForStmt, fvars map[*types.Var]bool) *loop {
+	l := &loop{stmt: stmt, xvars: map[*types.Var]bool{}, fvars: fvars, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}, shrunk: map[*types.Var]bool{}}
+	if stmt.Cond != nil {
+		l.exits = append(l.exits, stmt.Cond)
+	}
+	l.walk(stmt.Body, nil)
+	for _, n := range []ast.Node{stmt.Cond, stmt.Post, stmt.Body} {
+		if n != nil {
+			l.scan(info, n)
+		}
+	}
+	for _, e := range l.exits {
+		if hasIntComparison(info, e) {
+			l.capped = true
+		}
+	}
+	l.class = l.classify(info)
+	return l
+}
+
+// walk finds the break and return statements that leave the loop, with the
+// conditions of the if statements around them.
+func (l *loop) walk(n ast.Node, conds []ast.Expr) {
+	ast.Inspect(n, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.FuncLit:
+			return false
+		case *ast.ForStmt, *ast.RangeStmt, *ast.SwitchStmt, *ast.TypeSwitchStmt, *ast.SelectStmt:
+			l.walkInner(n)
+			return false
+		case *ast.IfStmt:
+			l.walk(n.Body, append(conds[:len(conds):len(conds)], n.Cond))
+			if n.Else != nil {
+				l.walkElse(n.Else, conds)
+			}
+			return false
+		case *ast.ReturnStmt:
+			l.exit(conds)
+		case *ast.BranchStmt:
+			switch {
+			case n.Tok == token.BREAK && n.Label == nil:
+				l.exit(conds)
+			case n.Tok == token.GOTO || n.Label != nil && n.Tok == token.BREAK:
+				l.other = true
+			}
+		}
+		return true
+	})
+}
+
+// walkInner looks into a nested loop or switch, where an unlabelled break
+// leaves only that statement but a return leaves this loop too, by a test
+// stoptol does not read.
+func (l *loop) walkInner(n ast.Node) {
+	ast.Inspect(n, func(m ast.Node) bool {
+		switch m.(type) {
+		case *ast.FuncLit:
+			return false
+		case *ast.ReturnStmt:
+			l.other = true
+		}
+		return true
+	})
+}
+
+// walkElse treats exits in an else branch as exits stoptol does not read.
+func (l *loop) walkElse(n ast.Node, conds []ast.Expr) {
+	before := len(l.exits)
+	l.walk(n, conds)
+	if len(l.exits) > before {
+		l.exits = l.exits[:before]
+		l.other = true
+	}
+}
+
+// exit records an exit guarded by conds; an unguarded one is not a test.
+func (l *loop) exit(conds []ast.Expr) {
+	if len(conds) == 0 {
+		l.other = true
+		return
+	}
+	l.exits = append(l.exits, conds...)
+}
+
+// scan records the variables the loop assigns: function values, x
+// variables, steps and shrinking factors.
+func (l *loop) scan(info *types.Info, n ast.Node) {
+	ast.Inspect(n, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.FuncLit:
+			return false
+		case *ast.AssignStmt:
+			for i, lhs := range n.Lhs {
+				v := varOf(info, lhs)
+				if v == nil || !provenance.IsFloat(v.Type()) {
+					continue
+				}
+				var rhs ast.Expr
+				if len(n.Rhs) == len(n.Lhs) {
+					rhs = n.Rhs[i]
+				}
+				l.assigned(info, v, n.Tok, rhs)
+			}
+		case *ast.IncDecStmt:
+			if v := varOf(info, n.X); v != nil {
+				l.xvars[v] = true
+			}
+		}
+		return true
+	})
+	for v := range l.xvars {
+		if l.fvars[v] {
+			delete(l.xvars, v)
+		}
+	}
+}
+
+// assigned classifies one assignment v tok rhs.
+func (l *loop) assigned(info *types.Info, v *types.Var, tok token.Token, rhs ast.Expr) {
+	if tok == token.MUL_ASSIGN && shrinks(info, rhs, false) || tok == token.QUO_ASSIGN && shrinks(info, rhs, true) {
+		l.shrunk[v] = true
+	}
+	s, x := stepOf(info, tok, rhs, v)
+	if s != nil {
+		l.steps[s] = true
+	}
+	if x != nil {
+		l.stepped[x] = true
+	}
+	if tok == token.DEFINE && rhs != nil && isSubOf(rhs) {
+		return // a difference defined in the loop (dx := x1 - x0) is a measure, not an x
+	}
+	l.xvars[v] = true
+}
+
+func isSubOf(e ast.Expr) bool {
+	b, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	return ok && b.Op == token.SUB
+}
+
+// stepOf returns the step variable s and the point x in x += s, x -= s,
+// or y := x ± s (a new point); s is nil when the step is not a variable.
+func stepOf(info *types.Info, tok token.Token, rhs ast.Expr, v *types.Var) (s, x *types.Var) {
+	switch tok {
+	case token.ADD_ASSIGN, token.SUB_ASSIGN:
+		return varOf(info, rhs), v
+	case token.ASSIGN, token.DEFINE:
+		if b, ok := ast.Unparen(rhs).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) && varOf(info, b.X) != nil {
+			return varOf(info, b.Y), varOf(info, b.X)
+		}
+	}
+	return nil, nil
+}
+
+// FValues returns the float variables of a function body that hold
+// function values: assigned a call of the objective, or another such
+// variable.
+func FValues(info *types.Info, body ast.Node) map[*types.Var]bool {
+	fv := make(map[*types.Var]bool)
+	for changed := true; changed; {
+		changed = false
+		ast.Inspect(body, func(n ast.Node) bool {
+			as, ok := n.(*ast.AssignStmt)
+			if !ok || len(as.Lhs) != len(as.Rhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
+				return true
+			}
+			for i, lhs := range as.Lhs {
+				v := varOf(info, lhs)
+				if v == nil || fv[v] || !provenance.IsFloat(v.Type()) {
+					continue
+				}
+				if r := varOf(info, as.Rhs[i]); isFValue(info, as.Rhs[i]) || r != nil && fv[r] {
+					fv[v], changed = true, true
+				}
+			}
+			return true
+		})
+	}
+	return fv
+}
+
+// shrinks reports whether multiplying by e (or dividing, when divide)
+// makes a positive value smaller: e is a constant factor in (0, 1), or a
+// divisor above 1.
+func shrinks(info *types.Info, e ast.Expr, divide bool) bool {
+	tv, ok := info.Types[e]
+	if !ok || tv.Value == nil {
+		return false
+	}
+	f := constFloat(tv)
+	if divide {
+		return f > 1
+	}
+	return f > 0 && f < 1
+}
+
+// varOf returns the local variable an expression names, or nil.
+func varOf(info *types.Info, e ast.Expr) *types.Var {
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	if !ok {
+		return nil
+	}
+	v, _ := info.ObjectOf(id).(*types.Var)
+	if v == nil || v.IsField() {
+		return nil
+	}
+	return v
+}
+
+// isFValue reports whether e is a call of a function (not of package math,
+// not a conversion) taking and returning floats: the objective evaluated.
+func isFValue(info *types.Info, e ast.Expr) bool {
+	call, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok || info.Types[call.Fun].IsType() || len(call.Args) == 0 {
+		return false
+	}
+	if fn, ok := typeutil.Callee(info, call).(*types.Func); ok && fn.Pkg() != nil && strings.HasPrefix(fn.Pkg().Path(), "math") {
+		return false
+	}
+	return provenance.IsFloat(info.TypeOf(call))
+}
+
+// hasIntComparison reports whether e compares integers: an iteration cap.
+func hasIntComparison(info *types.Info, e ast.Expr) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && isOrdered(b.Op) {
+			if t, ok := info.TypeOf(b.X).Underlying().(*types.Basic); ok && t.Info()&types.IsInteger != 0 {
+				found = true
+			}
+		}
+		return !found
+	})
+	return found
+}
+
+func isOrdered(op token.Token) bool {
+	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
+}
+
+// classify tells a root finding from a minimization. Sign tests make a
+// root finding even when the loop also compares |f(a)| with |f(b)|, as a
+// zero finder does; comparisons of function values make a minimization even
+// when it steps by a quotient, as parabolic interpolation does; a quotient
+// step alone (Newton, secant) makes a root finding.
+func (l *loop) classify(info *types.Info) class {
+	sign, decrease, quotient := false, false, false
+	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
+		if n == nil {
+			continue
+		}
+		ast.Inspect(n, func(n ast.Node) bool {
+			switch n := n.(type) {
+			case *ast.FuncLit:
+				return false
+			case *ast.BinaryExpr:
+				sign = sign || l.signTest(info, n)
+				decrease = decrease || l.decreaseTest(info, n)
+			case *ast.CallExpr:
+				if fn, ok := typeutil.Callee(info, n).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Signbit" {
+					sign = true
+				}
+			case *ast.AssignStmt:
+				quotient = quotient || l.quotientStep(info, n)
+			}
+			return true
+		})
+	}
+	switch {
+	case sign:
+		return root
+	case decrease:
+		return minimize
+	case quotient:
+		return root
+	}
+	return unknown
+}
+
+// decreaseTest reports whether b orders two function values, possibly one
+// plus a term: fc < fd, f(u) <= fx, f(x+t*d) > fx + c*t*g (sufficient decrease).
+func (l *loop) decreaseTest(info *types.Info, b *ast.BinaryExpr) bool {
+	if !isOrdered(b.Op) {
+		return false
+	}
+	shifted := func(e ast.Expr) bool {
+		s, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		return l.fvalue(info, e) || ok && (s.Op == token.ADD || s.Op == token.SUB) && l.fvalue(info, s.X)
+	}
+	return l.fvalue(info, b.X) && shifted(b.Y) || l.fvalue(info, b.Y) && shifted(b.X)
+}
+
+// signTest reports whether b tests the sign of a product of function
+// values (fa*fm < 0) or compares two signs ((fa > 0) == (fb > 0)).
+func (l *loop) signTest(info *types.Info, b *ast.BinaryExpr) bool {
+	if isOrdered(b.Op) && isZero(info, b.Y) {
+		if m, ok := ast.Unparen(b.X).(*ast.BinaryExpr); ok && m.Op == token.MUL && l.fvalue(info, m.X) && l.fvalue(info, m.Y) {
+			return true
+		}
+	}
+	if b.Op == token.EQL || b.Op == token.NEQ {
+		x, ok1 := ast.Unparen(b.X).(*ast.BinaryExpr)
+		y, ok2 := ast.Unparen(b.Y).(*ast.BinaryExpr)
+		return ok1 && ok2 && isOrdered(x.Op) && isOrdered(y.Op) && isZero(info, x.Y) && isZero(info, y.Y)
+	}
+	return false
+}
+
+// quotientStep reports whether as assigns a quotient whose numerator is a
+// function value, or a product with one, at a point the loop steps:
+// x -= f(x)/df(x) and dx := f(x)/df(x) (Newton), x2 := x1 -
+// f1*(x1-x0)/(f1-f0) (secant). A series term such as c(n)*x^n/n, added to a
+// sum, is no such step: its numerator does not involve the sum.
+func (l *loop) quotientStep(info *types.Info, as *ast.AssignStmt) bool {
+	found := false
+	for _, rhs := range as.Rhs {
+		ast.Inspect(rhs, func(n ast.Node) bool {
+			q, ok := n.(*ast.BinaryExpr)
+			if !ok || q.Op != token.QUO {
+				return !found
+			}
+			num := ast.Unparen(q.X)
+			fv := l.fvalue(info, num)
+			if m, ok := num.(*ast.BinaryExpr); ok && m.Op == token.MUL {
+				fv = fv || l.fvalue(info, m.X) || l.fvalue(info, m.Y)
+			}
+			found = fv && mentionsAny(info, num, l.stepped)
+			return !found
+		})
+	}
+	return found
+}
+
+// fvalue reports whether e is a function value: a call of the objective or
+// a variable the loop assigns one.
+func (l *loop) fvalue(info *types.Info, e ast.Expr) bool {
+	e = ast.Unparen(e)
+	if a, ok := e.(*ast.CallExpr); ok {
+		if fn, ok := typeutil.Callee(info, a).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Abs" && len(a.Args) == 1 {
+			e = ast.Unparen(a.Args[0]) // |f(a)| < |f(b)| compares function values too
+		}
+	}
+	if v := varOf(info, e); v != nil {
+		return l.fvars[v]
+	}
+	return isFValue(info, e)
+}
+
+// mentionsFValue reports whether e contains a function value.
+func (l *loop) mentionsFValue(info *types.Info, e ast.Expr) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if x, ok := n.(ast.Expr); ok && l.fvalue(info, x) {
+			found = true
+		}
+		return !found
+	})
+	return found
+}
+
+func isZero(info *types.Info, e ast.Expr) bool {
+	tv, ok := info.Types[e]
+	return ok && tv.Value != nil && constant.Sign(tv.Value) == 0
+}
+
+// constFloat returns a constant's value as a float64.
+func constFloat(tv types.TypeAndValue) float64 {
+	f, _ := constant.Float64Val(constant.ToFloat(tv.Value))
+	return f
+}

@@ -1,0 +1,250 @@
+package stoptol
+
+import (
+	_ "embed"
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/types"
+	"slices"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/analyzerdoc"
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/tolerance"
+)
+
+//go:embed doc.go
+var doc string
+
+// Analyzer reports stopping tests that a method cannot meet.
+var Analyzer = &analysis.Analyzer{
+	Name:      "stoptol",
+	Doc:       analyzerdoc.Extract(doc, "stoptol"),
+	URL:       "docs/stoptol.md",
+	Requires:  []*analysis.Analyzer{inspect.Analyzer},
+	Run:       run,
+	FactTypes: []analysis.Fact{new(paramsFact), new(fieldFact)},
+}
+
+// Categories of diagnostics.
+const (
+	catTight     = "tight"
+	catUnscaled  = "unscaled"
+	catFScale    = "fscale"
+	catNoCap     = "nocap"
+	catBacktrack = "backtrack"
+)
+
+// use records how a tolerance is used in a stopping test.
+type use struct {
+	Class    class
+	Relative bool // relative to |x| rather than absolute
+	Step     bool // on a step (|dx|), not on a difference of two x values
+	Grad     bool // a gradient-norm threshold
+	Float32  bool
+	Where    string // the function that tests it
+}
+
+func (u use) String() string {
+	if u.Grad {
+		return "a gradient-norm threshold in " + u.Where
+	}
+	scale := map[bool]string{false: "an absolute", true: "a relative"}[u.Relative]
+	return fmt.Sprintf("%s x-tolerance of a %s in %s", scale, u.Class, u.Where)
+}
+
+func (u use) format() numeric.Format {
+	if u.Float32 {
+		return numeric.Float32
+	}
+	return numeric.Float64
+}
+
+// paramsFact records the parameters of a function used as stopping
+// tolerances.
+type paramsFact struct{ Params map[int]use }
+
+func (*paramsFact) AFact() {}
+func (f *paramsFact) String() string {
+	var parts []string
+	for i, u := range f.Params {
+		parts = append(parts, fmt.Sprintf("parameter %d is %s", i, u))
+	}
+	slices.Sort(parts)
+	return strings.Join(parts, "; ")
+}
+
+// fieldFact records a struct field used as a stopping tolerance.
+type fieldFact struct{ Use use }
+
+func (*fieldFact) AFact()           {}
+func (f *fieldFact) String() string { return f.Use.String() }
+
+// checker holds what one run needs.
+type checker struct {
+	pass      *analysis.Pass
+	decls     map[types.Object]ast.Expr
+	params    map[*types.Func]map[int]use
+	fields    map[*types.Var]use
+	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	c := &checker{
+		pass:      pass,
+		decls:     constval.Decls(pass.TypesInfo, pass.Files),
+		params:    make(map[*types.Func]map[int]use),
+		fields:    make(map[*types.Var]use),
+		defaulted: make(map[*ast.FuncDecl]map[*types.Var][]ast.Expr),
+	}
+	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
+	fvals := make(map[ast.Node]map[*types.Var]bool) // per function body
+	for cur := range root.Preorder((*ast.ForStmt)(nil), (*ast.BinaryExpr)(nil)) {
+		switch n := cur.Node().(type) {
+		case *ast.ForStmt:
+			body := enclosingBody(cur)
+			if fvals[body] == nil {
+				fvals[body] = FValues(pass.TypesInfo, body)
+			}
+			c.loop(cur, readLoop(pass.TypesInfo, n, fvals[body]))
+		case *ast.BinaryExpr:
+			c.gradient(cur, n)
+		}
+	}
+	for fn, ps := range c.params {
+		pass.ExportObjectFact(fn, &paramsFact{Params: ps})
+	}
+	for field, u := range c.fields {
+		pass.ExportObjectFact(field, &fieldFact{Use: u})
+	}
+	known := c.known()
+	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
+		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
+			c.site(val, u, how)
+		})
+	}
+	return nil, nil
+}
+
+// known returns the stopping tolerances learned here and from facts.
+func (c *checker) known() tolerance.Lookup[use] {
+	return tolerance.Lookup[use]{
+		Params: func(fn *types.Func) map[int]use {
+			if ps, ok := c.params[fn]; ok {
+				return ps
+			}
+			var f paramsFact
+			if c.pass.ImportObjectFact(fn, &f) {
+				return f.Params
+			}
+			return nil
+		},
+		Field: func(field *types.Var) (use, bool) {
+			if u, ok := c.fields[field]; ok {
+				return u, true
+			}
+			var f fieldFact
+			if c.pass.ImportObjectFact(field, &f) {
+				return f.Use, true
+			}
+			return use{}, false
+		},
+	}
+}
+
+// source is where a stopping test's tolerance comes from.
+type source struct {
+	constant bool
+	value    float64
+	learned  bool // a parameter or field, recorded for its callers
+}
+
+// resolve finds the value of tolerance expression tol, or records the
+// parameter or field it names (with the given use) and reports constants
+// given to it as a default.
+func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
+	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tol); ok {
+		return source{constant: true, value: value(v, u.format())}
+	}
+	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
+		if field.Pkg() == c.pass.Pkg {
+			c.fields[field] = u
+		}
+		return source{learned: true}
+	}
+	id, ok := ast.Unparen(tol).(*ast.Ident)
+	if !ok {
+		return source{}
+	}
+	src := source{}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		decl := fd.Node().(*ast.FuncDecl)
+		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
+			if c.params[fn] == nil {
+				c.params[fn] = make(map[int]use)
+			}
+			c.params[fn][i] = u
+			src.learned = true
+		}
+		v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
+		for _, val := range c.defaultsOf(decl)[v] {
+			c.site(val, u, "given as the default of "+id.Name)
+		}
+	}
+	return src
+}
+
+// defaultsOf returns the defaulting idioms of a function, computed once.
+func (c *checker) defaultsOf(decl *ast.FuncDecl) map[*types.Var][]ast.Expr {
+	d, ok := c.defaulted[decl]
+	if !ok {
+		d = tolerance.Defaults(c.pass.TypesInfo, decl.Body)
+		c.defaulted[decl] = d
+	}
+	return d
+}
+
+// value returns the value format f stores for constant v.
+func value(v constant.Value, f numeric.Format) float64 {
+	x, _ := constant.Float64Val(constant.ToFloat(v))
+	if f == numeric.Float32 {
+		return float64(float32(x))
+	}
+	return x
+}
+
+// formatOf returns the format that judges values of type t.
+func formatOf(t types.Type) numeric.Format {
+	if provenance.Admits32(t) {
+		return numeric.Float32
+	}
+	return numeric.Float64
+}
+
+// enclosingBody returns the body of the function around cur.
+func enclosingBody(cur inspector.Cursor) ast.Node {
+	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		switch fn := fn.Node().(type) {
+		case *ast.FuncDecl:
+			return fn.Body
+		case *ast.FuncLit:
+			return fn.Body
+		}
+	}
+	return cur.Node()
+}
+
+// enclosingName names the function declaration around cur.
+func enclosingName(cur inspector.Cursor) string {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		return fd.Node().(*ast.FuncDecl).Name.Name
+	}
+	return "a function literal"
+}

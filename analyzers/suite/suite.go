@@ -7,8 +7,8 @@ import (
 
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
-	"roundoff/analyzers/stoptol"
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/stoptol"
 )
 
 // Analyzers is the roundoff suite.

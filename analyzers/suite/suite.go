@@ -5,8 +5,10 @@ package suite
 import (
 	"golang.org/x/tools/go/analysis"
 
+	"roundoff/analyzers/cancellation"
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/intdiv"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/stoptol"
 )
@@ -16,6 +18,8 @@ var Analyzers = []*analysis.Analyzer{
 	epsfloor.Analyzer,
 	exacteq.Analyzer,
 	stoptol.Analyzer,
+	cancellation.Analyzer,
+	intdiv.Analyzer,
 }
 
 // Unattended tells every analyzer whether its fixes will be applied without

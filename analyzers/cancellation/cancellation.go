@@ -1,0 +1,319 @@
+package cancellation
+
+import (
+	_ "embed"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"math"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/edge"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/analyzerdoc"
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/numeric"
+)
+
+//go:embed doc.go
+var doc string
+
+// Analyzer reports expressions that lose digits to cancellation, overflow
+// or underflow where the math package has an accurate form.
+var Analyzer = &analysis.Analyzer{
+	Name:     "cancellation",
+	Doc:      analyzerdoc.Extract(doc, "cancellation"),
+	URL:      "docs/cancellation.md",
+	Requires: []*analysis.Analyzer{inspect.Analyzer},
+	Run:      run,
+}
+
+// Categories of diagnostics, one per rewrite.
+const (
+	catLog1p     = "log1p"
+	catExpm1     = "expm1"
+	catCosine    = "cosine"
+	catHypot     = "hypot"
+	catLogSumExp = "logsumexp"
+)
+
+// The magnitudes the messages quote, derived from the binary64 format
+// (IEEE 754-2019): 1+x rounds to 1 for |x| up to the unit roundoff u;
+// cos(x) rounds to 1 below sqrt(u); squares overflow above
+// sqrt(MaxFloat64) and leave the normal range below 2^-511; exp overflows
+// above log(MaxFloat64) and rounds to 0 below log(2^-1075).
+var (
+	unitRoundoff  = numeric.Float64.U
+	cosFlat       = math.Sqrt(numeric.Float64.U)
+	squareMax     = math.Sqrt(math.MaxFloat64)
+	squareNormal  = math.Sqrt(0x1p-1022)
+	expOverflow   = math.Log(math.MaxFloat64)
+	expUnderflows = -1075 * math.Ln2 // log(2^-1075); math.Log of a subnormal is inexact on amd64
+)
+
+// checker holds what one run needs.
+type checker struct {
+	pass  *analysis.Pass
+	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	c := &checker{pass: pass, decls: constval.Decls(pass.TypesInfo, pass.Files)}
+	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
+	for file := range insp.Root().Children() {
+		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
+			continue // a test's arguments come from its own table of cases
+		}
+		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil)) {
+			switch n := cur.Node().(type) {
+			case *ast.CallExpr:
+				c.call(cur, n)
+			case *ast.BinaryExpr:
+				if n.Op == token.SUB {
+					c.difference(cur, n)
+				}
+			}
+		}
+	}
+	return nil, nil
+}
+
+// call examines math.Log and math.Sqrt calls.
+func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
+	switch c.mathFunc(call) {
+	case "Log":
+		if !c.logSumExp(cur, call) {
+			c.log1p(cur, call)
+		}
+	case "Sqrt":
+		c.hypot(cur, call)
+	}
+}
+
+// difference examines x-1 and 1-x where x is math.Exp or math.Cos.
+func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
+	call, one := n.X, n.Y
+	if c.isOne(n.X) {
+		call, one = n.Y, n.X
+	}
+	inner, ok := ast.Unparen(call).(*ast.CallExpr)
+	if !ok || !c.isOne(one) {
+		return // not a difference with the constant 1
+	}
+	switch c.mathFunc(inner) {
+	case "Exp":
+		c.expm1(cur, n, inner, one == n.X)
+	case "Cos":
+		c.cosine(cur, n, inner, one == n.X)
+	}
+}
+
+// mathFunc returns the name of the math package function call calls,
+// with one argument of type float64, or "".
+func (c *checker) mathFunc(call *ast.CallExpr) string {
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || len(call.Args) != 1 {
+		return ""
+	}
+	if _, ok := call.Fun.(*ast.SelectorExpr); !ok {
+		return "" // dot import: the fixes name the package
+	}
+	return fn.Name()
+}
+
+// qualifier returns the name by which call refers to package math.
+func qualifier(call *ast.CallExpr) string {
+	return types.ExprString(call.Fun.(*ast.SelectorExpr).X)
+}
+
+// isOne reports whether e is the constant 1.
+func (c *checker) isOne(e ast.Expr) bool {
+	tv, ok := c.pass.TypesInfo.Types[e]
+	return ok && tv.Value != nil && constant.Compare(tv.Value, token.EQL, constant.MakeInt64(1))
+}
+
+// isConst reports whether e is a constant expression.
+func (c *checker) isConst(e ast.Expr) bool {
+	tv, ok := c.pass.TypesInfo.Types[e]
+	return ok && tv.Value != nil
+}
+
+// wholeNumber reports whether e is a conversion of an integer to a float:
+// such a value is 0 or at least 1 in magnitude, never small.
+func (c *checker) wholeNumber(e ast.Expr) bool {
+	conv, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok || len(conv.Args) != 1 || !c.pass.TypesInfo.Types[conv.Fun].IsType() {
+		return false
+	}
+	t := c.pass.TypesInfo.TypeOf(conv.Args[0])
+	if t == nil {
+		return false // ill-typed
+	}
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
+}
+
+// lossShows reports whether the digits that the expression at cur loses
+// when its argument x is small can reach a result: x may be small (it is
+// not a constant, a whole number or a uniform random draw, and no
+// enclosing condition keeps it away from zero), and the value is not added
+// to another term, which hides a relative error in a small value.
+func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
+	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
+		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero)
+}
+
+// addend reports whether the value at cur, carried through products,
+// quotients, signs and parentheses, is added to or subtracted from another
+// term, directly or (depth permitting) through a variable every use of
+// which is such a term.
+func (c *checker) addend(cur inspector.Cursor, depth int) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr:
+		case *ast.UnaryExpr:
+			if p.Op != token.SUB && p.Op != token.ADD {
+				return false
+			}
+		case *ast.BinaryExpr:
+			switch p.Op {
+			case token.ADD, token.SUB:
+				return true
+			case token.MUL, token.QUO:
+			default:
+				return false
+			}
+		case *ast.AssignStmt:
+			if p.Tok == token.ADD_ASSIGN || p.Tok == token.SUB_ASSIGN {
+				return true
+			}
+			return depth > 0 && len(p.Lhs) == 1 && c.usedAsAddend(cur.Parent(), p.Lhs[0], depth-1)
+		default:
+			return false
+		}
+	}
+}
+
+// usedAsAddend reports whether the variable assigned by the statement at
+// assign is used, and every use in the enclosing function is an addend.
+func (c *checker) usedAsAddend(assign inspector.Cursor, lhs ast.Expr, depth int) bool {
+	id, ok := lhs.(*ast.Ident)
+	obj := c.pass.TypesInfo.ObjectOf(id)
+	if !ok || obj == nil {
+		return false
+	}
+	var body inspector.Cursor
+	for f := range assign.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		body = f
+		break
+	}
+	if !body.Valid() || body.Node() == nil {
+		return false
+	}
+	uses := 0
+	for u := range body.Preorder((*ast.Ident)(nil)) {
+		if c.pass.TypesInfo.Uses[u.Node().(*ast.Ident)] != obj {
+			continue
+		}
+		if u.Node() == lhs {
+			continue // the assignment being followed
+		}
+		if u.ParentEdgeKind() == edge.AssignStmt_Lhs || !c.addend(u, depth) {
+			return false // assigned again, or used other than as a term of a sum
+		}
+		uses++
+	}
+	return uses > 0
+}
+
+// uniformDraw reports whether x is a draw from math/rand/v2's or
+// math/rand's Float64 (or Float32), called directly or through a local
+// function variable only ever set to one: v2 draws are multiples of 2^-53,
+// for which 1-x is exact, and a draw small enough to lose digits in 1+x
+// comes up with a probability of that size.
+func (c *checker) uniformDraw(cur inspector.Cursor, x ast.Expr) bool {
+	call, ok := ast.Unparen(x).(*ast.CallExpr)
+	if !ok || len(call.Args) != 0 {
+		return false
+	}
+	if isDraw(typeutil.Callee(c.pass.TypesInfo, call)) {
+		return true
+	}
+	id, ok := ast.Unparen(call.Fun).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	v, ok := c.pass.TypesInfo.Uses[id].(*types.Var)
+	return ok && c.onlyDraws(cur, v)
+}
+
+// onlyDraws reports whether every value assigned to the function variable
+// v in the function enclosing cur is a random draw function.
+func (c *checker) onlyDraws(cur inspector.Cursor, v *types.Var) bool {
+	assigned := 0
+	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		for a := range f.Preorder((*ast.AssignStmt)(nil)) {
+			as := a.Node().(*ast.AssignStmt)
+			for i, lhs := range as.Lhs {
+				id, ok := lhs.(*ast.Ident)
+				if !ok || c.pass.TypesInfo.ObjectOf(id) != v {
+					continue
+				}
+				if len(as.Rhs) != len(as.Lhs) || !isDraw(c.funcValue(as.Rhs[i])) {
+					return false
+				}
+				assigned++
+			}
+		}
+		break
+	}
+	return assigned > 0
+}
+
+// funcValue returns the function or method that e, a function value such
+// as rand.Float64 or r.Float64, denotes.
+func (c *checker) funcValue(e ast.Expr) types.Object {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.SelectorExpr:
+		if sel := c.pass.TypesInfo.Selections[e]; sel != nil {
+			return sel.Obj()
+		}
+		return c.pass.TypesInfo.Uses[e.Sel]
+	case *ast.Ident:
+		return c.pass.TypesInfo.Uses[e]
+	}
+	return nil
+}
+
+// isDraw reports whether obj is the Float64 or Float32 function or method
+// of math/rand or math/rand/v2.
+func isDraw(obj types.Object) bool {
+	fn, ok := obj.(*types.Func)
+	if !ok || fn.Pkg() == nil {
+		return false
+	}
+	path := fn.Pkg().Path()
+	return (path == "math/rand" || path == "math/rand/v2") && (fn.Name() == "Float64" || fn.Name() == "Float32")
+}
+
+// binding returns " with x = <source>, y = <source>" for the given names
+// and expressions, leaving out a name bound to itself and sources too long
+// for a one-line message.
+func binding(names string, es ...ast.Expr) string {
+	var parts []string
+	for i, e := range es {
+		name, src := names[i:i+1], types.ExprString(ast.Unparen(e))
+		if src != name && len(src) <= 40 {
+			parts = append(parts, name+" = "+src)
+		}
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return " with " + strings.Join(parts, ", ")
+}

@@ -1,0 +1,63 @@
+// Package cancellation defines an Analyzer that reports expressions which
+// lose digits to cancellation, overflow or underflow where the math package
+// has an accurate form.
+//
+// # Analyzer cancellation
+//
+// cancellation: expressions that lose digits where the math package has an accurate form
+//
+// Subtracting two nearly equal floats cancels their leading digits and
+// leaves the rounding error of their last ones (Goldberg 1991, "catastrophic
+// cancellation"); squaring and exponentiating overflow or underflow long
+// before the final result would. The math package has forms that avoid
+// both, and cancellation reports the plain forms:
+//
+//   - math.Log(1+x) and math.Log(1-x): 1±x rounds to 1 for |x| below
+//     5.55e-17, so the logarithm is 0, and loses about log10(1/|x|) digits
+//     for larger small x; math.Log1p(x) keeps them all;
+//   - math.Exp(x)-1 and 1-math.Exp(x): the same loss; math.Expm1(x);
+//   - 1-math.Cos(x) and math.Cos(x)-1: cos(x) rounds to 1 for |x| below
+//     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
+//     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
+//     subtraction;
+//   - math.Sqrt(x*x+y*y), the same x and y squared: the squares overflow to
+//     +Inf once |x| or |y| exceeds 1.34e154 and become subnormal below
+//     1.49e-154, though the result is representable; math.Hypot(x, y)
+//     scales instead;
+//   - math.Log(math.Exp(a)+math.Exp(b)): +Inf once an argument exceeds
+//     709.78 and -Inf once both are below -745.13; the shifted form
+//     max(a,b) + math.Log1p(math.Exp(-|a-b|)) is exact in range.
+//
+// The small-argument rules report only where the loss can reach a result:
+// the argument is not a constant, not a conversion of an integer (0 or at
+// least 1 in magnitude), not a draw of math/rand's Float64 (1-u is exact
+// for math/rand/v2 draws, and small draws are as rare as they are small),
+// and no enclosing condition keeps it away from zero (if x < -0.5 ||
+// x > 0.5, a case math.Abs(x) > t, the code after an early return taken
+// when math.Abs(x) < 1e-5); and the value is not added to another term,
+// directly, through +=, or through a variable used only as a term of a sum:
+// mu + s*math.Log(1-p) has the absolute error of one rounding, which is all
+// a sum can show. Code in _test.go files is not checked: a test's
+// arguments come from its own table. The overflow rule is silent when an
+// operand is a constant or a whole number, when it was divided by a
+// variable scale first (xs := x / s), when an enclosing condition compares
+// it or its absolute value, as scaled rotations do, and when the result
+// feeds math.Exp, Cosh, Sinh or Gamma, which overflow long before the
+// squares. Look-alikes that lose nothing are left alone: math.Log(2+x),
+// math.Log(x-1), math.Exp(x)-2, x*x+y*y+z*z, and code already in the
+// accurate form. math.Pow(x, 0.5) and math.Pow(x, 2) are not reported: the
+// math package computes the first as math.Sqrt(x) and the second, in the
+// normal range, with the same single rounding as x*x, so they cost time
+// but lose no digit.
+//
+// Fixes. math.Log1p, math.Expm1 and the sine form are more accurate than
+// the plain forms over the whole range, not only where those fail; they are
+// safe to apply unattended. The sine form is offered only when x can be
+// evaluated twice without side effects. math.Hypot removes the overflow but
+// is up to about 1.6 ulps off in the normal range, where x*x+y*y is within
+// one, and it is slower; whether the extremes occur is the author's
+// knowledge, so that fix needs review. The shifted log-sum-exp form gives
+// NaN where both arguments are the same infinity (a log-probability of
+// -Inf), where the plain form gave ±Inf, so it needs review too; only
+// standalone roundoff -fix applies these two.
+package cancellation

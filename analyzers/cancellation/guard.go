@@ -1,0 +1,240 @@
+package cancellation
+
+import (
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+
+	"golang.org/x/tools/go/ast/edge"
+	"golang.org/x/tools/go/ast/inspector"
+)
+
+// A bound reports whether condition cond, or its negation when negated,
+// tells something about the range of x that makes a report moot.
+type bound func(cond ast.Expr, negated bool, x ast.Expr) bool
+
+// guarded reports whether the code at cur runs only where an enclosing
+// condition satisfies ok for x: the then branch of an if or a case of a
+// tagless switch (the condition holds), the else branch of an if, or the
+// statements after an if whose body leaves the block (the condition fails).
+func (c *checker) guarded(cur inspector.Cursor, x ast.Expr, ok bound) bool {
+	for ; ; cur = cur.Parent() {
+		switch parent := cur.Parent().Node().(type) {
+		case nil, *ast.FuncDecl, *ast.FuncLit:
+			return false // the conditions of callers are not seen
+		case *ast.IfStmt:
+			switch cur.ParentEdgeKind() {
+			case edge.IfStmt_Body:
+				if ok(parent.Cond, false, x) {
+					return true
+				}
+			case edge.IfStmt_Else:
+				if ok(parent.Cond, true, x) {
+					return true
+				}
+			}
+		case *ast.CaseClause:
+			if cur.ParentEdgeKind() == edge.CaseClause_Body && c.caseGuards(cur.Parent(), parent, x, ok) {
+				return true
+			}
+		case *ast.BlockStmt:
+			if c.earlyExit(parent, cur.ParentEdgeIndex(), x, ok) {
+				return true
+			}
+		}
+	}
+}
+
+// caseGuards reports whether one of the expressions of a case clause of a
+// tagless switch satisfies ok.
+func (c *checker) caseGuards(clause inspector.Cursor, cc *ast.CaseClause, x ast.Expr, ok bound) bool {
+	sw, isSwitch := clause.Parent().Parent().Node().(*ast.SwitchStmt)
+	if !isSwitch || sw.Tag != nil || len(cc.List) != 1 {
+		return false // a tagged or type switch, a default, or a list of cases
+	}
+	return ok(cc.List[0], false, x)
+}
+
+// earlyExit reports whether a statement before stmts[i] of block is an if
+// without else whose body leaves the block and whose negated condition
+// satisfies ok.
+func (c *checker) earlyExit(block *ast.BlockStmt, i int, x ast.Expr, ok bound) bool {
+	for _, s := range block.List[:max(i, 0)] {
+		ifs, isIf := s.(*ast.IfStmt)
+		if isIf && ifs.Else == nil && leaves(ifs.Body) && ok(ifs.Cond, true, x) {
+			return true
+		}
+	}
+	return false
+}
+
+// leaves reports whether a block ends in a return, a panic or a branch.
+func leaves(b *ast.BlockStmt) bool {
+	if len(b.List) == 0 {
+		return false
+	}
+	switch s := b.List[len(b.List)-1].(type) {
+	case *ast.ReturnStmt, *ast.BranchStmt:
+		return true
+	case *ast.ExprStmt:
+		call, ok := s.X.(*ast.CallExpr)
+		return ok && types.ExprString(call.Fun) == "panic"
+	}
+	return false
+}
+
+// awayFromZero is the bound for the small-argument rules: cond (or its
+// negation) keeps x at least some distance from zero, as in
+// x < -0.5 || x > 0.5, math.Abs(x) > tiny, or the negation of
+// math.Abs(x) < 1e-5. A constant factor or a sign of x is looked through.
+func (c *checker) awayFromZero(cond ast.Expr, negated bool, x ast.Expr) bool {
+	x = c.core(x)
+	switch e := ast.Unparen(cond).(type) {
+	case *ast.UnaryExpr:
+		return e.Op == token.NOT && c.awayFromZero(e.X, !negated, x)
+	case *ast.BinaryExpr:
+		switch {
+		case e.Op == token.LOR && !negated, e.Op == token.LAND && negated:
+			return c.awayFromZero(e.X, negated, x) && c.awayFromZero(e.Y, negated, x)
+		case e.Op == token.LAND, e.Op == token.LOR:
+			return c.awayFromZero(e.X, negated, x) || c.awayFromZero(e.Y, negated, x)
+		}
+		return c.comparisonAway(e, negated, x)
+	}
+	return false
+}
+
+// comparisonAway reports whether the comparison e (negated when asked)
+// keeps x away from zero.
+func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+	op, lhs, rhs := e.Op, e.X, e.Y
+	if !c.mentions(lhs, x) {
+		op, lhs, rhs = mirror(op), e.Y, e.X
+	}
+	if negated {
+		op = invert(op)
+	}
+	abs, ok := c.form(lhs, x)
+	if !ok {
+		return false
+	}
+	v := c.pass.TypesInfo.Types[rhs].Value
+	if v == nil {
+		// |x| > t with a variable threshold still means the author split the range.
+		return abs && (op == token.GTR || op == token.GEQ)
+	}
+	if v.Kind() != constant.Int && v.Kind() != constant.Float {
+		return false
+	}
+	sign := constant.Sign(v)
+	switch op {
+	case token.GTR, token.GEQ:
+		return sign > 0
+	case token.LSS, token.LEQ:
+		return sign < 0 && !abs
+	}
+	return false
+}
+
+// compares is the bound for the overflow rule: cond compares x, or its
+// absolute value, with anything, so the code is aware of its range.
+func (c *checker) compares(cond ast.Expr, _ bool, x ast.Expr) bool {
+	found := false
+	ast.Inspect(cond, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && isOrder(b.Op) {
+			_, okx := c.form(b.X, x)
+			_, oky := c.form(b.Y, x)
+			found = found || okx || oky
+		}
+		return !found
+	})
+	return found
+}
+
+// mentions reports whether e is x or |x| in one of the forms c.form knows.
+func (c *checker) mentions(e, x ast.Expr) bool {
+	_, ok := c.form(e, x)
+	return ok
+}
+
+// form reports whether e stands for x (abs false) or for math.Abs(x) (abs
+// true), directly or through a never-reassigned variable holding it.
+func (c *checker) form(e, x ast.Expr) (abs, ok bool) {
+	for range 4 {
+		e = ast.Unparen(e)
+		if same(c.core(e), x) {
+			return false, true
+		}
+		if call, isCall := e.(*ast.CallExpr); isCall && c.mathFunc(call) == "Abs" && same(c.core(call.Args[0]), x) {
+			return true, true
+		}
+		id, isIdent := e.(*ast.Ident)
+		if !isIdent || c.decls[c.pass.TypesInfo.Uses[id]] == nil {
+			return false, false
+		}
+		e = c.decls[c.pass.TypesInfo.Uses[id]]
+	}
+	return false, false
+}
+
+// core strips from x the sign and constant factors that do not move it
+// away from zero or towards it: -x, 2*x, x/2 all become x.
+func (c *checker) core(x ast.Expr) ast.Expr {
+	for {
+		switch e := ast.Unparen(x).(type) {
+		case *ast.UnaryExpr:
+			if e.Op != token.SUB && e.Op != token.ADD {
+				return e
+			}
+			x = e.X
+		case *ast.BinaryExpr:
+			switch {
+			case e.Op == token.MUL && c.isConst(e.X):
+				x = e.Y
+			case (e.Op == token.MUL || e.Op == token.QUO) && c.isConst(e.Y):
+				x = e.X
+			default:
+				return e
+			}
+		default:
+			return e
+		}
+	}
+}
+
+// scaled reports whether x holds a value divided by a variable scale, as
+// in xs := x / s before math.Sqrt(xs*xs + ys*ys): the code has chosen the
+// range of the squares.
+func (c *checker) scaled(x ast.Expr) bool {
+	id, ok := ast.Unparen(x).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	q, ok := ast.Unparen(c.decls[c.pass.TypesInfo.Uses[id]]).(*ast.BinaryExpr)
+	return ok && q.Op == token.QUO && !c.isConst(q.Y)
+}
+
+func isOrder(op token.Token) bool {
+	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
+}
+
+// mirror returns the operator that holds with the operands swapped.
+func mirror(op token.Token) token.Token {
+	return map[token.Token]token.Token{token.LSS: token.GTR, token.GTR: token.LSS, token.LEQ: token.GEQ, token.GEQ: token.LEQ}[op]
+}
+
+// invert returns the operator that holds when op fails (NaN aside).
+func invert(op token.Token) token.Token {
+	return map[token.Token]token.Token{token.LSS: token.GEQ, token.GEQ: token.LSS, token.GTR: token.LEQ, token.LEQ: token.GTR}[op]
+}
+
+// same reports whether two side-effect-free expressions are written alike.
+func same(x, y ast.Expr) bool {
+	return types.ExprString(ast.Unparen(x)) == types.ExprString(ast.Unparen(y))
+}
+
+func isFloat64(t types.Type) bool {
+	b, ok := t.(*types.Basic)
+	return ok && b.Kind() == types.Float64
+}

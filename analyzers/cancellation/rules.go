@@ -1,0 +1,197 @@
+package cancellation
+
+import (
+	"fmt"
+	"go/ast"
+	"go/token"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/fixes"
+)
+
+// log1p reports math.Log(1+x) and math.Log(1-x): 1±x rounds away the
+// digits of a small x before the logarithm sees them.
+func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr) {
+	sum, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
+		return // not 1+x or 1-x
+	}
+	x, neg := sum.Y, sum.Op == token.SUB
+	switch {
+	case c.isOne(sum.X):
+	case c.isOne(sum.Y) && sum.Op == token.ADD:
+		x = sum.X
+	default:
+		return // Log(x-1) and Log(2+x) lose nothing to 1
+	}
+	if !c.lossShows(cur, x) {
+		return
+	}
+	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
+	if neg {
+		form, arg, use = "1-x", negate(c, x), "math.Log1p(-x)"
+	}
+	text := qualifier(call) + ".Log1p(" + arg + ")"
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catLog1p,
+		Message: fmt.Sprintf("math.Log(%s)%s returns 0 for |x| below %.3g, where %[1]s rounds to 1, and loses about log10(1/|x|) digits for small x; use %[4]s",
+			form, binding("x", x), unitRoundoff/2, use),
+	}, fixes.Safe("Replace with "+text, fixes.Replace(call, text)))
+}
+
+// negate returns the source of -x.
+func negate(c *checker, x ast.Expr) string {
+	if u, ok := ast.Unparen(x).(*ast.UnaryExpr); ok && u.Op == token.SUB {
+		return fixes.Source(c.pass.Fset, ast.Unparen(u.X))
+	}
+	return "-" + fixes.Operand(c.pass.Fset, x, token.UnaryPrec)
+}
+
+// expm1 reports math.Exp(x)-1 and 1-math.Exp(x): exp(x) is close to 1 for
+// small x, and the subtraction leaves only its rounding error.
+func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst bool) {
+	x := call.Args[0]
+	if !c.lossShows(cur, x) {
+		return
+	}
+	text, form, use := qualifier(call)+".Expm1("+fixes.Source(c.pass.Fset, ast.Unparen(x))+")", "math.Exp(x)-1", "math.Expm1(x)"
+	if oneFirst {
+		text, form, use = "-"+text, "1-math.Exp(x)", "-math.Expm1(x)"
+	}
+	target := ast.Node(n)
+	if p, ok := cur.Parent().Node().(*ast.ParenExpr); ok && !oneFirst {
+		target = p // (math.Exp(x) - 1) becomes math.Expm1(x)
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catExpm1,
+		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Exp(x) rounds to 1, and loses about log10(1/|x|) digits for small x; use %s",
+			form, binding("x", x), unitRoundoff/2, use),
+	}, fixes.Safe("Replace with "+text, fixes.Replace(target, text)))
+}
+
+// cosine reports 1-math.Cos(x) and math.Cos(x)-1: cos(x) is 1-x²/2 near 0,
+// so the difference keeps only the rounding error of the cosine.
+func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst bool) {
+	x := call.Args[0]
+	if !c.lossShows(cur, x) {
+		return
+	}
+	q := qualifier(call)
+	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
+	text := "2*" + q + ".Sin(" + half + ")*" + q + ".Sin(" + half + ")"
+	form, use := "1-math.Cos(x)", "2*math.Sin(x/2)*math.Sin(x/2)"
+	if !oneFirst {
+		text, form, use = "-"+text, "math.Cos(x)-1", "-2*math.Sin(x/2)*math.Sin(x/2)"
+	}
+	d := analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catCosine,
+		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
+			form, binding("x", x), cosFlat, use),
+	}
+	if !fixes.Pure(c.pass.TypesInfo, x) {
+		fixes.Report(c.pass, d) // the fix would evaluate x twice
+		return
+	}
+	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(n, text)))
+}
+
+// hypot reports math.Sqrt(x*x+y*y): the squares overflow, or leave the
+// normal range, long before the result does.
+func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
+	sum, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return
+	}
+	x, okx := c.square(sum.X)
+	y, oky := c.square(sum.Y)
+	if !okx || !oky {
+		return // not a sum of exactly two squares
+	}
+	for _, e := range []ast.Expr{x, y} {
+		if c.isConst(e) || c.wholeNumber(e) || c.scaled(e) || c.guarded(cur, e, c.compares) {
+			return // a constant, a whole number, or a value whose range the code controls
+		}
+	}
+	if c.overflowsFirst(cur) {
+		return // the result feeds a function that overflows at far smaller magnitudes
+	}
+	q := qualifier(call)
+	text := q + ".Hypot(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ", " + fixes.Source(c.pass.Fset, ast.Unparen(y)) + ")"
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catHypot,
+		Message: fmt.Sprintf("math.Sqrt(x*x+y*y)%s overflows to +Inf once |x| or |y| exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot(x, y)",
+			binding("xy", x, y), squareMax, squareNormal),
+	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+}
+
+// square returns x when e is x*x for a side-effect-free float64 x.
+func (c *checker) square(e ast.Expr) (ast.Expr, bool) {
+	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL || !isFloat64(c.pass.TypesInfo.TypeOf(m.X)) {
+		return nil, false
+	}
+	return m.X, fixes.Pure(c.pass.TypesInfo, m.X) && same(m.X, m.Y)
+}
+
+// logSumExp reports math.Log(math.Exp(a)+math.Exp(b)), which overflows for
+// large arguments and underflows to log(0) for very negative ones; it
+// reports whether the call had that shape.
+func (c *checker) logSumExp(cur inspector.Cursor, call *ast.CallExpr) bool {
+	sum, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return false
+	}
+	ea, oka := ast.Unparen(sum.X).(*ast.CallExpr)
+	eb, okb := ast.Unparen(sum.Y).(*ast.CallExpr)
+	if !oka || !okb || c.mathFunc(ea) != "Exp" || c.mathFunc(eb) != "Exp" {
+		return false
+	}
+	a, b := ea.Args[0], eb.Args[0]
+	if c.isConst(a) && c.isConst(b) {
+		return true // both terms are constants: the range is known
+	}
+	d := analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catLogSumExp,
+		Message: fmt.Sprintf("math.Log(math.Exp(a)+math.Exp(b))%s overflows to +Inf once a or b exceeds %.6g and gives -Inf once both are below %.6g; shift by the larger: math.Max(a, b) + math.Log1p(math.Exp(-math.Abs(a-b)))",
+			binding("ab", a, b), expOverflow, expUnderflows),
+	}
+	if !fixes.Pure(c.pass.TypesInfo, a) || !fixes.Pure(c.pass.TypesInfo, b) {
+		fixes.Report(c.pass, d) // the fix would evaluate the arguments twice
+		return true
+	}
+	q, fset := qualifier(call), c.pass.Fset
+	diff := fixes.Operand(fset, a, token.ADD.Precedence()) + "-" + fixes.Operand(fset, b, token.ADD.Precedence()+1)
+	text := fmt.Sprintf("%s.Max(%s, %s) + %[1]s.Log1p(%[1]s.Exp(-%[1]s.Abs(%[4]s)))", q, fixes.Source(fset, ast.Unparen(a)), fixes.Source(fset, ast.Unparen(b)), diff)
+	if _, ok := cur.Parent().Node().(*ast.BinaryExpr); ok {
+		text = "(" + text + ")"
+	} else if _, ok := cur.Parent().Node().(*ast.UnaryExpr); ok {
+		text = "(" + text + ")"
+	}
+	fixes.Report(c.pass, d, fixes.Judgement("Shift by the larger argument", fixes.Replace(call, text)))
+	return true
+}
+
+// earlyOverflow lists the math functions that overflow for arguments of a
+// few hundred (exp(710) = +Inf), far below the 1.34e154 at which squares
+// do: a hypotenuse fed to them overflows there first.
+var earlyOverflow = map[string]bool{"Exp": true, "Exp2": true, "Expm1": true, "Cosh": true, "Sinh": true, "Gamma": true}
+
+// overflowsFirst reports whether the value at cur, carried through
+// arithmetic and parentheses, is the argument of a function in
+// earlyOverflow.
+func (c *checker) overflowsFirst(cur inspector.Cursor) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr, *ast.BinaryExpr, *ast.UnaryExpr:
+		case *ast.CallExpr:
+			if c.mathFunc(p) == "Abs" {
+				continue
+			}
+			return earlyOverflow[c.mathFunc(p)]
+		default:
+			return false
+		}
+	}
+}

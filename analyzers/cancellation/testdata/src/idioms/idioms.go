@@ -1,0 +1,164 @@
+// Package idioms holds look-alikes that lose nothing, and code already in
+// the accurate form; none may be reported.
+package idioms
+
+import (
+	"math"
+	"math/rand/v2"
+)
+
+func accurate(x, y, a, b float64) float64 {
+	s := math.Log1p(x) + math.Expm1(y)                         // already the accurate forms
+	s += 2 * math.Sin(x/2) * math.Sin(x/2)                     // already the sine form
+	s += math.Hypot(x, y)                                      // already scaled
+	s += math.Max(a, b) + math.Log1p(math.Exp(-math.Abs(a-b))) // shifted log-sum-exp
+	return s
+}
+
+func logTwoPlus(x float64) float64 {
+	return math.Log(2 + x) // 2+x keeps the digits of a small x
+}
+
+func logMinusOne(x float64) float64 {
+	return math.Log(x - 1) // x-1 is exact near 1 (Sterbenz); no 1 is added to a small value
+}
+
+func expMinusTwo(x float64) float64 {
+	return math.Exp(x) - 2 // exp(x) - 2 cancels only near x = ln 2, where Expm1 does not help
+}
+
+func wholeNumbers(n, k int) float64 {
+	a := math.Log(1 + float64(n)) // a converted integer is 0 or at least 1: no digit is lost
+	b := math.Exp(float64(k)) - 1 // likewise
+	c := 1 - math.Cos(float64(n))
+	return a * b * c
+}
+
+func constants() float64 {
+	return math.Log(1+0.5) * (1 - math.Cos(math.Pi/3)) // constant arguments: known not small
+}
+
+func expm1Guarded(x float64) float64 {
+	if x < -0.5 || x > 0.5 { // the branch keeps |x| above 0.5: at most about a bit is lost
+		return math.Exp(x) - 1
+	}
+	return x * (1 + x/2)
+}
+
+func cosm1Guarded(x float64) float64 {
+	const quarter = math.Pi / 4
+	if x < -quarter || x > quarter {
+		return math.Cos(x) - 1 // |x| > π/4
+	}
+	return -x * x / 2
+}
+
+func log1pEarlyExit(x float64) float64 {
+	if math.Abs(x) < 1e-5 {
+		return x - x*x/2 // small x handled by a series
+	}
+	return math.Log(1 + x) // |x| >= 1e-5 here
+}
+
+func negativeBranch(x float64) float64 {
+	switch {
+	case x < -1:
+		return math.Log(1 - x) // 1-x > 2: nothing lost
+	case x > 1:
+		return math.Log(1 + x)
+	}
+	return 0
+}
+
+func guardedElse(x, tiny float64) float64 {
+	if math.Abs(x) <= tiny {
+		return 0
+	} else {
+		return 1 - math.Cos(x) // the else branch has |x| > tiny
+	}
+}
+
+func notSmall(x float64) float64 {
+	if !(math.Abs(x) < 0.25) {
+		return math.Log(1 + x)
+	}
+	return x
+}
+
+func addedToLarger(mu, scale, p float64) float64 {
+	return mu + scale*math.Log(1-p) // the absolute error of a small term added to mu is what counts
+}
+
+func logLikelihood(ps []float64, base float64) float64 {
+	ll := base
+	for _, p := range ps {
+		ll += math.Log(1 - p) // accumulated into a sum
+	}
+	return ll
+}
+
+func termVariable(lab, x, beta float64) float64 {
+	var l1mx float64
+	if beta != 1 {
+		l1mx = (beta - 1) * math.Log(1-x) // l1mx is only ever a term of a sum
+	}
+	return lab + l1mx
+}
+
+func draws(src rand.Source) float64 {
+	e := -math.Log(1 - rand.Float64()) // a v2 draw is a multiple of 2^-53: 1-u is exact
+	var r func() float64
+	if src == nil {
+		r = rand.Float64
+	} else {
+		r = rand.New(src).Float64
+	}
+	return e * math.Log(1-r()) // r is only ever a Float64 draw
+}
+
+func threeSquares(x, y, z float64) float64 {
+	return math.Sqrt(x*x + y*y + z*z) // three terms: not a Hypot
+}
+
+func notSquares(x, y, z float64) float64 {
+	return math.Sqrt(x*x + y*z) // y*z is not a square
+}
+
+func integerSquares(i, j int) float64 {
+	return math.Sqrt(float64(i)*float64(i) + float64(j)*float64(j)) // whole numbers below 2^63 cannot overflow when squared
+}
+
+func scaledRotation(a, b float64) float64 {
+	s := math.Abs(a) + math.Abs(b)
+	as := a / s
+	bs := b / s
+	return s * math.Sqrt(as*as+bs*bs) // scaled first
+}
+
+func rangeChecked(f, g, lo, hi float64) float64 {
+	f1 := math.Abs(f)
+	if lo < f1 && f1 < hi && lo < math.Abs(g) && math.Abs(g) < hi {
+		return math.Sqrt(f*f + g*g) // the code checked the range
+	}
+	return math.Hypot(f, g)
+}
+
+func overflowsEarlier(x, y float64) float64 {
+	return math.Exp(math.Abs(1 - math.Sqrt(x*x+y*y)/math.Pi)) // exp overflows at 709.78, long before the squares
+}
+
+func powers(x float64) float64 {
+	return math.Pow(x, 0.5) + math.Pow(x, 2) // math.Pow computes these exactly as Sqrt and x*x do
+}
+
+func product(a, b float64) float64 {
+	return math.Log(math.Exp(a) * math.Exp(b)) // a product, not a sum
+}
+
+func constantLogSumExp() float64 {
+	return math.Log(math.Exp(1) + math.Exp(2)) // constant arguments: the range is known
+}
+
+func impureSquares(next func() float64) float64 {
+	return math.Sqrt(next()*next() + 1) // next() may differ between calls: not one value squared
+}

@@ -1,0 +1,17 @@
+// Command runfix prints each naive form at an argument where it loses
+// every digit, so a test can run it before and after roundoff's fixes.
+package main
+
+import (
+	"fmt"
+	"math"
+)
+
+func main() {
+	x, h, t, big, a := 1e-17, 1e-10, 1e-8, 1e200, 1000.0
+	fmt.Printf("log1p %.17g\n", math.Log(1+x))                         // want `math.Log\(1\+x\) returns 0`
+	fmt.Printf("expm1 %.17g\n", math.Exp(h)-1)                         // want `math.Exp\(x\)-1 with x = h returns 0`
+	fmt.Printf("cosm1 %.17g\n", 1-math.Cos(t))                         // want `1-math.Cos\(x\) with x = t returns 0`
+	fmt.Printf("hypot %.17g\n", math.Sqrt(big*big+big*big))            // want `math.Sqrt\(x\*x\+y\*y\) with x = big, y = big overflows`
+	fmt.Printf("logsumexp %.17g\n", math.Log(math.Exp(a)+math.Exp(a))) // want `math.Log\(math.Exp\(a\)\+math.Exp\(b\)\) with b = a overflows`
+}

@@ -1,0 +1,90 @@
+package intdiv_test
+
+import (
+	"math"
+	"math/big"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/analysis/analysistest"
+
+	"roundoff/analyzers/intdiv"
+	"roundoff/analyzers/suite"
+)
+
+func TestHazards(t *testing.T) {
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), intdiv.Analyzer, "hazards")
+}
+
+func TestIdioms(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), intdiv.Analyzer, "idioms")
+}
+
+// TestUnattended checks that under go fix the conversion fix, which
+// guesses the author's intent, is dropped and the literal fix stays.
+func TestUnattended(t *testing.T) {
+	suite.Unattended(true)
+	defer suite.Unattended(false)
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), intdiv.Analyzer, "unattended")
+}
+
+// TestFixedProgramRuns runs testdata/src/runfix before and after its fixes
+// and compares the results with exact rational arithmetic in math/big.
+func TestFixedProgramRuns(t *testing.T) {
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), intdiv.Analyzer, "runfix")
+	src := filepath.Join("testdata", "src", "runfix")
+	before := values(t, runProgram(t, filepath.Join(src, "main.go")))
+	after := values(t, runProgram(t, filepath.Join(src, "main.go.golden")))
+
+	// Go specification, "Arithmetic operators" and "Constant expressions":
+	// integer division truncates toward zero, and untyped integer constants
+	// divide as integers: 7/3 is 2, 1/2 is 0, and x^0 is 1.
+	assert.Equal(t, map[string]float64{"mean": 2, "half": 0, "cbrt": 1}, before)
+
+	// The mean of 1, 2, 4 is 7/3; float64(7)/float64(3) is its correctly
+	// rounded value (IEEE 754-2019 §5.4.1), the same as math/big's rounding
+	// of the exact rational.
+	mean, _ := new(big.Rat).SetFrac64(7, 3).Float64()
+	assert.Equal(t, mean, after["mean"])
+	assert.Equal(t, 1.5, after["half"]) // 0.5 * 3, exact
+	// 27^(1/3) = 3; math.Pow with the rounded exponent 1.0/3 lands within
+	// an ulp or two of it (the exponent is 1/3 - 1.85e-17, so the exact
+	// value of 27^(1.0/3) is 3·(1 - 6.1e-17), below one ulp of 3).
+	assert.InDelta(t, 3.0, after["cbrt"], 2*math.Nextafter(3, 4)-2*3)
+}
+
+// values parses "name value" lines.
+func values(t *testing.T, out string) map[string]float64 {
+	m := map[string]float64{}
+	for line := range strings.Lines(out) {
+		name, v, ok := strings.Cut(strings.TrimSpace(line), " ")
+		require.True(t, ok, line)
+		f, err := strconv.ParseFloat(v, 64)
+		require.NoError(t, err)
+		m[name] = f
+	}
+	return m
+}
+
+// runProgram copies one Go source file into a scratch module as main.go,
+// runs it and returns its standard output.
+func runProgram(t *testing.T, file string) string {
+	t.Helper()
+	dir := t.TempDir()
+	src, err := os.ReadFile(file)
+	require.NoError(t, err)
+	require.NoError(t, os.WriteFile(filepath.Join(dir, "main.go"), src, 0o644))
+	require.NoError(t, os.WriteFile(filepath.Join(dir, "go.mod"), []byte("module runfix\n\ngo 1.26\n"), 0o644))
+	cmd := exec.Command("go", "run", ".")
+	cmd.Dir = dir
+	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOWORK=off")
+	out, err := cmd.Output()
+	require.NoError(t, err)
+	return string(out)
+}

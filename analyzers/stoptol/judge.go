@@ -5,6 +5,7 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
+	"math"
 	"regexp"
 	"strconv"
 
@@ -36,7 +37,7 @@ func judge(u use, tol float64) verdict {
 		return fine
 	case !u.Step && tolerance.Judge(kind, tol, f, 0) != tolerance.Resolvable:
 		return floor
-	case u.Class == minimize && tol < f.SqrtEps():
+	case u.Class == minimize && tol < u.floor():
 		return tight
 	case u.Class == root && u.Relative && u.Step && tol < f.U:
 		return tight
@@ -50,9 +51,12 @@ func judge(u use, tol float64) verdict {
 func explain(v verdict, u use, tol float64) string {
 	f := u.format()
 	switch {
+	case v == tight && u.Class == minimize && u.Noise > 0:
+		return fmt.Sprintf("comparing values of a function accurate only to %.3g relative locates a minimum only to about sqrt(%.3g)·max(1,|x|) = %.3g·max(1,|x|) (Gill, Murray & Wright 1981), so the test wastes iterations or never passes; use at least %s",
+			u.Noise, u.Noise, u.floor(), u.floorLit())
 	case v == tight && u.Class == minimize:
 		return fmt.Sprintf("comparing function values locates a minimum only to about sqrt(eps)·max(1,|x|) = %.3g·max(1,|x|) in %s (Brent 1973), so the test wastes iterations or never passes; use at least %s",
-			f.SqrtEps(), f.Name, sqrtEpsLit(f))
+			f.SqrtEps(), f.Name, u.floorLit())
 	case v == tight:
 		return fmt.Sprintf("a step below the unit roundoff of %s (%.3g) relative to |x| cannot be resolved, so the test passes only for a zero step; use a few ulps, such as %s", f.Name, f.U, fewUlps(f))
 	}
@@ -130,6 +134,7 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 		Relative: t.Kind == tolerance.Relative || t.Kind == tolerance.RelativeMagnitude,
 		Step:     t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude,
 		Float32:  f == numeric.Float32,
+		Noise:    l.noise,
 		Where:    enclosingName(cur),
 	}
 	src := c.resolve(cur, t.Tol, u)
@@ -185,7 +190,7 @@ func (c *checker) site(val ast.Expr, u use, how string) {
 	}
 	var fs []fixes.Fix
 	if v == tight && u.Class == minimize {
-		fs = append(fs, fixes.Judgement("Use sqrt(eps): "+sqrtEpsLit(u.format()), fixes.Replace(val, sqrtEpsLit(u.format()))))
+		fs = append(fs, fixes.Judgement("Use the attainable precision: "+u.floorLit(), fixes.Replace(val, u.floorLit())))
 	}
 	fixes.Report(c.pass, d, fs...)
 }
@@ -197,6 +202,24 @@ func withValue(src string, tol float64) string {
 		return src
 	}
 	return src + " (" + numeric.Short(tol) + ")"
+}
+
+// floor returns the relative precision to which a minimization of the use's
+// objective can locate x: sqrt of its noise level, or of eps.
+func (u use) floor() float64 {
+	if u.Noise > 0 {
+		return math.Sqrt(u.Noise)
+	}
+	return u.format().SqrtEps()
+}
+
+// floorLit writes floor for a fix: sqrt(eps) exactly, or the noise floor
+// rounded to three digits.
+func (u use) floorLit() string {
+	if u.Noise > 0 {
+		return strconv.FormatFloat(u.floor(), 'g', 3, 64)
+	}
+	return sqrtEpsLit(u.format())
 }
 
 // sqrtEpsLit writes sqrt(eps) of f exactly: 2^-26 for float64; for float32,
@@ -223,7 +246,7 @@ func fewUlps(f numeric.Format) string {
 func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v verdict) []fixes.Fix {
 	f := u.format()
 	if u.Relative {
-		lit := sqrtEpsLit(f)
+		lit := u.floorLit()
 		if u.Class == root {
 			lit = fewUlps(f)
 		}
@@ -238,8 +261,8 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 		return nil
 	}
 	tol, b := fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()), fixes.Source(c.pass.Fset, t.B)
-	text := fmt.Sprintf("2*(%[1]s*%[2]s.Abs(%[3]s) + %[4]s)", sqrtEpsLit(f), name, b, tol)
-	msg := "Scale by |x| with sqrt(eps): "
+	text := fmt.Sprintf("2*(%[1]s*%[2]s.Abs(%[3]s) + %[4]s)", u.floorLit(), name, b, tol)
+	msg := "Scale by |x| with the attainable precision: "
 	if v == unscaled {
 		text = fmt.Sprintf("%[1]s + %[2]s*%[3]s.Abs(%[4]s)", tol, fewUlps(f), name, b)
 		msg = "Add 4 ulps of |x|: "

@@ -27,16 +27,17 @@ func (c class) String() string {
 
 // loop holds what stoptol learns about one for statement.
 type loop struct {
-	stmt   *ast.ForStmt
-	exits  []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
-	other  bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
-	capped bool       // an integer comparison bounds the iterations
-	class  class
-	xvars  map[*types.Var]bool // float variables assigned in the loop, function values excepted
-	fvars  map[*types.Var]bool // variables assigned a function value in the loop
+	stmt    *ast.ForStmt
+	exits   []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
+	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
+	capped  bool       // an integer comparison bounds the iterations
+	class   class
+	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
+	fvars   map[*types.Var]bool // variables assigned a function value in the loop
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
 	stepped map[*types.Var]bool // the variables they are added to
-	shrunk map[*types.Var]bool // variables scaled down by a constant factor below 1
+	shrunk  map[*types.Var]bool // variables scaled down by a constant factor below 1
+	noise   float64             // the objective's declared relative accuracy, or 0
 }
 
 // readLoop collects the exits, the cap, the variables and the class of a

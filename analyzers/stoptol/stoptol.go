@@ -12,9 +12,11 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
@@ -28,7 +30,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "stoptol",
 	Doc:       analyzerdoc.Extract(doc, "stoptol"),
 	URL:       "docs/stoptol.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, noiselevel.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(paramsFact), new(fieldFact)},
 }
@@ -49,7 +51,8 @@ type use struct {
 	Step     bool // on a step (|dx|), not on a difference of two x values
 	Grad     bool // a gradient-norm threshold
 	Float32  bool
-	Where    string // the function that tests it
+	Noise    float64 // the objective's declared relative accuracy, or 0 for machine precision
+	Where    string  // the function that tests it
 }
 
 func (u use) String() string {
@@ -90,6 +93,7 @@ func (f *fieldFact) String() string { return f.Use.String() }
 // checker holds what one run needs.
 type checker struct {
 	pass      *analysis.Pass
+	noise     *noiselevel.Levels
 	decls     map[types.Object]ast.Expr
 	params    map[*types.Func]map[int]use
 	fields    map[*types.Var]use
@@ -99,6 +103,7 @@ type checker struct {
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
 		pass:      pass,
+		noise:     pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
 		decls:     constval.Decls(pass.TypesInfo, pass.Files),
 		params:    make(map[*types.Func]map[int]use),
 		fields:    make(map[*types.Var]use),
@@ -113,7 +118,9 @@ func run(pass *analysis.Pass) (any, error) {
 			if fvals[body] == nil {
 				fvals[body] = FValues(pass.TypesInfo, body)
 			}
-			c.loop(cur, readLoop(pass.TypesInfo, n, fvals[body]))
+			l := readLoop(pass.TypesInfo, n, fvals[body])
+			l.noise = c.objectiveNoise(l)
+			c.loop(cur, l)
 		case *ast.BinaryExpr:
 			c.gradient(cur, n)
 		}
@@ -131,6 +138,25 @@ func run(pass *analysis.Pass) (any, error) {
 		})
 	}
 	return nil, nil
+}
+
+// objectiveNoise returns the largest declared noise level among the
+// functions whose values a minimization compares, or 0.
+func (c *checker) objectiveNoise(l *loop) float64 {
+	if l.class != minimize {
+		return 0
+	}
+	level := 0.0
+	ast.Inspect(l.stmt, func(n ast.Node) bool {
+		if call, ok := n.(*ast.CallExpr); ok && isFValue(c.pass.TypesInfo, call) {
+			fn, _ := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+			if v, ok := c.noise.Of(fn); ok {
+				level = max(level, v)
+			}
+		}
+		return true
+	})
+	return level
 }
 
 // known returns the stopping tolerances learned here and from facts.

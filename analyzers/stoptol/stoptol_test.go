@@ -16,7 +16,7 @@ import (
 )
 
 func TestHazards(t *testing.T) {
-	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), stoptol.Analyzer, "hazards", "golden")
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), stoptol.Analyzer, "hazards", "golden", "noisy")
 }
 
 func TestIdioms(t *testing.T) {

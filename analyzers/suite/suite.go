@@ -3,13 +3,17 @@
 package suite
 
 import (
+	"os"
+
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/cancellation"
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
 	"roundoff/analyzers/intdiv"
+	"roundoff/analyzers/internal/driver"
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/reviewmark"
 	"roundoff/analyzers/stoptol"
 )
 
@@ -18,6 +22,7 @@ var Analyzers = []*analysis.Analyzer{
 	epsfloor.Analyzer,
 	exacteq.Analyzer,
 	stoptol.Analyzer,
+	reviewmark.Analyzer,
 	cancellation.Analyzer,
 	intdiv.Analyzer,
 }
@@ -26,3 +31,7 @@ var Analyzers = []*analysis.Analyzer{
 // review (under go fix and go vet), in which case only the fixes that need
 // no numerical judgement are offered.
 func Unattended(on bool) { fixes.KeepUnattendedOnly(on) }
+
+// Main runs the roundoff command on the suite with the process's
+// arguments and exits with its status.
+func Main() { os.Exit(driver.Main(Analyzers, os.Args[1:])) }

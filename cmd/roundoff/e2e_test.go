@@ -40,12 +40,22 @@ func TestMain(m *testing.M) {
 	os.Exit(code)
 }
 
-// The planted hazards of testdata/e2e/mod, as the standalone driver prints
-// them (positions relative to the module root).
+// The planted hazards of testdata/e2e/mod: position (relative to the
+// module root) and the start of the message.
 const (
-	nanMsg     = "ramp/ramp.go:18:5: comparison with math.NaN() is always false"
-	loopMsg    = "ramp/ramp.go:27:19: float loop variable frac goes from 0 in steps of 0.1 and never equals 1"
-	literalMsg = "ramp/soak.go:8:9: exact == between a computed float64 value and 0.3"
+	nanPos     = "ramp/ramp.go:18:5: "
+	nanMsg     = "comparison with math.NaN() is always false"
+	loopPos    = "ramp/ramp.go:27:19: "
+	loopMsg    = "float loop variable frac goes from 0 in steps of 0.1 and never equals 1"
+	literalPos = "ramp/soak.go:8:9: "
+	literalMsg = "exact == between a computed float64 value and 0.3"
+)
+
+// The hazards as the standalone text output prints them, analyzer named,
+// and as go vet prints them.
+var (
+	standaloneHazards = []string{nanPos + "exacteq: " + nanMsg, loopPos + "exacteq: " + loopMsg, literalPos + "exacteq: " + literalMsg}
+	vetHazards        = []string{nanPos + nanMsg, loopPos + loopMsg, literalPos + literalMsg}
 )
 
 // The source lines of the planted hazards and their fixed forms.
@@ -67,13 +77,22 @@ func fixture(t *testing.T, name string) string {
 	return dir
 }
 
-// run runs a command in dir with a hermetic Go environment and returns its
-// standard output, its standard error and its exit status.
+// gitEnv makes git ignore the user's and the system's settings and gives
+// commits an author.
+var gitEnv = []string{
+	"GIT_CONFIG_NOSYSTEM=1", "GIT_CONFIG_GLOBAL=" + os.DevNull,
+	"GIT_AUTHOR_NAME=Kiln Lab", "GIT_AUTHOR_EMAIL=lab@kilnlab.invalid",
+	"GIT_COMMITTER_NAME=Kiln Lab", "GIT_COMMITTER_EMAIL=lab@kilnlab.invalid",
+}
+
+// run runs a command in dir with a hermetic Go and git environment and
+// returns its standard output, its standard error and its exit status.
 func run(t *testing.T, dir, name string, args ...string) (stdout, stderr string, code int) {
 	t.Helper()
 	cmd := exec.Command(name, args...)
 	cmd.Dir = dir
 	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOPROXY=off", "GOWORK=off")
+	cmd.Env = append(cmd.Env, gitEnv...)
 	var out, errOut bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &errOut
 	err := cmd.Run()
@@ -108,14 +127,14 @@ func read(t *testing.T, dir, rel string) string {
 	return string(data)
 }
 
-// assertHazards checks that output names each planted hazard exactly once
+// assertHazards checks that output names each of the hazards exactly once
 // and nothing else.
-func assertHazards(t *testing.T, output string) {
+func assertHazards(t *testing.T, output string, hazards []string) {
 	t.Helper()
-	for _, msg := range []string{nanMsg, loopMsg, literalMsg} {
+	for _, msg := range hazards {
 		assert.Equal(t, 1, strings.Count(output, msg), "want once: %s\nin:\n%s", msg, output)
 	}
-	assert.Equal(t, 3, strings.Count(output, ".go:"), output)
+	assert.Equal(t, len(hazards), strings.Count(output, ".go:"), output)
 }
 
 // Exit statuses of the standalone driver follow the x/tools checker
@@ -126,15 +145,20 @@ func TestStandaloneReportsHazards(t *testing.T) {
 	dir := fixture(t, "mod")
 	stdout, stderr, code := run(t, dir, tool, "./...")
 	assert.Equal(t, 3, code, stderr)
-	assert.Empty(t, stdout)
-	assertHazards(t, stderr)
+	assert.Empty(t, stderr)
+	assertHazards(t, stdout, standaloneHazards)
+	lines := strings.Split(strings.TrimSuffix(stdout, "\n"), "\n")
+	require.Len(t, lines, 3)
+	for i, l := range lines {
+		assert.True(t, strings.HasPrefix(l, standaloneHazards[i]), "one finding per line, in file order: %s", l)
+	}
 	// The message names the values on either side of the bound; Go's own
 	// float64 arithmetic (IEEE 754-2019 binary64) gives them here.
 	frac := 0.0
 	for range 10 {
 		frac += 0.1
 	}
-	assert.Contains(t, stderr, fmt.Sprintf("(it passes from %v to %v)", frac, frac+0.1))
+	assert.Contains(t, stdout, fmt.Sprintf("(it passes from %v to %v)", frac, frac+0.1))
 }
 
 func TestStandaloneCleanPackage(t *testing.T) {
@@ -178,7 +202,7 @@ func TestStandaloneJSON(t *testing.T) {
 		got = append(got, filepath.ToSlash(rel)+": "+d.Message)
 		assert.Len(t, d.SuggestedFixes, 1, "standalone offers every fix: %s", d.Message)
 	}
-	assertHazards(t, strings.Join(got, "\n"))
+	assertHazards(t, strings.Join(got, "\n"), vetHazards)
 	assert.ElementsMatch(t, []string{"nan", "loop", "literal"}, []string{diags[0].Category, diags[1].Category, diags[2].Category})
 }
 
@@ -188,7 +212,7 @@ func TestStandaloneDiff(t *testing.T) {
 	before := snapshot(t, dir)
 	stdout, stderr, code := run(t, dir, tool, "-fix", "-diff", "./...")
 	assert.Equal(t, 0, code, stderr)
-	assert.Contains(t, stdout, "ramp/ramp.go (old)\n+++ ")
+	assert.Contains(t, stdout, "--- a/ramp/ramp.go\n+++ b/ramp/ramp.go\n")
 	for _, line := range []string{"-" + nanSrc, "+" + nanFixed, "-" + loopSrc, "+" + loopLess, "-" + literalSrc, "+" + literalTol, "+import \"math\"\n"} {
 		assert.Contains(t, stdout, line)
 	}
@@ -227,7 +251,7 @@ func TestGoVet(t *testing.T) {
 	before := snapshot(t, dir)
 	_, stderr, code := run(t, dir, "go", "vet", "-vettool="+tool, "./...")
 	assert.NotEqual(t, 0, code)
-	assertHazards(t, stderr)
+	assertHazards(t, stderr, vetHazards)
 	assert.Equal(t, before, snapshot(t, dir))
 }
 
@@ -256,10 +280,10 @@ func TestGoFixAppliesSafeFixesOnly(t *testing.T) {
 			delete(after, "ramp/ramp.go")
 			assert.Equal(t, before, after)
 
-			_, stderr, code = run(t, dir, tool, "./...")
+			stdout, _, code = run(t, dir, tool, "./...")
 			assert.Equal(t, 3, code)
-			assert.Contains(t, stderr, literalMsg)
-			assert.Equal(t, 1, strings.Count(stderr, ".go:"), stderr)
+			assert.Contains(t, stdout, literalPos+"exacteq: "+literalMsg)
+			assert.Equal(t, 1, strings.Count(stdout, ".go:"), stdout)
 		})
 	}
 }

@@ -44,7 +44,13 @@ func KeepUnattendedOnly(on bool) { unattendedOnly.Store(on) }
 
 // Report reports d with the given fixes, safe ones first, leaving out the
 // ones that need review when the driver asked for unattended fixes only.
+// It is the one place where findings are dropped in every mode: when the
+// run's configuration turns the analyzer off or excludes the file, and
+// when a review directive (see ReviewDirective) covers the finding.
 func Report(pass *analysis.Pass, d analysis.Diagnostic, fs ...Fix) {
+	if dropped(pass, d) {
+		return
+	}
 	for _, safe := range []bool{true, false} {
 		for _, f := range fs {
 			if f.Unattended == safe && (safe || !unattendedOnly.Load()) {

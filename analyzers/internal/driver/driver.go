@@ -1,0 +1,113 @@
+// Package driver runs the roundoff suite from the command line: as a vet
+// or fix tool under the go command (the .cfg protocol of unitchecker), as
+// a standalone linter of package patterns with its own output formats,
+// scope controls and fix application, and as the subcommands config and
+// hook.
+package driver
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+
+	"roundoff/analyzers/internal/limits"
+)
+
+// Exit statuses of the standalone driver.
+const (
+	exitClean    = 0 // nothing to report
+	exitErrors   = 1 // bad input, packages that do not load, failures
+	exitFindings = 3 // findings reported
+)
+
+// Main runs roundoff with the given suite and command-line arguments
+// (os.Args[1:]: in vet mode unitchecker reads os.Args itself) and returns
+// the exit status.
+func Main(analyzers []*analysis.Analyzer, args []string) int {
+	if vetMode(args) {
+		return vet(analyzers, args)
+	}
+	cwd, err := os.Getwd()
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "roundoff:", err)
+		return exitErrors
+	}
+	e := &env{analyzers: analyzers, stdout: os.Stdout, stderr: os.Stderr, cwd: cwd}
+	if len(args) > 0 {
+		switch args[0] {
+		case "config":
+			return e.configCmd(args[1:])
+		case "hook":
+			return e.hookCmd(args[1:])
+		case "limits":
+			return limits.Run(args[1:], e.stdout, e.stderr)
+		case "help":
+			return e.help(args[1:])
+		}
+	}
+	return e.lintCmd(args)
+}
+
+// env is what a command runs in.
+type env struct {
+	analyzers      []*analysis.Analyzer
+	stdout, stderr io.Writer
+	cwd            string
+}
+
+// errorf prints a one-line error and returns the error status.
+func (e *env) errorf(format string, args ...any) int {
+	fmt.Fprintf(e.stderr, "roundoff: "+format+"\n", args...)
+	return exitErrors
+}
+
+const usage = `roundoff finds floating-point hazards in Go numerical code.
+
+Usage:
+  roundoff [flags] packages...     lint packages (patterns as for go build)
+  roundoff config [-config file]   print the effective configuration
+  roundoff hook install [-force]   install the git pre-commit hook
+  roundoff hook uninstall          remove it (restoring a saved hook)
+  roundoff hook run                lint the staged lines (what the hook runs)
+  roundoff limits [flags] X...     float spacing, attainable tolerances and steps at X
+  roundoff help [analyzer]         this text, or an analyzer's documentation
+
+Under the go command: go vet -vettool=$(command -v roundoff) ./...
+                      go fix -fixtool=$(command -v roundoff) ./...
+
+Flags:
+`
+
+// help prints the usage, or the documentation of the named analyzers.
+func (e *env) help(args []string) int {
+	if len(args) == 0 {
+		fmt.Fprint(e.stdout, usage)
+		e.flagSet(&options{}).PrintDefaults()
+		fmt.Fprintf(e.stdout, "\nAnalyzers (turn one off with -NAME=false, run only some with -NAME):\n")
+		for _, a := range e.analyzers {
+			title, _, _ := strings.Cut(a.Doc, "\n")
+			fmt.Fprintf(e.stdout, "  %-14s %s\n", a.Name, title)
+		}
+		return exitClean
+	}
+	for _, name := range args {
+		a := e.analyzer(name)
+		if a == nil {
+			return e.errorf("help: no analyzer %q (the suite has %s)", name, strings.Join(names(e.analyzers), ", "))
+		}
+		fmt.Fprintf(e.stdout, "%s: %s\n", a.Name, a.Doc)
+	}
+	return exitClean
+}
+
+func (e *env) analyzer(name string) *analysis.Analyzer {
+	for _, a := range e.analyzers {
+		if a.Name == name {
+			return a
+		}
+	}
+	return nil
+}

@@ -1,0 +1,195 @@
+package driver
+
+import (
+	"cmp"
+	"crypto/sha256"
+	"encoding/hex"
+	"go/ast"
+	"go/token"
+	"os"
+	"strings"
+	"unicode"
+
+	"golang.org/x/tools/go/analysis"
+)
+
+// A finding is one diagnostic, with its positions resolved in the file
+// on disk (line directives ignored) so that it can be matched, printed
+// and fixed without its package's file set.
+type finding struct {
+	analyzer *analysis.Analyzer
+	pkgID    string
+	diag     analysis.Diagnostic
+	posn     token.Position
+	end      token.Position // invalid when the diagnostic has no end
+	function string         // enclosing function, Type.Method or ""
+	related  []place
+	fixes    []fix
+}
+
+// A place is a position with its message, for related information.
+type place struct {
+	posn, end token.Position
+	message   string
+}
+
+// A fix is a suggested fix as edits of files by byte offset.
+type fix struct {
+	message string
+	edits   []edit
+}
+
+// An edit replaces bytes [start, end) of file with text.
+type edit struct {
+	file       string
+	start, end int
+	text       string
+}
+
+// newFinding resolves d, reported by a on a package whose syntax is files.
+func newFinding(a *analysis.Analyzer, pkgID string, fset *token.FileSet, files []*ast.File, d analysis.Diagnostic) *finding {
+	f := &finding{analyzer: a, pkgID: pkgID, diag: d, posn: fset.PositionFor(d.Pos, false)}
+	if d.End.IsValid() {
+		f.end = fset.PositionFor(d.End, false)
+	}
+	f.function = enclosingFunc(files, d.Pos)
+	for _, r := range d.Related {
+		p := place{posn: fset.PositionFor(r.Pos, false), message: r.Message}
+		if r.End.IsValid() {
+			p.end = fset.PositionFor(r.End, false)
+		}
+		f.related = append(f.related, p)
+	}
+	for _, sf := range d.SuggestedFixes {
+		fx := fix{message: sf.Message}
+		for _, te := range sf.TextEdits {
+			start, end := fset.PositionFor(te.Pos, false), fset.PositionFor(cmp.Or(te.End, te.Pos), false)
+			fx.edits = append(fx.edits, edit{start.Filename, start.Offset, end.Offset, string(te.NewText)})
+		}
+		f.fixes = append(f.fixes, fx)
+	}
+	return f
+}
+
+// key identifies a finding across the packages that share its file (a
+// package and its test variant).
+type key struct {
+	file        string
+	offset, end int
+	analyzer    string
+	message     string
+}
+
+func (f *finding) key() key {
+	return key{f.posn.Filename, f.posn.Offset, f.end.Offset, f.analyzer.Name, f.diag.Message}
+}
+
+// compare orders findings by file, position, analyzer and message.
+func compare(a, b *finding) int {
+	return cmp.Or(
+		cmp.Compare(a.posn.Filename, b.posn.Filename),
+		cmp.Compare(a.posn.Offset, b.posn.Offset),
+		cmp.Compare(a.analyzer.Name, b.analyzer.Name),
+		cmp.Compare(a.diag.Message, b.diag.Message))
+}
+
+// enclosingFunc returns the name of the function declaration around pos
+// (Type.Method for a method), or "" outside functions.
+func enclosingFunc(files []*ast.File, pos token.Pos) string {
+	for _, file := range files {
+		if pos < file.FileStart || pos > file.FileEnd {
+			continue
+		}
+		for _, decl := range file.Decls {
+			fn, ok := decl.(*ast.FuncDecl)
+			if !ok || pos < fn.Pos() || pos >= fn.End() {
+				continue
+			}
+			if fn.Recv != nil && len(fn.Recv.List) == 1 {
+				return recvName(fn.Recv.List[0].Type) + "." + fn.Name.Name
+			}
+			return fn.Name.Name
+		}
+	}
+	return ""
+}
+
+// recvName returns the base type name of a receiver type expression.
+func recvName(t ast.Expr) string {
+	for {
+		switch x := t.(type) {
+		case *ast.StarExpr:
+			t = x.X
+		case *ast.ParenExpr:
+			t = x.X
+		case *ast.IndexExpr:
+			t = x.X
+		case *ast.IndexListExpr:
+			t = x.X
+		case *ast.Ident:
+			return x.Name
+		default:
+			return "?"
+		}
+	}
+}
+
+// sources caches the lines of the files findings are in.
+type sources map[string][]string
+
+// lines returns the lines of filename, none when unreadable.
+func (s sources) lines(filename string) []string {
+	lines, ok := s[filename]
+	if !ok {
+		data, _ := os.ReadFile(filename)
+		lines = strings.Split(string(data), "\n")
+		s[filename] = lines
+	}
+	return lines
+}
+
+// line returns line n (1-based) of filename, "" when unreadable.
+func (s sources) line(filename string, n int) string {
+	lines := s.lines(filename)
+	if n < 1 || n > len(lines) {
+		return ""
+	}
+	return lines[n-1]
+}
+
+// fingerprint identifies f by what survives unrelated edits: its source
+// line with all white space removed and its enclosing function, not its
+// line number. 16 hex digits (64 bits of SHA-256).
+func (f *finding) fingerprint(src sources) string {
+	line := strings.Map(func(r rune) rune {
+		if unicode.IsSpace(r) {
+			return -1
+		}
+		return r
+	}, src.line(f.posn.Filename, f.posn.Line))
+	sum := sha256.Sum256([]byte(line + "\x00" + f.function))
+	return hex.EncodeToString(sum[:8])
+}
+
+// column converts the byte column of posn to a column counted in Unicode
+// code points, as SARIF's columnKind unicodeCodePoints and GitHub count.
+func (s sources) column(posn token.Position) int {
+	line := s.line(posn.Filename, posn.Line)
+	if posn.Column-1 > len(line) {
+		return posn.Column
+	}
+	return len([]rune(line[:posn.Column-1])) + 1
+}
+
+// offsetPosition returns the line and byte column of a byte offset
+// (clamped to the end of the file).
+func (s sources) offsetPosition(filename string, offset int) token.Position {
+	lines := s.lines(filename)
+	for i, text := range lines {
+		if offset <= len(text) || i == len(lines)-1 {
+			return token.Position{Filename: filename, Line: i + 1, Column: min(offset, len(text)) + 1}
+		}
+		offset -= len(text) + 1
+	}
+	return token.Position{Filename: filename, Line: 1, Column: 1}
+}

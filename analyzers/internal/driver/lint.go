@@ -1,0 +1,197 @@
+package driver
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"go/ast"
+	"go/token"
+	"os"
+	"slices"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/checker"
+	"golang.org/x/tools/go/packages"
+
+	"roundoff/analyzers/internal/config"
+	"roundoff/analyzers/internal/fixes"
+)
+
+// lintCmd runs the standalone linter on the command line's packages.
+func (e *env) lintCmd(args []string) int {
+	o, err := e.parseFlags(args)
+	if errors.Is(err, flag.ErrHelp) {
+		return e.help(nil)
+	}
+	if err != nil {
+		return e.errorf("%v (roundoff help lists the flags)", err)
+	}
+	return e.lint(o, e.cwd)
+}
+
+// A report is what one run found, before it is printed.
+type report struct {
+	cfg      *config.Config
+	findings []*finding
+	failed   bool                // some package did not load or analyze
+	files    map[string]rootFile // the root packages' files, by name
+	src      sources
+	root     string // the project root: git work tree top or module root
+}
+
+// A rootFile is a file of a package named on the command line.
+type rootFile struct {
+	file  *ast.File
+	fset  *token.FileSet
+	pkgID string
+}
+
+// lint lints the packages that o names, loading them from dir.
+func (e *env) lint(o *options, dir string) int {
+	cfg, err := e.loadConfig(o.configFile, dir)
+	if err != nil {
+		return e.errorf("%v", err)
+	}
+	cfg.Select(o.selection())
+	config.Use(cfg)
+	fixes.KeepUnattendedOnly(false)
+	var analyzers []*analysis.Analyzer
+	for _, a := range e.analyzers {
+		if cfg.Enabled(a.Name) {
+			analyzers = append(analyzers, a)
+		}
+	}
+	if len(analyzers) == 0 {
+		return e.errorf("every analyzer is turned off (by flags or %s)", config.FileName)
+	}
+	sc, err := e.prepareScope(o, dir)
+	if err != nil {
+		return e.errorf("%v", err)
+	}
+	r := &report{cfg: cfg, src: sources{}, root: sc.root, files: map[string]rootFile{}}
+	pkgs, ok := e.load(o, dir, analyzers)
+	if pkgs == nil {
+		return exitErrors
+	}
+	r.failed = !ok
+	graph, err := checker.Analyze(analyzers, pkgs, nil)
+	if err != nil {
+		return e.errorf("%v", err)
+	}
+	e.collect(r, graph)
+	if o.staleReviews {
+		e.staleReviews(r, analyzers)
+	}
+	return e.finish(o, r, sc)
+}
+
+// loadConfig reads the configuration file named by -config, or else the
+// one at the root of the module holding dir.
+func (e *env) loadConfig(file, dir string) (*config.Config, error) {
+	if file != "" {
+		c, err := config.Read(file, names(e.analyzers))
+		if errors.Is(err, os.ErrNotExist) {
+			return nil, fmt.Errorf("-config %s: no such file", file)
+		}
+		return c, err
+	}
+	c, err := config.Load(moduleRoot(dir), names(e.analyzers))
+	if cerr, ok := err.(*config.Error); ok {
+		cerr.File = e.display(cerr.File)
+	}
+	return c, err
+}
+
+// load loads the packages o names, printing their errors; ok is false
+// when some did not load or type-check, and pkgs nil when none did.
+func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer) (pkgs []*packages.Package, ok bool) {
+	mode := packages.LoadSyntax | packages.NeedModule
+	if needFacts(analyzers) {
+		mode = packages.LoadAllSyntax | packages.NeedModule
+	}
+	cfg := &packages.Config{Mode: mode, Tests: o.tests, Dir: dir}
+	pkgs, err := packages.Load(cfg, o.patterns...)
+	if err != nil {
+		e.errorf("loading packages: %v", err)
+		return nil, false
+	}
+	if len(pkgs) == 0 {
+		e.errorf("%s matched no packages", strings.Join(o.patterns, " "))
+		return nil, false
+	}
+	ok = true
+	seen := map[string]bool{}
+	packages.Visit(pkgs, nil, func(p *packages.Package) {
+		for _, err := range p.Errors {
+			if msg := e.loadError(err); !seen[msg] {
+				seen[msg] = true
+				fmt.Fprintln(e.stderr, msg)
+			}
+			ok = false
+		}
+	})
+	return pkgs, ok
+}
+
+// loadError formats a package error as file:line:col: message, with the
+// file relative to the current directory.
+func (e *env) loadError(err packages.Error) string {
+	pos, msg := err.Pos, err.Msg
+	if pos == "" || pos == "-" {
+		return "roundoff: " + msg
+	}
+	file, rest, found := strings.Cut(pos, ":")
+	if found {
+		return e.display(file) + ":" + rest + ": " + msg
+	}
+	return e.display(pos) + ": " + msg
+}
+
+// needFacts reports whether an analyzer, or one it requires, uses facts,
+// for which dependencies must be loaded from source.
+func needFacts(analyzers []*analysis.Analyzer) bool {
+	seen := map[*analysis.Analyzer]bool{}
+	var visit func([]*analysis.Analyzer) bool
+	visit = func(as []*analysis.Analyzer) bool {
+		for _, a := range as {
+			if !seen[a] {
+				seen[a] = true
+				if len(a.FactTypes) > 0 || visit(a.Requires) {
+					return true
+				}
+			}
+		}
+		return false
+	}
+	return visit(analyzers)
+}
+
+// collect gathers the findings of the root actions, once each, in order,
+// and prints the failures of analyzers.
+func (e *env) collect(r *report, graph *checker.Graph) {
+	seen := map[key]bool{}
+	for _, act := range graph.Roots {
+		pkg := act.Package
+		for _, f := range pkg.Syntax {
+			if name := pkg.Fset.File(f.FileStart).Name(); r.files[name].file == nil {
+				r.files[name] = rootFile{f, pkg.Fset, pkg.ID}
+			}
+		}
+		if act.Err != nil {
+			if !pkg.IllTyped { // ill-typed packages were reported when loaded
+				e.errorf("%s on %s: %v", act.Analyzer.Name, pkg.ID, act.Err)
+				r.failed = true
+			}
+			continue
+		}
+		for _, d := range act.Diagnostics {
+			f := newFinding(act.Analyzer, pkg.ID, pkg.Fset, pkg.Syntax, d)
+			if k := f.key(); !seen[k] {
+				seen[k] = true
+				r.findings = append(r.findings, f)
+			}
+		}
+	}
+	slices.SortFunc(r.findings, compare)
+}

@@ -1,0 +1,112 @@
+package driver
+
+import (
+	"crypto/sha256"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"slices"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/unitchecker"
+
+	"roundoff/analyzers/internal/config"
+	"roundoff/analyzers/internal/fixes"
+)
+
+// vetMode reports whether the go command runs roundoff: the handshakes
+// -V=full and -flags, or a unit's .cfg file as the last argument.
+func vetMode(args []string) bool {
+	if len(args) == 0 {
+		return false
+	}
+	return strings.HasSuffix(args[len(args)-1], ".cfg") ||
+		slices.Contains(args, "-V=full") || slices.Contains(args, "-flags")
+}
+
+// vet hands the run to unitchecker, after installing the configuration
+// of the unit's module and, when go fix or go vet -fix will apply the
+// first fix of every finding unread, the unattended policy.
+func vet(analyzers []*analysis.Analyzer, args []string) int {
+	if slices.Contains(args, "-V=full") {
+		return version()
+	}
+	if cfgFile := args[len(args)-1]; strings.HasSuffix(cfgFile, ".cfg") {
+		cfg, err := unitConfig(cfgFile, analyzers)
+		if err != nil {
+			fmt.Fprintln(os.Stderr, "roundoff:", err)
+			return exitErrors
+		}
+		cfg.Select(explicitlyOn(analyzers, args[:len(args)-1]), nil)
+		config.Use(cfg)
+		fixes.KeepUnattendedOnly(slices.Contains(args, "-fix"))
+	}
+	unitchecker.Main(analyzers...) // exits
+	panic("unreachable")
+}
+
+// version answers the go command's -V=full handshake with an ID that
+// changes with the executable and with the configuration file of the
+// module in the current directory: go vet caches each package's results
+// under it, and must not replay them once roundoff.yaml has changed.
+func version() int {
+	exe, err := os.Executable()
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "roundoff:", err)
+		return exitErrors
+	}
+	h := sha256.New()
+	for _, file := range []string{exe, filepath.Join(moduleRoot("."), config.FileName)} {
+		data, err := os.ReadFile(file)
+		if err != nil && !errors.Is(err, fs.ErrNotExist) {
+			fmt.Fprintln(os.Stderr, "roundoff:", err)
+			return exitErrors
+		}
+		fmt.Fprintf(h, "%d\n", len(data))
+		h.Write(data)
+	}
+	fmt.Printf("%s version devel roundoff buildID=%x\n", exe, h.Sum(nil))
+	return exitClean
+}
+
+// unitConfig returns the configuration of the module holding the unit
+// that the go command describes in cfgFile.
+func unitConfig(cfgFile string, analyzers []*analysis.Analyzer) (*config.Config, error) {
+	data, err := os.ReadFile(cfgFile)
+	if err != nil {
+		return nil, err
+	}
+	var unit struct{ Dir string }
+	if err := json.Unmarshal(data, &unit); err != nil {
+		return nil, fmt.Errorf("%s: %v", cfgFile, err)
+	}
+	return config.Load(moduleRoot(unit.Dir), names(analyzers))
+}
+
+// explicitlyOn returns the analyzers that flags turn on by name (-NAME or
+// -NAME=true): they run whatever the configuration file says, as the only
+// ones, which is how unitchecker treats such flags.
+func explicitlyOn(analyzers []*analysis.Analyzer, flags []string) []string {
+	var on []string
+	for _, a := range analyzers {
+		for _, f := range flags {
+			f = strings.TrimPrefix(strings.TrimPrefix(f, "-"), "-")
+			if f == a.Name || f == a.Name+"=true" || f == a.Name+"=1" {
+				on = append(on, a.Name)
+			}
+		}
+	}
+	return on
+}
+
+func names(analyzers []*analysis.Analyzer) []string {
+	var out []string
+	for _, a := range analyzers {
+		out = append(out, a.Name)
+	}
+	return out
+}

@@ -6,8 +6,6 @@ import (
 	"go/ast"
 	"go/constant"
 	"go/types"
-	"slices"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -30,7 +28,7 @@ var Analyzer = &analysis.Analyzer{
 	URL:       "docs/epsfloor.md",
 	Requires:  []*analysis.Analyzer{inspect.Analyzer},
 	Run:       run,
-	FactTypes: []analysis.Fact{new(paramsFact), new(fieldFact)},
+	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
 
 // Categories of diagnostics.
@@ -64,41 +62,18 @@ func (u use) format() numeric.Format {
 	return numeric.Float64
 }
 
-// paramsFact records the parameters of a function used as tolerances.
-type paramsFact struct{ Params map[int]use }
-
-func (*paramsFact) AFact() {}
-func (f *paramsFact) String() string {
-	var parts []string
-	for i, u := range f.Params {
-		parts = append(parts, fmt.Sprintf("parameter %d is %s", i, u))
-	}
-	slices.Sort(parts)
-	return strings.Join(parts, "; ")
-}
-
-// fieldFact records a struct field used as a tolerance.
-type fieldFact struct{ Use use }
-
-func (*fieldFact) AFact()           {}
-func (f *fieldFact) String() string { return f.Use.String() }
-
 // checker holds what one run needs.
 type checker struct {
-	pass      *analysis.Pass
-	decls     map[types.Object]ast.Expr
-	params    map[*types.Func]map[int]use // this package's functions
-	fields    map[*types.Var]use          // this package's fields
-	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
+	pass  *analysis.Pass
+	decls map[types.Object]ast.Expr
+	uses  *tolerance.Uses[use]
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
-		pass:      pass,
-		decls:     constval.Decls(pass.TypesInfo, pass.Files),
-		params:    make(map[*types.Func]map[int]use),
-		fields:    make(map[*types.Var]use),
-		defaulted: make(map[*ast.FuncDecl]map[*types.Var][]ast.Expr),
+		pass:  pass,
+		decls: constval.Decls(pass.TypesInfo, pass.Files),
+		uses:  tolerance.NewUses[use](pass),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	// First the tolerance tests, which also learn the tolerance parameters
@@ -106,8 +81,8 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range root.Preorder((*ast.BinaryExpr)(nil)) {
 		c.comparison(cur, cur.Node().(*ast.BinaryExpr))
 	}
-	c.exportFacts()
-	known := c.known()
+	c.uses.Export()
+	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		n := cur.Node()
 		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
@@ -139,7 +114,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, t.Tol); field != nil && field.Pkg() == c.pass.Pkg {
-		c.fields[field] = u
+		c.uses.Field(field, u)
 		return
 	}
 	id, ok := ast.Unparen(t.Tol).(*ast.Ident)
@@ -149,7 +124,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
 		decl := fd.Node().(*ast.FuncDecl)
 		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
-			c.learnParam(fn, i, u)
+			c.uses.Param(fn, i, u)
 		}
 		c.defaults(decl, id, u)
 	}
@@ -159,37 +134,8 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 // idiom if tol == 0 { tol = c } within the function.
 func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
 	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
-	for _, val := range c.defaultsOf(decl)[v] {
+	for _, val := range c.uses.DefaultsOf(decl)[v] {
 		c.site(val, u, 0, "given as the default of "+id.Name)
-	}
-}
-
-// defaultsOf returns the defaulting idioms of a function, computed once.
-func (c *checker) defaultsOf(decl *ast.FuncDecl) map[*types.Var][]ast.Expr {
-	d, ok := c.defaulted[decl]
-	if !ok {
-		d = tolerance.Defaults(c.pass.TypesInfo, decl.Body)
-		c.defaulted[decl] = d
-	}
-	return d
-}
-
-// learnParam records parameter i of fn as a tolerance.
-func (c *checker) learnParam(fn *types.Func, i int, u use) {
-	if c.params[fn] == nil {
-		c.params[fn] = make(map[int]use)
-	}
-	c.params[fn][i] = u
-}
-
-// exportFacts makes this package's tolerance parameters and fields known to
-// the packages importing it.
-func (c *checker) exportFacts() {
-	for fn, ps := range c.params {
-		c.pass.ExportObjectFact(fn, &paramsFact{Params: ps})
-	}
-	for field, u := range c.fields {
-		c.pass.ExportObjectFact(field, &fieldFact{Use: u})
 	}
 }
 

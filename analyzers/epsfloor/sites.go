@@ -76,33 +76,6 @@ func (c *checker) call(call *ast.CallExpr) {
 	}
 }
 
-// known returns where this package, and the packages it imports through
-// facts, use parameters and fields as tolerances.
-func (c *checker) known() tolerance.Lookup[use] {
-	return tolerance.Lookup[use]{
-		Params: func(fn *types.Func) map[int]use {
-			if ps, ok := c.params[fn]; ok {
-				return ps
-			}
-			var f paramsFact
-			if c.pass.ImportObjectFact(fn, &f) {
-				return f.Params
-			}
-			return nil
-		},
-		Field: func(field *types.Var) (use, bool) {
-			if u, ok := c.fields[field]; ok {
-				return u, true
-			}
-			var f fieldFact
-			if c.pass.ImportObjectFact(field, &f) {
-				return f.Use, true
-			}
-			return use{}, false
-		},
-	}
-}
-
 // apiMagnitude returns the size of a compared value of an API call that is
 // a constant, or 0.
 func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {

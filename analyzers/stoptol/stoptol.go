@@ -6,8 +6,6 @@ import (
 	"go/ast"
 	"go/constant"
 	"go/types"
-	"slices"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -32,7 +30,7 @@ var Analyzer = &analysis.Analyzer{
 	URL:       "docs/stoptol.md",
 	Requires:  []*analysis.Analyzer{inspect.Analyzer, noiselevel.Analyzer},
 	Run:       run,
-	FactTypes: []analysis.Fact{new(paramsFact), new(fieldFact)},
+	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
 
 // Categories of diagnostics.
@@ -70,44 +68,20 @@ func (u use) format() numeric.Format {
 	return numeric.Float64
 }
 
-// paramsFact records the parameters of a function used as stopping
-// tolerances.
-type paramsFact struct{ Params map[int]use }
-
-func (*paramsFact) AFact() {}
-func (f *paramsFact) String() string {
-	var parts []string
-	for i, u := range f.Params {
-		parts = append(parts, fmt.Sprintf("parameter %d is %s", i, u))
-	}
-	slices.Sort(parts)
-	return strings.Join(parts, "; ")
-}
-
-// fieldFact records a struct field used as a stopping tolerance.
-type fieldFact struct{ Use use }
-
-func (*fieldFact) AFact()           {}
-func (f *fieldFact) String() string { return f.Use.String() }
-
 // checker holds what one run needs.
 type checker struct {
-	pass      *analysis.Pass
-	noise     *noiselevel.Levels
-	decls     map[types.Object]ast.Expr
-	params    map[*types.Func]map[int]use
-	fields    map[*types.Var]use
-	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
+	pass  *analysis.Pass
+	noise *noiselevel.Levels
+	decls map[types.Object]ast.Expr
+	uses  *tolerance.Uses[use]
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
-		pass:      pass,
-		noise:     pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
-		decls:     constval.Decls(pass.TypesInfo, pass.Files),
-		params:    make(map[*types.Func]map[int]use),
-		fields:    make(map[*types.Var]use),
-		defaulted: make(map[*ast.FuncDecl]map[*types.Var][]ast.Expr),
+		pass:  pass,
+		noise: pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
+		decls: constval.Decls(pass.TypesInfo, pass.Files),
+		uses:  tolerance.NewUses[use](pass),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	fvals := make(map[ast.Node]map[*types.Var]bool) // per function body
@@ -125,13 +99,8 @@ func run(pass *analysis.Pass) (any, error) {
 			c.gradient(cur, n)
 		}
 	}
-	for fn, ps := range c.params {
-		pass.ExportObjectFact(fn, &paramsFact{Params: ps})
-	}
-	for field, u := range c.fields {
-		pass.ExportObjectFact(field, &fieldFact{Use: u})
-	}
-	known := c.known()
+	c.uses.Export()
+	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
 		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
 			c.site(val, u, how)
@@ -159,32 +128,6 @@ func (c *checker) objectiveNoise(l *loop) float64 {
 	return level
 }
 
-// known returns the stopping tolerances learned here and from facts.
-func (c *checker) known() tolerance.Lookup[use] {
-	return tolerance.Lookup[use]{
-		Params: func(fn *types.Func) map[int]use {
-			if ps, ok := c.params[fn]; ok {
-				return ps
-			}
-			var f paramsFact
-			if c.pass.ImportObjectFact(fn, &f) {
-				return f.Params
-			}
-			return nil
-		},
-		Field: func(field *types.Var) (use, bool) {
-			if u, ok := c.fields[field]; ok {
-				return u, true
-			}
-			var f fieldFact
-			if c.pass.ImportObjectFact(field, &f) {
-				return f.Use, true
-			}
-			return use{}, false
-		},
-	}
-}
-
 // source is where a stopping test's tolerance comes from.
 type source struct {
 	constant bool
@@ -200,9 +143,7 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 		return source{constant: true, value: value(v, u.format())}
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
-		if field.Pkg() == c.pass.Pkg {
-			c.fields[field] = u
-		}
+		c.uses.Field(field, u)
 		return source{learned: true}
 	}
 	id, ok := ast.Unparen(tol).(*ast.Ident)
@@ -213,28 +154,15 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
 		decl := fd.Node().(*ast.FuncDecl)
 		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
-			if c.params[fn] == nil {
-				c.params[fn] = make(map[int]use)
-			}
-			c.params[fn][i] = u
+			c.uses.Param(fn, i, u)
 			src.learned = true
 		}
 		v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
-		for _, val := range c.defaultsOf(decl)[v] {
+		for _, val := range c.uses.DefaultsOf(decl)[v] {
 			c.site(val, u, "given as the default of "+id.Name)
 		}
 	}
 	return src
-}
-
-// defaultsOf returns the defaulting idioms of a function, computed once.
-func (c *checker) defaultsOf(decl *ast.FuncDecl) map[*types.Var][]ast.Expr {
-	d, ok := c.defaulted[decl]
-	if !ok {
-		d = tolerance.Defaults(c.pass.TypesInfo, decl.Body)
-		c.defaulted[decl] = d
-	}
-	return d
 }
 
 // value returns the value format f stores for constant v.

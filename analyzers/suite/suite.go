@@ -10,6 +10,7 @@ import (
 	"roundoff/analyzers/cancellation"
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/fdstep"
 	"roundoff/analyzers/intdiv"
 	"roundoff/analyzers/internal/driver"
 	"roundoff/analyzers/internal/fixes"
@@ -25,6 +26,7 @@ var Analyzers = []*analysis.Analyzer{
 	reviewmark.Analyzer,
 	cancellation.Analyzer,
 	intdiv.Analyzer,
+	fdstep.Analyzer,
 }
 
 // Unattended tells every analyzer whether its fixes will be applied without

@@ -10,6 +10,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/ssa"
 )
@@ -225,8 +226,37 @@ func Float(v ssa.Value, globals Globals) (float64, bool) {
 		if okx && oky {
 			return arith(v.Op, x, y)
 		}
+	case *ssa.Call:
+		return mathCall(v, globals)
 	}
 	return 0, false
+}
+
+// mathFuncs are the math functions Float evaluates on constant arguments,
+// as written steps and tolerances use them (math.Sqrt(eps)).
+var mathFuncs = map[string]func(args []float64) float64{
+	"Sqrt": func(a []float64) float64 { return math.Sqrt(a[0]) },
+	"Cbrt": func(a []float64) float64 { return math.Cbrt(a[0]) },
+	"Abs":  func(a []float64) float64 { return math.Abs(a[0]) },
+	"Pow":  func(a []float64) float64 { return math.Pow(a[0], a[1]) },
+}
+
+// mathCall evaluates a call of a function of mathFuncs whose arguments are
+// all constants.
+func mathCall(call *ssa.Call, globals Globals) (float64, bool) {
+	fn := call.Call.StaticCallee()
+	if fn == nil || fn.Pkg == nil || fn.Pkg.Pkg.Path() != "math" || mathFuncs[fn.Name()] == nil {
+		return 0, false
+	}
+	args := make([]float64, len(call.Call.Args))
+	for i, a := range call.Call.Args {
+		f, ok := Float(a, globals)
+		if !ok {
+			return 0, false
+		}
+		args[i] = f
+	}
+	return mathFuncs[fn.Name()](args), true
 }
 
 func arith(op token.Token, x, y float64) (float64, bool) {

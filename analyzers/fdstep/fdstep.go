@@ -1,0 +1,243 @@
+package fdstep
+
+import (
+	_ "embed"
+	"go/ast"
+	"go/token"
+	"go/types"
+	"slices"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/buildssa"
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/analyzerdoc"
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/noiselevel"
+	"roundoff/analyzers/internal/provenance"
+)
+
+//go:embed doc.go
+var doc string
+
+// Analyzer reports finite-difference steps that ignore the size of x.
+var Analyzer = &analysis.Analyzer{
+	Name:      "fdstep",
+	Doc:       analyzerdoc.Extract(doc, "fdstep"),
+	URL:       "docs/fdstep.md",
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, buildssa.Analyzer, noiselevel.Analyzer},
+	Run:       run,
+	FactTypes: []analysis.Fact{new(stepFact)},
+}
+
+// Categories of diagnostics, one per kind of hazard.
+const (
+	catUnscaled = "unscaled" // a fixed step where x may be large
+	catBadSize  = "badsize"  // a step far below the scheme's optimum
+)
+
+// checker holds what one run needs.
+type checker struct {
+	pass    *analysis.Pass
+	noise   *noiselevel.Levels
+	insp    *inspector.Inspector
+	decls   map[types.Object]ast.Expr
+	globals constval.Globals
+
+	// SSA, indexed in one walk.
+	roots      []*ssa.BinOp                  // float divisions and products, candidate quotients
+	callers    map[*ssa.Function][]*ssa.Call // static calls by callee
+	imported   []*ssa.Call                   // static calls of other packages' functions
+	stores     map[*types.Var][]*ssa.Store   // stores of floats into struct fields
+	fieldOrder []*types.Var                  // the keys of stores, in the order met
+	closures   map[*ssa.Function]*ssa.MakeClosure
+	copies     map[ssa.Value]ssa.Value // slice → the slice it was copied from
+
+	// Syntax, indexed in one walk.
+	syntax map[token.Pos]ast.Node // binary expressions by operator, op-assignments and calls by start
+	values map[token.Pos]ast.Expr // values stored into fields, by the position of the SSA store
+
+	// Steps that reach a quotient through a parameter or a field.
+	params  map[*ssa.Function]map[int][]use
+	fields  map[*types.Var][]use
+	pending map[token.Pos]*pending // constants passed or stored as steps, judged once all uses are known
+
+	done  map[ssa.Value]bool           // differences already judged
+	said  map[token.Pos]bool           // positions already reported
+	names map[ast.Node]map[string]bool // names in use, or taken by fixes, per top-level function
+	src   map[*token.File][]byte       // file contents, for fixes that delete lines
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	ssainfo := pass.ResultOf[buildssa.Analyzer].(*buildssa.SSA)
+	c := &checker{
+		pass:     pass,
+		noise:    pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
+		insp:     pass.ResultOf[inspect.Analyzer].(*inspector.Inspector),
+		decls:    constval.Decls(pass.TypesInfo, pass.Files),
+		globals:  constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
+		callers:  make(map[*ssa.Function][]*ssa.Call),
+		stores:   make(map[*types.Var][]*ssa.Store),
+		closures: make(map[*ssa.Function]*ssa.MakeClosure),
+		copies:   make(map[ssa.Value]ssa.Value),
+		syntax:   make(map[token.Pos]ast.Node),
+		values:   make(map[token.Pos]ast.Expr),
+		params:   make(map[*ssa.Function]map[int][]use),
+		fields:   make(map[*types.Var][]use),
+		pending:  make(map[token.Pos]*pending),
+		done:     make(map[ssa.Value]bool),
+		said:     make(map[token.Pos]bool),
+		names:    make(map[ast.Node]map[string]bool),
+		src:      make(map[*token.File][]byte),
+	}
+	c.indexSyntax()
+	c.indexSSA(ssainfo.Pkg, ssainfo.SrcFuncs)
+	for _, root := range c.roots {
+		if q, ok := c.quotient(root); ok {
+			c.judgeQuotient(q)
+		}
+	}
+	c.propagate()
+	c.exportFacts()
+	return nil, nil
+}
+
+// indexSSA records, in one walk of the package's SSA (its source functions
+// and the package initializer, which fills package variables), the
+// candidate quotients, the calls, the field stores, the closures and the
+// slice copies.
+func (c *checker) indexSSA(pkg *ssa.Package, funcs []*ssa.Function) {
+	if init := pkg.Func("init"); init != nil && !slices.Contains(funcs, init) {
+		funcs = append([]*ssa.Function{init}, funcs...)
+	}
+	for _, fn := range funcs {
+		for _, b := range fn.Blocks {
+			for _, instr := range b.Instrs {
+				c.indexInstr(fn, instr)
+			}
+		}
+	}
+}
+
+func (c *checker) indexInstr(fn *ssa.Function, instr ssa.Instruction) {
+	switch v := instr.(type) {
+	case *ssa.BinOp:
+		if (v.Op == token.QUO || v.Op == token.MUL) && isReal(v.Type()) {
+			c.roots = append(c.roots, v)
+		}
+	case *ssa.Call:
+		c.indexCall(fn, v)
+	case *ssa.Store:
+		if fa, ok := v.Addr.(*ssa.FieldAddr); ok && isReal(v.Val.Type()) {
+			if f := fieldOf(fa.X.Type(), fa.Field); f != nil {
+				if c.stores[f] == nil {
+					c.fieldOrder = append(c.fieldOrder, f)
+				}
+				c.stores[f] = append(c.stores[f], v)
+			}
+		}
+	case *ssa.MakeClosure:
+		if cl, ok := v.Fn.(*ssa.Function); ok {
+			c.closures[cl] = v
+		}
+	}
+}
+
+// indexCall records a call by callee, and the slice copies that builtin
+// copy, append(s, x...) and slices.Clone make.
+func (c *checker) indexCall(fn *ssa.Function, call *ssa.Call) {
+	com := call.Common()
+	if b, ok := com.Value.(*ssa.Builtin); ok {
+		switch {
+		case b.Name() == "copy" && len(com.Args) == 2:
+			c.copies[com.Args[0]] = com.Args[1]
+		case b.Name() == "append" && len(com.Args) == 2 && isNil(com.Args[0]):
+			c.copies[call] = com.Args[1] // append([]float64(nil), x...)
+		}
+		return
+	}
+	callee := com.StaticCallee()
+	if callee == nil {
+		return
+	}
+	if o := callee.Origin(); o != nil && o.Pkg != nil && o.Pkg.Pkg.Path() == "slices" && o.Name() == "Clone" {
+		c.copies[call] = com.Args[0]
+	}
+	if callee.Package() != fn.Package() {
+		c.imported = append(c.imported, call)
+		return
+	}
+	c.callers[callee] = append(c.callers[callee], call)
+}
+
+// indexSyntax records the syntax that SSA positions point at: binary
+// expressions by operator, op-assignments (x += h) and calls by their
+// start, and the value stored by each field store (composite literal
+// elements and assignments to selectors).
+func (c *checker) indexSyntax() {
+	types := []ast.Node{(*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.CallExpr)(nil), (*ast.CompositeLit)(nil)}
+	for cur := range c.insp.Root().Preorder(types...) {
+		switch n := cur.Node().(type) {
+		case *ast.BinaryExpr:
+			c.syntax[n.OpPos] = n
+		case *ast.CallExpr:
+			c.syntax[n.Lparen] = n
+		case *ast.AssignStmt:
+			c.indexAssign(n)
+		case *ast.CompositeLit:
+			for _, e := range n.Elts {
+				if kv, ok := e.(*ast.KeyValueExpr); ok {
+					c.values[kv.Colon] = kv.Value
+				} else {
+					c.values[e.Pos()] = e
+				}
+			}
+		}
+	}
+}
+
+func (c *checker) indexAssign(as *ast.AssignStmt) {
+	if as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
+		c.syntax[as.Pos()] = as // x op= y: SSA places the operation at the statement
+		return
+	}
+	if len(as.Lhs) != len(as.Rhs) {
+		return
+	}
+	for i, lhs := range as.Lhs {
+		if sel, ok := ast.Unparen(lhs).(*ast.SelectorExpr); ok {
+			c.values[sel.Sel.Pos()] = as.Rhs[i]
+		}
+	}
+}
+
+// isReal reports whether t is a floating-point type (not complex), a named
+// type over one, or a type parameter admitting floats.
+func isReal(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return provenance.IsFloat(t) && (!ok || b.Info()&types.IsComplex == 0)
+}
+
+// line returns the line of pos.
+func (c *checker) line(pos token.Pos) int { return c.pass.Fset.Position(pos).Line }
+
+// isNil reports whether v is the constant nil.
+func isNil(v ssa.Value) bool {
+	k, ok := v.(*ssa.Const)
+	return ok && k.IsNil()
+}
+
+// fieldOf returns the field with the given index of the struct that t, or
+// the type t points to, is.
+func fieldOf(t types.Type, index int) *types.Var {
+	if p, ok := t.Underlying().(*types.Pointer); ok {
+		t = p.Elem()
+	}
+	s, ok := t.Underlying().(*types.Struct)
+	if !ok || index >= s.NumFields() {
+		return nil
+	}
+	return s.Field(index)
+}

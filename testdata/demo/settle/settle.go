@@ -2,22 +2,21 @@
 // (fictional) regional buyer of its electricity.
 //
 // Comments starting "planted" mark a hazard put there on purpose, with the
-// analyzer that should report it ("planned" when that analyzer is not
-// written yet); comments starting "idiom" mark code that is right and must
-// stay silent.
+// analyzer that reports it; comments starting "idiom" mark code that is
+// right and must stay silent.
 package settle
 
 import "math"
 
 // Availability returns the fraction of the month the turbine ran.
 func Availability(minutesRun, minutesInMonth int) float64 {
-	return float64(minutesRun / minutesInMonth) // planted (planned intdiv): integer division, 0 for any month short of full running
+	return float64(minutesRun / minutesInMonth) // planted (intdiv): Go drops the fraction of the quotient, so this is 0 for any month short of full running
 }
 
 // ContinuousRate converts the contract's per-minute price escalation, about
 // 4e-8 (2% a year), to a continuous rate.
 func ContinuousRate(perMinute float64) float64 {
-	return math.Log(1 + perMinute) // planted (planned cancellation): 1+x rounds away about half of x's digits; math.Log1p(x) keeps them
+	return math.Log(1 + perMinute) // planted (cancellation): 1+x rounds away about half of x's digits; math.Log1p(x) keeps them
 }
 
 // Reconciled reports whether the export meter agrees with the turbine log:

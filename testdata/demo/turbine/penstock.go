@@ -13,7 +13,7 @@ func (p Penstock) Friction(re float64) float64 {
 	x := 8.0
 	for range 50 {
 		next := -2 * math.Log10(p.Roughness/(3.7*p.Diameter)+2.51*x/re)
-		if math.Abs(next-x) <= 1e-20*math.Abs(next) { // planted (planned epsfloor): 1e-20 relative is below float64's unit roundoff 1.1e-16; only next == x passes
+		if math.Abs(next-x) <= 1e-20*math.Abs(next) { // planted (epsfloor): 1e-20 relative is below float64's unit roundoff 1.1e-16; only next == x passes
 			return 1 / (next * next)
 		}
 		x = next
@@ -30,7 +30,7 @@ func (p Penstock) Flow(h float64) float64 {
 	q := 1.0
 	for range 100 {
 		r := k*q*q - h
-		if math.Abs(r) < math.SmallestNonzeroFloat64 { // planted (planned epsfloor): 4.9e-324 is no tolerance; only r == 0 passes
+		if math.Abs(r) < math.SmallestNonzeroFloat64 { // planted (epsfloor): 4.9e-324 is no tolerance; only r == 0 passes
 			break
 		}
 		q -= r / (2 * k * q)

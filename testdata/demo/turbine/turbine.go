@@ -2,9 +2,8 @@
 // and chooses the gate opening.
 //
 // Comments starting "planted" mark a hazard put there on purpose, with the
-// analyzer that should report it ("planned" when that analyzer is not
-// written yet); comments starting "idiom" mark code that is right and must
-// stay silent.
+// analyzer that reports it; comments starting "idiom" mark code that is
+// right and must stay silent.
 package turbine
 
 import "math"
@@ -55,7 +54,7 @@ func BestGate(q, h float64) float64 {
 	c, d := b-r*(b-a), a+r*(b-a)
 	fc, fd := loss(c), loss(d)
 	for {
-		if math.Abs(b-a) < 1e-12 { // planted (planned stoptol): comparing f values pins g to about sqrt(eps) ≈ 1.5e-8; 1e-12 only burns iterations
+		if math.Abs(b-a) < 1e-12 { // planted (stoptol): comparing f values pins g to about sqrt(eps) ≈ 1.5e-8; 1e-12 only burns iterations
 			break
 		}
 		if fc < fd {
@@ -103,6 +102,6 @@ func PondEnergy(v float64) float64 {
 // MarginalEnergy returns dE/dV of the head pond at v litres, J per litre,
 // by a forward difference. The pond holds about 2.4e8 litres.
 func MarginalEnergy(v float64) float64 {
-	const h = 1e-8 // planted (planned fdstep): fixed step; from 2^27 ≈ 1.34e8 on, v+h == v and the slope comes out 0
+	const h = 1e-8 // planted (fdstep): fixed step; from 2^27 ≈ 1.34e8 on, v+h == v and the slope comes out 0
 	return (PondEnergy(v+h) - PondEnergy(v)) / h
 }

@@ -31,17 +31,17 @@ func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !okx || !oky {
 		return
 	}
-	f := formatOf(tv.Type)
-	sum := value(constant.BinaryOp(x, n.Op, y), f)
+	f := provenance.FormatOf(tv.Type)
+	sum := f.Value(constant.BinaryOp(x, n.Op, y))
 	k, addend, up := n.X, n.Y, n.Op == token.ADD == (constant.Sign(y) > 0)
 	switch {
-	case constant.Sign(y) != 0 && sum == value(x, f) && value(x, f) != 0:
-	case n.Op == token.ADD && constant.Sign(x) != 0 && sum == value(y, f) && value(y, f) != 0:
+	case constant.Sign(y) != 0 && sum == f.Value(x) && f.Value(x) != 0:
+	case n.Op == token.ADD && constant.Sign(x) != 0 && sum == f.Value(y) && f.Value(y) != 0:
 		k, addend, up = n.Y, n.X, constant.Sign(x) > 0
 	default:
 		return
 	}
-	kv := value(map[ast.Expr]constant.Value{n.X: x, n.Y: y}[k], f)
+	kv := f.Value(map[ast.Expr]constant.Value{n.X: x, n.Y: y}[k])
 	d := analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catAbsorbed,
 		Message: fmt.Sprintf("%s has no effect on %s: it is below half the spacing of %s values there (%.3g), so the sum rounds back to exactly %s; use math.Nextafter for the neighbouring value",

@@ -4,7 +4,6 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
-	"go/constant"
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
@@ -55,12 +54,7 @@ func (u use) String() string {
 	return fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
 }
 
-func (u use) format() numeric.Format {
-	if u.Float32 {
-		return numeric.Float32
-	}
-	return numeric.Float64
-}
+func (u use) format() numeric.Format { return numeric.Select(u.Float32) }
 
 // checker holds what one run needs.
 type checker struct {
@@ -104,9 +98,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
-	f := formatOf(c.pass.TypesInfo.TypeOf(t.A))
+	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.Tol); ok {
-		c.constantTol(cur, t, f, value(v, f))
+		c.constantTol(cur, t, f, f.Value(v))
 		return
 	}
 	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur)}
@@ -137,25 +131,6 @@ func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
 	for _, val := range c.uses.DefaultsOf(decl)[v] {
 		c.site(val, u, 0, "given as the default of "+id.Name)
 	}
-}
-
-// formatOf returns the format that judges values of type t: float32 when t
-// admits float32 (as a type parameter may), else float64.
-func formatOf(t types.Type) numeric.Format {
-	if provenance.Admits32(t) {
-		return numeric.Float32
-	}
-	return numeric.Float64
-}
-
-// value returns the value format f stores for constant v.
-func value(v constant.Value, f numeric.Format) float64 {
-	if f == numeric.Float32 {
-		x, _ := constant.Float32Val(constant.ToFloat(v))
-		return float64(x)
-	}
-	x, _ := constant.Float64Val(constant.ToFloat(v))
-	return x
 }
 
 // enclosingName names the function declaration around cur, for messages.

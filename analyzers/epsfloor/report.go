@@ -6,7 +6,6 @@ import (
 	"go/token"
 	"go/types"
 	"math"
-	"strconv"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -41,7 +40,7 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
 	for _, e := range []ast.Expr{t.A, t.B} {
 		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
-			return math.Abs(value(v, f))
+			return math.Abs(f.Value(v))
 		}
 	}
 	return 0
@@ -63,7 +62,7 @@ func explain(res tolerance.Resolution, tol float64, f numeric.Format, mag float6
 	switch res {
 	case tolerance.BelowRoundoff:
 		return fmt.Sprintf("is below the unit roundoff of %[1]s (%.3[2]g): two different %[1]s values always differ by more, so the test is exact equality; use a few ulps, such as %[3]s (%.2[4]g)",
-			f.Name, f.U, fewUlps(f), 4*f.Eps)
+			f.Name, f.U, f.FewUlpsLiteral(), 4*f.Eps)
 	case tolerance.BelowEpsilon:
 		return fmt.Sprintf("is below %s epsilon (%.3g): the test can hold for unequal values only when they are below about %.2g (tol/eps), and is exact equality above; add a relative term",
 			f.Name, f.Eps, tol/f.Eps)
@@ -78,33 +77,7 @@ func explain(res tolerance.Resolution, tol float64, f numeric.Format, mag float6
 // describe names a tolerance written as src with value tol.
 func describe(kind tolerance.Kind, src string, tol float64) string {
 	word := map[tolerance.Kind]string{tolerance.Absolute: "absolute", tolerance.Relative: "relative"}[kind]
-	return word + " tolerance " + withValue(src, tol)
-}
-
-// withValue writes a constant as the source does, adding its value when
-// the source is not a literal.
-func withValue(src string, tol float64) string {
-	if _, err := strconv.ParseFloat(src, 64); err == nil {
-		return src
-	}
-	return src + " (" + numeric.Short(tol) + ")"
-}
-
-// fewUlps writes 4 ulps at 1 of format f exactly: a relative tolerance that
-// lets values a few roundings apart compare equal.
-func fewUlps(f numeric.Format) string {
-	if f == numeric.Float32 {
-		return "4*0x1p-23"
-	}
-	return "4*0x1p-52"
-}
-
-// epsLit writes the machine epsilon of f exactly.
-func epsLit(f numeric.Format) string {
-	if f == numeric.Float32 {
-		return "0x1p-23"
-	}
-	return "0x1p-52"
+	return word + " tolerance " + numeric.WithValue(src, tol)
 }
 
 // declaredAt points at the declaration of a named tolerance declared in
@@ -131,9 +104,9 @@ func (c *checker) tolFix(cur inspector.Cursor, t tolerance.Test, res tolerance.R
 				target = init // change the named tolerance where it is set
 			}
 		}
-		return []fixes.Fix{fixes.Judgement("Use 4 ulps as the relative tolerance: "+fewUlps(f), fixes.Replace(target, fewUlps(f)))}
+		return []fixes.Fix{fixes.Judgement("Use 4 ulps as the relative tolerance: "+f.FewUlpsLiteral(), fixes.Replace(target, f.FewUlpsLiteral()))}
 	case tolerance.Subnormal:
-		return []fixes.Fix{fixes.Judgement("Use "+f.Name+" epsilon: "+epsLit(f), fixes.Replace(t.Tol, epsLit(f)))}
+		return []fixes.Fix{fixes.Judgement("Use "+f.Name+" epsilon: "+f.EpsLiteral(), fixes.Replace(t.Tol, f.EpsLiteral()))}
 	case tolerance.BelowEpsilon, tolerance.BelowSpacing:
 		return c.mixedFix(cur, t, f)
 	}
@@ -158,7 +131,7 @@ func (c *checker) mixedFix(cur inspector.Cursor, t tolerance.Test, f numeric.For
 		return nil
 	}
 	a, b := fixes.Source(c.pass.Fset, t.A), fixes.Source(c.pass.Fset, t.B)
-	text := fmt.Sprintf("%[1]s + %[2]s*%[3]s.Max(%[3]s.Abs(%[4]s), %[3]s.Abs(%[5]s))", fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()), fewUlps(f), name, a, b)
+	text := fmt.Sprintf("%[1]s + %[2]s*%[3]s.Max(%[3]s.Abs(%[4]s), %[3]s.Abs(%[5]s))", fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()), f.FewUlpsLiteral(), name, a, b)
 	return []fixes.Fix{fixes.Judgement("Add a relative term of 4 ulps: "+text, append(edits, fixes.Replace(t.Tol, text))...)}
 }
 

@@ -5,6 +5,7 @@ import (
 	"go/ast"
 	"go/constant"
 	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -84,7 +85,7 @@ func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
 			continue
 		}
 		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, call.Args[i]); ok && constant.Sign(v) != 0 {
-			return abs(value(v, numeric.Float64))
+			return math.Abs(numeric.Float64.Value(v))
 		}
 	}
 	return 0
@@ -97,7 +98,7 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 		return
 	}
 	f := u.format()
-	tol := value(v, f)
+	tol := f.Value(v)
 	res := tolerance.Judge(u.Kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
@@ -105,21 +106,14 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 	src := fixes.Source(c.pass.Fset, val)
 	d := analysis.Diagnostic{
 		Pos: val.Pos(), End: val.End(), Category: category(res),
-		Message: fmt.Sprintf("%s, %s (%s), %s", withValue(src, tol), how, u, explain(res, tol, f, mag)),
+		Message: fmt.Sprintf("%s, %s (%s), %s", numeric.WithValue(src, tol), how, u, explain(res, tol, f, mag)),
 	}
 	var fs []fixes.Fix
 	switch res {
 	case tolerance.BelowRoundoff:
-		fs = append(fs, fixes.Judgement("Use 4 ulps as the relative tolerance: "+fewUlps(f), fixes.Replace(val, fewUlps(f))))
+		fs = append(fs, fixes.Judgement("Use 4 ulps as the relative tolerance: "+f.FewUlpsLiteral(), fixes.Replace(val, f.FewUlpsLiteral())))
 	case tolerance.Subnormal:
-		fs = append(fs, fixes.Judgement("Use "+f.Name+" epsilon: "+epsLit(f), fixes.Replace(val, epsLit(f))))
+		fs = append(fs, fixes.Judgement("Use "+f.Name+" epsilon: "+f.EpsLiteral(), fixes.Replace(val, f.EpsLiteral())))
 	}
 	fixes.Report(c.pass, d, fs...)
-}
-
-func abs(x float64) float64 {
-	if x < 0 {
-		return -x
-	}
-	return x
 }

@@ -52,7 +52,7 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	msg := fmt.Sprintf("float loop variable %s is tested with %s against %s but changes by rounded arithmetic and may step over it, so the loop may never stop; %s", name, n.Op, bnd, remedy)
 	if sim.known {
 		short := numeric.Short
-		if format(phi.Type()) == numeric.Float32 {
+		if provenance.FormatOf(phi.Type()) == numeric.Float32 {
 			short = func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 32) }
 		}
 		msg = fmt.Sprintf("float loop variable %s goes from %s in steps of %s and never equals %s (it passes from %s to %s), so the loop %s; %s",
@@ -152,7 +152,7 @@ func (c *checker) simulate(phi *ssa.Phi, step *ssa.BinOp, boundVal ssa.Value) si
 		return simulation{}
 	}
 	round := func(v float64) float64 { return v }
-	if format(phi.Type()) == numeric.Float32 {
+	if provenance.FormatOf(phi.Type()) == numeric.Float32 {
 		round = func(v float64) float64 { return float64(float32(v)) }
 	}
 	x0, s, b = round(x0), round(s), round(b)

@@ -70,15 +70,6 @@ func isComplex(t types.Type) bool {
 	return ok && b.Info()&types.IsComplex != 0
 }
 
-// format returns the float format that judges values of type t: float32
-// when t admits float32 (a type parameter may), else float64.
-func format(t types.Type) numeric.Format {
-	if provenance.Admits32(t) {
-		return numeric.Float32
-	}
-	return numeric.Float64
-}
-
 // rtol returns the relative tolerance the fixes use for format f: 1e-9 for
 // float64 (about 4.5e6 ulps: nine significant digits, common practice) and
 // 1e-5 for float32 (about 84 ulps).
@@ -93,7 +84,7 @@ func rtol(f numeric.Format) string {
 // is set when y is a load of a field that holds computed values.
 func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand, field *types.Var) {
 	t := c.pass.TypesInfo.TypeOf(x.expr)
-	f := format(t)
+	f := provenance.FormatOf(t)
 	node := ast.Node(n)
 	if n == nil {
 		node = y.expr
@@ -118,7 +109,7 @@ func (c *checker) literal(cur inspector.Cursor, n *ast.BinaryExpr, op token.Toke
 		return // not a constant, or complex: only real literals are judged
 	}
 	t := c.pass.TypesInfo.TypeOf(x.expr)
-	f := format(t)
+	f := provenance.FormatOf(t)
 	stored, exact := storedValue(v, f)
 	if exact {
 		return // the constant is stored exactly: a deliberate target value
@@ -173,8 +164,8 @@ func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y ope
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr); ok && constant.Sign(v) > 0 {
 		scale = fixes.Operand(c.pass.Fset, y.expr, token.MUL.Precedence()+1) // a positive constant is its own magnitude
 	}
-	text := fmt.Sprintf("%s.Abs(%s)%s%s*%s", name, conv(diff), rel, rtol(format(t)), scale)
-	return []fixes.Fix{fixes.Judgement("Compare within relative tolerance "+rtol(format(t)), append(edits, fixes.Replace(n, text))...)}
+	text := fmt.Sprintf("%s.Abs(%s)%s%s*%s", name, conv(diff), rel, rtol(provenance.FormatOf(t)), scale)
+	return []fixes.Fix{fixes.Judgement("Compare within relative tolerance "+rtol(provenance.FormatOf(t)), append(edits, fixes.Replace(n, text))...)}
 }
 
 // importMath returns the name for package math at pos and the edits that

@@ -51,16 +51,16 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	if !provenance.IsFloat(t) || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(exp.expr)) || c.exempt(exp) || c.exempt(act) {
 		return
 	}
-	why := c.testifyHazard(exp, act, format(t))
+	why := c.testifyHazard(exp, act, provenance.FormatOf(t))
 	if why == "" {
 		return
 	}
 	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catTestify,
 		Message: fmt.Sprintf("%s.%s compares %s values exactly, but %s; %s",
-			fn.Pkg().Name(), fn.Name(), typeName(t), why, remedy(replacement, rtol(format(t)))),
+			fn.Pkg().Name(), fn.Name(), typeName(t), why, remedy(replacement, rtol(provenance.FormatOf(t)))),
 	}
-	fixes.Report(c.pass, d, c.inEpsilonFix(call, exp, first, replacement, format(t))...)
+	fixes.Report(c.pass, d, c.inEpsilonFix(call, exp, first, replacement, provenance.FormatOf(t))...)
 }
 
 func isTestify(path string) bool {

@@ -14,6 +14,7 @@ import (
 
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 )
 
@@ -58,7 +59,7 @@ func explain(v verdict, u use, tol float64) string {
 		return fmt.Sprintf("comparing function values locates a minimum only to about sqrt(eps)·max(1,|x|) = %.3g·max(1,|x|) in %s (Brent 1973), so the test wastes iterations or never passes; use at least %s",
 			f.SqrtEps(), f.Name, u.floorLit())
 	case v == tight:
-		return fmt.Sprintf("a step below the unit roundoff of %s (%.3g) relative to |x| cannot be resolved, so the test passes only for a zero step; use a few ulps, such as %s", f.Name, f.U, fewUlps(f))
+		return fmt.Sprintf("a step below the unit roundoff of %s (%.3g) relative to |x| cannot be resolved, so the test passes only for a zero step; use a few ulps, such as %s", f.Name, f.U, f.FewUlpsLiteral())
 	}
 	return fmt.Sprintf("it ignores |x|: from |x| = %.3g on, adjacent %s values are more than %.3g apart and the test can never pass; scale it with |x|",
 		f.SpacingAbove(tol), f.Name, tol)
@@ -128,7 +129,7 @@ func (c *checker) onX(t tolerance.Test, l *loop) bool {
 // test puts termination at risk: a tolerance too tight for some |x|, or
 // one a caller chooses.
 func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
-	f := formatOf(c.pass.TypesInfo.TypeOf(t.A))
+	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))
 	u := use{
 		Class:    l.class,
 		Relative: t.Kind == tolerance.Relative || t.Kind == tolerance.RelativeMagnitude,
@@ -172,10 +173,10 @@ func (c *checker) site(val ast.Expr, u use, how string) {
 	if !ok || tv.Value == nil {
 		return
 	}
-	tol := value(tv.Value, u.format())
+	tol := u.format().Value(tv.Value)
 	if u.Grad {
 		if tol > 0 && tol < u.format().SqrtEps() && tol > tolerance.UnderflowGuard {
-			c.reportGrad(val, fmt.Sprintf("%s, %s (%s),", withValue(fixes.Source(c.pass.Fset, val), tol), how, u))
+			c.reportGrad(val, fmt.Sprintf("%s, %s (%s),", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u))
 		}
 		return
 	}
@@ -186,22 +187,13 @@ func (c *checker) site(val ast.Expr, u use, how string) {
 	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
 	d := analysis.Diagnostic{
 		Pos: val.Pos(), End: val.End(), Category: cat,
-		Message: fmt.Sprintf("%s, %s (%s), is too tight: %s", withValue(fixes.Source(c.pass.Fset, val), tol), how, u, explain(v, u, tol)),
+		Message: fmt.Sprintf("%s, %s (%s), is too tight: %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, explain(v, u, tol)),
 	}
 	var fs []fixes.Fix
 	if v == tight && u.Class == minimize {
 		fs = append(fs, fixes.Judgement("Use the attainable precision: "+u.floorLit(), fixes.Replace(val, u.floorLit())))
 	}
 	fixes.Report(c.pass, d, fs...)
-}
-
-// withValue writes a constant as the source does, adding its value when
-// the source is not a literal.
-func withValue(src string, tol float64) string {
-	if _, err := strconv.ParseFloat(src, 64); err == nil {
-		return src
-	}
-	return src + " (" + numeric.Short(tol) + ")"
 }
 
 // floor returns the relative precision to which a minimization of the use's
@@ -219,24 +211,7 @@ func (u use) floorLit() string {
 	if u.Noise > 0 {
 		return strconv.FormatFloat(u.floor(), 'g', 3, 64)
 	}
-	return sqrtEpsLit(u.format())
-}
-
-// sqrtEpsLit writes sqrt(eps) of f exactly: 2^-26 for float64; for float32,
-// whose sqrt(eps) is 2^-11.5, the power of two just above it.
-func sqrtEpsLit(f numeric.Format) string {
-	if f == numeric.Float32 {
-		return "0x1p-11"
-	}
-	return "0x1p-26"
-}
-
-// fewUlps writes 4 ulps at 1 of f exactly.
-func fewUlps(f numeric.Format) string {
-	if f == numeric.Float32 {
-		return "4*0x1p-23"
-	}
-	return "4*0x1p-52"
+	return u.format().SqrtEpsLiteral()
 }
 
 // scaledFix returns the fix for a too-tight or unscaled test on a
@@ -248,7 +223,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 	if u.Relative {
 		lit := u.floorLit()
 		if u.Class == root {
-			lit = fewUlps(f)
+			lit = f.FewUlpsLiteral()
 		}
 		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}
 	}
@@ -264,7 +239,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 	text := fmt.Sprintf("2*(%[1]s*%[2]s.Abs(%[3]s) + %[4]s)", u.floorLit(), name, b, tol)
 	msg := "Scale by |x| with the attainable precision: "
 	if v == unscaled {
-		text = fmt.Sprintf("%[1]s + %[2]s*%[3]s.Abs(%[4]s)", tol, fewUlps(f), name, b)
+		text = fmt.Sprintf("%[1]s + %[2]s*%[3]s.Abs(%[4]s)", tol, f.FewUlpsLiteral(), name, b)
 		msg = "Add 4 ulps of |x|: "
 	}
 	return []fixes.Fix{fixes.Judgement(msg+text, append(edits, fixes.Replace(t.Tol, text))...)}
@@ -297,10 +272,10 @@ func (c *checker) gradient(cur inspector.Cursor, n *ast.BinaryExpr) {
 		!gradNorm.MatchString(fixes.Source(c.pass.Fset, t.A)) && !gradNorm.MatchString(fixes.Source(c.pass.Fset, c.followed(t.A))) {
 		return
 	}
-	u := use{Grad: true, Float32: formatOf(c.pass.TypesInfo.TypeOf(t.A)) == numeric.Float32, Where: enclosingName(cur)}
+	u := use{Grad: true, Float32: provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A)) == numeric.Float32, Where: enclosingName(cur)}
 	src := c.resolve(cur, t.Tol, u)
 	if src.constant && src.value > 0 && src.value < u.format().SqrtEps() && src.value > tolerance.UnderflowGuard {
-		c.reportGrad(n, "absolute gradient-norm threshold "+withValue(fixes.Source(c.pass.Fset, t.Tol), src.value))
+		c.reportGrad(n, "absolute gradient-norm threshold "+numeric.WithValue(fixes.Source(c.pass.Fset, t.Tol), src.value))
 	}
 }
 

@@ -4,7 +4,6 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
-	"go/constant"
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
@@ -16,7 +15,6 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/analyzers/internal/numeric"
-	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 )
 
@@ -61,12 +59,7 @@ func (u use) String() string {
 	return fmt.Sprintf("%s x-tolerance of a %s in %s", scale, u.Class, u.Where)
 }
 
-func (u use) format() numeric.Format {
-	if u.Float32 {
-		return numeric.Float32
-	}
-	return numeric.Float64
-}
+func (u use) format() numeric.Format { return numeric.Select(u.Float32) }
 
 // checker holds what one run needs.
 type checker struct {
@@ -140,7 +133,7 @@ type source struct {
 // given to it as a default.
 func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tol); ok {
-		return source{constant: true, value: value(v, u.format())}
+		return source{constant: true, value: u.format().Value(v)}
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
 		c.uses.Field(field, u)
@@ -163,23 +156,6 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 		}
 	}
 	return src
-}
-
-// value returns the value format f stores for constant v.
-func value(v constant.Value, f numeric.Format) float64 {
-	x, _ := constant.Float64Val(constant.ToFloat(v))
-	if f == numeric.Float32 {
-		return float64(float32(x))
-	}
-	return x
-}
-
-// formatOf returns the format that judges values of type t.
-func formatOf(t types.Type) numeric.Format {
-	if provenance.Admits32(t) {
-		return numeric.Float32
-	}
-	return numeric.Float64
 }
 
 // enclosingBody returns the body of the function around cur.

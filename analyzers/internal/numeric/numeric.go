@@ -6,6 +6,7 @@
 package numeric
 
 import (
+	"go/constant"
 	"math"
 	"math/big"
 	"strconv"
@@ -131,3 +132,48 @@ func positional(ds string, p int, more string) string {
 
 // Short formats x in the shortest form that reads back as the same float64.
 func Short(x float64) string { return strconv.FormatFloat(x, 'g', -1, 64) }
+
+// Select returns Float32 when single is set, else Float64.
+func Select(single bool) Format {
+	if single {
+		return Float32
+	}
+	return Float64
+}
+
+// Value returns the value format f stores for the constant v.
+func (f Format) Value(v constant.Value) float64 {
+	x, _ := constant.Float64Val(constant.ToFloat(v))
+	if f == Float32 {
+		return float64(float32(x))
+	}
+	return x
+}
+
+// EpsLiteral writes f's machine epsilon exactly, as Go source.
+func (f Format) EpsLiteral() string {
+	return strconv.FormatFloat(f.Eps, 'x', -1, 64)
+}
+
+// FewUlpsLiteral writes 4 ulps at 1, 4·eps, exactly: a relative tolerance
+// that lets values a few roundings apart compare equal.
+func (f Format) FewUlpsLiteral() string { return "4*" + f.EpsLiteral() }
+
+// SqrtEpsLiteral writes sqrt(eps) exactly for float64 (2^-26); for
+// float32, whose sqrt(eps) is 2^-11.5, the power of two just above it.
+func (f Format) SqrtEpsLiteral() string {
+	frac, e := math.Frexp(f.SqrtEps())
+	if frac == 0.5 {
+		e-- // a power of two already
+	}
+	return strconv.FormatFloat(math.Ldexp(1, e), 'x', -1, 64)
+}
+
+// WithValue writes a constant as the source does, src, adding its value
+// when src is not a literal: "tol (1e-12)".
+func WithValue(src string, v float64) string {
+	if _, err := strconv.ParseFloat(src, 64); err == nil {
+		return src
+	}
+	return src + " (" + Short(v) + ")"
+}

@@ -13,6 +13,8 @@ import (
 	"strings"
 
 	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/numeric"
 )
 
 // Kind is the immediate origin of a value, after conversions are looked
@@ -379,6 +381,10 @@ func IsFloat(t types.Type) bool {
 		return b.Info()&(types.IsFloat|types.IsComplex) != 0
 	})
 }
+
+// FormatOf returns the format that judges values of type t: float32 when t
+// admits float32 (a type parameter may), else float64.
+func FormatOf(t types.Type) numeric.Format { return numeric.Select(Admits32(t)) }
 
 // Admits32 reports whether t is float32 or complex64, or a type parameter
 // whose type set includes one of them.

@@ -1,0 +1,110 @@
+package tolerance_test
+
+import (
+	"go/ast"
+	"go/importer"
+	"go/parser"
+	"go/token"
+	"go/types"
+	"math"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/numeric"
+	"roundoff/analyzers/internal/tolerance"
+)
+
+// comparisons type-checks body inside func f(a, b, x, tol float64) and
+// returns its ordered comparisons in order.
+func comparisons(t *testing.T, body string) (*types.Info, map[types.Object]ast.Expr, *token.FileSet, []*ast.BinaryExpr) {
+	fset := token.NewFileSet()
+	src := "package p\n\nimport \"math\"\n\nvar _ = math.Abs\n\nfunc f(a, b, x, tol float64) bool {\n" + body + "\n}\n"
+	file, err := parser.ParseFile(fset, "p.go", src, 0)
+	require.NoError(t, err)
+	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}}
+	_, err = (&types.Config{Importer: importer.Default()}).Check("p", fset, []*ast.File{file}, info)
+	require.NoError(t, err)
+	var cmps []*ast.BinaryExpr
+	ast.Inspect(file, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && (b.Op == token.LSS || b.Op == token.LEQ || b.Op == token.GTR || b.Op == token.GEQ) {
+			cmps = append(cmps, b)
+		}
+		return true
+	})
+	return info, constval.Decls(info, []*ast.File{file}), fset, cmps
+}
+
+func TestRecognize(t *testing.T) {
+	for body, want := range map[string]struct {
+		kind      tolerance.Kind
+		tol, a, b string
+	}{
+		"return math.Abs(a-b) < tol":                                      {tolerance.Absolute, "tol", "a", "b"},
+		"return math.Abs(a-b) <= 1e-9*math.Abs(b)":                        {tolerance.Relative, "1e-9", "a", "b"},
+		"return math.Abs(a-b)/math.Abs(b) < tol":                          {tolerance.Relative, "tol", "a", "b"},
+		"return math.Abs((a-b)/b) < tol":                                  {tolerance.Relative, "tol", "a", "b"},
+		"return tol*math.Max(math.Abs(a), math.Abs(b)) > math.Abs(a-b)":   {tolerance.Relative, "tol", "a", "b"},
+		"d := math.Abs(a - b)\nreturn d < tol":                            {tolerance.Absolute, "tol", "a", "b"},
+		"return math.Abs(x) < 1e-16":                                      {tolerance.Magnitude, "1e-16", "x", ""},
+		"return math.Abs(x) < tol*math.Abs(a)":                            {tolerance.RelativeMagnitude, "tol", "x", ""},
+		"return float32(math.Abs(float64(float32(a)-float32(b)))) < 1e-9": {tolerance.Absolute, "1e-9", "float32(a)", "float32(b)"},
+	} {
+		info, decls, fset, cmps := comparisons(t, body)
+		require.Len(t, cmps, 1, body)
+		got, ok := tolerance.Recognize(info, decls, cmps[0])
+		require.True(t, ok, body)
+		assert.Equal(t, want.kind, got.Kind, body)
+		assert.Equal(t, want.tol, fixes.Source(fset, got.Tol), body)
+		assert.Equal(t, want.a, fixes.Source(fset, got.A), body)
+		if want.b != "" {
+			assert.Equal(t, want.b, fixes.Source(fset, got.B), body)
+		}
+	}
+	for _, body := range []string{
+		"return a < b", // an ordering, not a tolerance test
+		"return math.Abs(a-b) <= 1e-12+1e-9*math.Abs(b)", // a mixed test
+		"return a-b < tol", // a signed difference
+	} {
+		info, decls, _, cmps := comparisons(t, body)
+		_, ok := tolerance.Recognize(info, decls, cmps[0])
+		assert.False(t, ok, body)
+	}
+	info, decls, _, cmps := comparisons(t, "return b-a > tol")
+	got, ok := tolerance.RecognizeWidth(info, decls, cmps[0])
+	assert.True(t, ok && got.Kind == tolerance.Absolute, "a bracket width, when the caller knows it is one")
+}
+
+// TestJudge checks the lines against IEEE 754-2019 binary64: u = 2^-53,
+// eps = 2^-52, spacing 2^-52 at 1 and 2^-33 at 1e6, smallest subnormal
+// 2^-1074; underflow guards at or below 2^-511 (common practice).
+func TestJudge(t *testing.T) {
+	f := numeric.Float64
+	for _, c := range []struct {
+		kind tolerance.Kind
+		tol  float64
+		mag  float64
+		want tolerance.Resolution
+	}{
+		{tolerance.Relative, 1e-17, 0, tolerance.BelowRoundoff},
+		{tolerance.Relative, math.Ldexp(1, -53), 0, tolerance.Resolvable}, // u itself
+		{tolerance.Relative, 1.5e-16, 0, tolerance.Resolvable},            // between u and eps
+		{tolerance.Absolute, 1e-20, 0, tolerance.BelowEpsilon},
+		{tolerance.Absolute, 1e-15, 0, tolerance.Resolvable},
+		{tolerance.Absolute, 1e-17, 1, tolerance.BelowSpacing}, // half of 2^-52 is 1.1e-16
+		{tolerance.Absolute, 1e-10, 1e6, tolerance.Resolvable}, // half of 2^-33 is 5.8e-11
+		{tolerance.Absolute, 5e-11, 1e6, tolerance.BelowSpacing},
+		{tolerance.Absolute, math.SmallestNonzeroFloat64, 0, tolerance.Subnormal},
+		{tolerance.Magnitude, math.SmallestNonzeroFloat64, 0, tolerance.Resolvable}, // |x| < smallest is x == 0
+		{tolerance.Absolute, 1e-300, 0, tolerance.Resolvable},                       // an underflow guard
+		{tolerance.Absolute, 0, 0, tolerance.Resolvable},                            // exact on purpose
+		{tolerance.Relative, -1, 0, tolerance.Resolvable},                           // a sentinel
+		{tolerance.Relative, math.NaN(), 0, tolerance.Resolvable},
+	} {
+		assert.Equal(t, c.want, tolerance.Judge(c.kind, c.tol, f, c.mag), "%v %g at %g", c.kind, c.tol, c.mag)
+	}
+	assert.Equal(t, math.Ldexp(1, -511), tolerance.UnderflowGuard)
+}

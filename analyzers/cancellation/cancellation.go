@@ -29,7 +29,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "cancellation",
 	Doc:      analyzerdoc.Extract(doc, "cancellation"),
 	URL:      "docs/cancellation.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer},
 	Run:      run,
 }
 
@@ -63,7 +63,7 @@ type checker struct {
 }
 
 func run(pass *analysis.Pass) (any, error) {
-	c := &checker{pass: pass, decls: constval.Decls(pass.TypesInfo, pass.Files)}
+	c := &checker{pass: pass, decls: constval.DeclsOf(pass)}
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
 	for file := range insp.Root().Children() {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {

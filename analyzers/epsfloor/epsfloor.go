@@ -25,7 +25,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "epsfloor",
 	Doc:       analyzerdoc.Extract(doc, "epsfloor"),
 	URL:       "docs/epsfloor.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -66,7 +66,7 @@ type checker struct {
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
 		pass:  pass,
-		decls: constval.Decls(pass.TypesInfo, pass.Files),
+		decls: constval.DeclsOf(pass),
 		uses:  tolerance.NewUses[use](pass),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()

@@ -9,7 +9,6 @@ import (
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
-	"golang.org/x/tools/go/analysis/passes/buildssa"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
@@ -17,6 +16,7 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/provenance"
 )
 
@@ -29,7 +29,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "exacteq",
 	Doc:      analyzerdoc.Extract(doc, "exacteq"),
 	URL:      "docs/exacteq.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, buildssa.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer},
 	Run:      run,
 }
 
@@ -54,11 +54,11 @@ type checker struct {
 }
 
 func run(pass *analysis.Pass) (any, error) {
-	ssainfo := pass.ResultOf[buildssa.Analyzer].(*buildssa.SSA)
+	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
 	c := &checker{
 		pass:    pass,
 		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
-		decls:   constval.Decls(pass.TypesInfo, pass.Files),
+		decls:   constval.DeclsOf(pass),
 		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
 		cmps:    make(map[token.Pos]*ssa.BinOp),
 		calls:   make(map[token.Pos]*ssa.Call),

@@ -8,13 +8,13 @@ import (
 	"slices"
 
 	"golang.org/x/tools/go/analysis"
-	"golang.org/x/tools/go/analysis/passes/buildssa"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/analyzers/internal/provenance"
 )
@@ -27,7 +27,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "fdstep",
 	Doc:       analyzerdoc.Extract(doc, "fdstep"),
 	URL:       "docs/fdstep.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, buildssa.Analyzer, noiselevel.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, noiselevel.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(stepFact)},
 }
@@ -71,13 +71,11 @@ type checker struct {
 }
 
 func run(pass *analysis.Pass) (any, error) {
-	ssainfo := pass.ResultOf[buildssa.Analyzer].(*buildssa.SSA)
 	c := &checker{
 		pass:     pass,
 		noise:    pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
 		insp:     pass.ResultOf[inspect.Analyzer].(*inspector.Inspector),
-		decls:    constval.Decls(pass.TypesInfo, pass.Files),
-		globals:  constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
+		decls:    constval.DeclsOf(pass),
 		callers:  make(map[*ssa.Function][]*ssa.Call),
 		stores:   make(map[*types.Var][]*ssa.Store),
 		closures: make(map[*ssa.Function]*ssa.MakeClosure),
@@ -92,7 +90,11 @@ func run(pass *analysis.Pass) (any, error) {
 		names:    make(map[ast.Node]map[string]bool),
 		src:      make(map[*token.File][]byte),
 	}
-	c.indexSyntax()
+	if !c.indexSyntax() && !c.importsSteps() {
+		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
+	}
+	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
+	c.globals = constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs)
 	c.indexSSA(ssainfo.Pkg, ssainfo.SrcFuncs)
 	for _, root := range c.roots {
 		if q, ok := c.quotient(root); ok {
@@ -175,17 +177,25 @@ func (c *checker) indexCall(fn *ssa.Function, call *ssa.Call) {
 // indexSyntax records the syntax that SSA positions point at: binary
 // expressions by operator, op-assignments (x += h) and calls by their
 // start, and the value stored by each field store (composite literal
-// elements and assignments to selectors).
-func (c *checker) indexSyntax() {
+// elements and assignments to selectors). It reports whether the package
+// has a float product or quotient, the operations that the candidate
+// quotients of SSA come from.
+func (c *checker) indexSyntax() (quotients bool) {
+	realExpr := func(e ast.Expr) bool {
+		t := c.pass.TypesInfo.TypeOf(e)
+		return t != nil && isReal(t)
+	}
 	types := []ast.Node{(*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.CallExpr)(nil), (*ast.CompositeLit)(nil)}
 	for cur := range c.insp.Root().Preorder(types...) {
 		switch n := cur.Node().(type) {
 		case *ast.BinaryExpr:
 			c.syntax[n.OpPos] = n
+			quotients = quotients || (n.Op == token.QUO || n.Op == token.MUL) && realExpr(n)
 		case *ast.CallExpr:
 			c.syntax[n.Lparen] = n
 		case *ast.AssignStmt:
 			c.indexAssign(n)
+			quotients = quotients || (n.Tok == token.QUO_ASSIGN || n.Tok == token.MUL_ASSIGN) && realExpr(n.Lhs[0])
 		case *ast.CompositeLit:
 			for _, e := range n.Elts {
 				if kv, ok := e.(*ast.KeyValueExpr); ok {
@@ -196,6 +206,7 @@ func (c *checker) indexSyntax() {
 			}
 		}
 	}
+	return quotients
 }
 
 func (c *checker) indexAssign(as *ast.AssignStmt) {
@@ -211,6 +222,17 @@ func (c *checker) indexAssign(as *ast.AssignStmt) {
 			c.values[sel.Sel.Pos()] = as.Rhs[i]
 		}
 	}
+}
+
+// importsSteps reports whether a package this one depends on has step
+// parameters or fields, which calls and stores here may feed.
+func (c *checker) importsSteps() bool {
+	for _, f := range c.pass.AllObjectFacts() {
+		if _, ok := f.Fact.(*stepFact); ok {
+			return true
+		}
+	}
+	return false
 }
 
 // isReal reports whether t is a floating-point type (not complex), a named

@@ -402,9 +402,15 @@ func (l *loop) mentionsFValue(info *types.Info, e ast.Expr) bool {
 	return found
 }
 
+// isZero reports whether e is the numeric constant 0 (a string or
+// boolean constant, compared in loops too, is none).
 func isZero(info *types.Info, e ast.Expr) bool {
 	tv, ok := info.Types[e]
-	return ok && tv.Value != nil && constant.Sign(tv.Value) == 0
+	if !ok || tv.Value == nil {
+		return false
+	}
+	k := tv.Value.Kind()
+	return (k == constant.Int || k == constant.Float) && constant.Sign(tv.Value) == 0
 }
 
 // constFloat returns a constant's value as a float64.

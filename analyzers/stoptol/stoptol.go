@@ -26,7 +26,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "stoptol",
 	Doc:       analyzerdoc.Extract(doc, "stoptol"),
 	URL:       "docs/stoptol.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, noiselevel.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, noiselevel.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -73,7 +73,7 @@ func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
 		pass:  pass,
 		noise: pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
-		decls: constval.Decls(pass.TypesInfo, pass.Files),
+		decls: constval.DeclsOf(pass),
 		uses:  tolerance.NewUses[use](pass),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()

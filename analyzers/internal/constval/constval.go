@@ -284,10 +284,11 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 	stores := make(map[*ssa.Global]int)
 	vals := make(Globals)
 	escaped := make(map[*ssa.Global]bool)
+	var ops []*ssa.Value // reused: one allocation, not one per instruction
 	visit := func(fn *ssa.Function) {
 		for _, b := range fn.Blocks {
 			for _, instr := range b.Instrs {
-				scanGlobals(fn, pkg, instr, stores, vals, escaped)
+				ops = scanGlobals(fn, pkg, instr, stores, vals, escaped, ops[:0])
 			}
 		}
 	}
@@ -307,7 +308,9 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 	return vals
 }
 
-func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stores map[*ssa.Global]int, vals Globals, escaped map[*ssa.Global]bool) {
+// scanGlobals records what instr does with this package's globals; ops is
+// scratch space for its operands, returned for reuse.
+func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stores map[*ssa.Global]int, vals Globals, escaped map[*ssa.Global]bool, ops []*ssa.Value) []*ssa.Value {
 	if st, ok := instr.(*ssa.Store); ok {
 		if g, ok := st.Addr.(*ssa.Global); ok && g.Pkg == pkg {
 			stores[g]++
@@ -318,8 +321,8 @@ func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stor
 			}
 		}
 	}
-	var ops []*ssa.Value
-	for _, op := range instr.Operands(ops) {
+	ops = instr.Operands(ops)
+	for _, op := range ops {
 		g, ok := (*op).(*ssa.Global)
 		if !ok || g.Pkg != pkg {
 			continue
@@ -336,4 +339,5 @@ func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stor
 		}
 		escaped[g] = true
 	}
+	return ops
 }

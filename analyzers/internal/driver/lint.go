@@ -1,6 +1,7 @@
 package driver
 
 import (
+	"cmp"
 	"errors"
 	"flag"
 	"fmt"
@@ -65,6 +66,12 @@ func (e *env) lint(o *options, dir string) int {
 	if len(analyzers) == 0 {
 		return e.errorf("every analyzer is turned off (by flags or %s)", config.FileName)
 	}
+	bench, err := startBench()
+	if err != nil {
+		return e.errorf("%v", err)
+	}
+	defer bench.stop()
+	analyzers = bench.suite(analyzers)
 	sc, err := e.prepareScope(o, dir)
 	if err != nil {
 		return e.errorf("%v", err)
@@ -75,8 +82,8 @@ func (e *env) lint(o *options, dir string) int {
 		return exitErrors
 	}
 	r.failed = !ok
-	graph, err := checker.Analyze(analyzers, pkgs, nil)
-	if err != nil {
+	graph, err := checker.Analyze(analyzers, pkgs, bench.options())
+	if err := cmp.Or(err, bench.done(graph, e.stderr)); err != nil {
 		return e.errorf("%v", err)
 	}
 	e.collect(r, graph)

@@ -1,0 +1,67 @@
+// Package lazyssa defines an infrastructure Analyzer that gives a
+// package's SSA form, as buildssa builds it, on first request. Analyzers
+// with facts run on every dependency of the packages linted, the standard
+// library included; building SSA for all of them cost more time and memory
+// than the rest of the suite together (docs/performance.md), while most
+// hold nothing such an analyzer looks for. Requiring lazyssa instead of
+// buildssa lets an analyzer look at the syntax first and build SSA only
+// where it needs it, and lets several analyzers share one build.
+package lazyssa
+
+import (
+	"reflect"
+	"sync"
+	"sync/atomic"
+	"time"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/buildssa"
+	"golang.org/x/tools/go/analysis/passes/ctrlflow"
+)
+
+// Analyzer returns a *Lazy for the package, having built nothing.
+var Analyzer = &analysis.Analyzer{
+	Name:       "lazyssa",
+	Doc:        "lazyssa: the package's SSA form, built on first request",
+	Requires:   []*analysis.Analyzer{ctrlflow.Analyzer},
+	Run:        run,
+	ResultType: reflect.TypeFor[*Lazy](),
+}
+
+// Lazy builds a package's SSA form once, when first asked, from any
+// goroutine.
+type Lazy struct {
+	build func() *buildssa.SSA
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	// What buildssa reads: the package and ctrlflow's result.
+	input := &analysis.Pass{
+		Analyzer:  buildssa.Analyzer,
+		Fset:      pass.Fset,
+		Files:     pass.Files,
+		Pkg:       pass.Pkg,
+		TypesInfo: pass.TypesInfo,
+		ResultOf:  map[*analysis.Analyzer]any{ctrlflow.Analyzer: pass.ResultOf[ctrlflow.Analyzer]},
+	}
+	return &Lazy{build: sync.OnceValue(func() *buildssa.SSA {
+		start := time.Now()
+		defer func() { spent.Add(int64(time.Since(start))) }()
+		res, err := buildssa.Analyzer.Run(input)
+		if err != nil {
+			panic(err) // buildssa returns no errors
+		}
+		return res.(*buildssa.SSA)
+	})}, nil
+}
+
+// spent is the time spent building SSA in this process.
+var spent atomic.Int64
+
+// Spent returns the time this process has spent building SSA, which the
+// analyzers that asked for it first count as theirs: the benchmark's time
+// per analyzer shows it apart.
+func Spent() time.Duration { return time.Duration(spent.Load()) }
+
+// SSA returns the package's SSA form, building it on the first call.
+func (l *Lazy) SSA() *buildssa.SSA { return l.build() }

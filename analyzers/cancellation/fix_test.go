@@ -4,11 +4,7 @@ import (
 	"math"
 	"math/big"
 	"math/rand/v2"
-	"os"
-	"os/exec"
 	"path/filepath"
-	"strconv"
-	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -16,6 +12,7 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/cancellation"
+	"roundoff/analyzers/internal/testrun"
 	"roundoff/analyzers/suite"
 )
 
@@ -36,8 +33,8 @@ func TestUnattended(t *testing.T) {
 // with 200-bit math/big references (reference_test.go).
 func TestFixedProgramRuns(t *testing.T) {
 	src := filepath.Join("testdata", "src", "runfix")
-	before := values(t, runProgram(t, filepath.Join(src, "main.go")))
-	after := values(t, runProgram(t, filepath.Join(src, "main.go.golden")))
+	before := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go")))
+	after := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go.golden")))
 
 	x, h, c, big1 := 1e-17, 1e-10, 1e-8, 1e200
 	lse := newF().Add(bf(1000), ln2Ref()) // log(2e^1000) = 1000 + ln 2, ln 2 by its series
@@ -64,36 +61,6 @@ func TestFixedProgramRuns(t *testing.T) {
 	relErr := math.Abs(before["expm1"]-f64(refs["expm1"])) / f64(refs["expm1"])
 	assert.Greater(t, relErr, 1e-9)
 	assert.Less(t, relErr, 1e-6)
-}
-
-// values parses "name value" lines.
-func values(t *testing.T, out string) map[string]float64 {
-	m := map[string]float64{}
-	for line := range strings.Lines(out) {
-		name, v, ok := strings.Cut(strings.TrimSpace(line), " ")
-		require.True(t, ok, line)
-		f, err := strconv.ParseFloat(v, 64)
-		require.NoError(t, err)
-		m[name] = f
-	}
-	return m
-}
-
-// runProgram copies one Go source file into a scratch module as main.go,
-// runs it and returns its standard output.
-func runProgram(t *testing.T, file string) string {
-	t.Helper()
-	dir := t.TempDir()
-	src, err := os.ReadFile(file)
-	require.NoError(t, err)
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "main.go"), src, 0o644))
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "go.mod"), []byte("module runfix\n\ngo 1.26\n"), 0o644))
-	cmd := exec.Command("go", "run", ".")
-	cmd.Dir = dir
-	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOWORK=off")
-	out, err := cmd.Output()
-	require.NoError(t, err)
-	return string(out)
 }
 
 // TestThresholds checks the magnitudes the messages quote against the

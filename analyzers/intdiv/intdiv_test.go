@@ -3,18 +3,14 @@ package intdiv_test
 import (
 	"math"
 	"math/big"
-	"os"
-	"os/exec"
 	"path/filepath"
-	"strconv"
-	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
-	"github.com/stretchr/testify/require"
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/intdiv"
+	"roundoff/analyzers/internal/testrun"
 	"roundoff/analyzers/suite"
 )
 
@@ -39,8 +35,8 @@ func TestUnattended(t *testing.T) {
 func TestFixedProgramRuns(t *testing.T) {
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), intdiv.Analyzer, "runfix")
 	src := filepath.Join("testdata", "src", "runfix")
-	before := values(t, runProgram(t, filepath.Join(src, "main.go")))
-	after := values(t, runProgram(t, filepath.Join(src, "main.go.golden")))
+	before := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go")))
+	after := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go.golden")))
 
 	// Go specification, "Arithmetic operators" and "Constant expressions":
 	// integer division truncates toward zero, and untyped integer constants
@@ -57,34 +53,4 @@ func TestFixedProgramRuns(t *testing.T) {
 	// an ulp or two of it (the exponent is 1/3 - 1.85e-17, so the exact
 	// value of 27^(1.0/3) is 3·(1 - 6.1e-17), below one ulp of 3).
 	assert.InDelta(t, 3.0, after["cbrt"], 2*math.Nextafter(3, 4)-2*3)
-}
-
-// values parses "name value" lines.
-func values(t *testing.T, out string) map[string]float64 {
-	m := map[string]float64{}
-	for line := range strings.Lines(out) {
-		name, v, ok := strings.Cut(strings.TrimSpace(line), " ")
-		require.True(t, ok, line)
-		f, err := strconv.ParseFloat(v, 64)
-		require.NoError(t, err)
-		m[name] = f
-	}
-	return m
-}
-
-// runProgram copies one Go source file into a scratch module as main.go,
-// runs it and returns its standard output.
-func runProgram(t *testing.T, file string) string {
-	t.Helper()
-	dir := t.TempDir()
-	src, err := os.ReadFile(file)
-	require.NoError(t, err)
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "main.go"), src, 0o644))
-	require.NoError(t, os.WriteFile(filepath.Join(dir, "go.mod"), []byte("module runfix\n\ngo 1.26\n"), 0o644))
-	cmd := exec.Command("go", "run", ".")
-	cmd.Dir = dir
-	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOWORK=off")
-	out, err := cmd.Output()
-	require.NoError(t, err)
-	return string(out)
 }

@@ -6,6 +6,8 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"strconv"
+	"strings"
 	"testing"
 )
 
@@ -32,4 +34,20 @@ func Output(t testing.TB, file string) string {
 		t.Fatalf("running %s: %v", file, err)
 	}
 	return string(out)
+}
+
+// Values parses output made of lines "name value" into a map from name to
+// the float value; the test fails on a line of another shape.
+func Values(t testing.TB, out string) map[string]float64 {
+	t.Helper()
+	m := map[string]float64{}
+	for line := range strings.Lines(out) {
+		name, v, ok := strings.Cut(strings.TrimSpace(line), " ")
+		f, err := strconv.ParseFloat(v, 64)
+		if !ok || err != nil {
+			t.Fatalf("output line %q is not \"name value\"", line)
+		}
+		m[name] = f
+	}
+	return m
 }

@@ -6,7 +6,6 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -251,9 +250,4 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
-}
-
-// isTestFile reports whether the file enclosing cur is a _test.go file.
-func (c *checker) isTestFile(cur inspector.Cursor) bool {
-	return strings.HasSuffix(c.pass.Fset.File(cur.Node().Pos()).Name(), "_test.go")
 }

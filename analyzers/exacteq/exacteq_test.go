@@ -10,8 +10,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/exacteq"
+	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/testrun"
-	"roundoff/analyzers/suite"
 )
 
 func TestHazards(t *testing.T) {
@@ -29,8 +29,8 @@ func TestTestFiles(t *testing.T) {
 // TestUnattended checks that under go fix only the fixes that need no
 // judgement are offered: the golden file keeps every tolerance comparison.
 func TestUnattended(t *testing.T) {
-	suite.Unattended(true)
-	defer suite.Unattended(false)
+	fixes.KeepUnattendedOnly(true)
+	defer fixes.KeepUnattendedOnly(false)
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "unattended")
 }
 

@@ -390,18 +390,6 @@ func (l *loop) fvalue(info *types.Info, e ast.Expr) bool {
 	return isFValue(info, e)
 }
 
-// mentionsFValue reports whether e contains a function value.
-func (l *loop) mentionsFValue(info *types.Info, e ast.Expr) bool {
-	found := false
-	ast.Inspect(e, func(n ast.Node) bool {
-		if x, ok := n.(ast.Expr); ok && l.fvalue(info, x) {
-			found = true
-		}
-		return !found
-	})
-	return found
-}
-
 // isZero reports whether e is the numeric constant 0 (a string or
 // boolean constant, compared in loops too, is none).
 func isZero(info *types.Info, e ast.Expr) bool {

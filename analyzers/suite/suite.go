@@ -1,5 +1,5 @@
-// Package suite lists every roundoff analyzer, in one place, and the one
-// setting the driver passes down to them.
+// Package suite lists every roundoff analyzer, in one place, and runs the
+// roundoff command on them.
 package suite
 
 import (
@@ -13,7 +13,6 @@ import (
 	"roundoff/analyzers/fdstep"
 	"roundoff/analyzers/intdiv"
 	"roundoff/analyzers/internal/driver"
-	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/reviewmark"
 	"roundoff/analyzers/stoptol"
 )
@@ -28,11 +27,6 @@ var Analyzers = []*analysis.Analyzer{
 	intdiv.Analyzer,
 	fdstep.Analyzer,
 }
-
-// Unattended tells every analyzer whether its fixes will be applied without
-// review (under go fix and go vet), in which case only the fixes that need
-// no numerical judgement are offered.
-func Unattended(on bool) { fixes.KeepUnattendedOnly(on) }
 
 // Main runs the roundoff command on the suite with the process's
 // arguments and exits with its status.

@@ -17,7 +17,7 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 //go:embed doc.go

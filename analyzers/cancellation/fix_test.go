@@ -12,8 +12,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/cancellation"
-	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/testrun"
+	"roundoff/internal/config"
 )
 
 func TestFixes(t *testing.T) {
@@ -23,8 +23,8 @@ func TestFixes(t *testing.T) {
 // TestUnattended checks that under go fix the shifted log-sum-exp fix,
 // which needs review, is dropped while the safe ones stay.
 func TestUnattended(t *testing.T) {
-	fixes.KeepUnattendedOnly(true)
-	defer fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(true)
+	defer config.KeepUnattendedOnly(false)
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), cancellation.Analyzer, "unattended")
 }
 

@@ -12,8 +12,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // absorbed reports a constant k ± c of float type that rounds back to k:

@@ -12,9 +12,9 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 //go:embed doc.go

@@ -11,8 +11,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/epsfloor"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/testrun"
+	"roundoff/internal/numeric"
 )
 
 func TestHazards(t *testing.T) {

@@ -10,8 +10,8 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 // iterate reports |x| < tol below eps where x is the iterate of an

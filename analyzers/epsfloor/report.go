@@ -12,8 +12,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 // constantTol judges a tolerance test whose tolerance is a constant tol.

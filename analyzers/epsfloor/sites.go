@@ -12,8 +12,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 // apiParam describes a tolerance parameter of a well-known API.

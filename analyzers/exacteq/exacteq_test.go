@@ -10,8 +10,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/exacteq"
-	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/testrun"
+	"roundoff/internal/config"
 )
 
 func TestHazards(t *testing.T) {
@@ -29,8 +29,8 @@ func TestTestFiles(t *testing.T) {
 // TestUnattended checks that under go fix only the fixes that need no
 // judgement are offered: the golden file keeps every tolerance comparison.
 func TestUnattended(t *testing.T) {
-	fixes.KeepUnattendedOnly(true)
-	defer fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(true)
+	defer config.KeepUnattendedOnly(false)
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "unattended")
 }
 

@@ -14,8 +14,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // maxSteps bounds the simulation of a loop with constant start, step and

@@ -14,8 +14,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // nan reports a comparison with math.NaN(), which is always false (==) or

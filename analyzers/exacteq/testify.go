@@ -13,8 +13,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // testifyEqual maps testify's exact-equality assertions to the tolerance

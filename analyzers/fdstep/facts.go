@@ -13,8 +13,8 @@ import (
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/constval"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // stepFact records that parameters of a function, or a struct field, hold

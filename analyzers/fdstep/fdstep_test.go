@@ -7,7 +7,7 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/fdstep"
-	"roundoff/analyzers/internal/fixes"
+	"roundoff/internal/config"
 )
 
 func TestHazards(t *testing.T) {
@@ -27,8 +27,8 @@ func TestFacts(t *testing.T) {
 // TestUnattended checks that under go fix, which applies fixes unseen, the
 // scaled-step fixes are not offered: choosing a step is a judgement.
 func TestUnattended(t *testing.T) {
-	fixes.KeepUnattendedOnly(true)
-	defer fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(true)
+	defer config.KeepUnattendedOnly(false)
 	for _, r := range analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "runfix") {
 		assert.NotEmpty(t, r.Diagnostics)
 		for _, d := range r.Diagnostics {

@@ -16,7 +16,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // fix returns the fix that declares, just before the quotient's first use

@@ -10,7 +10,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // reportQuotient reports a difference quotient with a constant step, at

@@ -4,7 +4,7 @@ import (
 	"go/types"
 	"math"
 
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // A scheme is a finite-difference formula

@@ -10,8 +10,8 @@ import (
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/constval"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
 )
 
 // An origin is where a step comes from: a constant, a parameter or a field.

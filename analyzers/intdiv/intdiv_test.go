@@ -10,8 +10,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/intdiv"
-	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/testrun"
+	"roundoff/internal/config"
 )
 
 func TestHazards(t *testing.T) {
@@ -25,8 +25,8 @@ func TestIdioms(t *testing.T) {
 // TestUnattended checks that under go fix the conversion fix, which
 // guesses the author's intent, is dropped and the literal fix stays.
 func TestUnattended(t *testing.T) {
-	fixes.KeepUnattendedOnly(true)
-	defer fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(true)
+	defer config.KeepUnattendedOnly(false)
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), intdiv.Analyzer, "unattended")
 }
 

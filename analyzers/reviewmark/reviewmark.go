@@ -10,9 +10,9 @@ import (
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/internal/analyzerdoc"
-	"roundoff/analyzers/internal/config"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/noiselevel"
+	"roundoff/internal/config"
 )
 
 //go:embed doc.go
@@ -36,12 +36,12 @@ const (
 )
 
 // spaced is a review directive written with a space after the slashes.
-var spaced = "// " + strings.TrimPrefix(fixes.ReviewDirective, "//")
+var spaced = "// " + strings.TrimPrefix(config.ReviewDirective, "//")
 
 func run(pass *analysis.Pass) (any, error) {
 	cfg := config.Current()
 	for _, f := range pass.Files {
-		for _, r := range fixes.Reviews(pass.Fset, f) {
+		for _, r := range config.Reviews(pass.Fset, f) {
 			check(pass, cfg, r)
 		}
 		for _, g := range f.Comments {
@@ -55,12 +55,12 @@ func run(pass *analysis.Pass) (any, error) {
 }
 
 // check reports the mistakes of one directive.
-func check(pass *analysis.Pass, cfg *config.Config, r fixes.Review) {
+func check(pass *analysis.Pass, cfg *config.Config, r config.Review) {
 	report := func(cat, format string, args ...any) {
 		fixes.Report(pass, analysis.Diagnostic{Pos: r.Comment.Pos(), End: r.Comment.End(), Category: cat, Message: fmt.Sprintf(format, args...)})
 	}
 	if len(r.Names) == 0 {
-		report(catNoNames, "review directive names no analyzer and suppresses nothing; write %s <analyzer> <reason>", fixes.ReviewDirective)
+		report(catNoNames, "review directive names no analyzer and suppresses nothing; write %s <analyzer> <reason>", config.ReviewDirective)
 		return
 	}
 	for _, n := range r.Names {

@@ -6,8 +6,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 
 	"roundoff/analyzers/exacteq"
-	"roundoff/analyzers/internal/config"
 	"roundoff/analyzers/reviewmark"
+	"roundoff/internal/config"
 )
 
 // The suite, as the driver announces it to the analyzers.

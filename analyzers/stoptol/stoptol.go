@@ -14,8 +14,8 @@ import (
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 //go:embed doc.go

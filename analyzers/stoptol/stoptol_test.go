@@ -10,9 +10,9 @@ import (
 	"github.com/stretchr/testify/require"
 	"golang.org/x/tools/go/analysis/analysistest"
 
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/testrun"
 	"roundoff/analyzers/stoptol"
+	"roundoff/internal/numeric"
 )
 
 func TestHazards(t *testing.T) {

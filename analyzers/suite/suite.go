@@ -1,10 +1,7 @@
-// Package suite lists every roundoff analyzer, in one place, and runs the
-// roundoff command on them.
+// Package suite lists every roundoff analyzer, in one place.
 package suite
 
 import (
-	"os"
-
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/cancellation"
@@ -12,7 +9,6 @@ import (
 	"roundoff/analyzers/exacteq"
 	"roundoff/analyzers/fdstep"
 	"roundoff/analyzers/intdiv"
-	"roundoff/analyzers/internal/driver"
 	"roundoff/analyzers/reviewmark"
 	"roundoff/analyzers/stoptol"
 )
@@ -27,7 +23,3 @@ var Analyzers = []*analysis.Analyzer{
 	intdiv.Analyzer,
 	fdstep.Analyzer,
 }
-
-// Main runs the roundoff command on the suite with the process's
-// arguments and exits with its status.
-func Main() { os.Exit(driver.Main(Analyzers, os.Args[1:])) }

@@ -5,6 +5,11 @@
 // (go fix -fixtool=$(command -v roundoff)). See README.md and docs/.
 package main
 
-import "roundoff/analyzers/suite"
+import (
+	"os"
 
-func main() { suite.Main() }
+	"roundoff/analyzers/suite"
+	"roundoff/cmd/roundoff/internal/driver"
+)
+
+func main() { os.Exit(driver.Main(suite.Analyzers, os.Args[1:])) }

@@ -1,9 +1,11 @@
+//go:build bench
+
 // Command bench measures the speed and memory of roundoff on a real tree
 // against go vet, as docs/performance.md describes.
 //
 // From the root of the roundoff module:
 //
-//	go run ./tools/bench [-runs 3] [-module gonum.org/v1/gonum@v0.17.0]
+//	go run -tags bench ./tools/bench [-runs 3] [-module gonum.org/v1/gonum@v0.17.0]
 //
 // It fetches the module through the Go module proxy into a temporary
 // workspace (a writable copy of the module cache's directory, its

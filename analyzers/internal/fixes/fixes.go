@@ -11,9 +11,10 @@ import (
 	"go/types"
 	"strconv"
 	"strings"
-	"sync/atomic"
 
 	"golang.org/x/tools/go/analysis"
+
+	"roundoff/internal/config"
 )
 
 // A Fix is a suggested fix together with whether it is safe to apply
@@ -35,13 +36,6 @@ func Judgement(msg string, edits ...analysis.TextEdit) Fix {
 	return Fix{analysis.SuggestedFix{Message: msg, TextEdits: edits}, false}
 }
 
-var unattendedOnly atomic.Bool
-
-// KeepUnattendedOnly makes Report drop every fix that needs review. The
-// driver sets it when roundoff runs under `go fix` or `go vet`, which apply
-// the first fix of every diagnostic without showing it to anyone.
-func KeepUnattendedOnly(on bool) { unattendedOnly.Store(on) }
-
 // Report reports d with the given fixes, safe ones first, leaving out the
 // ones that need review when the driver asked for unattended fixes only.
 // It is the one place where findings are dropped in every mode: when the
@@ -53,7 +47,7 @@ func Report(pass *analysis.Pass, d analysis.Diagnostic, fs ...Fix) {
 	}
 	for _, safe := range []bool{true, false} {
 		for _, f := range fs {
-			if f.Unattended == safe && (safe || !unattendedOnly.Load()) {
+			if f.Unattended == safe && (safe || !config.UnattendedOnly()) {
 				d.SuggestedFixes = append(d.SuggestedFixes, f.SuggestedFix)
 			}
 		}

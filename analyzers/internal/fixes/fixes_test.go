@@ -18,6 +18,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/internal/config"
 )
 
 // The facts checked here are about Go source text, not numbers: the
@@ -38,13 +39,13 @@ func TestReportOrderAndFilter(t *testing.T) {
 	assert.False(t, fs[0].Unattended)
 	assert.True(t, fs[1].Unattended)
 
-	t.Cleanup(func() { fixes.KeepUnattendedOnly(false) })
-	fixes.KeepUnattendedOnly(false)
+	t.Cleanup(func() { config.KeepUnattendedOnly(false) })
+	config.KeepUnattendedOnly(false)
 	fixes.Report(pass, analysis.Diagnostic{Message: "all"}, fs...)
-	fixes.KeepUnattendedOnly(true)
+	config.KeepUnattendedOnly(true)
 	fixes.Report(pass, analysis.Diagnostic{Message: "safe only"}, fs...)
 	fixes.Report(pass, analysis.Diagnostic{Message: "judgement only"}, fs[0], fs[2])
-	fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(false)
 	fixes.Report(pass, analysis.Diagnostic{Message: "none"})
 
 	require.Len(t, got, 4)

@@ -32,6 +32,7 @@ var Analyzer = &analysis.Analyzer{
 // goroutine.
 type Lazy struct {
 	build func() *buildssa.SSA
+	spent atomic.Int64 // nanoseconds spent building
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -44,24 +45,23 @@ func run(pass *analysis.Pass) (any, error) {
 		TypesInfo: pass.TypesInfo,
 		ResultOf:  map[*analysis.Analyzer]any{ctrlflow.Analyzer: pass.ResultOf[ctrlflow.Analyzer]},
 	}
-	return &Lazy{build: sync.OnceValue(func() *buildssa.SSA {
+	l := new(Lazy)
+	l.build = sync.OnceValue(func() *buildssa.SSA {
 		start := time.Now()
-		defer func() { spent.Add(int64(time.Since(start))) }()
+		defer func() { l.spent.Store(int64(time.Since(start))) }()
 		res, err := buildssa.Analyzer.Run(input)
 		if err != nil {
 			panic(err) // buildssa returns no errors
 		}
 		return res.(*buildssa.SSA)
-	})}, nil
+	})
+	return l, nil
 }
 
-// spent is the time spent building SSA in this process.
-var spent atomic.Int64
-
-// Spent returns the time this process has spent building SSA, which the
-// analyzers that asked for it first count as theirs: the benchmark's time
-// per analyzer shows it apart.
-func Spent() time.Duration { return time.Duration(spent.Load()) }
+// BuildTime returns the time spent building the package's SSA form, zero
+// if it was never asked for. The analyzer that asks first counts it as its
+// own; the benchmark's time per analyzer shows it apart.
+func (l *Lazy) BuildTime() time.Duration { return time.Duration(l.spent.Load()) }
 
 // SSA returns the package's SSA form, building it on the first call.
 func (l *Lazy) SSA() *buildssa.SSA { return l.build() }

@@ -27,7 +27,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
 
-	"roundoff/analyzers/internal/config"
+	"roundoff/internal/config"
 )
 
 // Analyzer learns the noise levels of this package's functions and of

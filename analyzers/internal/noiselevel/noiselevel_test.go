@@ -12,8 +12,8 @@ import (
 	"golang.org/x/tools/go/analysis/analysistest"
 	"golang.org/x/tools/go/types/typeutil"
 
-	"roundoff/analyzers/internal/config"
 	"roundoff/analyzers/internal/noiselevel"
+	"roundoff/internal/config"
 )
 
 // probe reports the noise level noiselevel knows for every call.

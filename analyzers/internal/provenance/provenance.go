@@ -14,7 +14,7 @@ import (
 
 	"golang.org/x/tools/go/ssa"
 
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // Kind is the immediate origin of a value, after conversions are looked

@@ -13,7 +13,7 @@ import (
 
 	"golang.org/x/tools/go/types/typeutil"
 
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // Kind says what a tolerance test measures.

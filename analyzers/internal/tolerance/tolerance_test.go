@@ -14,8 +14,8 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/numeric"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/numeric"
 )
 
 // comparisons type-checks body inside func f(a, b, x, tol float64) and

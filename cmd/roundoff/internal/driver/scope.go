@@ -7,8 +7,8 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 
-	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/reviewmark"
+	"roundoff/internal/config"
 )
 
 // A scope is what limits the findings shown: the changed lines and the
@@ -96,9 +96,9 @@ func (e *env) staleReviews(r *report, ran []*analysis.Analyzer) {
 		if r.cfg.Excluded(name) {
 			continue
 		}
-		for _, rev := range fixes.Reviews(rf.fset, rf.file) {
+		for _, rev := range config.Reviews(rf.fset, rf.file) {
 			for _, a := range rev.Names {
-				if rev.Reason == "" || !slices.ContainsFunc(ran, func(x *analysis.Analyzer) bool { return x.Name == a }) || fixes.ReviewUsed(name, rev.Line, a) {
+				if rev.Reason == "" || !slices.ContainsFunc(ran, func(x *analysis.Analyzer) bool { return x.Name == a }) || config.ReviewUsed(name, rev.Line, a) {
 					continue
 				}
 				d := analysis.Diagnostic{Pos: rev.Comment.Pos(), End: rev.Comment.End(), Category: staleCategory,

@@ -10,7 +10,7 @@ import (
 	"github.com/stretchr/testify/require"
 	"gonum.org/v1/gonum/floats/scalar"
 
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 const prec = 200 // bits for math/big reference computations

@@ -1,11 +1,11 @@
-package fixes_test
+package config_test
 
 import (
 	"testing"
 
 	"github.com/stretchr/testify/assert"
 
-	"roundoff/analyzers/internal/fixes"
+	"roundoff/internal/config"
 )
 
 // The directive follows the Go convention for tool directives
@@ -27,7 +27,7 @@ func TestParseReview(t *testing.T) {
 		{"/*roundoff:reviewed exacteq x*/", nil, "", false},
 		{"//go:generate stringer", nil, "", false},
 	} {
-		names, reason, ok := fixes.ParseReview(c.text)
+		names, reason, ok := config.ParseReview(c.text)
 		assert.Equal(t, c.ok, ok, c.text)
 		assert.Equal(t, c.names, names, c.text)
 		assert.Equal(t, c.reason, reason, c.text)

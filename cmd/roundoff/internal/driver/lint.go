@@ -15,8 +15,7 @@ import (
 	"golang.org/x/tools/go/analysis/checker"
 	"golang.org/x/tools/go/packages"
 
-	"roundoff/analyzers/internal/config"
-	"roundoff/analyzers/internal/fixes"
+	"roundoff/internal/config"
 )
 
 // lintCmd runs the standalone linter on the command line's packages.
@@ -56,7 +55,7 @@ func (e *env) lint(o *options, dir string) int {
 	}
 	cfg.Select(o.selection())
 	config.Use(cfg)
-	fixes.KeepUnattendedOnly(false)
+	config.KeepUnattendedOnly(false)
 	var analyzers []*analysis.Analyzer
 	for _, a := range e.analyzers {
 		if cfg.Enabled(a.Name) {

@@ -26,7 +26,7 @@ const (
 // docsBase is the absolute address that the analyzers' documentation
 // URLs (docs/<analyzer>.md, relative to the repository root) are resolved
 // against for SARIF's helpUri (§3.49.12), which must be absolute. Set it
-// at build time: -ldflags=-X=roundoff/analyzers/internal/driver.docsBase=URL.
+// at build time: -ldflags=-X=roundoff/cmd/roundoff/internal/driver.docsBase=URL.
 var docsBase = "https://roundoff.invalid/"
 
 type (

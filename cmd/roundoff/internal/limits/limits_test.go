@@ -11,8 +11,8 @@ import (
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 
-	"roundoff/analyzers/internal/limits"
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/cmd/roundoff/internal/limits"
+	"roundoff/internal/numeric"
 )
 
 // run calls limits.Run and returns its status, stdout and stderr.

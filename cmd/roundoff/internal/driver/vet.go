@@ -14,8 +14,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/unitchecker"
 
-	"roundoff/analyzers/internal/config"
-	"roundoff/analyzers/internal/fixes"
+	"roundoff/internal/config"
 )
 
 // vetMode reports whether the go command runs roundoff: the handshakes
@@ -43,7 +42,7 @@ func vet(analyzers []*analysis.Analyzer, args []string) int {
 		}
 		cfg.Select(explicitlyOn(analyzers, args[:len(args)-1]), nil)
 		config.Use(cfg)
-		fixes.KeepUnattendedOnly(slices.Contains(args, "-fix"))
+		config.KeepUnattendedOnly(slices.Contains(args, "-fix"))
 	}
 	unitchecker.Main(analyzers...) // exits
 	panic("unreachable")

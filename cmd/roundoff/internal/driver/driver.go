@@ -13,7 +13,7 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 
-	"roundoff/analyzers/internal/limits"
+	"roundoff/cmd/roundoff/internal/limits"
 )
 
 // Exit statuses of the standalone driver.

@@ -14,7 +14,7 @@ import (
 	"math"
 	"strconv"
 
-	"roundoff/analyzers/internal/numeric"
+	"roundoff/internal/numeric"
 )
 
 // Step is a recommended finite-difference step and the relative error

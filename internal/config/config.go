@@ -150,6 +150,17 @@ func (n NoiseLevel) covers(pkgPath, fn string) (rank int, ok bool) {
 	return rank, true
 }
 
+var unattendedOnly atomic.Bool
+
+// KeepUnattendedOnly makes the analyzers drop every fix that needs review.
+// The command sets it when roundoff runs under `go fix` or `go vet -fix`,
+// which apply the first fix of every diagnostic without showing it to
+// anyone.
+func KeepUnattendedOnly(on bool) { unattendedOnly.Store(on) }
+
+// UnattendedOnly reports whether fixes that need review must be dropped.
+func UnattendedOnly() bool { return unattendedOnly.Load() }
+
 var current atomic.Pointer[Config]
 
 // Use installs c as the configuration of the run.

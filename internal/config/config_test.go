@@ -9,7 +9,7 @@ import (
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 
-	"roundoff/analyzers/internal/config"
+	"roundoff/internal/config"
 )
 
 // The facts checked here are about roundoff's own file format; YAML

@@ -10,6 +10,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/fixes"
 )
@@ -24,8 +25,8 @@ func convertedQuotient(pass *analysis.Pass, cur inspector.Cursor, n *ast.BinaryE
 	if isConst(pass, n.Y) && !accumulated(pass, cur, n.X) {
 		return // a constant divisor: halving a count, pairs, whole units
 	}
-	if multipleOf(n.X, n.Y) || roundsOnPurpose(n.X, n.Y) || floorComment(pass, conv) {
-		return // exact by construction, a rounding or ceiling division, or a documented floor
+	if multipleOf(n.X, n.Y) || roundsOnPurpose(n.X, n.Y) || floorComment(pass, conv) || floored(pass, cur, conv) {
+		return // exact by construction, a rounding or ceiling division, or a documented or stated floor
 	}
 	t := fixes.Source(pass.Fset, conv.Fun)
 	divisor := t + "(" + fixes.Source(pass.Fset, n.Y) + ")"
@@ -152,6 +153,24 @@ func inLoop(cur inspector.Cursor) bool {
 		return true
 	}
 	return false
+}
+
+// floored reports whether the conversion conv is the argument of
+// math.Floor or math.Trunc: rounding a value the author knows to be whole
+// says the whole number is meant (the floor of a whole number is itself).
+func floored(pass *analysis.Pass, cur inspector.Cursor, conv *ast.CallExpr) bool {
+	for cur.Node() != conv {
+		cur = cur.Parent()
+	}
+	for cur.ParentEdgeKind() == edge.ParenExpr_X {
+		cur = cur.Parent()
+	}
+	call, ok := cur.Parent().Node().(*ast.CallExpr)
+	if !ok || cur.ParentEdgeKind() != edge.CallExpr_Args {
+		return false
+	}
+	fn, ok := typeutil.Callee(pass.TypesInfo, call).(*types.Func)
+	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && (fn.Name() == "Floor" || fn.Name() == "Trunc")
 }
 
 // floorWords match a comment that says a truncation is meant.

@@ -14,8 +14,12 @@
 //     divisor is not a constant (a count such as n or len(xs), which does
 //     not divide the dividend for typical values: mean := float64(sum/n)),
 //     or when the dividend is a sum or count accumulated in a loop;
-//   - a division of two untyped integer literals that is not exact and is
-//     used as a float: 1/2*x, math.Pow(x, 1/3), var w float64 = 2/3.
+//   - a division of untyped integer constants (literals, named constants,
+//     or expressions of them, as in the chain 3/4/12) that is not exact and
+//     is used as a float: 1/2*x, math.Pow(x, 1/3), var w float64 = 2/3,
+//     width/height for two named constants, or const half = 1/2 declared
+//     untyped and then used as a float (half*x), directly or through
+//     another constant declared from it.
 //
 // It leaves alone integer arithmetic that stays integer (index arithmetic,
 // a quotient stored in an int and converted later: k := n/2 is a
@@ -25,14 +29,22 @@
 // time.Duration quotients, which count whole units and lose under one
 // nanosecond; conversions with a comment on the same or the previous line
 // saying the floor is meant ("floor", "truncate", "integer division",
-// "whole", "round down"); float64(a)/float64(b); and untyped divisions that
-// are exact (20*20/2) or involve named constants, whose integer meaning
-// may be the point (size/2*h for the centre of a grid).
+// "whole", "round down"); the argument of math.Floor or math.Trunc
+// (math.Floor(float64(a/b)) says the whole number is meant: the floor of a
+// whole number is itself); float64(a)/float64(b); untyped divisions that
+// are exact (20*20/2); a named constant divided by a number (size/2*h),
+// which, like float64(n/2), halves a count to a whole index (the centre of
+// a grid); and constants declared from a truncated quotient that are never
+// used as a float (const mid = 9/2 as an index).
 //
-// Fixes. A literal quotient becomes its exact decimal value when it has a
+// Fixes. A constant quotient becomes its exact decimal value when it has a
 // short one (1/2 becomes 0.5, 3/4 becomes 0.75), else a float numerator
-// (1/3 becomes 1.0/3); the truncated value is never what two literals
-// mean, so this fix is safe to apply unattended. T(a/b) becomes
-// T(a)/T(b); whether the floor was meant is the author's call, so that fix
-// needs review and only standalone roundoff -fix applies it.
+// (1/3 becomes 1.0/3, w/h becomes w*1.0/h); none is offered when the
+// declared constant is also used as an integer, where a float would not
+// compile. T(a/b) becomes T(a)/T(b). A fix is applied unattended (go fix,
+// go vet -fix) only when it keeps what the program computes or cures a
+// certain bug; both intdiv fixes change the value (4/3 goes from 1 to
+// 1.3333333333333333, and a test that pins the aspect ratio 4/3 == 1 turns
+// red), and whether the floor was meant is the author's call, so both need
+// review and only standalone roundoff -fix applies them.
 package intdiv

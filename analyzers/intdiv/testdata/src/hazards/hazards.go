@@ -108,3 +108,45 @@ func assigned(a, b int) {
 	f = float64(a / b) // want `float64\(a / b\) converts`
 	_ = f
 }
+
+const halfWeight = 1 / 2 // want `1 / 2 divides untyped integer constants and is 0, not 0.5, in this float64 expression; write 0.5`
+
+func halved(x float64) float64 {
+	return halfWeight * x
+}
+
+// monthly is a yearly rate of three quarters spread over twelve months:
+// 3/4 is 0, so the chain is 0.
+const monthly = 3 / 4 / 12 // want `3 / 4 divides untyped integer constants and is 0, not 0.75`
+
+func interest(balance float64) float64 {
+	return balance * monthly
+}
+
+const (
+	frameWidth  = 1920
+	frameHeight = 1080
+)
+
+func aspectRatio() float64 {
+	return frameWidth / frameHeight // want `frameWidth / frameHeight divides untyped integer constants and is 1, not 1.77778.*write frameWidth\*1.0/frameHeight`
+}
+
+// cells is used both as an array length and as a float: a float value
+// would not compile as the length, so no fix is offered.
+const cells = 10 / 4 // want `10 / 4 divides untyped integer constants and is 2, not 2.5`
+
+var counts [cells]int
+
+func cellWidth(w float64) float64 {
+	return w / cells
+}
+
+// through another constant: quarter is declared from a truncated quotient
+// and used as a float.
+const (
+	third   = 1 / 3 // want `1 / 3 divides untyped integer constants and is 0`
+	quarter = third * 3
+)
+
+func scaled(x float64) float64 { return quarter * x }

@@ -102,3 +102,21 @@ func rescaled(x, n int) float64 {
 func runeDivision(r rune) float64 {
 	return float64(r / 16) // a constant divisor on a code point
 }
+
+// mid is the middle index of the grid, used only as an integer.
+const mid = 9 / 2
+
+func middleCell(cells []float64) float64 { return cells[mid] }
+
+// integerOnly is truncated on purpose and never used as a float.
+const integerOnly = 7 / 3
+
+func repeat() []int { return make([]int, integerOnly) }
+
+func floored(a, b int) float64 {
+	return math.Floor(float64(a / b)) // Floor of a whole number: the whole number is meant
+}
+
+func truncated(a, b int) float64 {
+	return math.Trunc((float64(a / b))) // Trunc says the same
+}

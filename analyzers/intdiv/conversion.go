@@ -22,6 +22,9 @@ func convertedQuotient(pass *analysis.Pass, cur inspector.Cursor, n *ast.BinaryE
 	if !ok || !isInteger(pass.TypesInfo.TypeOf(n)) || isDuration(pass.TypesInfo.TypeOf(n)) {
 		return // not converted to a float, or a count of whole time units
 	}
+	if loopCounter(pass, cur, n.X) {
+		return // a loop's counter divided: i/width numbers the rows of a grid, i/2 the pairs
+	}
 	if isConst(pass, n.Y) && !accumulated(pass, cur, n.X) {
 		return // a constant divisor: halving a count, pairs, whole units
 	}
@@ -133,6 +136,32 @@ func accumulated(pass *analysis.Pass, cur inspector.Cursor, x ast.Expr) bool {
 	}
 	return false
 }
+
+// loopCounter reports whether x is the counter of a loop enclosing cur:
+// the variable a for statement's init declares, or a range loop's key.
+func loopCounter(pass *analysis.Pass, cur inspector.Cursor, x ast.Expr) bool {
+	id, ok := ast.Unparen(x).(*ast.Ident)
+	obj := pass.TypesInfo.Uses[id]
+	if !ok || obj == nil {
+		return false
+	}
+	for loop := range cur.Enclosing((*ast.ForStmt)(nil), (*ast.RangeStmt)(nil)) {
+		var decl ast.Node
+		switch l := loop.Node().(type) {
+		case *ast.ForStmt:
+			decl = l.Init
+		case *ast.RangeStmt:
+			decl = l.Key
+		}
+		if decl != nil && within(obj.Pos(), decl) {
+			return true
+		}
+	}
+	return false
+}
+
+// within reports whether pos lies in n.
+func within(pos token.Pos, n ast.Node) bool { return n.Pos() <= pos && pos < n.End() }
 
 // addsTo reports whether statement s is obj += e or obj++.
 func addsTo(pass *analysis.Pass, s ast.Node, obj types.Object) bool {

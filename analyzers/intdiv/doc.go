@@ -29,7 +29,10 @@
 // time.Duration quotients, which count whole units and lose under one
 // nanosecond; conversions with a comment on the same or the previous line
 // saying the floor is meant ("floor", "truncate", "integer division",
-// "whole", "round down"); the argument of math.Floor or math.Trunc
+// "whole", "round down"); the counter of an enclosing loop divided by
+// anything (float64(i/width) in a loop over width·height cells numbers the
+// rows, float32(k/2) the pairs: whole groups by design); the argument of
+// math.Floor or math.Trunc
 // (math.Floor(float64(a/b)) says the whole number is meant: the floor of a
 // whole number is itself); float64(a)/float64(b); untyped divisions that
 // are exact (20*20/2); a named constant divided by a number (size/2*h),

@@ -120,3 +120,21 @@ func floored(a, b int) float64 {
 func truncated(a, b int) float64 {
 	return math.Trunc((float64(a / b))) // Trunc says the same
 }
+
+// lattice places points on a side×side grid: i/side numbers the rows.
+func lattice(side int) [][2]float64 {
+	var pts [][2]float64
+	for i := 0; i < side*side; i++ {
+		pts = append(pts, [2]float64{float64(i % side), float64(i / side)})
+	}
+	return pts
+}
+
+// pairs of a range: k/2 numbers the pairs of consecutive items.
+func pairIndex(xs []float64) []float32 {
+	out := make([]float32, len(xs))
+	for k := range xs {
+		out[k] = float32(k / 2)
+	}
+	return out
+}

@@ -40,6 +40,8 @@ const (
 	catCosine    = "cosine"
 	catHypot     = "hypot"
 	catLogSumExp = "logsumexp"
+	catRadical   = "radical"
+	catArc       = "arc"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -77,6 +79,7 @@ func run(pass *analysis.Pass) (any, error) {
 				if n.Op == token.SUB {
 					c.difference(cur, n)
 				}
+				c.radical(cur, n)
 			}
 		}
 	}
@@ -85,31 +88,42 @@ func run(pass *analysis.Pass) (any, error) {
 
 // call examines math.Log and math.Sqrt calls.
 func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
-	switch c.mathFunc(call) {
-	case "Log":
-		if !c.logSumExp(cur, call) {
-			c.log1p(cur, call)
+	switch name := c.mathFunc(call); name {
+	case "Log", "Log10", "Log2":
+		if name != "Log" || !c.logSumExp(cur, call) {
+			c.log1p(cur, call, name)
 		}
 	case "Sqrt":
 		c.hypot(cur, call)
+	case "Acos", "Asin":
+		c.acos(cur, call, name)
 	}
 }
 
-// difference examines x-1 and 1-x where x is math.Exp or math.Cos.
+// difference examines x-1 and 1-x where x is math.Exp, math.Cos or
+// math.Pow, directly or through a variable that holds it.
 func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	call, one := n.X, n.Y
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	inner, ok := ast.Unparen(call).(*ast.CallExpr)
+	e, indirect := c.through(call)
+	if c.isOne(one) && c.normCosine(e) && !c.addend(cur, 2) {
+		c.dotCosine(n, e)
+		return
+	}
+	inner, ok := e.(*ast.CallExpr)
 	if !ok || !c.isOne(one) {
 		return // not a difference with the constant 1
 	}
 	switch c.mathFunc(inner) {
 	case "Exp":
-		c.expm1(cur, n, inner, one == n.X)
+		c.expm1(cur, n, inner, one == n.X, indirect)
 	case "Cos":
-		c.cosine(cur, n, inner, one == n.X)
+		c.cosine(cur, n, inner, one == n.X, indirect)
+	}
+	if c.mathFunc2(inner) == "Pow" {
+		c.powm1(cur, n, inner, one == n.X, indirect)
 	}
 }
 
@@ -122,6 +136,19 @@ func (c *checker) mathFunc(call *ast.CallExpr) string {
 	}
 	if _, ok := call.Fun.(*ast.SelectorExpr); !ok {
 		return "" // dot import: the fixes name the package
+	}
+	return fn.Name()
+}
+
+// mathFunc2 returns the name of the math package function call calls
+// with two arguments, or "".
+func (c *checker) mathFunc2(call *ast.CallExpr) string {
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || len(call.Args) != 2 {
+		return ""
+	}
+	if _, ok := call.Fun.(*ast.SelectorExpr); !ok {
+		return ""
 	}
 	return fn.Name()
 }
@@ -171,7 +198,9 @@ func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 // addend reports whether the value at cur, carried through products,
 // quotients, signs and parentheses, is added to or subtracted from another
 // term, directly or (depth permitting) through a variable every use of
-// which is such a term.
+// which is such a term. A term multiplied by a large coefficient is not
+// hidden by the sum: its absolute error grows with the coefficient (see
+// large).
 func (c *checker) addend(cur inspector.Cursor, depth int) bool {
 	for ; ; cur = cur.Parent() {
 		switch p := cur.Parent().Node().(type) {
@@ -184,7 +213,18 @@ func (c *checker) addend(cur inspector.Cursor, depth int) bool {
 			switch p.Op {
 			case token.ADD, token.SUB:
 				return true
-			case token.MUL, token.QUO:
+			case token.MUL:
+				other := p.X
+				if other == cur.Node() {
+					other = p.Y
+				}
+				if c.large(other) {
+					return false // n * term: the coefficient scales the term's error
+				}
+			case token.QUO:
+				if p.X != cur.Node() && c.large(p.X) {
+					return false // k / term: the coefficient scales the error as well
+				}
 			default:
 				return false
 			}
@@ -197,6 +237,24 @@ func (c *checker) addend(cur inspector.Cursor, depth int) bool {
 			return false
 		}
 	}
+}
+
+// largeCoefficient is the size from which a constant coefficient makes
+// the term's error visible in a sum of terms of unit size: the term's
+// absolute error of one rounding becomes |k| roundings, two significant
+// digits at |k| = 100 (common practice).
+const largeCoefficient = 100
+
+// large reports whether e, a factor of a term, is a large coefficient: a
+// constant of magnitude at least largeCoefficient, or a count converted
+// from an integer (float64(n-k), the number of observations), which grows
+// with the data while the terms it multiplies do not.
+func (c *checker) large(e ast.Expr) bool {
+	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
+		f, _ := constant.Float64Val(constant.ToFloat(v))
+		return math.Abs(f) >= largeCoefficient
+	}
+	return c.wholeNumber(e)
 }
 
 // usedAsAddend reports whether the variable assigned by the statement at

@@ -51,9 +51,12 @@ func expm1Ref(x *big.Float) *big.Float {
 // log1pRef returns log(1+x) by Newton's method on e^z - 1 = x from the
 // float64 estimate: z <- z - (e^z-1-x)/e^z, quadratic convergence
 // (53 -> 106 -> 212 bits).
-func log1pRef(x float64) *big.Float {
-	bx, z := bf(x), bf(math.Log1p(x))
-	for range 4 {
+func log1pRef(x float64) *big.Float { return logOnePlusRef(bf(x)) }
+
+// logOnePlusRef is log1pRef for an argument held at prec bits.
+func logOnePlusRef(bx *big.Float) *big.Float {
+	z := bf(math.Log1p(f64(bx)))
+	for range 5 {
 		em1 := expm1Ref(z)
 		d := newF().Sub(em1, bx)
 		z.Sub(z, d.Quo(d, newF().Add(em1, big.NewFloat(1))))
@@ -98,4 +101,32 @@ func ulps(got float64, want *big.Float) float64 {
 	d := newF().Sub(bf(got), want)
 	dist, _ := d.Abs(d).Float64()
 	return dist / (math.Nextafter(math.Abs(w), math.Inf(1)) - math.Abs(w))
+}
+
+// ln10Ref returns ln 10 = log(1+9), by log1pRef.
+func ln10Ref() *big.Float { return log1pRef(9) }
+
+// powm1Ref returns 1-(1-r)^3 = 3r - 3r² + r³ (binomial expansion, exact
+// at prec bits).
+func powm1Ref(r float64) *big.Float {
+	br := bf(r)
+	r2 := newF().Mul(br, br)
+	r3 := newF().Mul(r2, br)
+	out := newF().Mul(bf(3), br)
+	out.Sub(out, newF().Mul(bf(3), r2))
+	return out.Add(out, r3)
+}
+
+// asinhRef returns asinh x = sign(x)·log(|x| + sqrt(x²+1)), the sum formed
+// without cancellation for |x| and its logarithm by log1pRef's Newton
+// iteration, started from the float64 value of the sum minus 1.
+func asinhRef(x float64) *big.Float {
+	ax := math.Abs(x)
+	s := newF().Add(newF().Mul(bf(ax), bf(ax)), bf(1))
+	s.Sqrt(s).Add(s, bf(ax)).Sub(s, bf(1))
+	r := logOnePlusRef(s)
+	if x < 0 {
+		r.Neg(r)
+	}
+	return r
 }

@@ -11,34 +11,37 @@ import (
 	"roundoff/analyzers/internal/fixes"
 )
 
-// log1p reports math.Log(1+x) and math.Log(1-x): 1±x rounds away the
-// digits of a small x before the logarithm sees them.
-func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr) {
-	sum, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
-	if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
-		return // not 1+x or 1-x
-	}
-	x, neg := sum.Y, sum.Op == token.SUB
-	switch {
-	case c.isOne(sum.X):
-	case c.isOne(sum.Y) && sum.Op == token.ADD:
-		x = sum.X
-	default:
+// log1p reports math.Log(1+x) and math.Log(1-x), and the same in base 10
+// and 2: 1±x rounds away the digits of a small x before the logarithm
+// sees them.
+func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
+	x, neg, ok := c.onePlus(call.Args[0])
+	if !ok || !c.lossShows(cur, x) {
 		return // Log(x-1) and Log(2+x) lose nothing to 1
-	}
-	if !c.lossShows(cur, x) {
-		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
 	if neg {
 		form, arg, use = "1-x", negate(c, x), "math.Log1p(-x)"
 	}
-	text := qualifier(call) + ".Log1p(" + arg + ")"
+	q := qualifier(call)
+	text := q + ".Log1p(" + arg + ")"
+	fix := fixes.Safe("Replace with "+text, fixes.Replace(call, text))
+	if base := map[string]string{"Log10": "Ln10", "Log2": "Ln2"}[name]; base != "" {
+		use += "/math." + base
+		text += "/" + q + "." + base
+		if _, inOperation := cur.Parent().Node().(*ast.BinaryExpr); inOperation {
+			text = "(" + text + ")"
+		}
+		// Needs review: the division by the rounded constant misses exact
+		// results at some powers of the base, which math.Log2 and
+		// math.Log10 return exactly (TestExactPowers).
+		fix = fixes.Judgement("Replace with "+text, fixes.Replace(call, text))
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catLog1p,
-		Message: fmt.Sprintf("math.Log(%s)%s returns 0 for |x| below %.3g, where %[1]s rounds to 1, and loses about log10(1/|x|) digits for small x; use %[4]s",
-			form, binding("x", x), unitRoundoff/2, use),
-	}, fixes.Safe("Replace with "+text, fixes.Replace(call, text)))
+		Message: fmt.Sprintf("math.%s(%s)%s returns 0 for |x| below %.3g, where %[2]s rounds to 1, and loses about log10(1/|x|) digits for small x; use %[5]s",
+			name, form, binding("x", x), unitRoundoff/2, use),
+	}, fix)
 }
 
 // negate returns the source of -x.
@@ -51,7 +54,7 @@ func negate(c *checker, x ast.Expr) string {
 
 // expm1 reports math.Exp(x)-1 and 1-math.Exp(x): exp(x) is close to 1 for
 // small x, and the subtraction leaves only its rounding error.
-func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst bool) {
+func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
 	if !c.lossShows(cur, x) {
 		return
@@ -64,16 +67,21 @@ func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 	if p, ok := cur.Parent().Node().(*ast.ParenExpr); ok && !oneFirst {
 		target = p // (math.Exp(x) - 1) becomes math.Expm1(x)
 	}
-	fixes.Report(c.pass, analysis.Diagnostic{
+	d := analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catExpm1,
 		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Exp(x) rounds to 1, and loses about log10(1/|x|) digits for small x; use %s",
 			form, binding("x", x), unitRoundoff/2, use),
-	}, fixes.Safe("Replace with "+text, fixes.Replace(target, text)))
+	}
+	if indirect {
+		fixes.Report(c.pass, d) // the exponential is stored in a variable: x may have changed since
+		return
+	}
+	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(target, text)))
 }
 
 // cosine reports 1-math.Cos(x) and math.Cos(x)-1: cos(x) is 1-x²/2 near 0,
 // so the difference keeps only the rounding error of the cosine.
-func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst bool) {
+func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
 	if !c.lossShows(cur, x) {
 		return
@@ -90,8 +98,8 @@ func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.Call
 		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
 			form, binding("x", x), cosFlat, use),
 	}
-	if !fixes.Pure(c.pass.TypesInfo, x) {
-		fixes.Report(c.pass, d) // the fix would evaluate x twice
+	if indirect || !fixes.Pure(c.pass.TypesInfo, x) {
+		fixes.Report(c.pass, d) // stored first (x may have changed since), or the fix would evaluate x twice
 		return
 	}
 	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(n, text)))
@@ -108,6 +116,9 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 	y, oky := c.square(sum.Y)
 	if !okx || !oky {
 		return // not a sum of exactly two squares
+	}
+	if c.bounded(x, 4) && c.bounded(y, 4) {
+		return // sines, cosines, unit-vector components: math.Hypot would only cost accuracy
 	}
 	for _, e := range []ast.Expr{x, y} {
 		if c.isConst(e) || c.wholeNumber(e) || c.scaled(e) || c.guarded(cur, e, c.compares) {

@@ -1,0 +1,359 @@
+package cancellation
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"math"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/fixes"
+)
+
+// through returns the value e stands for: e itself, or the initial value
+// of the never-reassigned local variable e names (followed up to three
+// times), so that k := math.Exp(y); k - 1 reads as math.Exp(y) - 1.
+func (c *checker) through(e ast.Expr) (ast.Expr, bool) {
+	indirect := false
+	for range 3 {
+		id, ok := ast.Unparen(e).(*ast.Ident)
+		if !ok {
+			break
+		}
+		init := c.decls[c.pass.TypesInfo.Uses[id]]
+		if init == nil {
+			break
+		}
+		e, indirect = init, true
+	}
+	return ast.Unparen(e), indirect
+}
+
+// powm1 reports math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent
+// that is not a constant: a^b is near 1 when b·ln a is small (a short time
+// step, a probability near 0 raised to a count), and the difference keeps
+// only the rounding error of the power.
+func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
+	a, b := call.Args[0], call.Args[1]
+	if c.isConst(b) || c.wholeNumber(b) && c.isConst(a) || !c.lossShows(cur, b) {
+		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
+	}
+	q := qualifier(call)
+	logA := q + ".Log(" + fixes.Source(c.pass.Fset, ast.Unparen(a)) + ")"
+	if x, neg, ok := c.onePlus(a); ok {
+		arg := fixes.Source(c.pass.Fset, ast.Unparen(x))
+		if neg {
+			arg = negate(c, x)
+		}
+		logA = q + ".Log1p(" + arg + ")" // (1-u)^b: the logarithm keeps u's digits too
+	}
+	text := q + ".Expm1(" + fixes.Operand(c.pass.Fset, b, token.MUL.Precedence()) + "*" + logA + ")"
+	form, use := "math.Pow(a, b)-1", "math.Expm1(b*math.Log(a))"
+	if oneFirst {
+		text, form, use = "-"+text, "1-math.Pow(a, b)", "-math.Expm1(b*math.Log(a))"
+	}
+	d := analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catExpm1,
+		Message: fmt.Sprintf("%s%s returns 0 when |b·ln a| is below %.3g, where the power rounds to 1, and loses about log10(1/|b·ln a|) digits when it is small; use %s (a > 0)",
+			form, binding("ab", a, b), unitRoundoff/2, use),
+	}
+	if indirect || !fixes.Pure(c.pass.TypesInfo, a) || !fixes.Pure(c.pass.TypesInfo, b) {
+		fixes.Report(c.pass, d) // the power is stored first, or its operands have effects
+		return
+	}
+	// Needs review: for a negative base and a whole exponent the power is
+	// defined and the logarithm is NaN.
+	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+}
+
+// onePlus returns x when e is 1+x, x+1 (neg false) or 1-x (neg true).
+func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
+	sum, isSum := ast.Unparen(e).(*ast.BinaryExpr)
+	if !isSum || sum.Op != token.ADD && sum.Op != token.SUB {
+		return nil, false, false
+	}
+	switch {
+	case c.isOne(sum.X):
+		return sum.Y, sum.Op == token.SUB, true
+	case c.isOne(sum.Y) && sum.Op == token.ADD:
+		return sum.X, false, true
+	}
+	return nil, false, false
+}
+
+// radical reports u + math.Sqrt(u*u + c) and its mirror images
+// (math.Sqrt(u*u+c) - u, -u + math.Sqrt(u*u-c), ...) when the sign of u is
+// not known: for the sign that makes the two terms subtract, the result is
+// about c/(2|u|) while the square root carries an absolute error of one
+// rounding of |u|, so the relative error is about 2u·u²/|c| and every digit
+// is gone once u² exceeds |c|/u. This is math.Asinh's form (c = 1) and
+// the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
+func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
+	u, root, ok := c.rootSum(n)
+	if !ok || c.isConst(u) || c.signKnown(cur, u) {
+		return
+	}
+	if call, isLog := c.parentCall(cur); isLog && c.mathFunc(call) == "Log" && c.isOne(root) {
+		c.asinh(call, u)
+		return
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catRadical,
+		Message: fmt.Sprintf("u ± math.Sqrt(u*u+c)%s cancels for the sign of u that makes the terms subtract: the result is about |c|/(2|u|) with relative error about 2u·u²/|c| (u = %.3g), every digit lost once u² ≥ |c|/u; rationalise as c/(math.Sqrt(u*u+c) ∓ u), or take the root of larger magnitude with math.Copysign and the other from the product of the roots",
+			binding("uc", u, root), unitRoundoff),
+	})
+}
+
+// parentCall returns the call whose only argument is the expression at
+// cur, parentheses aside.
+func (c *checker) parentCall(cur inspector.Cursor) (*ast.CallExpr, bool) {
+	for {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr:
+			cur = cur.Parent()
+			continue
+		case *ast.CallExpr:
+			return p, len(p.Args) == 1
+		}
+		return nil, false
+	}
+}
+
+// rootSum reads n as ±u ± math.Sqrt(u*u ± c), directly or through
+// never-reassigned variables, and returns u and c.
+func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
+	if n.Op != token.ADD && n.Op != token.SUB {
+		return nil, nil, false
+	}
+	for _, pair := range [][2]ast.Expr{{n.X, n.Y}, {n.Y, n.X}} {
+		call, ok := ast.Unparen(pair[1]).(*ast.CallExpr)
+		if !ok {
+			e, _ := c.through(pair[1])
+			call, ok = e.(*ast.CallExpr)
+		}
+		if !ok || c.mathFunc(call) != "Sqrt" {
+			continue
+		}
+		arg, _ := c.through(call.Args[0])
+		sum, ok := arg.(*ast.BinaryExpr)
+		if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
+			continue
+		}
+		other := pair[0]
+		if neg, ok := ast.Unparen(other).(*ast.UnaryExpr); ok && neg.Op == token.SUB {
+			other = neg.X
+		}
+		for _, sq := range [][2]ast.Expr{{sum.X, sum.Y}, {sum.Y, sum.X}} {
+			if x, isSquare := c.square(sq[0]); isSquare && same(x, other) && (sum.Op == token.ADD || sq[0] == sum.X) {
+				return other, sq[1], true
+			}
+		}
+	}
+	return nil, nil, false
+}
+
+// signKnown reports whether u cannot take both signs where cur runs: an
+// absolute value, a square root, an exponential or a square, or a value
+// an enclosing condition compares.
+func (c *checker) signKnown(cur inspector.Cursor, u ast.Expr) bool {
+	e, _ := c.through(u)
+	if call, ok := e.(*ast.CallExpr); ok {
+		switch c.mathFunc(call) {
+		case "Abs", "Sqrt", "Exp", "Hypot", "Cosh":
+			return true
+		}
+	}
+	if _, ok := c.square(e); ok {
+		return true
+	}
+	return c.wholeNumber(u) || c.guarded(cur, u, c.compares)
+}
+
+// asinh reports math.Log(u + math.Sqrt(u*u+1)), the textbook inverse
+// hyperbolic sine: for u below about -1.34e8, u*u+1 rounds to u*u, the
+// sum is 0 and the logarithm -Inf; math.Asinh is accurate for every u.
+func (c *checker) asinh(call *ast.CallExpr, u ast.Expr) {
+	text := qualifier(call) + ".Asinh(" + fixes.Source(c.pass.Fset, ast.Unparen(u)) + ")"
+	d := analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catRadical,
+		Message: fmt.Sprintf("math.Log(x + math.Sqrt(x*x+1))%s cancels for negative x: about 2u·x² relative error, every digit lost from x ≈ %.3g and -Inf from x ≈ %.3g, where x*x+1 rounds to x*x; use math.Asinh(x)",
+			binding("x", u), -1/math.Sqrt(2*unitRoundoff), -math.Sqrt(2/unitRoundoff)),
+	}
+	// Safe: math.Asinh is at least as accurate for every x (TestFixesSafe).
+	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(call, text)))
+}
+
+// bounded reports whether e is bounded by construction, far from the
+// range where squares overflow or leave the normal range: a constant, a
+// sine, cosine or other bounded function, a component of a unit vector
+// (a/math.Sqrt(a*a+...), a/math.Hypot(a, ...)), or sums and products of
+// those, directly or through never-reassigned variables.
+func (c *checker) bounded(e ast.Expr, depth int) bool {
+	e, _ = c.through(e)
+	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
+		f, _ := constant.Float64Val(constant.ToFloat(v))
+		return f == 0 || 1e-100 <= math.Abs(f) && math.Abs(f) <= 1e100 // squares far inside the normal range
+	}
+	if depth == 0 {
+		return false
+	}
+	switch e := e.(type) {
+	case *ast.CallExpr:
+		switch c.mathFunc(e) {
+		case "Sin", "Cos", "Tanh", "Erf", "Erfc", "Atan":
+			return true
+		}
+		return c.mathFunc2(e) == "Atan2"
+	case *ast.UnaryExpr:
+		return (e.Op == token.SUB || e.Op == token.ADD) && c.bounded(e.X, depth-1)
+	case *ast.BinaryExpr:
+		switch e.Op {
+		case token.ADD, token.SUB, token.MUL:
+			return c.bounded(e.X, depth-1) && c.bounded(e.Y, depth-1)
+		case token.QUO:
+			return c.bounded(e.X, depth-1) && c.bounded(e.Y, 0) && !c.isZero(e.Y) || c.normalised(e)
+		}
+	}
+	return false
+}
+
+// normalised reports whether q is a/n with n a norm that includes a:
+// math.Sqrt of a sum with the term a*a, or math.Hypot with a among its
+// arguments; |q| is then at most 1.
+func (c *checker) normalised(q *ast.BinaryExpr) bool {
+	d, _ := c.through(q.Y)
+	call, ok := d.(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	if c.mathFunc2(call) == "Hypot" {
+		return same(call.Args[0], q.X) || same(call.Args[1], q.X)
+	}
+	if c.mathFunc(call) != "Sqrt" {
+		return false
+	}
+	found := false
+	arg, _ := c.through(call.Args[0])
+	ast.Inspect(arg, func(n ast.Node) bool {
+		if x, ok := c.square(asExpr(n)); ok && same(x, q.X) {
+			found = true
+		}
+		return !found
+	})
+	return found
+}
+
+// asExpr returns n as an expression, or nil.
+func asExpr(n ast.Node) ast.Expr {
+	e, _ := n.(ast.Expr)
+	return e
+}
+
+// normCosine reports whether e is a ratio over a norm, a/math.Sqrt(...)
+// or a/(|u|·|v|) with a square root among the factors of the denominator:
+// the cosine of an angle computed from a dot product.
+func (c *checker) normCosine(e ast.Expr) bool {
+	q, ok := e.(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	var hasRoot func(ast.Expr, int) bool
+	hasRoot = func(d ast.Expr, depth int) bool {
+		d, _ = c.through(d)
+		switch d := d.(type) {
+		case *ast.CallExpr:
+			return c.mathFunc(d) == "Sqrt" || c.mathFunc2(d) == "Hypot"
+		case *ast.BinaryExpr:
+			return depth > 0 && d.Op == token.MUL && (hasRoot(d.X, depth-1) || hasRoot(d.Y, depth-1))
+		}
+		return false
+	}
+	return hasRoot(q.Y, 2)
+}
+
+// acos reports math.Acos and math.Asin of a computed argument: near ±1
+// their slope 1/sqrt(1-x²) is unbounded, so an error of one rounding in x
+// becomes an angle error of about sqrt(2u) ≈ 1.49e-8 rad, half the digits,
+// at the angles 0 and π (Acos) or ±π/2 (Asin) where the argument lands
+// most often: parallel vectors, points near a centre. An angle only
+// counted (math.Ceil of it, an integer conversion) is left alone.
+func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
+	x := c.unclamped(call.Args[0])
+	if _, computed := x.(*ast.BinaryExpr); !computed || c.counted(cur) {
+		return
+	}
+	ends := "0 and π"
+	if name == "Asin" {
+		ends = "±π/2"
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catArc,
+		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near %s): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad; compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)",
+			name, binding("x", call.Args[0]), ends, math.Sqrt(2*unitRoundoff)),
+	})
+}
+
+// unclamped returns the value e stands for, through variables and a clamp
+// to [-1, 1] written with math.Max and math.Min.
+func (c *checker) unclamped(e ast.Expr) ast.Expr {
+	for range 4 {
+		e, _ = c.through(e)
+		call, ok := e.(*ast.CallExpr)
+		if !ok || c.mathFunc2(call) != "Max" && c.mathFunc2(call) != "Min" {
+			return e
+		}
+		if c.isConst(call.Args[0]) {
+			e = call.Args[1]
+		} else {
+			e = call.Args[0]
+		}
+	}
+	return e
+}
+
+// counted reports whether the value at cur, carried through arithmetic,
+// is rounded to a whole number (math.Ceil, Floor, Round, Trunc or an
+// integer conversion): a count of segments needs no accurate angle.
+func (c *checker) counted(cur inspector.Cursor) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr, *ast.BinaryExpr, *ast.UnaryExpr:
+		case *ast.CallExpr:
+			switch c.mathFunc(p) {
+			case "Ceil", "Floor", "Round", "Trunc":
+				return true
+			}
+			tv := c.pass.TypesInfo.Types[p.Fun]
+			return tv.IsType() && isInteger(tv.Type)
+		default:
+			return false
+		}
+	}
+}
+
+func isInteger(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
+}
+
+// dotCosine reports 1 - cos θ where cos θ is a dot product over norms:
+// the quotient carries an absolute error of a few roundings, so 1 - cos θ,
+// about θ²/2, is 0 for θ below about sqrt(2u) ≈ 1.49e-8 and loses
+// 2·log10(1/θ) digits above.
+func (c *checker) dotCosine(n *ast.BinaryExpr, cos ast.Expr) {
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catCosine,
+		Message: fmt.Sprintf("1 - c%s, a cosine computed as a ratio over norms, returns 0 for angles below about %.3g rad and loses about 2·log10(1/θ) digits for small θ; use 2*math.Sin(θ/2)*math.Sin(θ/2) with θ from math.Atan2 of the cross and dot products, or |a/|a| - b/|b||²/2",
+			binding("c", cos), math.Sqrt(2*unitRoundoff)),
+	})
+}
+
+// isZero reports whether e is the constant 0.
+func (c *checker) isZero(e ast.Expr) bool {
+	v := c.pass.TypesInfo.Types[e].Value
+	return v != nil && constant.Sign(v) == 0
+}

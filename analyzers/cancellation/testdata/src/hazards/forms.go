@@ -1,0 +1,69 @@
+package hazards
+
+import "math"
+
+func decibelGain(x float64) float64 {
+	return 10 * math.Log10(1+x) // want `math.Log10\(1\+x\) returns 0 for \|x\| below 5.55e-17.*use math.Log1p\(x\)/math.Ln10`
+}
+
+func doublings(r float64) float64 {
+	return math.Log2(1 - r) // want `math.Log2\(1-x\) with x = r returns 0.*use math.Log1p\(-x\)/math.Ln2`
+}
+
+func decayStored(t, tau float64) float64 {
+	decay := math.Exp(-t / tau)
+	return 1 - decay // want `1-math.Exp\(x\) with x = -t / tau returns 0`
+}
+
+func defaultRisk(rate, years float64) float64 {
+	return 1 - math.Pow(1-rate, years) // want `1-math.Pow\(a, b\) with a = 1 - rate, b = years returns 0 when \|b·ln a\| is below 5.55e-17.*use -math.Expm1\(b\*math.Log\(a\)\)`
+}
+
+func growth(base, t float64) float64 {
+	return math.Pow(base, t) - 1 // want `math.Pow\(a, b\)-1 with a = base, b = t`
+}
+
+func inverseSinh(x float64) float64 {
+	return math.Log(x + math.Sqrt(x*x+1)) // want `math.Log\(x \+ math.Sqrt\(x\*x\+1\)\) cancels for negative x: about 2u·x² relative error, every digit lost from x ≈ -6.71e\+07 and -Inf from x ≈ -1.34e\+08.*use math.Asinh\(x\)`
+}
+
+func smallerRoot(b, c float64) float64 {
+	disc := b*b - c
+	return -b + math.Sqrt(disc) // want `u ± math.Sqrt\(u\*u\+c\) with u = b cancels for the sign of u that makes the terms subtract`
+}
+
+func excess(r, k float64) float64 {
+	return math.Sqrt(r*r+k) - r // want `u ± math.Sqrt\(u\*u\+c\) with u = r, c = k cancels`
+}
+
+func turnAngle(ax, ay, bx, by float64) float64 {
+	return math.Acos((ax*bx + ay*by) / (math.Hypot(ax, ay) * math.Hypot(bx, by))) // want `math.Acos\(x\) loses half the digits where x is near ±1 \(angles near 0 and π\): one rounding in x becomes an angle error of about sqrt\(2u\) ≈ 1.49e-08 rad`
+}
+
+func clampedAngle(dot, nu, nv float64) float64 {
+	c := math.Max(-1, math.Min(1, dot/(nu*nv)))
+	return math.Acos(c) // want `math.Acos\(x\) with x = c loses half the digits`
+}
+
+func elevation(z, r float64) float64 {
+	return math.Asin(z / r) // want `math.Asin\(x\) with x = z / r loses half the digits where x is near ±1 \(angles near ±π/2\)`
+}
+
+func cosineDistance(a, b []float64) float64 {
+	var dot, na, nb float64
+	for i := range a {
+		dot += a[i] * b[i]
+		na += a[i] * a[i]
+		nb += b[i] * b[i]
+	}
+	similarity := dot / (math.Sqrt(na) * math.Sqrt(nb))
+	return 1 - similarity // want `1 - c with c = dot / \(math.Sqrt\(na\) \* math.Sqrt\(nb\)\), a cosine computed as a ratio over norms, returns 0 for angles below about 1.49e-08 rad`
+}
+
+func binomialLogLikelihood(k, n int, p float64) float64 {
+	return float64(k)*math.Log(p) + float64(n-k)*math.Log(1-p) // want `math.Log\(1-x\) with x = p returns 0`
+}
+
+func weighted(mu, p float64) float64 {
+	return mu + 1e4*math.Log(1-p) // want `math.Log\(1-x\) with x = p`
+}

@@ -1,0 +1,59 @@
+package idioms
+
+import "math"
+
+func smallWeight(mu, p float64) float64 {
+	return mu + 2*math.Log(1-p) // a modest coefficient in a sum: the sum's own rounding hides the loss
+}
+
+func log10Shifted(x float64) float64 {
+	return math.Log10(2+x) + math.Log2(x-1) // nothing small is added to 1
+}
+
+func square(x float64) float64 {
+	return 1 - math.Pow(x, 2) // a constant exponent: a difference of squares, not a power near 1
+}
+
+func mersenne(n int) float64 {
+	return math.Pow(2, float64(n)) - 1 // 2^n with n whole is 1 or at least 2
+}
+
+func asinhOfMagnitude(v float64) float64 {
+	x := math.Abs(v)
+	return math.Log(x + math.Sqrt(x*x+1)) // x ≥ 0: the terms add
+}
+
+func positiveRoot(u, c float64) float64 {
+	if u > 0 {
+		return u + math.Sqrt(u*u+c) // the sign of u is checked: the terms add
+	}
+	return c / (math.Sqrt(u*u+c) - u)
+}
+
+func givenCosine(c float64) float64 {
+	return math.Acos(c) // the argument is computed elsewhere, by the caller
+}
+
+func segments(r, tol float64) int {
+	return int(math.Ceil(math.Pi / math.Acos(1-tol/r))) // the angle only counts segments
+}
+
+func trigLength(a, b float64) float64 {
+	return math.Sqrt(math.Cos(a)*math.Cos(a) + math.Sin(b)*math.Sin(b)) // bounded by 1: math.Hypot would only cost accuracy
+}
+
+func unitLength(x, y float64) float64 {
+	ux := x / math.Hypot(x, y)
+	uy := y / math.Hypot(x, y)
+	return math.Sqrt(ux*ux + uy*uy) // components of a unit vector
+}
+
+func chord(lat, lon float64) float64 {
+	cx := math.Cos(lat) * math.Cos(lon)
+	cy := math.Cos(lat) * math.Sin(lon)
+	return math.Sqrt((cx+1)*(cx+1) + cy*cy) // sums and products of cosines stay below 2
+}
+
+func ratioComplement(a, b float64) float64 {
+	return 1 - a/b // not a ratio over norms
+}

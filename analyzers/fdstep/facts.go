@@ -158,7 +158,7 @@ type pending struct {
 // u, keeping the worst verdict per node.
 func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
 	s := u.scheme()
-	if node == nil || s == nil || !inRange(h) {
+	if node == nil || s == nil || !inRange(h) || c.inTest(node.Pos()) {
 		return
 	}
 	var xv float64
@@ -179,8 +179,8 @@ func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
 // worse reports whether verdict a is worse than b: badly sized beats
 // unscaled, and a larger error ratio beats a smaller.
 func worse(a, b verdict) bool {
-	if a.bad != b.bad {
-		return a.bad
+	if a.bad != b.bad || a.large != b.large {
+		return a.bad || a.large
 	}
 	return a.errH/a.errOpt > b.errH/b.errOpt
 }

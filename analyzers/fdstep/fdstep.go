@@ -6,6 +6,7 @@ import (
 	"go/token"
 	"go/types"
 	"slices"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -240,6 +241,14 @@ func (c *checker) importsSteps() bool {
 func isReal(t types.Type) bool {
 	b, ok := t.Underlying().(*types.Basic)
 	return provenance.IsFloat(t) && (!ok || b.Info()&types.IsComplex == 0)
+}
+
+// inTest reports whether pos lies in a _test.go file. A test's difference
+// quotients check derivatives at the test's own points with the test's own
+// tolerance: the step was chosen for those points, and a step that failed
+// there would fail the test, so it is deliberate.
+func (c *checker) inTest(pos token.Pos) bool {
+	return strings.HasSuffix(c.pass.Fset.File(pos).Name(), "_test.go")
 }
 
 // line returns the line of pos.

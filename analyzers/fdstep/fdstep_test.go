@@ -1,6 +1,7 @@
 package fdstep_test
 
 import (
+	"path/filepath"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -43,4 +44,21 @@ func TestUnattended(t *testing.T) {
 // function.
 func TestNoise(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "noisy")
+}
+
+// TestRelated checks that a finding whose step is set apart from the
+// quotient names both places: the default's assignment for a defaulted
+// step, the declaration for a named step on another line.
+func TestRelated(t *testing.T) {
+	related := map[int]int{} // line of a quotient in stencils.go → line of its related location
+	for _, r := range analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "hazards") {
+		for _, d := range r.Diagnostics {
+			pos := r.Pass.Fset.Position(d.Pos)
+			if len(d.Related) > 0 && filepath.Base(pos.Filename) == "stencils.go" {
+				related[pos.Line] = r.Pass.Fset.Position(d.Related[0].Pos).Line
+			}
+		}
+	}
+	assert.Equal(t, 40, related[42], "the default h = 1e-8")
+	assert.Equal(t, 24, related[25], "the constant w = 0.1")
 }

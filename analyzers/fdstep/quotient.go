@@ -378,26 +378,76 @@ func candidates(args []ssa.Value) []ssa.Value {
 	return out
 }
 
-// offsetsFrom classifies every argument relative to x with a common step.
+// offsetsFrom classifies every argument relative to x as x + k·h with a
+// common step h: k is ±1, or a whole multiple for the outer points of a
+// five-point stencil (x+2*h, or constants 1e-3 and 2e-3 where the smaller
+// is h).
 func (c *checker) offsetsFrom(q *quotient, args []ssa.Value, x ssa.Value) bool {
-	var h ssa.Value
+	type point struct {
+		sign  int
+		step  ssa.Value // as written, x + step
+		base  ssa.Value // step = mult·base
+		mult  float64
+		value float64 // the base's value when constant, else 0
+	}
+	points := make([]point, len(args))
+	unit := -1 // the point with the smallest step
 	var bumps []bump
 	for i, a := range args {
 		k, step, bp, ok := offset(a, x)
-		if !ok || k != 0 && h != nil && !c.sameStep(h, step) {
+		if !ok {
 			return false
 		}
-		if k != 0 {
-			h = step
-			bumps = append(bumps, bp)
+		if k == 0 {
+			continue
 		}
-		q.evals[i].offset = k
+		p := point{sign: k, step: step}
+		p.base, p.mult = c.multiple(step)
+		p.value, _ = constval.Float(provenance.Strip(p.base), c.globals)
+		points[i] = p
+		bumps = append(bumps, bp)
+		if unit < 0 || p.mult*math.Abs(p.value) < points[unit].mult*math.Abs(points[unit].value) || p.mult < points[unit].mult {
+			unit = i
+		}
 	}
-	if h == nil {
+	if unit < 0 {
 		return false
 	}
-	q.x, q.h, q.bumps = x, h, bumps
+	u := points[unit]
+	for i, p := range points {
+		if p.sign == 0 {
+			q.evals[i].offset = 0
+			continue
+		}
+		k := p.mult / u.mult
+		if !c.sameStep(p.base, u.base) {
+			if p.value == 0 || u.value == 0 {
+				return false // different steps that are not multiples of one constant
+			}
+			k *= p.value / u.value
+		}
+		if k != math.Round(k) || math.Abs(k) > 2 {
+			return false
+		}
+		q.evals[i].offset = p.sign * int(k)
+	}
+	q.x, q.h, q.bumps = x, u.step, bumps
 	return true
+}
+
+// multiple reads step as m·h with m a whole constant (2*h), returning h
+// and m; any other step is 1·step.
+func (c *checker) multiple(step ssa.Value) (ssa.Value, float64) {
+	if b, ok := provenance.Strip(step).(*ssa.BinOp); ok && b.Op == token.MUL {
+		for _, pair := range [][2]ssa.Value{{b.X, b.Y}, {b.Y, b.X}} {
+			if m, ok := constval.Float(provenance.Strip(pair[0]), c.globals); ok && m == math.Round(m) && m > 0 {
+				if _, constStep := constval.Float(provenance.Strip(pair[1]), c.globals); !constStep {
+					return pair[1], m
+				}
+			}
+		}
+	}
+	return step, 1
 }
 
 // offset returns k and h when a is x + k·h for k in -1, 0, 1.

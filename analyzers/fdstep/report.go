@@ -23,10 +23,20 @@ func (c *checker) reportQuotient(q *quotient, v verdict) {
 	c.said[node.Pos()] = true
 	_, step, _ := c.bumpSyntax(q.bumps[0])
 	subject := fmt.Sprintf("fixed %s-difference step %s", q.scheme.name, stepText(c.pass.TypesInfo, step, v.h, v.f))
-	if v.scaled {
+	switch {
+	case v.scaled:
 		subject = fmt.Sprintf("%s-difference step %s·max(1,|x|)", q.scheme.name, numeric.Short(v.h))
+	case v.isDefault:
+		subject = fmt.Sprintf("fixed default %s-difference step %s", q.scheme.name, numeric.Short(v.h))
 	}
 	d := analysis.Diagnostic{Pos: node.Pos(), End: node.End(), Category: category(v), Message: message(subject, v)}
+	if v.isDefault {
+		if v.fallback != nil {
+			d.Related = []analysis.RelatedInformation{{Pos: v.fallback.Pos(), End: v.fallback.End(), Message: "default step set here"}}
+		}
+		fixes.Report(c.pass, d) // the step is chosen by the caller: the remedy is in the message
+		return
+	}
 	if id, ok := step.(*ast.Ident); ok {
 		obj := c.pass.TypesInfo.Uses[id]
 		if obj != nil && obj.Pos().IsValid() && c.line(obj.Pos()) != c.line(node.Pos()) {
@@ -56,7 +66,7 @@ func (c *checker) reportConstant(p *pending) {
 }
 
 func category(v verdict) string {
-	if v.bad {
+	if v.bad || v.large {
 		return catBadSize
 	}
 	return catUnscaled
@@ -68,6 +78,10 @@ func message(subject string, v verdict) string {
 	advice := fmt.Sprintf("h = %s·max(1,|x|) ≈ %.3g·max(1,|x|)", s.root, s.optimal(v.f))
 	if v.f.Eps != numeric.Float64.Eps && v.f.Eps != numeric.Float32.Eps {
 		advice += fmt.Sprintf(" with eps the function's declared noise %.3g", v.f.Eps)
+	}
+	if v.large {
+		return fmt.Sprintf("%s is too large for a derivative: truncation error ~%.2g at this step for f and its derivatives of unit size, against ~%.2g at %s (%s)",
+			subject, s.truncation(v.h), v.errOpt, advice, v.f.Name)
 	}
 	if v.bad {
 		return fmt.Sprintf("%s is too small: expected error ~%.2g at this step against ~%.2g at %s (%s, f and its derivatives of unit size)",

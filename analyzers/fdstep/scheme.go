@@ -1,6 +1,7 @@
 package fdstep
 
 import (
+	"go/ast"
 	"go/types"
 	"math"
 
@@ -47,7 +48,31 @@ var schemes = []*scheme{
 		root: "eps^(1/4)", call: "%[1]s.Sqrt(%[1]s.Sqrt(%[2]s))", optimal: numeric.Format.QuartEps,
 		err: func(h, eps float64) float64 { return h*h/12 + 4*eps/(h*h) },
 	},
+	// The five-point stencils are fourth order: truncation h^4·f^(5)/30 and
+	// h^4·f^(6)/90, rounding (1+8+8+1)/12·eps/h and (1+16+30+16+1)/12·eps/h²
+	// (Taylor expansion of the stencil, as in Numerical Recipes 3rd ed.
+	// §5.7), so the optimum is near eps^(1/5) and eps^(1/6).
+	{
+		name: "five-point", weights: map[int]float64{2: -1, 1: 8, -1: -8, -2: 1}, den: 12, order: 1,
+		root: "eps^(1/5)", call: "%[1]s.Pow(%[2]s, 0.2)", optimal: func(f numeric.Format) float64 { return math.Pow(f.Eps, 0.2) },
+		err: func(h, eps float64) float64 { return h*h*h*h/30 + 1.5*eps/h },
+	},
+	{
+		name: "five-point second", weights: map[int]float64{2: -1, 1: 16, 0: -30, -1: 16, -2: -1}, den: 12, order: 2,
+		root: "eps^(1/6)", call: "%[1]s.Pow(%[2]s, 1.0/6)", optimal: func(f numeric.Format) float64 { return math.Pow(f.Eps, 1.0/6) },
+		err: func(h, eps float64) float64 { return h*h*h*h/90 + 16*eps/(3*h*h) },
+	},
 }
+
+// truncation returns the truncation part of s's error model at relative
+// step h: the error of exact arithmetic.
+func (s *scheme) truncation(h float64) float64 { return s.err(h, 0) }
+
+// maxTruncation is the truncation error, for f and its derivatives of unit
+// size, from which a step above maxStep is too large for a derivative:
+// fewer than three correct digits (common practice). A forward step of 0.1
+// errs by about 0.05; a central step of 0.05 by 4e-4 is left alone.
+const maxTruncation = 1e-3
 
 // maxStep is the largest step fdstep judges. A step above it would be
 // the optimum only for a function accurate to fewer than about four digits
@@ -116,6 +141,9 @@ type verdict struct {
 	f        numeric.Format // the float format of x, with Eps replaced by eps_f
 	absorbed float64        // |x| from which x+h == x
 	bad      bool           // the step is far below the optimum
+	large    bool           // the step is above maxStep and truncates too much
+	isDefault bool          // the step is the fixed default of a chosen step
+	fallback  ast.Expr      // its site: the constant assigned as the default
 	scaled   bool           // h is relative: the step is h·max(1,|x|)
 	errH     float64        // expected error at the step
 	errOpt   float64        // expected error at the optimal step
@@ -132,6 +160,12 @@ func judge(s *scheme, h float64, f numeric.Format, x float64, xKnown bool) (verd
 	}
 	hr, opt := h/scale, s.optimal(f)
 	v.errH, v.errOpt = s.err(hr, f.Eps), s.err(opt, f.Eps)
+	if h > maxStep {
+		// A smoothing width or a derivative of a very noisy function, unless
+		// the truncation alone leaves fewer than three digits.
+		v.large = s.truncation(hr) >= maxTruncation
+		return v, v.large
+	}
 	v.bad = hr < opt && v.errH >= badRatio*v.errOpt
 	return v, v.bad || !xKnown
 }

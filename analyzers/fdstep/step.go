@@ -15,11 +15,15 @@ import (
 )
 
 // An origin is where a step comes from: a constant, a parameter or a field.
+// A parameter or field may come with a fixed default (h := o.Step; if h ==
+// 0 { h = 1e-8 }): fallback is then set to the default's value.
 type origin struct {
 	constant bool
 	value    float64
 	param    *ssa.Parameter
 	field    *types.Var
+	fallback float64
+	phi      *ssa.Phi // the merge of the chosen step and its default
 }
 
 // origin follows v through closure bindings to a constant (a literal,
@@ -56,10 +60,58 @@ func (c *checker) origin(v ssa.Value) (origin, bool) {
 		case *ssa.Field:
 			f := fieldOf(w.X.Type(), w.Field)
 			return origin{field: f}, f != nil
+		case *ssa.Phi:
+			return c.defaulted(w)
 		}
 		return origin{}, false
 	}
 	return origin{}, false
+}
+
+// defaulted reads a merge of a parameter or field with one constant, the
+// defaulting idiom h := o.Step; if h == 0 { h = 1e-8 }.
+func (c *checker) defaulted(phi *ssa.Phi) (origin, bool) {
+	if len(phi.Edges) != 2 {
+		return origin{}, false
+	}
+	for i, e := range phi.Edges {
+		d, ok := constval.Float(provenance.Strip(e), c.globals)
+		if !ok {
+			continue
+		}
+		o, ok := c.origin(phi.Edges[1-i])
+		if !ok || o.constant || o.phi != nil || d == 0 {
+			return origin{}, false
+		}
+		o.fallback, o.phi = d, phi
+		return o, true
+	}
+	return origin{}, false
+}
+
+// defaultSite returns the constant assigned as the default merged by phi:
+// the right side of the assignment name = <constant> in phi's function.
+func (c *checker) defaultSite(phi *ssa.Phi, val float64) ast.Expr {
+	fn := phi.Parent().Syntax()
+	if fn == nil {
+		return nil
+	}
+	var site ast.Expr
+	ast.Inspect(fn, func(n ast.Node) bool {
+		as, ok := n.(*ast.AssignStmt)
+		if !ok || len(as.Lhs) != 1 || len(as.Rhs) != 1 || site != nil {
+			return site == nil
+		}
+		id, isIdent := as.Lhs[0].(*ast.Ident)
+		tv := c.pass.TypesInfo.Types[as.Rhs[0]]
+		if isIdent && id.Name == phi.Comment && tv.Value != nil {
+			if f, _ := constant.Float64Val(constant.ToFloat(tv.Value)); f == val {
+				site = as.Rhs[0]
+			}
+		}
+		return true
+	})
+	return site
 }
 
 // scaledStep reads h as r·max(1,|x|) or r·(1+|x|) with r constant,
@@ -133,14 +185,14 @@ func (c *checker) constVar(pos token.Pos) (float64, bool) {
 // judgeQuotient reports a quotient whose step is constant, or records the
 // parameter or field it takes its step from.
 func (c *checker) judgeQuotient(q *quotient) {
-	if c.onGrid(q.x, q.h) {
-		return // x moves by h: h is a grid spacing, not a chosen step
+	if c.onGrid(q.x, q.h) || c.inTest(q.root.Pos()) {
+		return // x moves by h: a grid spacing; or a test's own derivative check
 	}
 	f := c.format(q)
 	if r, ok := c.scaledStep(q.h, q.x); ok {
 		// Scaled with x: only its size relative to max(1,|x|) can be wrong,
 		// as the machine-precision step is for a function declared noisy.
-		if v, _ := judge(q.scheme, r, f, 1, true); v.bad && inRange(r) {
+		if v, _ := judge(q.scheme, r, f, 1, true); (v.bad || v.large) && inRange(r) {
 			v.scaled = true
 			c.reportQuotient(q, v)
 		}
@@ -151,6 +203,9 @@ func (c *checker) judgeQuotient(q *quotient) {
 		return // computed, loaded or merged: not a fixed step
 	}
 	xv, xKnown := constval.Float(provenance.Strip(q.x), c.globals)
+	if o.phi != nil {
+		c.judgeDefault(q, f, o)
+	}
 	switch {
 	case o.constant:
 		if v, report := judge(q.scheme, o.value, f, xv, xKnown); report && inRange(o.value) {
@@ -166,6 +221,15 @@ func (c *checker) judgeQuotient(q *quotient) {
 	}
 }
 
+// judgeDefault judges the fixed default of a chosen step at the quotient
+// that takes it, naming the default's site.
+func (c *checker) judgeDefault(q *quotient, f numeric.Format, o origin) {
+	if v, report := judge(q.scheme, o.fallback, f, 0, false); report && inRange(o.fallback) {
+		v.isDefault, v.fallback = true, c.defaultSite(o.phi, o.fallback)
+		c.reportQuotient(q, v)
+	}
+}
+
 func (c *checker) newUse(q *quotient, f numeric.Format, param int, name string, x int) use {
 	return use{stepUse{Param: param, Name: name, Scheme: q.scheme.name, X: x, Float: f.Name, Eps: f.Eps, In: funcName(q.root.Parent())}, q.root.Pos()}
 }
@@ -178,9 +242,10 @@ func funcName(fn *ssa.Function) string {
 	return fn.Name()
 }
 
-// inRange reports whether h is a step fdstep judges: positive and at most
-// maxStep.
-func inRange(h float64) bool { return h > 0 && h <= maxStep }
+// inRange reports whether h is a step fdstep judges: positive and below 1.
+// A step of 1 or more differences a sequence ((f(n+1)-f(n))/1), and is not
+// a derivative step.
+func inRange(h float64) bool { return h > 0 && h < 1 }
 
 // paramIndex returns the index of v among fn's parameters, or -1.
 func paramIndex(fn *ssa.Function, v ssa.Value) int {

@@ -131,7 +131,8 @@ func unitDifference(f func(float64) float64, x float64) float64 {
 	return (f(x+1) - f(x)) / 1
 }
 
-// A step above 1e-2: a smoothing scale, not a derivative at the limit.
+// A step above 1e-2 whose truncation error, h²/6 ≈ 4e-4, keeps three
+// digits: a smoothing scale, not a derivative at the limit.
 func smoothed(f func(float64) float64, x float64) float64 {
 	const w = 0.05
 	return (f(x+w) - f(x-w)) / (2 * w)
@@ -164,10 +165,16 @@ func secant(f func(float64) float64, x0, x1 float64) float64 {
 	return (f(x1) - f(x0)) / (x1 - x0)
 }
 
-// A five-point stencil: not one of the recognised schemes.
+// A five-point stencil with its step scaled to x at eps^(1/5).
 func fivePoint(f func(float64) float64, x float64) float64 {
-	const h = 1e-3
+	h := math.Pow(0x1p-52, 0.2) * math.Max(1, math.Abs(x))
 	return (f(x-2*h) - 8*f(x-h) + 8*f(x+h) - f(x+2*h)) / (12 * h)
+}
+
+// A one-sided three-point stencil: not one of the recognised schemes.
+func oneSided(f func(float64) float64, x float64) float64 {
+	const h = 1e-3
+	return (-3*f(x) + 4*f(x+h) - f(x+2*h)) / (2 * h)
 }
 
 // x fixed at 1: no scaling needed, and sqrt(eps) is the right size there.
@@ -194,13 +201,13 @@ func sequence(a func(int) float64, n int) float64 {
 	return (a(n+1) - a(n)) / 1e-3
 }
 
-// A user-chosen step with a fixed default: the default is not judged.
+// A user-chosen step with a default scaled to x.
 type options struct{ step float64 }
 
 func withDefault(f func(float64) float64, x float64, o *options) float64 {
 	h := o.step
 	if h == 0 {
-		h = 1e-8
+		h = 1.5e-8 * math.Max(1, math.Abs(x))
 	}
 	return (f(x+h) - f(x)) / h
 }
@@ -241,4 +248,10 @@ func twoSteps(f func(float64) float64, x float64) float64 {
 func modulus(f func(complex128) complex128, z complex128) float64 {
 	const h = 1e-6
 	return cmplx.Abs(f(z+h)-f(z)) / h
+}
+
+// A helper whose step a test chooses (see idioms_test.go): the constant is
+// passed from a test file, where the step is deliberate.
+func slope(f func(float64) float64, x, h float64) float64 { // want slope:"fdstep\\(central step of slope\\)"
+	return (f(x+h) - f(x-h)) / (2 * h)
 }

@@ -136,17 +136,17 @@ func (c *checker) epsF(callee types.Object, f numeric.Format) float64 {
 
 // verdict is the judgement of one fixed step.
 type verdict struct {
-	scheme   *scheme
-	h        float64        // the step
-	f        numeric.Format // the float format of x, with Eps replaced by eps_f
-	absorbed float64        // |x| from which x+h == x
-	bad      bool           // the step is far below the optimum
-	large    bool           // the step is above maxStep and truncates too much
-	isDefault bool          // the step is the fixed default of a chosen step
-	fallback  ast.Expr      // its site: the constant assigned as the default
-	scaled   bool           // h is relative: the step is h·max(1,|x|)
-	errH     float64        // expected error at the step
-	errOpt   float64        // expected error at the optimal step
+	scheme    *scheme
+	h         float64        // the step
+	f         numeric.Format // the float format of x, with Eps replaced by eps_f
+	absorbed  float64        // |x| from which x+h == x
+	bad       bool           // the step is far below the optimum
+	large     bool           // the step is above maxStep and truncates too much
+	isDefault bool           // the step is the fixed default of a chosen step
+	fallback  ast.Expr       // its site: the constant assigned as the default
+	scaled    bool           // h is relative: the step is h·max(1,|x|)
+	errH      float64        // expected error at the step
+	errOpt    float64        // expected error at the optimal step
 }
 
 // judge assesses step h of scheme s in format f, and reports whether it

@@ -9,5 +9,5 @@ func both(x, a, b float64) (float64, float64, float64) {
 }
 
 func more(x, r, t float64) (float64, float64, float64) {
-	return math.Log(x + math.Sqrt(x*x+1)), math.Log10(1+x), 1 - math.Pow(r, t) // want `math.Log\(x \+ math.Sqrt` `math.Log10\(1\+x\)` `1-math.Pow\(a, b\)`
+	return math.Log(x + math.Sqrt(x*x+1)), math.Log10(1 + x), 1 - math.Pow(r, t) // want `math.Log\(x \+ math.Sqrt` `math.Log10\(1\+x\)` `1-math.Pow\(a, b\)`
 }

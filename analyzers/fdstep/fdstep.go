@@ -55,6 +55,7 @@ type checker struct {
 	fieldOrder []*types.Var                  // the keys of stores, in the order met
 	closures   map[*ssa.Function]*ssa.MakeClosure
 	copies     map[ssa.Value]ssa.Value // slice → the slice it was copied from
+	stencils   []stencilPoint          // perturbations x + h·loc of table-driven stencils
 
 	// Syntax, indexed in one walk.
 	syntax map[token.Pos]ast.Node // binary expressions by operator, op-assignments and calls by start
@@ -102,6 +103,7 @@ func run(pass *analysis.Pass) (any, error) {
 			c.judgeQuotient(q)
 		}
 	}
+	c.judgeStencils()
 	c.propagate()
 	c.exportFacts()
 	return nil, nil
@@ -129,6 +131,9 @@ func (c *checker) indexInstr(fn *ssa.Function, instr ssa.Instruction) {
 	case *ssa.BinOp:
 		if (v.Op == token.QUO || v.Op == token.MUL) && isReal(v.Type()) {
 			c.roots = append(c.roots, v)
+		}
+		if p, ok := c.stencilPoint(v); ok {
+			c.stencils = append(c.stencils, p)
 		}
 	case *ssa.Call:
 		c.indexCall(fn, v)

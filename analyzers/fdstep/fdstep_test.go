@@ -1,6 +1,7 @@
 package fdstep_test
 
 import (
+	"fmt"
 	"path/filepath"
 	"testing"
 
@@ -50,15 +51,16 @@ func TestNoise(t *testing.T) {
 // quotient names both places: the default's assignment for a defaulted
 // step, the declaration for a named step on another line.
 func TestRelated(t *testing.T) {
-	related := map[int]int{} // line of a quotient in stencils.go → line of its related location
+	related := map[string]int{} // file:line of a finding → line of its related location
 	for _, r := range analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "hazards") {
 		for _, d := range r.Diagnostics {
 			pos := r.Pass.Fset.Position(d.Pos)
-			if len(d.Related) > 0 && filepath.Base(pos.Filename) == "stencils.go" {
-				related[pos.Line] = r.Pass.Fset.Position(d.Related[0].Pos).Line
+			if len(d.Related) > 0 {
+				related[fmt.Sprintf("%s:%d", filepath.Base(pos.Filename), pos.Line)] = r.Pass.Fset.Position(d.Related[0].Pos).Line
 			}
 		}
 	}
-	assert.Equal(t, 40, related[42], "the default h = 1e-8")
-	assert.Equal(t, 24, related[25], "the constant w = 0.1")
+	assert.Equal(t, 40, related["stencils.go:42"], "the default h = 1e-8")
+	assert.Equal(t, 24, related["stencils.go:25"], "the constant w = 0.1")
+	assert.Equal(t, 14, related["table.go:24"], "the rule's Step: 1e-6")
 }

@@ -17,16 +17,26 @@
 // of floats at x, from |x| ≈ 1.34e8 for h = 1e-8 in float64, and the
 // quotient is then 0 (or 0/0).
 //
-// fdstep recognises forward, backward, central and second differences of
-// one function evaluated at x and x±h: a plain function, a method, an
+// The five-point stencils (f(x-2h)-8f(x-h)+8f(x+h)-f(x+2h))/(12h) and
+// (-f(x+2h)+16f(x+h)-30f(x)+16f(x-h)-f(x-2h))/(12h²) are fourth order: their
+// truncation errors are h⁴·f⁽⁵⁾/30 and h⁴·f⁽⁶⁾/90, so the balance is near
+// eps_f^(1/5)·x_c ≈ 7.4e-4·x_c and eps_f^(1/6)·x_c ≈ 2.5e-3·x_c.
+//
+// fdstep recognises forward, backward, central, second and five-point
+// differences of one function evaluated at x and x+k·h (k up to ±2, the
+// step written h, 2*h, or as constants that are multiples of one another): a plain function, a method, an
 // interface method, a closure, a func-typed parameter or field, the same
 // component of a vector result; x+h may be stored in a variable first and
 // the quotient assembled over several statements. It also recognises
 // gradient and Jacobian loops that perturb one element of a slice (in
 // place and restored, or on a copy made by copy, slices.Clone or append),
-// evaluate, and divide by h. The step must be a constant: a literal, a
-// named constant, a variable never reassigned (captured by a closure or
-// not), or arithmetic of those.
+// evaluate, and divide by h; and table-driven stencils, which evaluate f at
+// x + h·loc (or add loc·h to an element of a copy of x) for offsets loc
+// read from a table and divide the weighted sum by a power of h. The step
+// must be a constant: a literal, a named constant, a variable never
+// reassigned (captured by a closure or not), arithmetic of those, or the
+// fixed default of a step chosen elsewhere (h := o.Step; if h == 0 { h =
+// 1e-8 }, or a table's own Step field set to a constant).
 //
 // It reports:
 //
@@ -34,7 +44,11 @@
 //     the |x| from which x+h rounds to x in the operands' format and the
 //     recommended step, sqrt(eps)·max(1,|x|) ≈ 1.49e-8·max(1,|x|) forward
 //     or backward, eps^(1/3)·max(1,|x|) ≈ 6.06e-6·max(1,|x|) central,
-//     eps^(1/4)·max(1,|x|) ≈ 1.22e-4·max(1,|x|) second (float64);
+//     eps^(1/4)·max(1,|x|) ≈ 1.22e-4·max(1,|x|) second, eps^(1/5) ≈ 7.4e-4
+//     and eps^(1/6) ≈ 2.46e-3 times max(1,|x|) five-point (float64);
+//   - a fixed step too large for a derivative: above 1e-2 and with a
+//     truncation error of at least 1e-3 for f and its derivatives of unit
+//     size (category badsize): a forward step of 0.1 errs by about 0.05;
 //   - a step so far below the scheme's optimum that its expected error, for
 //     f and its derivatives of unit size, is at least 100 times the error
 //     at the optimum (category badsize): forward h = 1e-12 gives ~4.4e-4
@@ -49,21 +63,35 @@
 // across packages through facts. When a parameter serves several schemes,
 // the worst verdict is reported.
 //
+// A step that is the default of a chosen one is reported at the quotient,
+// naming the default's assignment; a table-driven stencil once per
+// function, at its first perturbation, with the smallest constant its step
+// can take and where that constant is written. Both only say that the step
+// does not scale with x, and offer no fix.
+//
 // It leaves alone: steps computed from x (c*math.Max(1, math.Abs(x)),
 // c*(1+math.Abs(x)), a helper's result, per-component steps from a slice);
-// steps above 1e-2, which would be optimal only for a function accurate to
-// fewer than about four digits and are grid spacings or smoothing widths;
+// steps above 1e-2 whose truncation error keeps three digits (a central
+// step of 0.05 errs by h²/6 ≈ 4e-4), which would be optimal only for a
+// function accurate to fewer than about four digits and are smoothing
+// widths; steps of 1 or more, which difference a sequence; difference
+// quotients in _test.go files and constants a test file passes or stores
+// as a step (a test's derivative check uses its own points and its own
+// tolerance, chosen with the step: a step that failed there would fail
+// the test, so it is deliberate, as are expected values pinned for it);
+// table-driven sums that multiply by the step instead of dividing
+// (quadrature rules);
 // differences of sampled data ((u[i+1]-u[i-1])/(2*dx) reads an array, not
 // a function); evaluations at grid points, where x itself moves by h
 // (t += dt) or is x0 + i·h, so h is the grid's spacing; complex-step
 // derivatives (imag(f(complex(x, h)))/h has no subtraction); measured time
 // series differenced by index; quotients at a constant x where the step is
 // of the right size; differences of two different functions or receivers,
-// secants through given points, stencils other than the four above, and
-// quotients whose denominator does not match the scheme; steps chosen
-// with a fixed default (h := s.Step; if h == 0 { h = 1e-8 }), steps
-// reassigned in a loop (Richardson extrapolation), and complex-valued
-// functions.
+// secants through given points, stencils other than the six above, and
+// quotients whose denominator does not match the scheme; steps reassigned
+// in a loop (Richardson extrapolation, adaptive schemes and derivative
+// checkers that shrink an initial step: the step they end with is not the
+// one they start with), defaults scaled to x, and complex-valued functions.
 //
 // Fix (needs review, so go fix does not apply it): declare, just before
 // the quotient's first use of the step, a step scaled to x and made exactly
@@ -73,7 +101,8 @@
 //	h = (x + h) - x
 //
 // (math.Cbrt for central, math.Sqrt(math.Sqrt(...)) for second
-// differences; 0x1p-23 and conversions for float32), use it in x±h and in
+// differences; 0x1p-23 and conversions for float32; none for five-point
+// stencils, whose outer points are written 2*h), use it in x±h and in
 // the denominator, and delete the old local step when nothing else uses
 // it; in vector loops the step is per component. The math import is added
 // when missing. No fix is offered when the step reaches the quotient

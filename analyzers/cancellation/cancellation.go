@@ -42,6 +42,8 @@ const (
 	catLogSumExp = "logsumexp"
 	catRadical   = "radical"
 	catArc       = "arc"
+	catSquares   = "squares"
+	catTail      = "tail"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -107,9 +109,15 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
+	if c.squares(n) {
+		return
+	}
 	e, indirect := c.through(call)
 	if c.isOne(one) && c.normCosine(e) && !c.addend(cur, 2) {
 		c.dotCosine(n, e)
+		return
+	}
+	if c.isOne(n.X) && c.upperTail(n, e) {
 		return
 	}
 	inner, ok := e.(*ast.CallExpr)

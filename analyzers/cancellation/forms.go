@@ -7,9 +7,11 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/fixes"
 )
@@ -356,4 +358,68 @@ func (c *checker) dotCosine(n *ast.BinaryExpr, cos ast.Expr) {
 func (c *checker) isZero(e ast.Expr) bool {
 	v := c.pass.TypesInfo.Types[e].Value
 	return v != nil && constant.Sign(v) == 0
+}
+
+// squares reports a*a - b*b, 1 - x*x and x*x - 1: each square carries an
+// absolute error of one rounding of its size, u·a², which is all of the
+// difference when |a| and |b| are close (|x| near 1); (a-b)*(a+b) forms
+// the difference exactly (Sterbenz) before one rounded product. It reports
+// whether n had that form.
+func (c *checker) squares(n *ast.BinaryExpr) bool {
+	a, oka := c.square(n.X)
+	b, okb := c.square(n.Y)
+	switch {
+	case oka && okb:
+	case oka && c.isOne(n.Y):
+		b = n.Y
+	case okb && c.isOne(n.X):
+		a = n.X
+	default:
+		return false
+	}
+	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) {
+		return true // known, or whole numbers whose squares are exact
+	}
+	fset := c.pass.Fset
+	text := "(" + fixes.Operand(fset, a, token.ADD.Precedence()) + " - " + fixes.Operand(fset, b, token.ADD.Precedence()+1) +
+		") * (" + fixes.Operand(fset, a, token.ADD.Precedence()) + " + " + fixes.Operand(fset, b, token.ADD.Precedence()) + ")"
+	d := analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catSquares,
+		Message: fmt.Sprintf("a*a - b*b%s loses about log10(a²/|a²-b²|) digits where |a| and |b| are close: each square carries a rounding error of about u·a² (u = %.3g), all of the difference as it vanishes; use (a-b)*(a+b)",
+			binding("ab", a, b), unitRoundoff),
+	}
+	// Needs review: far from |a| = |b| both forms round about equally, in
+	// different last bits.
+	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+	return true
+}
+
+// upperTail reports 1 - math.Erf(x) and 1 - F(x) for a method or function
+// F named CDF: a probability near 1 rounds to 1 within u, so the upper tail
+// (a survival probability) is 0 below about 1.1e-16 and loses digits
+// above; the complementary function computes it directly.
+func (c *checker) upperTail(n *ast.BinaryExpr, e ast.Expr) bool {
+	call, ok := e.(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	use := "a complementary function (math.Erfc, a regularized incomplete function with its arguments swapped) or the CDF of the mirrored variable"
+	var fix []fixes.Fix
+	switch fn, _ := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func); {
+	case c.mathFunc(call) == "Erf":
+		use = "math.Erfc(x)"
+		if e == n.Y { // not through a variable
+			text := qualifier(call) + ".Erfc(" + fixes.Source(c.pass.Fset, ast.Unparen(call.Args[0])) + ")"
+			fix = append(fix, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+		}
+	case fn != nil && strings.EqualFold(fn.Name(), "cdf"):
+	default:
+		return false
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catTail,
+		Message: fmt.Sprintf("1 - %s returns 0 where the probability rounds to 1 (upper tails below %.3g) and loses about log10(1/tail) digits for small tails; use %s",
+			fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff, use),
+	}, fix...)
+	return true
 }

@@ -130,3 +130,8 @@ func asinhRef(x float64) *big.Float {
 	}
 	return r
 }
+
+// squaresRef returns 1 - c², exact at prec bits.
+func squaresRef(c float64) *big.Float {
+	return newF().Sub(bf(1), newF().Mul(bf(c), bf(c)))
+}

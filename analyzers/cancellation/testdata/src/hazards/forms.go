@@ -67,3 +67,27 @@ func binomialLogLikelihood(k, n int, p float64) float64 {
 func weighted(mu, p float64) float64 {
 	return mu + 1e4*math.Log(1-p) // want `math.Log\(1-x\) with x = p`
 }
+
+func sineFromCosine(c float64) float64 {
+	return math.Sqrt(1 - c*c) // want `a\*a - b\*b with a = 1, b = c loses about log10\(a²/\|a²-b²\|\) digits where \|a\| and \|b\| are close.*use \(a-b\)\*\(a\+b\)`
+}
+
+func powerGap(r, d float64) float64 {
+	return r*r - d*d // want `a\*a - b\*b with a = r, b = d loses`
+}
+
+func lorentz(v float64) float64 {
+	return 1 / (v*v - 1) // want `a\*a - b\*b with a = v, b = 1 loses`
+}
+
+func upperNormal(z float64) float64 {
+	return 0.5 * (1 - math.Erf(z/math.Sqrt2)) // want `1 - math.Erf\(z / math.Sqrt2\) returns 0 where the probability rounds to 1 \(upper tails below 1.11e-16\).*use math.Erfc\(x\)`
+}
+
+type logisticLaw struct{ mu, s float64 }
+
+func (d logisticLaw) CDF(x float64) float64 { return 1 / (1 + math.Exp(-(x-d.mu)/d.s)) }
+
+func (d logisticLaw) Survival(x float64) float64 {
+	return 1 - d.CDF(x) // want `1 - d.CDF\(x\) returns 0 where the probability rounds to 1.*use a complementary function`
+}

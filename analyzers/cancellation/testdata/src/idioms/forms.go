@@ -57,3 +57,19 @@ func chord(lat, lon float64) float64 {
 func ratioComplement(a, b float64) float64 {
 	return 1 - a/b // not a ratio over norms
 }
+
+func wholeSquares(n int) float64 {
+	return float64(n)*float64(n) - 1 // whole numbers: the squares are exact below 2^53
+}
+
+func knownSquares() float64 {
+	return 1 - 0.5*0.5 // constants
+}
+
+type tabulated struct{ q []float64 }
+
+func (t tabulated) Quantile(p float64) float64 { return t.q[int(p*float64(len(t.q)-1))] }
+
+func (t tabulated) reflected(p float64) float64 {
+	return 1 - t.Quantile(p) // not a probability near 1
+}

@@ -92,7 +92,7 @@ func run(pass *analysis.Pass) (any, error) {
 func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 	switch name := c.mathFunc(call); name {
 	case "Log", "Log10", "Log2":
-		if name != "Log" || !c.logSumExp(cur, call) {
+		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {
 			c.log1p(cur, call, name)
 		}
 	case "Sqrt":

@@ -16,6 +16,7 @@
 //     math.Log2: 1±x rounds to 1 for |x| below 5.55e-17, so the logarithm
 //     is 0, and loses about log10(1/|x|) digits for larger small x;
 //     math.Log1p(x) keeps them all (divided by math.Ln10 or math.Ln2);
+//     math.Log((1+x)/(1-x)) likewise, where 2*math.Atanh(x) keeps them;
 //   - math.Exp(x)-1 and 1-math.Exp(x), also with the exponential stored
 //     in a variable first: the same loss; math.Expm1(x);
 //   - math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent that is not a
@@ -100,8 +101,8 @@
 // accurate, but misses exact results at powers of the base that
 // math.Log10 and math.Log2 return exactly (8 of 60 powers of two), so it
 // needs review, as does the power's fix, which gives NaN for a negative
-// base where math.Pow gives a value. (a-b)*(a+b) and math.Erfc need
-// review too: where nothing cancels they round differently in the last
+// base where math.Pow gives a value. (a-b)*(a+b), math.Erfc and
+// 2*math.Atanh need review too: where nothing cancels they round differently in the last
 // bits. math.Hypot removes the overflow but
 // is up to about 1.6 ulps off in the normal range, where x*x+y*y is within
 // one, and it is slower; whether the extremes occur is the author's

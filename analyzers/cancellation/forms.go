@@ -423,3 +423,35 @@ func (c *checker) upperTail(n *ast.BinaryExpr, e ast.Expr) bool {
 	}, fix...)
 	return true
 }
+
+// atanh reports math.Log((1+x)/(1-x)), twice the inverse hyperbolic
+// tangent: for small x the ratio is 1+2x rounded, so the logarithm keeps
+// only about log10(1/|x|) fewer digits than x has; 2*math.Atanh(x) keeps
+// them. It reports whether the call had that shape.
+func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
+	q, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	x, neg, okx := c.onePlus(q.X)
+	y, negy, oky := c.onePlus(q.Y)
+	if !okx || !oky || neg == negy || !same(x, y) {
+		return false
+	}
+	if !c.lossShows(cur, x) {
+		return true
+	}
+	text := "2*" + qualifier(call) + ".Atanh(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ")"
+	if neg {
+		text = "-" + text // log((1-x)/(1+x)) = -2·atanh(x)
+	}
+	if _, inOperation := cur.Parent().Node().(*ast.BinaryExpr); inOperation {
+		text = "(" + text + ")"
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catLog1p,
+		Message: fmt.Sprintf("math.Log((1+x)/(1-x))%s returns 0 for |x| below %.3g, where the ratio rounds to 1, and loses about log10(1/|x|) digits for small x; use 2*math.Atanh(x)",
+			binding("x", x), unitRoundoff/2),
+	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+	return true
+}

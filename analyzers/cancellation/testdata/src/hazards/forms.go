@@ -91,3 +91,7 @@ func (d logisticLaw) CDF(x float64) float64 { return 1 / (1 + math.Exp(-(x-d.mu)
 func (d logisticLaw) Survival(x float64) float64 {
 	return 1 - d.CDF(x) // want `1 - d.CDF\(x\) returns 0 where the probability rounds to 1.*use a complementary function`
 }
+
+func mercatorY(s float64) float64 {
+	return 0.5 * math.Log((1+s)/(1-s)) // want `math.Log\(\(1\+x\)/\(1-x\)\) with x = s returns 0 for \|x\| below 5.55e-17.*use 2\*math.Atanh\(x\)`
+}

@@ -73,3 +73,7 @@ func (t tabulated) Quantile(p float64) float64 { return t.q[int(p*float64(len(t.
 func (t tabulated) reflected(p float64) float64 {
 	return 1 - t.Quantile(p) // not a probability near 1
 }
+
+func oddsRatio(p, q float64) float64 {
+	return math.Log((1 + p) / (1 - q)) // two different values: not an inverse hyperbolic tangent
+}

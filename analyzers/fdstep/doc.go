@@ -74,11 +74,14 @@
 // steps above 1e-2 whose truncation error keeps three digits (a central
 // step of 0.05 errs by h²/6 ≈ 4e-4), which would be optimal only for a
 // function accurate to fewer than about four digits and are smoothing
-// widths; steps of 1 or more, which difference a sequence; difference
-// quotients in _test.go files and constants a test file passes or stores
-// as a step (a test's derivative check uses its own points and its own
-// tolerance, chosen with the step: a step that failed there would fail
-// the test, so it is deliberate, as are expected values pinned for it);
+// widths; steps of 1 or more, which difference a sequence; in _test.go
+// files, steps that do not scale with x or are large, in quotients there
+// and in constants a test passes or stores as a step (a test's derivative
+// check evaluates at its own points with its own tolerance, chosen with
+// the step: a step that failed there would fail the test, so it is
+// deliberate, as are expected values pinned for it; a step far below the
+// optimum is still reported, since the check's own rounding error then
+// nears its tolerance);
 // table-driven sums that multiply by the step instead of dividing
 // (quadrature rules);
 // differences of sampled data ((u[i+1]-u[i-1])/(2*dx) reads an array, not

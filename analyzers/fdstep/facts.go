@@ -158,7 +158,7 @@ type pending struct {
 // u, keeping the worst verdict per node.
 func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
 	s := u.scheme()
-	if node == nil || s == nil || !inRange(h) || c.inTest(node.Pos()) {
+	if node == nil || s == nil || !inRange(h) {
 		return
 	}
 	var xv float64
@@ -167,7 +167,7 @@ func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
 		xv, xKnown = constval.Float(provenance.Strip(x), c.globals)
 	}
 	v, report := judge(s, h, u.format(), xv, xKnown)
-	if !report {
+	if !report || c.deliberate(node.Pos(), v) {
 		return
 	}
 	p, ok := c.pending[node.Pos()]

@@ -248,12 +248,20 @@ func isReal(t types.Type) bool {
 	return provenance.IsFloat(t) && (!ok || b.Info()&types.IsComplex == 0)
 }
 
-// inTest reports whether pos lies in a _test.go file. A test's difference
-// quotients check derivatives at the test's own points with the test's own
-// tolerance: the step was chosen for those points, and a step that failed
-// there would fail the test, so it is deliberate.
+// inTest reports whether pos lies in a _test.go file.
 func (c *checker) inTest(pos token.Pos) bool {
 	return strings.HasSuffix(c.pass.Fset.File(pos).Name(), "_test.go")
+}
+
+// deliberate reports whether verdict v at pos concerns a step a test chose
+// on purpose: a test's derivative check evaluates at the test's own points
+// and compares with its own tolerance, so a step that does not scale with
+// x, or is large, was chosen for those points (a step that failed there
+// would fail the test, and expected values may be pinned for it). A step
+// far below the optimum is not: the check's own rounding error then nears
+// its tolerance, and the test passes or fails with the last bits.
+func (c *checker) deliberate(pos token.Pos, v verdict) bool {
+	return c.inTest(pos) && !v.bad
 }
 
 // line returns the line of pos.

@@ -17,7 +17,7 @@ import (
 // the division, with the step's declaration as related information.
 func (c *checker) reportQuotient(q *quotient, v verdict) {
 	node := c.syntax[q.root.Pos()]
-	if node == nil || c.said[node.Pos()] {
+	if node == nil || c.said[node.Pos()] || c.deliberate(node.Pos(), v) {
 		return
 	}
 	c.said[node.Pos()] = true

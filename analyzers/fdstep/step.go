@@ -185,8 +185,8 @@ func (c *checker) constVar(pos token.Pos) (float64, bool) {
 // judgeQuotient reports a quotient whose step is constant, or records the
 // parameter or field it takes its step from.
 func (c *checker) judgeQuotient(q *quotient) {
-	if c.onGrid(q.x, q.h) || c.inTest(q.root.Pos()) {
-		return // x moves by h: a grid spacing; or a test's own derivative check
+	if c.onGrid(q.x, q.h) {
+		return // x moves by h: h is a grid spacing, not a chosen step
 	}
 	f := c.format(q)
 	if r, ok := c.scaledStep(q.h, q.x); ok {

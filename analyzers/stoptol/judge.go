@@ -74,7 +74,7 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 			allX = false
 		}
 		for _, t := range tests {
-			if c.test(cur, t, l) {
+			if c.test(cur, t, l) && !c.onShrunk(t, l) {
 				risky = true
 			}
 		}
@@ -90,39 +90,62 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 
 // xtests returns the tolerance tests on x quantities within an exit
 // condition: differences of x variables, steps, and their relative forms.
+// A flag holding a test (for !converged) is read as the tests it holds.
 func (c *checker) xtests(cond ast.Expr, l *loop) []tolerance.Test {
+	r := c.reader(l)
 	var out []tolerance.Test
-	ast.Inspect(cond, func(n ast.Node) bool {
+	seen := make(map[*types.Var]bool)
+	var visit func(ast.Node) bool
+	visit = func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok && !seen[tolerance.VarOf(c.pass.TypesInfo, id)] {
+			v := tolerance.VarOf(c.pass.TypesInfo, id)
+			seen[v] = true
+			for _, e := range l.flags[v] {
+				ast.Inspect(e, visit)
+			}
+		}
 		b, ok := n.(*ast.BinaryExpr)
 		if !ok {
 			return !isFuncLit(n)
 		}
-		t, ok := tolerance.RecognizeWidth(c.pass.TypesInfo, c.decls, b)
-		if ok && c.onX(t, l) {
+		t, ok := r.Recognize(b)
+		if ok && c.onX(t, l, r.Widths) {
 			out = append(out, t)
 			return false
 		}
 		return true
-	})
+	}
+	ast.Inspect(cond, visit)
 	return out
 }
 
 func isFuncLit(n ast.Node) bool { _, ok := n.(*ast.FuncLit); return ok }
 
-// onX reports whether a test measures x: a difference of two variables the
-// loop updates (a bracket, successive iterates) or a step added to one.
-func (c *checker) onX(t tolerance.Test, l *loop) bool {
+// onX reports whether a test measures x: a difference of two things the
+// loop updates (a bracket, successive iterates, two elements of a slice of
+// points) or a step added to one, or a width shrunk each pass.
+func (c *checker) onX(t tolerance.Test, l *loop, widths map[*types.Var]bool) bool {
 	info := c.pass.TypesInfo
 	switch t.Kind {
 	case tolerance.Absolute, tolerance.Relative:
-		a, b := varOf(info, t.A), varOf(info, t.B)
-		return a != nil && b != nil && a != b && l.xvars[a] && l.xvars[b]
+		a, b := subjectOf(info, t.A), subjectOf(info, t.B)
+		return a != nil && b != nil && (a != b || isIndex(t.A) && isIndex(t.B)) && l.xvars[a] && l.xvars[b]
 	case tolerance.Magnitude, tolerance.RelativeMagnitude:
-		s := varOf(info, t.A)
-		return s != nil && l.steps[s]
+		s := tolerance.VarOf(info, t.A)
+		return s != nil && (l.steps[s] || widths[s])
 	}
 	return false
 }
+
+// onShrunk reports whether t tests a quantity the loop shrinks by a
+// constant factor: it falls below any positive tolerance after finitely
+// many passes, so the test ends the loop even when it is too tight.
+func (c *checker) onShrunk(t tolerance.Test, l *loop) bool {
+	v := tolerance.VarOf(c.pass.TypesInfo, t.A)
+	return t.Kind == tolerance.Magnitude && v != nil && l.shrunk[v]
+}
+
+func isIndex(e ast.Expr) bool { _, ok := ast.Unparen(e).(*ast.IndexExpr); return ok }
 
 // test judges one stopping test, reporting a constant tolerance that is
 // too tight and learning a parameter or field one. It reports whether the
@@ -142,7 +165,8 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 	if !src.constant {
 		return src.learned
 	}
-	v := judge(u, src.value)
+	tol := src.value / t.Factor // (b-a)/2 < tol holds when |b-a| < 2·tol
+	v := judge(u, tol)
 	switch v {
 	case fine:
 		return false
@@ -152,7 +176,7 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: t.Cmp.Pos(), End: t.Cmp.End(), Category: cat,
-		Message: fmt.Sprintf("%s %s: %s", describe(u, fixes.Source(c.pass.Fset, t.Tol), src.value), "in this "+l.class.String(), explain(v, u, src.value)),
+		Message: fmt.Sprintf("%s %s: %s", describe(u, fixes.Source(c.pass.Fset, t.Tol), src.value), "in this "+l.class.String(), explain(v, u, tol)),
 	}, c.scaledFix(cur, t, u, v)...)
 	return true
 }
@@ -285,7 +309,7 @@ func magnitudeTest(n *ast.BinaryExpr) (tolerance.Test, bool) {
 	if n.Op != token.LSS && n.Op != token.LEQ {
 		return tolerance.Test{}, false
 	}
-	return tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: n.X, Tol: n.Y}, true
+	return tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: n.X, Tol: n.Y, Factor: 1}, true
 }
 
 // followed looks through a local variable assigned once.

@@ -11,6 +11,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
@@ -26,7 +27,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "stoptol",
 	Doc:       analyzerdoc.Extract(doc, "stoptol"),
 	URL:       "docs/stoptol.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, noiselevel.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, noiselevel.Analyzer, absval.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -66,7 +67,19 @@ type checker struct {
 	pass  *analysis.Pass
 	noise *noiselevel.Levels
 	decls map[types.Object]ast.Expr
+	abs   *absval.Known
 	uses  *tolerance.Uses[use]
+}
+
+// reader returns the tolerance reader for a loop of the function body.
+func (c *checker) reader(l *loop) tolerance.Reader {
+	info := c.pass.TypesInfo
+	r := tolerance.Reader{
+		Info: info, Decls: c.decls, Abs: c.abs,
+		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.body, hi, lo) },
+	}
+	r.Widths = r.TrackedWidths(l.body, l.shrunk)
+	return r
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -74,18 +87,19 @@ func run(pass *analysis.Pass) (any, error) {
 		pass:  pass,
 		noise: pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
 		decls: constval.DeclsOf(pass),
+		abs:   absval.Of(pass),
 		uses:  tolerance.NewUses[use](pass),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
-	fvals := make(map[ast.Node]map[*types.Var]bool) // per function body
+	funcs := make(map[ast.Node]*function) // per function body
 	for cur := range root.Preorder((*ast.ForStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		switch n := cur.Node().(type) {
 		case *ast.ForStmt:
 			body := enclosingBody(cur)
-			if fvals[body] == nil {
-				fvals[body] = FValues(pass.TypesInfo, body)
+			if funcs[body] == nil {
+				funcs[body] = &function{body: body, fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
 			}
-			l := readLoop(pass.TypesInfo, n, fvals[body])
+			l := readLoop(pass.TypesInfo, n, funcs[body])
 			l.noise = c.objectiveNoise(l)
 			c.loop(cur, l)
 		case *ast.BinaryExpr:

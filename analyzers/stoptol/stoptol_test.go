@@ -78,3 +78,10 @@ func TestGoldenSection(t *testing.T) {
 		assert.LessOrEqual(t, r.relerr, 4*sqrtEps, r.xs)
 	}
 }
+
+// TestMeasures checks measures of progress beyond math.Abs(b-a): a
+// package's own absolute value, the Abs of a float32 library known by a
+// fact, scaled and tracked widths, slice elements and flags.
+func TestMeasures(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "measures")
+}

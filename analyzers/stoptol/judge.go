@@ -40,9 +40,9 @@ func judge(u use, tol float64) verdict {
 		return floor
 	case u.Class == minimize && tol < u.floor():
 		return tight
-	case u.Class == root && u.Relative && u.Step && tol < f.U:
+	case u.Class.locatesToUlps() && u.Relative && u.Step && tol < f.U:
 		return tight
-	case u.Class == root && !u.Relative && tol < f.SqrtEps():
+	case u.Class.locatesToUlps() && !u.Relative && tol < f.SqrtEps():
 		return unscaled
 	}
 	return fine
@@ -84,6 +84,8 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 			Pos: l.stmt.For, End: l.stmt.For + 3, Category: catNoCap,
 			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and nothing caps the iterations; add an iteration limit", l.class, numeric.Float64.Eps),
 		})
+	} else {
+		c.unbounded(l)
 	}
 	c.backtrack(l)
 }
@@ -246,7 +248,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 	f := u.format()
 	if u.Relative {
 		lit := u.floorLit()
-		if u.Class == root {
+		if u.Class.locatesToUlps() {
 			lit = f.FewUlpsLiteral()
 		}
 		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}

@@ -85,3 +85,10 @@ func TestGoldenSection(t *testing.T) {
 func TestMeasures(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "measures")
 }
+
+// TestUnbounded checks loops with no cap that end only on float tests:
+// range reductions, steps that round to zero, iterations; and those that
+// end for other reasons.
+func TestUnbounded(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "unbounded")
+}

@@ -37,24 +37,37 @@ func (c *checker) unbounded(l *loop) {
 		return
 	}
 	d := newDeps(c.pass.TypesInfo, l)
-	for _, e := range l.exits {
-		if !d.floatTest(e) {
-			return // an exit on something else: data, errors, a state flag
+	for i, e := range l.exits {
+		switch {
+		case d.errorTest(e):
+			continue // a failure exit bounds nothing
+		case !d.floatTest(e):
+			return // an exit on something else: data, a state flag
 		}
+		d.tests = append(d.tests, exitTest{e, i == 0 && l.stmt.Cond != nil})
 	}
-	if d.noFloatLeft() {
-		return // bisection until no float is left between the ends
+	if len(d.tests) == 0 || d.noFloatLeft() {
+		return // no float test, or bisection until no float is left between the ends
 	}
+	nanRuns := d.nanRuns()
+	geo := tolerance.Geometric(c.pass.TypesInfo, l.stmt.Cond, l.stmt.Post, l.stmt.Body)
 	tested := d.tested()
-	carried := false
+	carried := d.effects && d.readsState()
+	series := false
 	for v := range tested {
-		if d.scaled(v) || d.series(v) || d.fresh(v, 4) {
-			return // it reaches 0 or ±Inf, it is a term, or it is drawn anew
+		if _, ok := geo[v]; ok || !nanRuns && (d.scaled(v) || d.series(v)) || !d.effects && d.fresh(v, 4) {
+			return // it reaches 0 or ±Inf, it is a term and NaN ends the loop, or it is drawn anew
 		}
 		carried = carried || d.carried(v)
+		series = series || d.series(v)
 	}
 	if !carried {
 		return // the tests read values the loop does not carry from pass to pass
+	}
+	if series {
+		c.reportLoop(d, catNoCap, fmt.Sprintf("series may never end: its only exits test the term (%s) and nothing caps the passes, so a NaN term, for which the test is false, or a sum that stalls keeps it running; add an iteration limit",
+			fixes.Source(c.pass.Fset, d.tests[0].e)))
+		return
 	}
 	for _, v := range d.near(tested) {
 		if step, ok := d.additive(v); ok {
@@ -62,31 +75,73 @@ func (c *checker) unbounded(l *loop) {
 			return
 		}
 	}
-	c.reportLoop(l, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
-		fixes.Source(c.pass.Fset, l.exits[0]), c.nanClause(l, d)))
+	nan := ""
+	if nanRuns {
+		nan = ", and so does a NaN, which fails every ordered comparison"
+	}
+	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
+		fixes.Source(c.pass.Fset, d.tests[0].e), nan))
 }
 
-// reportLoop reports a loop at its first exit test, naming the loop as
-// the related place, and any other places given.
-func (c *checker) reportLoop(l *loop, cat, msg string, related ...analysis.RelatedInformation) {
-	exit := l.exits[0]
-	if c.pass.Fset.Position(exit.Pos()).Line != c.pass.Fset.Position(l.stmt.For).Line {
-		related = append([]analysis.RelatedInformation{{Pos: l.stmt.For, End: l.stmt.For + 3, Message: "the loop it ends"}}, related...)
+// exitTest is a float test that ends a loop.
+type exitTest struct {
+	e    ast.Expr
+	cond bool // the loop condition, which ends the loop when it fails
+}
+
+// reportLoop reports a loop at its first float exit test, naming the
+// loop as the related place, and any other places given.
+func (c *checker) reportLoop(d *deps, cat, msg string, related ...analysis.RelatedInformation) {
+	exit, stmt := d.tests[0].e, d.l.stmt
+	if c.pass.Fset.Position(exit.Pos()).Line != c.pass.Fset.Position(stmt.For).Line {
+		related = append([]analysis.RelatedInformation{{Pos: stmt.For, End: stmt.For + 3, Message: "the loop it ends"}}, related...)
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{Pos: exit.Pos(), End: exit.End(), Category: cat, Message: msg, Related: related})
 }
 
-// nanClause says that a NaN keeps the loop running, when its exits are all
-// false for NaN operands.
-func (c *checker) nanClause(l *loop, d *deps) string {
-	for i, e := range l.exits {
-		holds, known := d.onNaN(e)
-		cond := i == 0 && l.stmt.Cond != nil // the loop condition runs while it holds
-		if !known || holds != cond {
-			return ""
+// nanRuns reports whether a NaN in the tested values keeps the loop
+// running: every exit test is false for NaN operands (the loop condition
+// true).
+func (d *deps) nanRuns() bool {
+	for _, t := range d.tests {
+		holds, known := d.onNaN(t.e)
+		if !known || holds != t.cond {
+			return false
 		}
 	}
-	return ", and so does a NaN, which fails every ordered comparison"
+	return true
+}
+
+// errorTest reports whether e compares an error (err != nil): an exit on
+// failure, which does not bound the passes.
+func (d *deps) errorTest(e ast.Expr) bool {
+	b, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || b.Op != token.EQL && b.Op != token.NEQ {
+		return false
+	}
+	errType := types.Universe.Lookup("error").Type()
+	return types.Identical(d.info.TypeOf(b.X), errType) || types.Identical(d.info.TypeOf(b.Y), errType)
+}
+
+// readsState reports whether an exit test reads a call's result, a slice
+// element or a value behind a pointer: state that calls made for their
+// effects (v.MulVec(m, w), floats.SubTo(r, a, b)) change unseen.
+func (d *deps) readsState() bool {
+	found := false
+	for _, t := range d.tests {
+		ast.Inspect(t.e, func(n ast.Node) bool {
+			switch n := n.(type) {
+			case *ast.CallExpr:
+				found = found || !d.info.Types[n.Fun].IsType()
+			case *ast.IndexExpr, *ast.StarExpr:
+				found = true
+			case *ast.SelectorExpr:
+				found = found || tolerance.FieldOf(d.info, n) != nil
+			}
+			return !found
+		})
+	}
+	return found
 }
 
 // stepped judges a loop whose test reads x, advanced by x += step each
@@ -104,14 +159,14 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 		if step != nil {
 			what = numeric.WithValue(fixes.Source(c.pass.Fset, step), h)
 		}
-		c.reportLoop(l, catReduction, fmt.Sprintf("range reduction by repeated addition of %s takes |%s|/%.3g passes and never ends once |%s| >= %.3g, where adding %.3g is absorbed; use math.Mod or math.Remainder",
+		c.reportLoop(d, catReduction, fmt.Sprintf("range reduction by repeated addition of %s takes |%s|/%.3g passes and never ends once |%s| >= %.3g, where adding %.3g is absorbed; use math.Mod or math.Remainder",
 			what, x.Name(), abs(h), x.Name(), f.AbsorbingMagnitude(h), abs(h)))
 		return
 	}
 	if isConst || !d.canVanish(step, 4) {
 		return // a scan: the caller chose the step and the bounds
 	}
-	c.reportLoop(l, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and nothing caps the passes; add an iteration limit",
+	c.reportLoop(d, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and nothing caps the passes; add an iteration limit",
 		x.Name(), fixes.Source(c.pass.Fset, step), x.Name(), f.U, x.Name(), f.Name, x.Name()), d.stepSource(step)...)
 }
 
@@ -140,6 +195,8 @@ func abs(x float64) float64 {
 type deps struct {
 	info    *types.Info
 	l       *loop
+	tests   []exitTest                  // the float exit tests
+	effects bool                        // the loop calls functions for their effects
 	from    map[*types.Var][]*types.Var // what the assignments to v read
 	rhs     map[*types.Var][]ast.Expr   // the assigned expressions (x += s records s)
 	tokens  map[*types.Var][]token.Token
@@ -177,6 +234,10 @@ func (d *deps) record(n ast.Node) bool {
 			if n.Tok != token.ASSIGN && n.Tok != token.DEFINE {
 				d.from[v] = append(d.from[v], v) // x op= e reads x
 			}
+		}
+	case *ast.ExprStmt:
+		if call, ok := n.X.(*ast.CallExpr); ok && !d.info.Types[call.Fun].IsType() {
+			d.effects = true
 		}
 	case *ast.IncDecStmt:
 		if v := subjectOf(d.info, n.X); v != nil {
@@ -252,8 +313,8 @@ func (d *deps) tested() map[*types.Var]bool {
 		}
 		return false
 	}
-	for _, e := range d.l.exits {
-		visit(e)
+	for _, t := range d.tests {
+		visit(t.e)
 	}
 	return out
 }
@@ -537,13 +598,19 @@ func (d *deps) drawsIn(e ast.Expr) bool {
 	return found
 }
 
-// near returns the tested variables and those they are computed from in
-// the loop, in the order they are declared.
+// near returns the tested variables, and the variables they are offsets
+// of (rest = end - pos reads pos), in the order they are declared.
 func (d *deps) near(tested map[*types.Var]bool) []*types.Var {
 	set := maps.Clone(tested)
 	for v := range tested {
-		for _, w := range d.from[v] {
-			set[w] = true
+		for _, r := range d.rhs[v] {
+			if b, ok := ast.Unparen(r).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) {
+				for _, w := range []*types.Var{subjectOf(d.info, b.X), subjectOf(d.info, b.Y)} {
+					if w != nil {
+						set[w] = true
+					}
+				}
+			}
 		}
 	}
 	out := slices.Collect(maps.Keys(set))
@@ -569,8 +636,8 @@ func (d *deps) onlyAdvances(x *types.Var) bool {
 // halvings in float64.
 func (d *deps) noFloatLeft() bool {
 	found := false
-	for _, e := range d.l.exits {
-		ast.Inspect(e, func(n ast.Node) bool {
+	for _, t := range d.tests {
+		ast.Inspect(t.e, func(n ast.Node) bool {
 			b, ok := n.(*ast.BinaryExpr)
 			if !ok || !isOrdered(b.Op) {
 				return !found

@@ -62,3 +62,46 @@ func heron(a float64) float64 {
 		x = next
 	}
 }
+
+// ratioSeries stops on a term of a series with no cap: a NaN term (an
+// overflow in pow) fails t < 1e-16 and the loop never ends.
+func ratioSeries(x float64) float64 {
+	sum, pow, k := 0.0, x, 1.0
+	for {
+		t := pow / k
+		sum += t
+		if math.Abs(t) < 1e-16 { // want `series may never end: its only exits test the term \(math.Abs\(t\) < 1e-16\) and nothing caps the passes, so a NaN term`
+			return sum
+		}
+		pow *= x
+		k++
+	}
+}
+
+type field struct{ v []float64 }
+
+// relax applies an operator in place until two passes agree: the state
+// changes through calls, unseen by the loop's assignments.
+func relax(op func(dst, src *field), cur, prev *field, gap func(a, b []float64) float64, tol float64) {
+	for {
+		cur, prev = prev, cur
+		op(cur, prev)
+		if gap(cur.v, prev.v) < tol { // want `iteration may never end: its only exits are float tests \(gap\(cur.v, prev.v\) < tol\)`
+			return
+		}
+	}
+}
+
+// pivots repeats an exchange until no reduced cost is below -tol; its
+// other exit is a failure, which bounds nothing.
+func pivots(exchange func(r []float64) error, costs func(r []float64), r []float64, tol float64) error {
+	for {
+		costs(r)
+		if r[0] >= -tol { // want `iteration may never end: its only exits are float tests \(r\[0\] >= -tol\)`
+			return nil
+		}
+		if err := exchange(r); err != nil {
+			return err
+		}
+	}
+}

@@ -16,7 +16,7 @@ func halve(h float64) int {
 }
 
 // expSeries stops on the term of a series; the term is scaled each pass
-// by x/k, which tends to 0.
+// by x/k, which tends to 0, and a NaN term fails the loop condition.
 func expSeries(x float64) float64 {
 	sum, term, k := 1.0, 1.0, 1.0
 	for math.Abs(term) > 1e-17*math.Abs(sum) { // the term of a series
@@ -25,20 +25,6 @@ func expSeries(x float64) float64 {
 		k++
 	}
 	return sum
-}
-
-// ratioSeries stops on a term computed from a scaled factor.
-func ratioSeries(x float64) float64 {
-	sum, pow, k := 0.0, x, 1.0
-	for {
-		t := pow / k
-		sum += t
-		if math.Abs(t) < 1e-16 { // the term added to the sum
-			return sum
-		}
-		pow *= x
-		k++
-	}
 }
 
 // reject draws until a sample lands: each pass is a fresh draw.

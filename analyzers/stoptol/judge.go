@@ -40,9 +40,9 @@ func judge(u use, tol float64) verdict {
 		return floor
 	case u.Class == minimize && tol < u.floor():
 		return tight
-	case u.Class == root && u.Relative && u.Step && tol < f.U:
+	case u.Class.locatesToUlps() && u.Relative && u.Step && tol < f.U:
 		return tight
-	case u.Class == root && !u.Relative && tol < f.SqrtEps():
+	case u.Class.locatesToUlps() && !u.Relative && tol < f.SqrtEps():
 		return unscaled
 	}
 	return fine
@@ -74,7 +74,7 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 			allX = false
 		}
 		for _, t := range tests {
-			if c.test(cur, t, l) {
+			if c.test(cur, t, l) && !c.onShrunk(t, l) {
 				risky = true
 			}
 		}
@@ -84,45 +84,70 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 			Pos: l.stmt.For, End: l.stmt.For + 3, Category: catNoCap,
 			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and nothing caps the iterations; add an iteration limit", l.class, numeric.Float64.Eps),
 		})
+	} else {
+		c.unbounded(l)
 	}
 	c.backtrack(l)
 }
 
 // xtests returns the tolerance tests on x quantities within an exit
 // condition: differences of x variables, steps, and their relative forms.
+// A flag holding a test (for !converged) is read as the tests it holds.
 func (c *checker) xtests(cond ast.Expr, l *loop) []tolerance.Test {
+	r := c.reader(l)
 	var out []tolerance.Test
-	ast.Inspect(cond, func(n ast.Node) bool {
+	seen := make(map[*types.Var]bool)
+	var visit func(ast.Node) bool
+	visit = func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok && !seen[tolerance.VarOf(c.pass.TypesInfo, id)] {
+			v := tolerance.VarOf(c.pass.TypesInfo, id)
+			seen[v] = true
+			for _, e := range l.flags[v] {
+				ast.Inspect(e, visit)
+			}
+		}
 		b, ok := n.(*ast.BinaryExpr)
 		if !ok {
 			return !isFuncLit(n)
 		}
-		t, ok := tolerance.RecognizeWidth(c.pass.TypesInfo, c.decls, b)
-		if ok && c.onX(t, l) {
+		t, ok := r.Recognize(b)
+		if ok && c.onX(t, l, r.Widths) {
 			out = append(out, t)
 			return false
 		}
 		return true
-	})
+	}
+	ast.Inspect(cond, visit)
 	return out
 }
 
 func isFuncLit(n ast.Node) bool { _, ok := n.(*ast.FuncLit); return ok }
 
-// onX reports whether a test measures x: a difference of two variables the
-// loop updates (a bracket, successive iterates) or a step added to one.
-func (c *checker) onX(t tolerance.Test, l *loop) bool {
+// onX reports whether a test measures x: a difference of two things the
+// loop updates (a bracket, successive iterates, two elements of a slice of
+// points) or a step added to one, or a width shrunk each pass.
+func (c *checker) onX(t tolerance.Test, l *loop, widths map[*types.Var]bool) bool {
 	info := c.pass.TypesInfo
 	switch t.Kind {
 	case tolerance.Absolute, tolerance.Relative:
-		a, b := varOf(info, t.A), varOf(info, t.B)
-		return a != nil && b != nil && a != b && l.xvars[a] && l.xvars[b]
+		a, b := subjectOf(info, t.A), subjectOf(info, t.B)
+		return a != nil && b != nil && (a != b || isIndex(t.A) && isIndex(t.B)) && l.xvars[a] && l.xvars[b]
 	case tolerance.Magnitude, tolerance.RelativeMagnitude:
-		s := varOf(info, t.A)
-		return s != nil && l.steps[s]
+		s := tolerance.VarOf(info, t.A)
+		return s != nil && (l.steps[s] || widths[s])
 	}
 	return false
 }
+
+// onShrunk reports whether t tests a quantity the loop shrinks by a
+// constant factor: it falls below any positive tolerance after finitely
+// many passes, so the test ends the loop even when it is too tight.
+func (c *checker) onShrunk(t tolerance.Test, l *loop) bool {
+	v := tolerance.VarOf(c.pass.TypesInfo, t.A)
+	return t.Kind == tolerance.Magnitude && v != nil && l.shrunk[v]
+}
+
+func isIndex(e ast.Expr) bool { _, ok := ast.Unparen(e).(*ast.IndexExpr); return ok }
 
 // test judges one stopping test, reporting a constant tolerance that is
 // too tight and learning a parameter or field one. It reports whether the
@@ -138,11 +163,12 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 		Noise:    l.noise,
 		Where:    enclosingName(cur),
 	}
-	src := c.resolve(cur, t.Tol, u)
+	src := c.resolve(cur, t.Tol, u, t.Cmp)
 	if !src.constant {
 		return src.learned
 	}
-	v := judge(u, src.value)
+	tol := src.value / t.Factor // (b-a)/2 < tol holds when |b-a| < 2·tol
+	v := judge(u, tol)
 	switch v {
 	case fine:
 		return false
@@ -152,7 +178,7 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: t.Cmp.Pos(), End: t.Cmp.End(), Category: cat,
-		Message: fmt.Sprintf("%s %s: %s", describe(u, fixes.Source(c.pass.Fset, t.Tol), src.value), "in this "+l.class.String(), explain(v, u, src.value)),
+		Message: fmt.Sprintf("%s %s: %s", describe(u, fixes.Source(c.pass.Fset, t.Tol), src.value), "in this "+l.class.String(), explain(v, u, tol)),
 	}, c.scaledFix(cur, t, u, v)...)
 	return true
 }
@@ -168,15 +194,24 @@ func describe(u use, src string, tol float64) string {
 }
 
 // site reports a constant val reaching a stopping tolerance of use u.
-func (c *checker) site(val ast.Expr, u use, how string) {
+// The finding stands at the test, naming the constant, when the test is
+// given (a default set in the testing function); otherwise at the
+// constant, naming the test when this package holds it.
+func (c *checker) site(val ast.Expr, u use, how string, test ast.Node) {
 	tv, ok := c.pass.TypesInfo.Types[val]
 	if !ok || tv.Value == nil {
 		return
 	}
+	at, related := ast.Node(val), []analysis.RelatedInformation(nil)
+	if test != nil {
+		at, related = test, []analysis.RelatedInformation{{Pos: val.Pos(), End: val.End(), Message: "the tolerance is set here"}}
+	} else if t, ok := c.tests[u]; ok {
+		related = []analysis.RelatedInformation{{Pos: t.Pos(), End: t.End(), Message: "the test it sets"}}
+	}
 	tol := u.format().Value(tv.Value)
 	if u.Grad {
 		if tol > 0 && tol < u.format().SqrtEps() && tol > tolerance.UnderflowGuard {
-			c.reportGrad(val, fmt.Sprintf("%s, %s (%s),", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u))
+			c.reportGrad(at, fmt.Sprintf("%s, %s (%s),", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u), related...)
 		}
 		return
 	}
@@ -186,7 +221,7 @@ func (c *checker) site(val ast.Expr, u use, how string) {
 	}
 	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
 	d := analysis.Diagnostic{
-		Pos: val.Pos(), End: val.End(), Category: cat,
+		Pos: at.Pos(), End: at.End(), Category: cat, Related: related,
 		Message: fmt.Sprintf("%s, %s (%s), is too tight: %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, explain(v, u, tol)),
 	}
 	var fs []fixes.Fix
@@ -222,7 +257,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 	f := u.format()
 	if u.Relative {
 		lit := u.floorLit()
-		if u.Class == root {
+		if u.Class.locatesToUlps() {
 			lit = f.FewUlpsLiteral()
 		}
 		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}
@@ -273,7 +308,7 @@ func (c *checker) gradient(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	u := use{Grad: true, Float32: provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A)) == numeric.Float32, Where: enclosingName(cur)}
-	src := c.resolve(cur, t.Tol, u)
+	src := c.resolve(cur, t.Tol, u, n)
 	if src.constant && src.value > 0 && src.value < u.format().SqrtEps() && src.value > tolerance.UnderflowGuard {
 		c.reportGrad(n, "absolute gradient-norm threshold "+numeric.WithValue(fixes.Source(c.pass.Fset, t.Tol), src.value))
 	}
@@ -285,7 +320,7 @@ func magnitudeTest(n *ast.BinaryExpr) (tolerance.Test, bool) {
 	if n.Op != token.LSS && n.Op != token.LEQ {
 		return tolerance.Test{}, false
 	}
-	return tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: n.X, Tol: n.Y}, true
+	return tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: n.X, Tol: n.Y, Factor: 1}, true
 }
 
 // followed looks through a local variable assigned once.
@@ -299,9 +334,9 @@ func (c *checker) followed(e ast.Expr) ast.Expr {
 }
 
 // reportGrad reports a gradient threshold that ignores the scale of f.
-func (c *checker) reportGrad(n ast.Node, what string) {
+func (c *checker) reportGrad(n ast.Node, what string, related ...analysis.RelatedInformation) {
 	fixes.Report(c.pass, analysis.Diagnostic{
-		Pos: n.Pos(), End: n.End(), Category: catFScale,
+		Pos: n.Pos(), End: n.End(), Category: catFScale, Related: related,
 		Message: what + " ignores the scale of f and may stop a minimization too early or never: the gradient at a minimizer found to working precision scales with |f| (when f is of order 1e-14, every gradient is below 1e-12); scale it by 1+|f| (Gill, Murray & Wright 1981)",
 	})
 }

@@ -10,30 +10,44 @@ import (
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/tolerance"
 )
 
 // class is what a loop does, as far as its stopping test is concerned.
 type class int
 
 const (
-	unknown  class = iota
-	minimize       // derivative-free minimization: compares function values
-	root           // root finding or derivative-based search: sign tests, quotient steps
+	unknown    class = iota
+	minimize         // derivative-free minimization: compares function values
+	root             // root finding or derivative-based search: sign tests, quotient steps
+	fixedPoint       // x = g(x) repeated: converges to a few ulps of x, as root finders do
 )
 
 func (c class) String() string {
-	return [...]string{"loop", "minimization", "root finding"}[c]
+	return [...]string{"loop", "minimization", "root finding", "fixed-point iteration"}[c]
+}
+
+// locatesToUlps reports whether the class locates x to a few ulps.
+func (c class) locatesToUlps() bool {
+	return c == root || c == fixedPoint
+}
+
+// function holds what stoptol learns about a function body once.
+type function struct {
+	body  ast.Node
+	fvals map[*types.Var]bool       // variables holding function values
+	flags map[*types.Var][]ast.Expr // booleans holding tests (tolerance.Flags)
 }
 
 // loop holds what stoptol learns about one for statement.
 type loop struct {
+	*function
 	stmt    *ast.ForStmt
 	exits   []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
 	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
 	capped  bool       // an integer comparison bounds the iterations
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
-	fvars   map[*types.Var]bool // variables assigned a function value in the loop
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
 	stepped map[*types.Var]bool // the variables they are added to
 	shrunk  map[*types.Var]bool // variables scaled down by a constant factor below 1
@@ -41,13 +55,14 @@ type loop struct {
 }
 
 // readLoop collects the exits, the cap, the variables and the class of a
-// for statement; fvars are the function values of the enclosing function.
-func readLoop(info *types.Info, stmt *ast.ForStmt, fvars map[*types.Var]bool) *loop {
-	l := &loop{stmt: stmt, xvars: map[*types.Var]bool{}, fvars: fvars, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}, shrunk: map[*types.Var]bool{}}
+// for statement of function fn.
+func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
+	l := &loop{function: fn, stmt: stmt, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
 	if stmt.Cond != nil {
 		l.exits = append(l.exits, stmt.Cond)
 	}
 	l.walk(stmt.Body, nil)
+	l.shrunk = tolerance.Shrunk(info, stmt.Cond, stmt.Post, stmt.Body)
 	for _, n := range []ast.Node{stmt.Cond, stmt.Post, stmt.Body} {
 		if n != nil {
 			l.scan(info, n)
@@ -135,8 +150,8 @@ func (l *loop) scan(info *types.Info, n ast.Node) {
 			return false
 		case *ast.AssignStmt:
 			for i, lhs := range n.Lhs {
-				v := varOf(info, lhs)
-				if v == nil || !provenance.IsFloat(v.Type()) {
+				v := subjectOf(info, lhs)
+				if v == nil || !provenance.IsFloat(info.TypeOf(lhs)) {
 					continue
 				}
 				var rhs ast.Expr
@@ -146,14 +161,14 @@ func (l *loop) scan(info *types.Info, n ast.Node) {
 				l.assigned(info, v, n.Tok, rhs)
 			}
 		case *ast.IncDecStmt:
-			if v := varOf(info, n.X); v != nil {
+			if v := tolerance.VarOf(info, n.X); v != nil {
 				l.xvars[v] = true
 			}
 		}
 		return true
 	})
 	for v := range l.xvars {
-		if l.fvars[v] {
+		if l.fvals[v] {
 			delete(l.xvars, v)
 		}
 	}
@@ -161,9 +176,6 @@ func (l *loop) scan(info *types.Info, n ast.Node) {
 
 // assigned classifies one assignment v tok rhs.
 func (l *loop) assigned(info *types.Info, v *types.Var, tok token.Token, rhs ast.Expr) {
-	if tok == token.MUL_ASSIGN && shrinks(info, rhs, false) || tok == token.QUO_ASSIGN && shrinks(info, rhs, true) {
-		l.shrunk[v] = true
-	}
 	s, x := stepOf(info, tok, rhs, v)
 	if s != nil {
 		l.steps[s] = true
@@ -171,15 +183,17 @@ func (l *loop) assigned(info *types.Info, v *types.Var, tok token.Token, rhs ast
 	if x != nil {
 		l.stepped[x] = true
 	}
-	if tok == token.DEFINE && rhs != nil && isSubOf(rhs) {
+	if tok == token.DEFINE && rhs != nil && isSubOf(info, rhs) {
 		return // a difference defined in the loop (dx := x1 - x0) is a measure, not an x
 	}
 	l.xvars[v] = true
 }
 
-func isSubOf(e ast.Expr) bool {
+// isSubOf reports whether e is a difference of two variables or elements;
+// x - f(x)/df(x) is a new point, not such a difference.
+func isSubOf(info *types.Info, e ast.Expr) bool {
 	b, ok := ast.Unparen(e).(*ast.BinaryExpr)
-	return ok && b.Op == token.SUB
+	return ok && b.Op == token.SUB && subjectOf(info, b.X) != nil && subjectOf(info, b.Y) != nil
 }
 
 // stepOf returns the step variable s and the point x in x += s, x -= s,
@@ -187,10 +201,10 @@ func isSubOf(e ast.Expr) bool {
 func stepOf(info *types.Info, tok token.Token, rhs ast.Expr, v *types.Var) (s, x *types.Var) {
 	switch tok {
 	case token.ADD_ASSIGN, token.SUB_ASSIGN:
-		return varOf(info, rhs), v
+		return tolerance.VarOf(info, rhs), v
 	case token.ASSIGN, token.DEFINE:
-		if b, ok := ast.Unparen(rhs).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) && varOf(info, b.X) != nil {
-			return varOf(info, b.Y), varOf(info, b.X)
+		if b, ok := ast.Unparen(rhs).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) && tolerance.VarOf(info, b.X) != nil {
+			return tolerance.VarOf(info, b.Y), tolerance.VarOf(info, b.X)
 		}
 	}
 	return nil, nil
@@ -209,11 +223,11 @@ func FValues(info *types.Info, body ast.Node) map[*types.Var]bool {
 				return true
 			}
 			for i, lhs := range as.Lhs {
-				v := varOf(info, lhs)
+				v := tolerance.VarOf(info, lhs)
 				if v == nil || fv[v] || !provenance.IsFloat(v.Type()) {
 					continue
 				}
-				if r := varOf(info, as.Rhs[i]); isFValue(info, as.Rhs[i]) || r != nil && fv[r] {
+				if r := tolerance.VarOf(info, as.Rhs[i]); isFValue(info, as.Rhs[i]) || r != nil && fv[r] {
 					fv[v], changed = true, true
 				}
 			}
@@ -223,32 +237,16 @@ func FValues(info *types.Info, body ast.Node) map[*types.Var]bool {
 	return fv
 }
 
-// shrinks reports whether multiplying by e (or dividing, when divide)
-// makes a positive value smaller: e is a constant factor in (0, 1), or a
-// divisor above 1.
-func shrinks(info *types.Info, e ast.Expr, divide bool) bool {
-	tv, ok := info.Types[e]
-	if !ok || tv.Value == nil {
-		return false
+// subjectOf returns what an assignment to e changes: a variable, a field,
+// or the slice, array or field whose element e is (x[i], s.pts[j]).
+func subjectOf(info *types.Info, e ast.Expr) *types.Var {
+	switch x := ast.Unparen(e).(type) {
+	case *ast.IndexExpr:
+		return subjectOf(info, x.X)
+	case *ast.SelectorExpr:
+		return tolerance.FieldOf(info, x)
 	}
-	f := constFloat(tv)
-	if divide {
-		return f > 1
-	}
-	return f > 0 && f < 1
-}
-
-// varOf returns the local variable an expression names, or nil.
-func varOf(info *types.Info, e ast.Expr) *types.Var {
-	id, ok := ast.Unparen(e).(*ast.Ident)
-	if !ok {
-		return nil
-	}
-	v, _ := info.ObjectOf(id).(*types.Var)
-	if v == nil || v.IsField() {
-		return nil
-	}
-	return v
+	return tolerance.VarOf(info, e)
 }
 
 // isFValue reports whether e is a call of a function (not of package math,
@@ -299,7 +297,7 @@ func (l *loop) classify(info *types.Info) class {
 				return false
 			case *ast.BinaryExpr:
 				sign = sign || l.signTest(info, n)
-				decrease = decrease || l.decreaseTest(info, n)
+				decrease = decrease || l.decreaseTest(info, n) || l.parabolaTerm(info, n)
 			case *ast.CallExpr:
 				if fn, ok := typeutil.Callee(info, n).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Signbit" {
 					sign = true
@@ -317,8 +315,83 @@ func (l *loop) classify(info *types.Info) class {
 		return minimize
 	case quotient:
 		return root
+	case l.replaces(info):
+		return fixedPoint
 	}
 	return unknown
+}
+
+// replaces reports whether the loop replaces a float variable by a
+// formula of itself that is neither a step added to it nor a scaling of
+// it: x = (x + a/x)/2 (Heron's rule, Newton rearranged), x = g(x), a
+// corrector applied again, directly or through a temporary defined in the
+// loop (next := g(x); x = next).
+func (l *loop) replaces(info *types.Info) bool {
+	temps := make(map[*types.Var]ast.Expr)
+	found := false
+	ast.Inspect(l.stmt.Body, func(n ast.Node) bool {
+		as, ok := n.(*ast.AssignStmt)
+		if !ok || len(as.Lhs) != len(as.Rhs) || found {
+			return !found
+		}
+		for i, lhs := range as.Lhs {
+			v, rhs := tolerance.VarOf(info, lhs), as.Rhs[i]
+			switch {
+			case v == nil || !provenance.IsFloat(v.Type()):
+			case as.Tok == token.DEFINE:
+				temps[v] = rhs
+			case as.Tok == token.ASSIGN:
+				if t, ok := temps[tolerance.VarOf(info, rhs)]; ok {
+					rhs = t
+				}
+				found = found || nonlinearIn(info, rhs, v)
+			}
+		}
+		return !found
+	})
+	return found
+}
+
+// nonlinearIn reports whether e divides by v or calls a function of v,
+// and is not v ± s: x = (x + a/x)/2, not x = x + h*f(x) nor the running
+// average x = (x + d)/2, which is linear in x.
+func nonlinearIn(info *types.Info, e ast.Expr, v *types.Var) bool {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) && (tolerance.VarOf(info, b.X) == v || tolerance.VarOf(info, b.Y) == v) {
+		return false
+	}
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.BinaryExpr:
+			found = found || n.Op == token.QUO && mentionsAny(info, n.Y, map[*types.Var]bool{v: true})
+		case *ast.CallExpr:
+			found = found || !info.Types[n.Fun].IsType() && mentionsAny(info, n, map[*types.Var]bool{v: true})
+		}
+		return !found
+	})
+	return found
+}
+
+// parabolaTerm reports whether b multiplies a difference of points by a
+// difference of function values, (b-a)*(fb-fc): the building block of the
+// vertex of the parabola through three points, x = b - ((b-a)²(fb-fc) -
+// (b-c)²(fb-fa)) / 2((b-a)(fb-fc) - (b-c)(fb-fa)), a minimization step
+// (Brent 1973, ch. 5). Secant and inverse quadratic steps multiply a
+// difference of points by one function value, or differences of function
+// values together.
+func (l *loop) parabolaTerm(info *types.Info, b *ast.BinaryExpr) bool {
+	if b.Op != token.MUL {
+		return false
+	}
+	fdiff := func(e ast.Expr) bool {
+		d, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		return ok && d.Op == token.SUB && l.fvalue(info, d.X) && l.fvalue(info, d.Y)
+	}
+	xdiff := func(e ast.Expr) bool {
+		d, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		return ok && d.Op == token.SUB && !l.fvalue(info, d.X) && !l.fvalue(info, d.Y) && provenance.IsFloat(info.TypeOf(d))
+	}
+	return fdiff(b.X) && xdiff(b.Y) || xdiff(b.X) && fdiff(b.Y)
 }
 
 // decreaseTest reports whether b orders two function values, possibly one
@@ -384,8 +457,8 @@ func (l *loop) fvalue(info *types.Info, e ast.Expr) bool {
 			e = ast.Unparen(a.Args[0]) // |f(a)| < |f(b)| compares function values too
 		}
 	}
-	if v := varOf(info, e); v != nil {
-		return l.fvars[v]
+	if v := tolerance.VarOf(info, e); v != nil {
+		return l.fvals[v]
 	}
 	return isFValue(info, e)
 }
@@ -399,10 +472,4 @@ func isZero(info *types.Info, e ast.Expr) bool {
 	}
 	k := tv.Value.Kind()
 	return (k == constant.Int || k == constant.Float) && constant.Sign(tv.Value) == 0
-}
-
-// constFloat returns a constant's value as a float64.
-func constFloat(tv types.TypeAndValue) float64 {
-	f, _ := constant.Float64Val(constant.ToFloat(tv.Value))
-	return f
 }

@@ -11,6 +11,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
@@ -26,7 +27,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "stoptol",
 	Doc:       analyzerdoc.Extract(doc, "stoptol"),
 	URL:       "docs/stoptol.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, noiselevel.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, noiselevel.Analyzer, absval.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -66,7 +67,20 @@ type checker struct {
 	pass  *analysis.Pass
 	noise *noiselevel.Levels
 	decls map[types.Object]ast.Expr
+	abs   *absval.Known
 	uses  *tolerance.Uses[use]
+	tests map[use]ast.Node // the tests of the tolerances learned here
+}
+
+// reader returns the tolerance reader for a loop of the function body.
+func (c *checker) reader(l *loop) tolerance.Reader {
+	info := c.pass.TypesInfo
+	r := tolerance.Reader{
+		Info: info, Decls: c.decls, Abs: c.abs,
+		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.body, hi, lo) },
+	}
+	r.Widths = r.TrackedWidths(l.body, l.shrunk)
+	return r
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -74,18 +88,20 @@ func run(pass *analysis.Pass) (any, error) {
 		pass:  pass,
 		noise: pass.ResultOf[noiselevel.Analyzer].(*noiselevel.Levels),
 		decls: constval.DeclsOf(pass),
+		abs:   absval.Of(pass),
 		uses:  tolerance.NewUses[use](pass),
+		tests: make(map[use]ast.Node),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
-	fvals := make(map[ast.Node]map[*types.Var]bool) // per function body
+	funcs := make(map[ast.Node]*function) // per function body
 	for cur := range root.Preorder((*ast.ForStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		switch n := cur.Node().(type) {
 		case *ast.ForStmt:
 			body := enclosingBody(cur)
-			if fvals[body] == nil {
-				fvals[body] = FValues(pass.TypesInfo, body)
+			if funcs[body] == nil {
+				funcs[body] = &function{body: body, fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
 			}
-			l := readLoop(pass.TypesInfo, n, fvals[body])
+			l := readLoop(pass.TypesInfo, n, funcs[body])
 			l.noise = c.objectiveNoise(l)
 			c.loop(cur, l)
 		case *ast.BinaryExpr:
@@ -96,7 +112,7 @@ func run(pass *analysis.Pass) (any, error) {
 	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
 		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, how)
+			c.site(val, u, how, nil)
 		})
 	}
 	return nil, nil
@@ -128,15 +144,16 @@ type source struct {
 	learned  bool // a parameter or field, recorded for its callers
 }
 
-// resolve finds the value of tolerance expression tol, or records the
-// parameter or field it names (with the given use) and reports constants
-// given to it as a default.
-func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
+// resolve finds the value of tolerance expression tol, tested in test,
+// or records the parameter or field it names (with the given use) and
+// reports constants given to it as a default.
+func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use, test ast.Node) source {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tol); ok {
 		return source{constant: true, value: u.format().Value(v)}
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
 		c.uses.Field(field, u)
+		c.learned(u, test)
 		return source{learned: true}
 	}
 	id, ok := ast.Unparen(tol).(*ast.Ident)
@@ -148,14 +165,22 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 		decl := fd.Node().(*ast.FuncDecl)
 		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
 			c.uses.Param(fn, i, u)
+			c.learned(u, test)
 			src.learned = true
 		}
 		v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
 		for _, val := range c.uses.DefaultsOf(decl)[v] {
-			c.site(val, u, "given as the default of "+id.Name)
+			c.site(val, u, "given as the default of "+id.Name, test)
 		}
 	}
 	return src
+}
+
+// learned remembers the first test of a tolerance of use u.
+func (c *checker) learned(u use, test ast.Node) {
+	if _, ok := c.tests[u]; !ok {
+		c.tests[u] = test
+	}
 }
 
 // enclosingBody returns the body of the function around cur.

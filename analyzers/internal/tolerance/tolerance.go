@@ -1,8 +1,12 @@
 // Package tolerance recognises tolerance tests in the syntax: an ordered
-// comparison of a measure of closeness (|a-b|, |a-b|/|b|, |x|) with a
-// tolerance, possibly scaled (tol*math.Abs(b)). Local variables assigned
-// once are followed, so d := math.Abs(a-b); if d < tol is seen whole.
-// epsfloor and stoptol share it, so both read a test the same way.
+// comparison of a measure of progress or closeness with a tolerance,
+// possibly scaled (tol*math.Abs(b)). A measure is |a-b| with the absolute
+// value taken by any route (package absval), its relative forms, |x|, a
+// width scaled by a constant ((b-a)/2, 0.5*|b-a|), and, where the caller
+// knows them to be widths, a bare difference hi-lo or a variable that
+// shrinks each pass. Local variables assigned once are followed, so
+// d := math.Abs(a-b); if d < tol is seen whole. epsfloor and stoptol share
+// it, so both read a test the same way.
 package tolerance
 
 import (
@@ -11,8 +15,7 @@ import (
 	"go/types"
 	"math"
 
-	"golang.org/x/tools/go/types/typeutil"
-
+	"roundoff/analyzers/internal/absval"
 	"roundoff/internal/numeric"
 )
 
@@ -38,22 +41,34 @@ type Test struct {
 	A, B  ast.Expr // the operands of the difference; for Magnitude, A is x and B is nil
 	Tol   ast.Expr // the tolerance coefficient as written: a constant, a name or a field
 	Scale ast.Expr // the scale of a relative test, nil otherwise
+	// Factor is the constant the measure is multiplied by: 0.5 for
+	// (b-a)/2 < tol, which holds when |b-a| < tol/Factor. Recognize sets
+	// it, 1 when there is none.
+	Factor float64
 }
 
-// Recognize reads cmp, an ordered comparison, as a tolerance test. decls
-// maps variables assigned once to their initialisers (constval.Decls).
+// Reader reads tolerance tests in one package.
+type Reader struct {
+	Info  *types.Info
+	Decls map[types.Object]ast.Expr // variables assigned once (constval.Decls)
+	Abs   *absval.Known             // absolute values beyond math.Abs; nil for math.Abs only
+	// Widths, when set, holds variables known to be non-negative widths
+	// (see Shrunk): a bare w < tol is then a magnitude test on w.
+	Widths map[*types.Var]bool
+	// Ordered, when set, reports whether a bare difference hi-lo is known
+	// to be non-negative (see Ordered): it is then read as a width |hi-lo|.
+	Ordered func(hi, lo ast.Expr) bool
+}
+
+// Recognize reads cmp, an ordered comparison, as a tolerance test, with
+// math.Abs as the only absolute value. decls maps variables assigned once
+// to their initialisers (constval.Decls).
 func Recognize(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.BinaryExpr) (Test, bool) {
-	return recognize(reader{info, decls, false}, cmp)
+	return Reader{Info: info, Decls: decls}.Recognize(cmp)
 }
 
-// RecognizeWidth is Recognize that also reads a bare difference b-a as an
-// absolute measure, as loop tests on a bracket's width are written
-// (for b-a > tol); callers must know the difference is not signed.
-func RecognizeWidth(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.BinaryExpr) (Test, bool) {
-	return recognize(reader{info, decls, true}, cmp)
-}
-
-func recognize(r reader, cmp *ast.BinaryExpr) (Test, bool) {
+// Recognize reads cmp, an ordered comparison, as a tolerance test.
+func (r Reader) Recognize(cmp *ast.BinaryExpr) (Test, bool) {
 	switch cmp.Op {
 	case token.LSS, token.LEQ, token.GTR, token.GEQ:
 	default:
@@ -68,14 +83,8 @@ func recognize(r reader, cmp *ast.BinaryExpr) (Test, bool) {
 	return Test{}, false
 }
 
-type reader struct {
-	info  *types.Info
-	decls map[types.Object]ast.Expr
-	bare  bool // a bare difference is a width
-}
-
 // test reads m as a measure and tol as its tolerance.
-func (r reader) test(m, tol ast.Expr) (Test, bool) {
+func (r Reader) test(m, tol ast.Expr) (Test, bool) {
 	t, ok := r.measure(m)
 	if !ok {
 		return Test{}, false
@@ -98,55 +107,103 @@ func (r reader) test(m, tol ast.Expr) (Test, bool) {
 	return t, true
 }
 
-// measure reads |a-b|, |a-b|/s, |(a-b)/s| or |x|.
-func (r reader) measure(e ast.Expr) (Test, bool) {
+// measure reads |a-b|, |a-b|/s, |(a-b)/s|, |x|, a known width, and any of
+// them times a constant.
+func (r Reader) measure(e ast.Expr) (Test, bool) {
 	e = r.follow(e)
+	if x, k, ok := r.constScaled(e); ok {
+		t, ok := r.measure(x)
+		t.Factor *= k
+		return t, ok
+	}
 	if q, ok := e.(*ast.BinaryExpr); ok && q.Op == token.QUO {
 		t, ok := r.measure(q.X)
 		switch {
-		case !ok || r.isConst(q.Y):
+		case !ok:
 		case t.Kind == Absolute:
-			return Test{Kind: Relative, A: t.A, B: t.B, Scale: q.Y}, true
+			return Test{Kind: Relative, A: t.A, B: t.B, Scale: q.Y, Factor: t.Factor}, true
 		case t.Kind == Magnitude:
-			return Test{Kind: RelativeMagnitude, A: t.A, Scale: q.Y}, true
+			return Test{Kind: RelativeMagnitude, A: t.A, Scale: q.Y, Factor: t.Factor}, true
 		}
 		return Test{}, false
 	}
-	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB && r.bare {
-		return Test{Kind: Absolute, A: d.X, B: d.Y}, true
+	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB && r.Ordered != nil && r.Ordered(d.X, d.Y) {
+		return Test{Kind: Absolute, A: d.X, B: d.Y, Factor: 1}, true
 	}
-	arg, ok := r.absArg(e)
+	if id, ok := e.(*ast.Ident); ok && r.Widths[r.varOf(id)] {
+		return Test{Kind: Magnitude, A: id, Factor: 1}, true
+	}
+	call, ok := e.(*ast.CallExpr)
 	if !ok {
 		return Test{}, false
 	}
-	if x, ok := r.follow(arg).(*ast.BinaryExpr); ok {
-		if x.Op == token.SUB {
-			return Test{Kind: Absolute, A: x.X, B: x.Y}, true
-		}
-		if d, ok := r.follow(x.X).(*ast.BinaryExpr); ok && x.Op == token.QUO && d.Op == token.SUB && !r.isConst(x.Y) {
-			return Test{Kind: Relative, A: d.X, B: d.Y, Scale: x.Y}, true
-		}
+	arg, ok := r.Abs.Arg(r.Info, r.Decls, call)
+	if !ok {
+		return Test{}, false
 	}
-	return Test{Kind: Magnitude, A: arg}, true
+	return r.inAbs(arg), true
 }
 
-// absArg returns x when e is math.Abs(x).
-func (r reader) absArg(e ast.Expr) (ast.Expr, bool) {
-	call, ok := e.(*ast.CallExpr)
-	if !ok || len(call.Args) != 1 {
-		return nil, false
+// inAbs reads the argument of an absolute value: a difference, possibly
+// scaled by a constant or divided by a scale, or anything else as |x|.
+func (r Reader) inAbs(arg ast.Expr) Test {
+	x, k := r.follow(arg), 1.0
+	for {
+		y, f, ok := r.constScaled(x)
+		if !ok {
+			break
+		}
+		x, k = r.follow(y), k*f
 	}
-	fn, ok := typeutil.Callee(r.info, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || fn.Name() != "Abs" {
-		return nil, false
+	if d, ok := x.(*ast.BinaryExpr); ok && d.Op == token.SUB {
+		return Test{Kind: Absolute, A: d.X, B: d.Y, Factor: k}
 	}
-	return call.Args[0], true
+	if q, ok := x.(*ast.BinaryExpr); ok && q.Op == token.QUO {
+		if d, ok := r.follow(q.X).(*ast.BinaryExpr); ok && d.Op == token.SUB {
+			return Test{Kind: Relative, A: d.X, B: d.Y, Scale: q.Y, Factor: k}
+		}
+	}
+	return Test{Kind: Magnitude, A: arg, Factor: 1}
+}
+
+// constScaled reads e as x*k, k*x or x/k with k a positive constant,
+// returning x and the factor.
+func (r Reader) constScaled(e ast.Expr) (ast.Expr, float64, bool) {
+	b, ok := e.(*ast.BinaryExpr)
+	if !ok || b.Op != token.MUL && b.Op != token.QUO {
+		return nil, 0, false
+	}
+	if k, ok := r.positive(b.Y); ok {
+		if b.Op == token.QUO {
+			k = 1 / k
+		}
+		return b.X, k, true
+	}
+	if k, ok := r.positive(b.X); ok && b.Op == token.MUL {
+		return b.Y, k, true
+	}
+	return nil, 0, false
+}
+
+// positive returns the value of a positive numeric constant.
+func (r Reader) positive(e ast.Expr) (float64, bool) {
+	tv, ok := r.Info.Types[e]
+	if !ok || tv.Value == nil {
+		return 0, false
+	}
+	f, exact := constantFloat(tv)
+	return f, exact && f > 0 && !math.IsInf(f, 0)
+}
+
+func (r Reader) varOf(id *ast.Ident) *types.Var {
+	v, _ := r.Info.Uses[id].(*types.Var)
+	return v
 }
 
 // split reads a tolerance as coef·scale, with coef a constant, a name or a
 // field and scale the rest (nil when unscaled). A sum (atol + rtol·s) is a
 // mixed test and is not split: coef is nil.
-func (r reader) split(e ast.Expr) (coef, scale ast.Expr) {
+func (r Reader) split(e ast.Expr) (coef, scale ast.Expr) {
 	e = ast.Unparen(e)
 	m, ok := r.follow(e).(*ast.BinaryExpr)
 	if !ok || m.Op != token.MUL {
@@ -168,18 +225,18 @@ func (r reader) split(e ast.Expr) (coef, scale ast.Expr) {
 
 // coefficient reports whether e can carry a tolerance: a constant, a
 // variable, or a field selection.
-func (r reader) coefficient(e ast.Expr) bool {
+func (r Reader) coefficient(e ast.Expr) bool {
 	switch e := ast.Unparen(e).(type) {
 	case *ast.BasicLit:
 		return true
 	case *ast.Ident:
-		_, isVar := r.info.Uses[e].(*types.Var)
+		_, isVar := r.Info.Uses[e].(*types.Var)
 		return isVar || r.isConst(e)
 	case *ast.SelectorExpr:
-		if sel, ok := r.info.Selections[e]; ok {
+		if sel, ok := r.Info.Selections[e]; ok {
 			return sel.Kind() == types.FieldVal
 		}
-		return r.isConst(e) || isPkgVar(r.info, e)
+		return r.isConst(e) || isPkgVar(r.Info, e)
 	}
 	return r.isConst(e)
 }
@@ -189,24 +246,24 @@ func isPkgVar(info *types.Info, e *ast.SelectorExpr) bool {
 	return ok
 }
 
-func (r reader) isConst(e ast.Expr) bool {
-	tv, ok := r.info.Types[e]
+func (r Reader) isConst(e ast.Expr) bool {
+	tv, ok := r.Info.Types[e]
 	return ok && tv.Value != nil
 }
 
 // follow looks through parentheses, numeric conversions and local
 // variables assigned once to a non-constant expression.
-func (r reader) follow(e ast.Expr) ast.Expr {
+func (r Reader) follow(e ast.Expr) ast.Expr {
 	for range 8 {
 		e = ast.Unparen(e)
 		switch x := e.(type) {
 		case *ast.CallExpr:
-			if tv, ok := r.info.Types[x.Fun]; !ok || !tv.IsType() || len(x.Args) != 1 {
+			if tv, ok := r.Info.Types[x.Fun]; !ok || !tv.IsType() || len(x.Args) != 1 {
 				return e
 			}
 			e = x.Args[0]
 		case *ast.Ident:
-			init, ok := r.decls[r.info.Uses[x]]
+			init, ok := r.Decls[r.Info.Uses[x]]
 			if r.isConst(x) || !ok || r.isConst(init) {
 				return e
 			}

@@ -49,6 +49,7 @@ func TestRecognize(t *testing.T) {
 		"return math.Abs((a-b)/b) < tol":                                  {tolerance.Relative, "tol", "a", "b"},
 		"return tol*math.Max(math.Abs(a), math.Abs(b)) > math.Abs(a-b)":   {tolerance.Relative, "tol", "a", "b"},
 		"d := math.Abs(a - b)\nreturn d < tol":                            {tolerance.Absolute, "tol", "a", "b"},
+		"abs := math.Abs\nreturn abs(a-b) < tol":                          {tolerance.Absolute, "tol", "a", "b"},
 		"return math.Abs(x) < 1e-16":                                      {tolerance.Magnitude, "1e-16", "x", ""},
 		"return math.Abs(x) < tol*math.Abs(a)":                            {tolerance.RelativeMagnitude, "tol", "x", ""},
 		"return float32(math.Abs(float64(float32(a)-float32(b)))) < 1e-9": {tolerance.Absolute, "1e-9", "float32(a)", "float32(b)"},
@@ -74,8 +75,92 @@ func TestRecognize(t *testing.T) {
 		assert.False(t, ok, body)
 	}
 	info, decls, _, cmps := comparisons(t, "return b-a > tol")
-	got, ok := tolerance.RecognizeWidth(info, decls, cmps[0])
+	_, ok := tolerance.Recognize(info, decls, cmps[0])
+	assert.False(t, ok, "a bare difference, not known to be a width")
+	got, ok := tolerance.Reader{Info: info, Decls: decls, Ordered: func(_, _ ast.Expr) bool { return true }}.Recognize(cmps[0])
 	assert.True(t, ok && got.Kind == tolerance.Absolute, "a bracket width, when the caller knows it is one")
+}
+
+// TestMeasures checks the measures of progress beyond |a-b|: widths scaled
+// by constants, whose Factor turns the test into |a-b| < tol/Factor.
+func TestMeasures(t *testing.T) {
+	for body, want := range map[string]struct {
+		kind   tolerance.Kind
+		factor float64
+	}{
+		"return math.Abs((b-a)/2) < tol":           {tolerance.Absolute, 0.5},
+		"return 0.5*math.Abs(b-a) < tol":           {tolerance.Absolute, 0.5},
+		"return math.Abs(b-a)*0.25 <= tol":         {tolerance.Absolute, 0.25},
+		"return math.Abs(0.5*(b-a)) < tol":         {tolerance.Absolute, 0.5},
+		"return math.Abs(b-a)/2 < tol*math.Abs(a)": {tolerance.Relative, 0.5},
+		"h := math.Abs(b - a) / 4\nreturn h < tol": {tolerance.Absolute, 0.25},
+		"return math.Abs(x) < tol":                 {tolerance.Magnitude, 1},
+	} {
+		info, decls, _, cmps := comparisons(t, body)
+		got, ok := tolerance.Recognize(info, decls, cmps[0])
+		require.True(t, ok, body)
+		assert.Equal(t, want.kind, got.Kind, body)
+		assert.Equal(t, want.factor, got.Factor, body)
+	}
+}
+
+// funcBody type-checks src, a function f, and returns its body and info.
+func funcBody(t *testing.T, src string) (*types.Info, *ast.BlockStmt) {
+	fset := token.NewFileSet()
+	file, err := parser.ParseFile(fset, "p.go", "package p\n\n"+src, 0)
+	require.NoError(t, err)
+	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}}
+	_, err = (&types.Config{Importer: importer.Default()}).Check("p", fset, []*ast.File{file}, info)
+	require.NoError(t, err)
+	return info, file.Decls[len(file.Decls)-1].(*ast.FuncDecl).Body
+}
+
+// ident finds the identifier named name in body.
+func ident(body ast.Node, name string) *ast.Ident {
+	var found *ast.Ident
+	ast.Inspect(body, func(n ast.Node) bool {
+		if id, ok := n.(*ast.Ident); ok && id.Name == name && found == nil {
+			found = id
+		}
+		return found == nil
+	})
+	return found
+}
+
+func TestOrdered(t *testing.T) {
+	for src, want := range map[string]bool{
+		// Bisection: lo or hi moves to the midpoint of both.
+		"func f(lo, hi float64) { for hi-lo > 1e-9 { m := (lo + hi) / 2; if m*m > 2 { hi = m } else { lo = m } } }": true,
+		// The order is restored first.
+		"func f(lo, hi float64) { if lo > hi { lo, hi = hi, lo }; for hi-lo > 1e-9 { hi -= 1 } }": true,
+		// The order is checked.
+		"func f(lo, hi float64) { if hi <= lo { return }; for hi-lo > 1e-9 { hi -= 1 } }": true,
+		// Successive iterates of Newton: a signed step.
+		"func f(hi, lo float64) { for hi-lo > 1e-9 { lo = hi; hi = hi - (hi*hi-2)/(2*hi) } }": false,
+	} {
+		info, body := funcBody(t, src)
+		assert.Equal(t, want, tolerance.Ordered(info, body, ident(body, "hi"), ident(body, "lo")), src)
+	}
+}
+
+func TestShrunkAndFlags(t *testing.T) {
+	info, body := funcBody(t, `func f(a, b float64) bool {
+	w, h, s := b-a, 1.0, 1.0
+	done := false
+	for !done {
+		w *= 0.618
+		h = h / 2
+		s = s * 2
+		done = w < 1e-8 && h < 1e-3
+	}
+	return done
+}`)
+	shrunk := tolerance.Shrunk(info, body.List[2].(*ast.ForStmt).Body)
+	assert.True(t, shrunk[info.Uses[ident(body.List[2], "w")].(*types.Var)])
+	assert.True(t, shrunk[info.Uses[ident(body.List[2], "h")].(*types.Var)])
+	assert.False(t, shrunk[info.Uses[ident(body.List[2], "s")].(*types.Var)], "grows")
+	flags := tolerance.Flags(info, body)
+	assert.Len(t, flags[info.Uses[ident(body.List[2], "done")].(*types.Var)], 1, "the comparison, not the false it starts with")
 }
 
 // TestJudge checks the lines against IEEE 754-2019 binary64: u = 2^-53,

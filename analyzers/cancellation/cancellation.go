@@ -15,6 +15,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/internal/numeric"
@@ -29,7 +30,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "cancellation",
 	Doc:      analyzerdoc.Extract(doc, "cancellation"),
 	URL:      "docs/cancellation.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer},
 	Run:      run,
 }
 
@@ -64,10 +65,11 @@ var (
 type checker struct {
 	pass  *analysis.Pass
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
+	abs   *absval.Known             // absolute-value functions, by meaning
 }
 
 func run(pass *analysis.Pass) (any, error) {
-	c := &checker{pass: pass, decls: constval.DeclsOf(pass)}
+	c := &checker{pass: pass, decls: constval.DeclsOf(pass), abs: absval.Of(pass)}
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
 	for file := range insp.Root().Children() {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
@@ -159,6 +161,12 @@ func (c *checker) mathFunc2(call *ast.CallExpr) string {
 		return ""
 	}
 	return fn.Name()
+}
+
+// absArg returns x when call computes |x|, by math.Abs or any function
+// that does (a float32 library's Abs, a package's own helper).
+func (c *checker) absArg(call *ast.CallExpr) (ast.Expr, bool) {
+	return c.abs.Arg(c.pass.TypesInfo, c.decls, call)
 }
 
 // qualifier returns the name by which call refers to package math.

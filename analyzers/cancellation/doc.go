@@ -71,7 +71,9 @@
 // or an enclosing condition that compares u. The arc rule is silent for an
 // argument computed elsewhere (a parameter) and for an angle that is only
 // counted (math.Ceil, an integer conversion), where half the digits are
-// plenty. The squares rule is silent for constants and whole numbers,
+// plenty. An absolute value is recognised by meaning wherever these rules
+// look for one (guards, signs): math.Abs, a float32 library's Abs, or the
+// package's own helper (absval). The squares rule is silent for constants and whole numbers,
 // whose squares are exact. Code in _test.go files is not checked: a test's
 // arguments come from its own table. The overflow rule is silent when an
 // operand is a constant or a whole number, when it was divided by a

@@ -164,8 +164,14 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 func (c *checker) signKnown(cur inspector.Cursor, u ast.Expr) bool {
 	e, _ := c.through(u)
 	if call, ok := e.(*ast.CallExpr); ok {
+		if _, isAbs := c.absArg(call); isAbs {
+			return true
+		}
 		switch c.mathFunc(call) {
-		case "Abs", "Sqrt", "Exp", "Hypot", "Cosh":
+		case "Sqrt", "Exp", "Cosh":
+			return true
+		}
+		if c.mathFunc2(call) == "Hypot" {
 			return true
 		}
 	}

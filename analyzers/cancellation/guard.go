@@ -166,8 +166,10 @@ func (c *checker) form(e, x ast.Expr) (abs, ok bool) {
 		if same(c.core(e), x) {
 			return false, true
 		}
-		if call, isCall := e.(*ast.CallExpr); isCall && c.mathFunc(call) == "Abs" && same(c.core(call.Args[0]), x) {
-			return true, true
+		if call, isCall := e.(*ast.CallExpr); isCall {
+			if arg, isAbs := c.absArg(call); isAbs && same(c.core(arg), x) {
+				return true, true
+			}
 		}
 		id, isIdent := e.(*ast.Ident)
 		if !isIdent || c.decls[c.pass.TypesInfo.Uses[id]] == nil {

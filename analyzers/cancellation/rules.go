@@ -197,7 +197,7 @@ func (c *checker) overflowsFirst(cur inspector.Cursor) bool {
 		switch p := cur.Parent().Node().(type) {
 		case *ast.ParenExpr, *ast.BinaryExpr, *ast.UnaryExpr:
 		case *ast.CallExpr:
-			if c.mathFunc(p) == "Abs" {
+			if _, isAbs := c.absArg(p); isAbs {
 				continue
 			}
 			return earlyOverflow[c.mathFunc(p)]

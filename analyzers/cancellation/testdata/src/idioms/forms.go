@@ -77,3 +77,23 @@ func (t tabulated) reflected(p float64) float64 {
 func oddsRatio(p, q float64) float64 {
 	return math.Log((1 + p) / (1 - q)) // two different values: not an inverse hyperbolic tangent
 }
+
+// magnitude is the package's own absolute value.
+func magnitude(v float64) float64 {
+	if v < 0 {
+		return -v
+	}
+	return v
+}
+
+func asinhOwnAbs(v float64) float64 {
+	x := magnitude(v)
+	return math.Log(x + math.Sqrt(x*x+1)) // x ≥ 0 by the package's own absolute value
+}
+
+func splitRangeOwnAbs(x float64) float64 {
+	if magnitude(x) > 1e-3 {
+		return math.Log(1 + x) // the author split the range with its own absolute value
+	}
+	return x - x*x/2
+}

@@ -47,6 +47,9 @@
 //     +Inf once |x| or |y| exceeds 1.34e154 and become subnormal below
 //     1.49e-154, though the result is representable; math.Hypot(x, y)
 //     scales instead;
+//   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
+//     the result is about y, also as a term of a sum, which hides no
+//     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));
 //   - math.Log(math.Exp(a)+math.Exp(b)): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form
 //     max(a,b) + math.Log1p(math.Exp(-|a-b|)) is exact in range.
@@ -103,8 +106,8 @@
 // accurate, but misses exact results at powers of the base that
 // math.Log10 and math.Log2 return exactly (8 of 60 powers of two), so it
 // needs review, as does the power's fix, which gives NaN for a negative
-// base where math.Pow gives a value. (a-b)*(a+b), math.Erfc and
-// 2*math.Atanh need review too: where nothing cancels they round differently in the last
+// base where math.Pow gives a value. (a-b)*(a+b), math.Erfc,
+// 2*math.Atanh and the shifted softplus need review too: where nothing cancels they round differently in the last
 // bits. math.Hypot removes the overflow but
 // is up to about 1.6 ulps off in the normal range, where x*x+y*y is within
 // one, and it is slower; whether the extremes occur is the author's

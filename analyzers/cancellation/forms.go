@@ -461,3 +461,28 @@ func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
 	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
 	return true
 }
+
+// softplus reports math.Log(1+math.Exp(y)): e^y overflows to +Inf for y
+// above 709.78, where the result is about y, and 1+e^y rounds to 1 for y
+// below ln(u) ≈ -36.7, where the result is about e^y; a sum does not hide
+// an infinity, so the rule ignores the terms around it. The shifted form
+// max(y,0) + log1p(e^-|y|) is accurate for every y.
+func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr) {
+	d := analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catLogSumExp,
+		Message: fmt.Sprintf("math.Log(1+math.Exp(y))%s overflows to +Inf for y above %.6g, where the result is about y, and returns 0 for y below %.3g, where 1+e^y rounds to 1; use math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)))",
+			binding("y", y), expOverflow, math.Log(unitRoundoff)),
+	}
+	if !fixes.Pure(c.pass.TypesInfo, y) {
+		fixes.Report(c.pass, d) // the fix would evaluate y twice
+		return
+	}
+	q, ys := qualifier(call), fixes.Source(c.pass.Fset, ast.Unparen(y))
+	text := fmt.Sprintf("%s.Max(%s, 0) + %[1]s.Log1p(%[1]s.Exp(-%[1]s.Abs(%[2]s)))", q, ys)
+	if _, inOperation := cur.Parent().Node().(*ast.BinaryExpr); inOperation {
+		text = "(" + text + ")"
+	}
+	// Needs review: the forms agree at ±Inf and NaN, but differ in the last
+	// bits where nothing overflows.
+	fixes.Report(c.pass, d, fixes.Judgement("Shift by the larger of y and 0", fixes.Replace(call, text)))
+}

@@ -16,8 +16,15 @@ import (
 // sees them.
 func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	x, neg, ok := c.onePlus(call.Args[0])
-	if !ok || !c.lossShows(cur, x) {
+	if !ok {
 		return // Log(x-1) and Log(2+x) lose nothing to 1
+	}
+	if e, isCall := ast.Unparen(x).(*ast.CallExpr); isCall && !neg && name == "Log" && c.mathFunc(e) == "Exp" && !c.isConst(e.Args[0]) {
+		c.softplus(cur, call, e.Args[0])
+		return
+	}
+	if !c.lossShows(cur, x) {
+		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
 	if neg {

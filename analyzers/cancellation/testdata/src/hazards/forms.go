@@ -95,3 +95,7 @@ func (d logisticLaw) Survival(x float64) float64 {
 func mercatorY(s float64) float64 {
 	return 0.5 * math.Log((1+s)/(1-s)) // want `math.Log\(\(1\+x\)/\(1-x\)\) with x = s returns 0 for \|x\| below 5.55e-17.*use 2\*math.Atanh\(x\)`
 }
+
+func logisticLogDensity(z float64) float64 {
+	return z - 2*math.Log(math.Exp(z)+1) // want `math.Log\(1\+math.Exp\(y\)\) with y = z overflows`
+}

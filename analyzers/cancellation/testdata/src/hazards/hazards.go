@@ -33,7 +33,7 @@ func logOnePlusSquare(z, nu float64) float64 {
 }
 
 func softplus(x float64) float64 {
-	return math.Log(1 + math.Exp(x)) // want `math.Log\(1\+x\) with x = math.Exp\(x\)`
+	return math.Log(1 + math.Exp(x)) // want `math.Log\(1\+math.Exp\(y\)\) with y = x overflows to \+Inf for y above 709.783, where the result is about y, and returns 0 for y below -36.7`
 }
 
 func logFloatOne(x float64) float64 {

@@ -43,10 +43,13 @@
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
 //     subtraction;
-//   - math.Sqrt(x*x+y*y), the same x and y squared: the squares overflow to
-//     +Inf once |x| or |y| exceeds 1.34e154 and become subnormal below
-//     1.49e-154, though the result is representable; math.Hypot(x, y)
-//     scales instead;
+//   - math.Sqrt(x*x+y*y), the same x and y squared, where an operand is
+//     computed by an operation that reaches such magnitudes from ordinary
+//     inputs (a quotient by a variable, an exponential, power, gamma,
+//     tangent or hyperbolic function, a constant beyond 1e100): the
+//     squares overflow to +Inf once |x| or |y| exceeds 1.34e154 and become
+//     subnormal below 1.49e-154, though the result is representable;
+//     math.Hypot(x, y) scales instead;
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));
@@ -83,7 +86,10 @@
 // variable scale first (xs := x / s), when an enclosing condition compares
 // it or its absolute value, as scaled rotations do, and when the result
 // feeds math.Exp, Cosh, Sinh or Gamma, which overflow long before the
-// squares, and where both operands are bounded by construction (sines,
+// squares; for squares of data (parameters, fields, coordinates and their
+// differences), which reach 1e154 only if the data do, and physical and
+// geometric data do not; and where both operands are bounded by
+// construction (sines,
 // cosines, components of a unit vector a/math.Hypot(a, b), sums and
 // products of those): there nothing overflows, and math.Hypot is less
 // accurate on average (0.35 against 0.17 ulp over a million random pairs).

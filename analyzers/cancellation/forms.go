@@ -486,3 +486,39 @@ func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr)
 	// bits where nothing overflows.
 	fixes.Report(c.pass, d, fixes.Judgement("Shift by the larger of y and 0", fixes.Replace(call, text)))
 }
+
+// farReaching reports whether e is computed by an operation that reaches
+// magnitudes beyond 1e154 or below 1e-154 from ordinary inputs: a quotient
+// by a variable (which may be small), an exponential, power, gamma,
+// tangent or hyperbolic function, or a constant already out there;
+// directly, through sums, products and signs, or through never-reassigned
+// variables. Squares of data (coordinates, differences, fields) reach
+// those magnitudes only if the data do, which physical and geometric data
+// do not; there math.Hypot would only cost accuracy (0.35 against 0.17 ulp
+// on average).
+func (c *checker) farReaching(e ast.Expr, depth int) bool {
+	e, _ = c.through(e)
+	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
+		f, _ := constant.Float64Val(constant.ToFloat(v))
+		return f != 0 && (math.Abs(f) > 1e100 || math.Abs(f) < 1e-100)
+	}
+	if depth == 0 {
+		return false
+	}
+	switch e := e.(type) {
+	case *ast.CallExpr:
+		switch c.mathFunc(e) {
+		case "Exp", "Exp2", "Gamma", "Tan", "Cosh", "Sinh":
+			return true
+		}
+		return c.mathFunc2(e) == "Pow" || c.mathFunc2(e) == "Ldexp"
+	case *ast.UnaryExpr:
+		return c.farReaching(e.X, depth-1)
+	case *ast.BinaryExpr:
+		if e.Op == token.QUO && !c.isConst(e.Y) {
+			return true
+		}
+		return c.farReaching(e.X, depth-1) || c.farReaching(e.Y, depth-1)
+	}
+	return false
+}

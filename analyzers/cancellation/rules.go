@@ -124,8 +124,8 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 	if !okx || !oky {
 		return // not a sum of exactly two squares
 	}
-	if c.bounded(x, 4) && c.bounded(y, 4) {
-		return // sines, cosines, unit-vector components: math.Hypot would only cost accuracy
+	if !c.farReaching(x, 4) && !c.farReaching(y, 4) || c.bounded(x, 4) && c.bounded(y, 4) {
+		return // data, or sines and cosines: math.Hypot would only cost accuracy
 	}
 	for _, e := range []ast.Expr{x, y} {
 		if c.isConst(e) || c.wholeNumber(e) || c.scaled(e) || c.guarded(cur, e, c.compares) {

@@ -92,16 +92,17 @@ func versineOfCall(x float64) float64 {
 	return 1 - math.Cos(f(x)) // want `1-math.Cos\(x\) with x = f\(x\)`
 }
 
-func norm(x, y float64) float64 {
-	return math.Sqrt(x*x + y*y) // want `math.Sqrt\(x\*x\+y\*y\) overflows to \+Inf once \|x\| or \|y\| exceeds 1.34e\+154 and loses precision below 1.49e-154.*use math.Hypot\(x, y\)`
+func norm(x, y, s float64) float64 {
+	return math.Sqrt(x/s*(x/s) + y*y) // want `math.Sqrt\(x\*x\+y\*y\) with x = x / s overflows to \+Inf once \|x\| or \|y\| exceeds 1.34e\+154 and loses precision below 1.49e-154.*use math.Hypot\(x, y\)`
 }
 
-func length(p point) float64 {
-	return math.Sqrt(p.X*p.X + p.Y*p.Y) // want `math.Sqrt\(x\*x\+y\*y\) with x = p.X, y = p.Y`
+func length(p point, t float64) float64 {
+	e := math.Exp(t)
+	return math.Sqrt(p.X*e*(p.X*e) + p.Y*p.Y) // want `math.Sqrt\(x\*x\+y\*y\) with x = p.X \* e, y = p.Y`
 }
 
 func distance(a, b, c float64) float64 {
-	return math.Sqrt((a-b)*(a-b) + c*c) // want `with x = a - b, y = c overflows`
+	return math.Sqrt((a-b)*(a-b) + math.Pow(c, 3)*math.Pow(c, 3)) // want `with x = a - b, y = math.Pow\(c, 3\) overflows`
 }
 
 func logSumExp(a, b float64) float64 {

@@ -97,3 +97,16 @@ func splitRangeOwnAbs(x float64) float64 {
 	}
 	return x - x*x/2
 }
+
+type vertex struct{ X, Y float64 }
+
+// Squares of data: coordinates and their differences reach 1.34e154 only
+// if the data do; math.Hypot would cost accuracy for nothing.
+func segmentLength(a, b vertex) float64 {
+	dx, dy := b.X-a.X, b.Y-a.Y
+	return math.Sqrt(dx*dx + dy*dy)
+}
+
+func planeNorm(x, y float64) float64 {
+	return math.Sqrt(x*x + y*y)
+}

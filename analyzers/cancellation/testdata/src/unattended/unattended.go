@@ -5,7 +5,7 @@ package unattended
 import "math"
 
 func both(x, a, b float64) (float64, float64, float64) {
-	return math.Log(1 + x), math.Log(math.Exp(a) + math.Exp(b)), math.Sqrt(a*a + b*b) // want `math.Log\(1\+x\) returns 0` `math.Log\(math.Exp\(a\)\+math.Exp\(b\)\) overflows` `math.Sqrt\(x\*x\+y\*y\) with x = a, y = b overflows`
+	return math.Log(1 + x), math.Log(math.Exp(a) + math.Exp(b)), math.Sqrt(a/x*(a/x) + b*b) // want `math.Log\(1\+x\) returns 0` `math.Log\(math.Exp\(a\)\+math.Exp\(b\)\) overflows` `math.Sqrt\(x\*x\+y\*y\) with x = a / x, y = b overflows`
 }
 
 func more(x, r, t float64) (float64, float64, float64) {

@@ -386,6 +386,9 @@ func (c *checker) squares(n *ast.BinaryExpr) bool {
 	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) {
 		return true // known, or whole numbers whose squares are exact
 	}
+	if c.computed(a) || c.computed(b) {
+		return true // the operand's own rounding error already costs what the factorisation would save
+	}
 	fset := c.pass.Fset
 	text := "(" + fixes.Operand(fset, a, token.ADD.Precedence()) + " - " + fixes.Operand(fset, b, token.ADD.Precedence()+1) +
 		") * (" + fixes.Operand(fset, a, token.ADD.Precedence()) + " + " + fixes.Operand(fset, b, token.ADD.Precedence()) + ")"
@@ -519,6 +522,23 @@ func (c *checker) farReaching(e ast.Expr, depth int) bool {
 			return true
 		}
 		return c.farReaching(e.X, depth-1) || c.farReaching(e.Y, depth-1)
+	}
+	return false
+}
+
+// computed reports whether e, directly or through never-reassigned
+// variables, is the result of arithmetic or of a call rather than an input
+// (a parameter, a field, an element, a constant). A computed c carries a
+// relative error of a rounding, so 1 - c*c has an absolute error of about
+// 2u near |c| = 1 however it is formed: (1-c)*(1+c) gains only for exact
+// inputs.
+func (c *checker) computed(e ast.Expr) bool {
+	e, _ = c.through(e)
+	switch e := e.(type) {
+	case *ast.BinaryExpr, *ast.CallExpr:
+		return !c.isConst(e)
+	case *ast.UnaryExpr:
+		return c.computed(e.X)
 	}
 	return false
 }

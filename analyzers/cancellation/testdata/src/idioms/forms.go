@@ -110,3 +110,13 @@ func segmentLength(a, b vertex) float64 {
 func planeNorm(x, y float64) float64 {
 	return math.Sqrt(x*x + y*y)
 }
+
+func sineFromComputedCosine(z, r float64) float64 {
+	c := z / r
+	return math.Sqrt(1 - c*c) // c carries its own rounding: 1-c*c inherits 2u from it however it is formed
+}
+
+func tanhDerivative(x float64) float64 {
+	t := math.Tanh(x)
+	return 1 - t*t // the same for a computed tanh
+}

@@ -83,8 +83,9 @@
 // and whole numbers, whose squares are exact, and for operands computed in
 // the function (c := z/r; 1 - c*c): a computed c carries a rounding of its
 // own, so 1 - c² has an absolute error of about 2u near |c| = 1 however it
-// is formed, and the factorisation gains only for exact inputs.
-// arguments come from its own table. The overflow rule is silent when an
+// is formed, and the factorisation gains only for exact inputs. Code in
+// _test.go files is not checked: a test's arguments come from its own
+// table. The overflow rule is silent when an
 // operand is a constant or a whole number, when it was divided by a
 // variable scale first (xs := x / s), when an enclosing condition compares
 // it or its absolute value, as scaled rotations do, and when the result

@@ -37,7 +37,7 @@ func Instalment(p, r float64, n int) float64 {
 	if r == 0 { // idiom: exact zero before dividing; the formula below is 0/0 there
 		return p / float64(n)
 	}
-	return p * r / (1 - math.Pow(1+r, -float64(n))) // planted: (1+r)^-n is near 1 for a small rate, and 1 minus it keeps only the power's rounding error
+	return p * r / (1 - math.Pow(1+r, -float64(n))) // planted (cancellation): (1+r)^-n is near 1 for a small rate, and 1 minus it keeps only the power's rounding error
 }
 
 // Share returns a member's share of the month's revenue.

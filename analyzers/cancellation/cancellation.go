@@ -64,13 +64,14 @@ var (
 // checker holds what one run needs.
 type checker struct {
 	pass  *analysis.Pass
+	insp  *inspector.Inspector
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
 	abs   *absval.Known             // absolute-value functions, by meaning
 }
 
 func run(pass *analysis.Pass) (any, error) {
-	c := &checker{pass: pass, decls: constval.DeclsOf(pass), abs: absval.Of(pass)}
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
+	c := &checker{pass: pass, insp: insp, decls: constval.DeclsOf(pass), abs: absval.Of(pass)}
 	for file := range insp.Root().Children() {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
 			continue // a test's arguments come from its own table of cases

@@ -81,7 +81,8 @@
 // look for one (guards, signs): math.Abs, a float32 library's Abs, or the
 // package's own helper (absval). The squares rule is silent for constants
 // and whole numbers, whose squares are exact, and for operands computed in
-// the function (c := z/r; 1 - c*c): a computed c carries a rounding of its
+// the function (c := z/r; 1 - c*c, also when every value assigned to c is
+// computed): a computed c carries a rounding of its
 // own, so 1 - c² has an absolute error of about 2u near |c| = 1 however it
 // is formed, and the factorisation gains only for exact inputs. Code in
 // _test.go files is not checked: a test's arguments come from its own

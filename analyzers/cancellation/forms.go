@@ -539,6 +539,42 @@ func (c *checker) computed(e ast.Expr) bool {
 		return !c.isConst(e)
 	case *ast.UnaryExpr:
 		return c.computed(e.X)
+	case *ast.Ident:
+		return c.assignedComputed(e)
 	}
 	return false
+}
+
+// assignedComputed reports whether the local variable id is assigned, and
+// every value assigned to it in its function is computed (ack = (at+1)*raz
+// in one place, ack = ... in another).
+func (c *checker) assignedComputed(id *ast.Ident) bool {
+	v, ok := c.pass.TypesInfo.Uses[id].(*types.Var)
+	if !ok || v.Parent() == nil || v.Parent() == c.pass.Pkg.Scope() {
+		return false
+	}
+	cur, ok := c.insp.Root().FindNode(id)
+	if !ok {
+		return false
+	}
+	n := 0
+	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		for a := range fn.Preorder((*ast.AssignStmt)(nil)) {
+			as := a.Node().(*ast.AssignStmt)
+			for i, lhs := range as.Lhs {
+				if l, isIdent := lhs.(*ast.Ident); !isIdent || c.pass.TypesInfo.ObjectOf(l) != v {
+					continue
+				}
+				if len(as.Rhs) != len(as.Lhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
+					return false
+				}
+				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computed(as.Rhs[i]) {
+					return false
+				}
+				n++
+			}
+		}
+		break
+	}
+	return n > 0
 }

@@ -120,3 +120,11 @@ func tanhDerivative(x float64) float64 {
 	t := math.Tanh(x)
 	return 1 - t*t // the same for a computed tanh
 }
+
+func reassignedRatio(a, b, c float64) float64 {
+	r := a / b
+	if r > 2 {
+		r = b / c
+	}
+	return 1 - r*r // every value of r is computed: its own rounding dominates
+}

@@ -95,6 +95,10 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 			return false
 		case *ast.ReturnStmt:
 			l.exit(conds)
+		case *ast.ExprStmt:
+			if call, ok := n.X.(*ast.CallExpr); ok && isPanic(call) {
+				l.exit(conds) // if n > maxIter { panic(...) } is a cap too
+			}
 		case *ast.BranchStmt:
 			switch {
 			case n.Tok == token.BREAK && n.Label == nil:
@@ -105,6 +109,12 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 		}
 		return true
 	})
+}
+
+// isPanic reports whether call is of the builtin panic.
+func isPanic(call *ast.CallExpr) bool {
+	id, ok := ast.Unparen(call.Fun).(*ast.Ident)
+	return ok && id.Name == "panic" && id.Obj == nil
 }
 
 // walkInner looks into a nested loop or switch, where an unlabelled break

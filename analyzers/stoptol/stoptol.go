@@ -108,13 +108,7 @@ func run(pass *analysis.Pass) (any, error) {
 			c.gradient(cur, n)
 		}
 	}
-	c.uses.Export()
-	known := c.uses.Lookup()
-	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
-		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, how, nil)
-		})
-	}
+	c.sites(root)
 	return nil, nil
 }
 

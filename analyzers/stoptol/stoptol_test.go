@@ -115,3 +115,9 @@ func TestRelated(t *testing.T) {
 func position(p token.Position) string {
 	return fmt.Sprintf("%s:%d", filepath.Base(p.Filename), p.Line)
 }
+
+// TestCompose checks tolerances that reach a test through wrappers of
+// wrappers, fields, slices filled with one value and test tables.
+func TestCompose(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "compose")
+}

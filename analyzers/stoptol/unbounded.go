@@ -34,7 +34,7 @@ const (
 // the term, fresh draws (sampling, polling), values carried only by integer
 // counters or by walking data, and scans by a given step.
 func (c *checker) unbounded(l *loop) {
-	if l.capped || l.other || len(l.exits) == 0 || strings.HasSuffix(c.pass.Fset.File(l.stmt.Pos()).Name(), "_test.go") {
+	if l.capped || l.other || len(l.exits) == 0 || inTestFile(c.pass, l.stmt) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)
@@ -710,6 +710,11 @@ func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
 		return true
 	})
 	return out
+}
+
+// inTestFile reports whether n lies in a _test.go file.
+func inTestFile(pass *analysis.Pass, n ast.Node) bool {
+	return strings.HasSuffix(pass.Fset.File(n.Pos()).Name(), "_test.go")
 }
 
 // carriesFloats reports whether a value of type t can carry float work

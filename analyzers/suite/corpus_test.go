@@ -1,0 +1,239 @@
+package suite_test
+
+import (
+	"encoding/csv"
+	"fmt"
+	"go/token"
+	"io"
+	"maps"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"slices"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/analysis/checker"
+	"golang.org/x/tools/go/packages"
+
+	"roundoff/analyzers/suite"
+)
+
+// corpusEnv names the directory that holds one work tree per repository
+// of the development corpus (docs/evaluation.md says how to make them).
+const corpusEnv = "ROUNDOFF_CORPUS"
+
+// labelsFile holds the hand labels of the corpus, made by reading code
+// that a separate scan (tools/corpusscan) listed, without the tool's
+// findings: repo, commit, file, line, analyzer, verdict, source, reason.
+const labelsFile = "../../testdata/corpus/labels.tsv"
+
+// A label is one hand-judged site.
+type label struct {
+	repo, commit, file string
+	line               int
+	analyzer, verdict  string
+}
+
+// A site is a file and line in one repository.
+type site struct {
+	repo, file string
+	line       int
+}
+
+// A finding is one diagnostic with the sites it names: its own position
+// and its related locations.
+type finding struct {
+	analyzer string
+	at       site
+	sites    []site
+}
+
+// TestCorpus lints every repository of the development corpus with the
+// whole suite and scores the findings against the hand labels: a labelled
+// hazard counts as found when a finding names its line, and a finding is
+// true when it names a line labelled hazard, false when it names only
+// lines labelled clean, and unjudged otherwise. It prints the tables of
+// docs/evaluation.md and the unjudged findings, which must be read and
+// labelled (source "review") before the numbers are quoted.
+func TestCorpus(t *testing.T) {
+	dir := os.Getenv(corpusEnv)
+	if dir == "" {
+		t.Skip(corpusEnv + " does not name the corpus work trees")
+	}
+	labels := readLabels(t)
+	byRepo := map[string][]label{}
+	for _, l := range labels {
+		byRepo[l.repo] = append(byRepo[l.repo], l)
+	}
+	var findings []finding
+	for _, repo := range slices.Sorted(maps.Keys(byRepo)) {
+		findings = append(findings, lintRepo(t, filepath.Join(dir, repo), repo, byRepo[repo][0].commit)...)
+	}
+	report(t, labels, findings)
+}
+
+// readLabels reads labelsFile.
+func readLabels(t *testing.T) []label {
+	f, err := os.Open(labelsFile)
+	require.NoError(t, err)
+	defer f.Close()
+	r := csv.NewReader(f)
+	r.Comma, r.Comment, r.FieldsPerRecord, r.LazyQuotes = '\t', '#', 8, true
+	var out []label
+	for {
+		rec, err := r.Read()
+		if err == io.EOF {
+			return out
+		}
+		require.NoError(t, err)
+		line, err := strconv.Atoi(rec[3])
+		require.NoError(t, err, "line of %v", rec)
+		require.Contains(t, []string{"hazard", "clean"}, rec[5], "verdict of %v", rec)
+		out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5]})
+	}
+}
+
+// lintRepo lints the work tree of one repository, which must be at the
+// labelled commit, tests included, and returns its findings.
+func lintRepo(t *testing.T, root, repo, commit string) []finding {
+	head, err := exec.Command("git", "-C", root, "rev-parse", "HEAD").Output()
+	require.NoError(t, err, repo)
+	require.Equal(t, commit, strings.TrimSpace(string(head)), "%s: work tree not at the labelled commit", repo)
+	pattern := "./..."
+	if repo == "gg" {
+		pattern = "." // its examples/ are separate programs in one directory
+	}
+	cfg := &packages.Config{Mode: packages.LoadAllSyntax, Tests: true, Dir: root, Env: append(os.Environ(), "GOFLAGS=-mod=mod")}
+	pkgs, err := packages.Load(cfg, pattern)
+	require.NoError(t, err, repo)
+	graph, err := checker.Analyze(suite.Analyzers, pkgs, nil)
+	require.NoError(t, err, repo)
+	seen := map[string]bool{}
+	var out []finding
+	for act := range graph.All() {
+		if !act.IsRoot {
+			continue
+		}
+		for _, d := range act.Diagnostics {
+			f := finding{analyzer: act.Analyzer.Name, at: siteOf(act.Package.Fset, root, repo, d.Pos)}
+			f.sites = append(f.sites, f.at)
+			for _, r := range d.Related {
+				f.sites = append(f.sites, siteOf(act.Package.Fset, root, repo, r.Pos))
+			}
+			key := fmt.Sprint(f.analyzer, f.at, d.Message)
+			if !seen[key] { // a file seen by a package and its test variant
+				seen[key] = true
+				out = append(out, f)
+			}
+		}
+	}
+	return out
+}
+
+// siteOf returns the site of pos, its file relative to the work tree.
+func siteOf(fset *token.FileSet, root, repo string, pos token.Pos) site {
+	p := fset.PositionFor(pos, false)
+	rel, err := filepath.Rel(root, p.Filename)
+	if err != nil {
+		rel = p.Filename
+	}
+	return site{repo, filepath.ToSlash(rel), p.Line}
+}
+
+// A score counts one analyzer's results over a set of labels.
+type score struct {
+	hazards, found        int // labelled hazards, and those some finding names
+	findings, truePos, fp int // findings, true ones, false ones
+}
+
+func (s score) precision() string { return ratio(s.truePos, s.truePos+s.fp) }
+func (s score) recall() string    { return ratio(s.found, s.hazards) }
+
+func ratio(a, b int) string {
+	if b == 0 {
+		return "–"
+	}
+	return fmt.Sprintf("%.2f (%d/%d)", float64(a)/float64(b), a, b)
+}
+
+// report scores findings against labels per analyzer and per repository
+// and logs the tables and the unjudged findings.
+func report(t *testing.T, labels []label, findings []finding) {
+	verdicts := map[site]string{} // hazard wins over clean on one line
+	for _, l := range labels {
+		s := site{l.repo, l.file, l.line}
+		if verdicts[s] != "hazard" {
+			verdicts[s] = l.verdict
+		}
+	}
+	named := map[site]bool{}
+	perAnalyzer, perRepo := map[string]*score{}, map[string]*score{}
+	get := func(m map[string]*score, k string) *score {
+		if m[k] == nil {
+			m[k] = new(score)
+		}
+		return m[k]
+	}
+	var unjudged []string
+	for _, f := range findings {
+		verdict := "" // hazard if any site is one, else clean if any is
+		for _, s := range f.sites {
+			named[s] = true
+			if verdict != "hazard" && verdicts[s] != "" {
+				verdict = verdicts[s]
+			}
+		}
+		for _, sc := range []*score{get(perAnalyzer, f.analyzer), get(perRepo, f.at.repo)} {
+			sc.findings++
+			switch verdict {
+			case "hazard":
+				sc.truePos++
+			case "clean":
+				sc.fp++
+			}
+		}
+		if verdict == "" {
+			unjudged = append(unjudged, fmt.Sprintf("%s\t%s:%d\t%s", f.at.repo, f.at.file, f.at.line, f.analyzer))
+		}
+	}
+	for _, l := range labels {
+		if l.verdict != "hazard" {
+			continue
+		}
+		found := named[site{l.repo, l.file, l.line}]
+		for _, sc := range []*score{get(perAnalyzer, l.analyzer), get(perRepo, l.repo)} {
+			sc.hazards++
+			if found {
+				sc.found++
+			}
+		}
+	}
+	var b strings.Builder
+	table(&b, "analyzer", perAnalyzer)
+	table(&b, "repository", perRepo)
+	slices.Sort(unjudged)
+	fmt.Fprintf(&b, "\n%d unjudged findings:\n%s\n", len(unjudged), strings.Join(unjudged, "\n"))
+	t.Log("\n" + b.String())
+	if out := os.Getenv("ROUNDOFF_CORPUS_REPORT"); out != "" {
+		require.NoError(t, os.WriteFile(out, []byte(b.String()), 0o644))
+	}
+}
+
+// table writes one Markdown table of scores, rows sorted by key.
+func table(w io.Writer, key string, scores map[string]*score) {
+	fmt.Fprintf(w, "\n| %s | findings | precision | recall |\n| --- | ---: | ---: | ---: |\n", key)
+	var all score
+	for _, k := range slices.Sorted(maps.Keys(scores)) {
+		s := *scores[k]
+		fmt.Fprintf(w, "| %s | %d | %s | %s |\n", k, s.findings, s.precision(), s.recall())
+		all.hazards += s.hazards
+		all.found += s.found
+		all.findings += s.findings
+		all.truePos += s.truePos
+		all.fp += s.fp
+	}
+	fmt.Fprintf(w, "| all | %d | %s | %s |\n", all.findings, all.precision(), all.recall())
+}

@@ -1,6 +1,7 @@
 package suite_test
 
 import (
+	"bytes"
 	"encoding/csv"
 	"fmt"
 	"go/token"
@@ -25,10 +26,12 @@ import (
 // of the development corpus (docs/evaluation.md says how to make them).
 const corpusEnv = "ROUNDOFF_CORPUS"
 
-// labelsFile holds the hand labels of the corpus, made by reading code
-// that a separate scan (tools/corpusscan) listed, without the tool's
-// findings: repo, commit, file, line, analyzer, verdict, source, reason.
-const labelsFile = "../../testdata/corpus/labels.tsv"
+// labelsDir holds the hand labels of the corpus, one file per repository,
+// made by reading code that a separate scan (tools/corpusscan) listed,
+// without the tool's findings. Each line, tab-separated: repo, commit,
+// file, line, analyzer, verdict (hazard or clean), source (scan,
+// scan-sample, read or review), reason.
+const labelsDir = "../../testdata/corpus/labels"
 
 // A label is one hand-judged site.
 type label struct {
@@ -75,25 +78,26 @@ func TestCorpus(t *testing.T) {
 	report(t, labels, findings)
 }
 
-// readLabels reads labelsFile.
+// readLabels reads every file of labelsDir.
 func readLabels(t *testing.T) []label {
-	f, err := os.Open(labelsFile)
+	files, err := filepath.Glob(filepath.Join(labelsDir, "*.tsv"))
 	require.NoError(t, err)
-	defer f.Close()
-	r := csv.NewReader(f)
-	r.Comma, r.Comment, r.FieldsPerRecord, r.LazyQuotes = '\t', '#', 8, true
 	var out []label
-	for {
-		rec, err := r.Read()
-		if err == io.EOF {
-			return out
-		}
+	for _, name := range files {
+		data, err := os.ReadFile(name)
 		require.NoError(t, err)
-		line, err := strconv.Atoi(rec[3])
-		require.NoError(t, err, "line of %v", rec)
-		require.Contains(t, []string{"hazard", "clean"}, rec[5], "verdict of %v", rec)
-		out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5]})
+		r := csv.NewReader(bytes.NewReader(data))
+		r.Comma, r.FieldsPerRecord, r.LazyQuotes = '\t', 8, true
+		recs, err := r.ReadAll()
+		require.NoError(t, err, name)
+		for _, rec := range recs {
+			line, err := strconv.Atoi(rec[3])
+			require.NoError(t, err, "%s: line of %v", name, rec)
+			require.Contains(t, []string{"hazard", "clean"}, rec[5], "%s: verdict of %v", name, rec)
+			out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5]})
+		}
 	}
+	return out
 }
 
 // lintRepo lints the work tree of one repository, which must be at the

@@ -105,14 +105,11 @@ func scan(file string, src []byte) ([]row, error) {
 	return rows, nil
 }
 
-// text is the one-line source of n, truncated to 160 bytes.
+// text is the one-line source of n, truncated to 160 characters.
 func text(src []byte, fset *token.FileSet, n ast.Node) string {
 	s := string(src[fset.Position(n.Pos()).Offset:fset.Position(n.End()).Offset])
-	s = strings.Join(strings.Fields(s), " ")
-	if len(s) > 160 {
-		s = s[:160]
-	}
-	return s
+	r := []rune(strings.Join(strings.Fields(s), " "))
+	return string(r[:min(len(r), 160)])
 }
 
 var (

@@ -241,3 +241,50 @@ func table(w io.Writer, key string, scores map[string]*score) {
 	}
 	fmt.Fprintf(w, "| all | %d | %s | %s |\n", all.findings, all.precision(), all.recall())
 }
+
+// secondRater holds the verdicts of a second reader who judged a random
+// sample of 100 labelled sites (40 drawn from the hazards, 60 from the
+// cleans) without seeing the first labels: repo, file, line, analyzer,
+// verdict, reason.
+const secondRater = "../../testdata/corpus/second-rater.tsv"
+
+// TestLabelAgreement measures how far two independent readers agree on
+// the labels, by Cohen's kappa (Cohen 1960: observed agreement corrected
+// for the agreement two raters with the same verdict rates would reach by
+// chance). Labels that readers cannot agree on would measure nothing; a
+// kappa above 0.6 is conventionally read as substantial agreement (Landis
+// & Koch 1977, quoted from memory).
+func TestLabelAgreement(t *testing.T) {
+	first := map[site]string{}
+	for _, l := range readLabels(t) {
+		first[site{l.repo, l.file, l.line}] = l.verdict
+	}
+	data, err := os.ReadFile(secondRater)
+	require.NoError(t, err)
+	r := csv.NewReader(bytes.NewReader(data))
+	r.Comma, r.FieldsPerRecord, r.LazyQuotes = '\t', 6, true
+	recs, err := r.ReadAll()
+	require.NoError(t, err)
+	var n, agree, hazard1, hazard2 float64
+	for _, rec := range recs {
+		line, err := strconv.Atoi(rec[2])
+		require.NoError(t, err)
+		v1 := first[site{rec[0], rec[1], line}]
+		require.NotEmpty(t, v1, "%v has no first label", rec)
+		n++
+		if v1 == rec[4] {
+			agree++
+		}
+		if v1 == "hazard" {
+			hazard1++
+		}
+		if rec[4] == "hazard" {
+			hazard2++
+		}
+	}
+	po := agree / n
+	pe := hazard1/n*hazard2/n + (1-hazard1/n)*(1-hazard2/n)
+	kappa := (po - pe) / (1 - pe)
+	t.Logf("%d sites, agreement %.2f, Cohen's kappa %.2f", int(n), po, kappa)
+	require.Greater(t, kappa, 0.6)
+}

@@ -36,8 +36,8 @@ const labelsDir = "../../testdata/corpus/labels"
 // A label is one hand-judged site.
 type label struct {
 	repo, commit, file string
-	line               int
-	analyzer, verdict  string
+	line                      int
+	analyzer, verdict, source string
 }
 
 // A site is a file and line in one repository.
@@ -60,7 +60,9 @@ type finding struct {
 // true when it names a line labelled hazard, false when it names only
 // lines labelled clean, and unjudged otherwise. It prints the tables of
 // docs/evaluation.md and the unjudged findings, which must be read and
-// labelled (source "review") before the numbers are quoted.
+// labelled (source "review") before the numbers are quoted. Recall counts
+// only the hazards labelled without the tool, so reviewing findings can
+// change precision but never raise recall.
 func TestCorpus(t *testing.T) {
 	dir := os.Getenv(corpusEnv)
 	if dir == "" {
@@ -94,7 +96,7 @@ func readLabels(t *testing.T) []label {
 			line, err := strconv.Atoi(rec[3])
 			require.NoError(t, err, "%s: line of %v", name, rec)
 			require.Contains(t, []string{"hazard", "clean"}, rec[5], "%s: verdict of %v", name, rec)
-			out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5]})
+			out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5], rec[6]})
 		}
 	}
 	return out
@@ -204,8 +206,8 @@ func report(t *testing.T, labels []label, findings []finding) {
 		}
 	}
 	for _, l := range labels {
-		if l.verdict != "hazard" {
-			continue
+		if l.verdict != "hazard" || l.source == "review" {
+			continue // recall counts only hazards found without the tool
 		}
 		found := named[site{l.repo, l.file, l.line}]
 		for _, sc := range []*score{get(perAnalyzer, l.analyzer), get(perRepo, l.repo)} {

@@ -35,7 +35,7 @@ const labelsDir = "../../testdata/corpus/labels"
 
 // A label is one hand-judged site.
 type label struct {
-	repo, commit, file string
+	repo, commit, file        string
 	line                      int
 	analyzer, verdict, source string
 }

@@ -107,7 +107,7 @@ func (e *env) hookInstall(force bool) int {
 		return e.errorf("hook install: %v", err)
 	}
 	if err := writeAtomic(path, []byte(hookScript())); err != nil {
-		return e.errorf("hook install: %v", err)
+		return e.errorf("hook install: %s: %v", path, err)
 	}
 	if err := os.Chmod(path, 0o755); err != nil {
 		return e.errorf("hook install: %v", err)

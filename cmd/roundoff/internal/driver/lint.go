@@ -6,7 +6,6 @@ import (
 	"flag"
 	"fmt"
 	"go/ast"
-	"go/token"
 	"os"
 	"slices"
 	"strings"
@@ -36,6 +35,7 @@ type report struct {
 	findings []*finding
 	failed   bool                // some package did not load or analyze
 	files    map[string]rootFile // the root packages' files, by name
+	editable map[string]bool     // their Go source files, false when generated
 	src      sources
 	root     string // the project root: git work tree top or module root
 }
@@ -43,7 +43,7 @@ type report struct {
 // A rootFile is a file of a package named on the command line.
 type rootFile struct {
 	file  *ast.File
-	fset  *token.FileSet
+	res   *resolver
 	pkgID string
 }
 
@@ -75,7 +75,7 @@ func (e *env) lint(o *options, dir string) int {
 	if err != nil {
 		return e.errorf("%v", err)
 	}
-	r := &report{cfg: cfg, src: sources{}, root: sc.root, files: map[string]rootFile{}}
+	r := newReport(cfg, sc.root)
 	pkgs, ok := e.load(o, dir, analyzers)
 	if pkgs == nil {
 		return exitErrors
@@ -90,6 +90,10 @@ func (e *env) lint(o *options, dir string) int {
 		e.staleReviews(r, analyzers)
 	}
 	return e.finish(o, r, sc)
+}
+
+func newReport(cfg *config.Config, root string) *report {
+	return &report{cfg: cfg, src: sources{}, root: root, files: map[string]rootFile{}, editable: map[string]bool{}}
 }
 
 // loadConfig reads the configuration file named by -config, or else the
@@ -179,11 +183,7 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 	seen := map[key]bool{}
 	for _, act := range graph.Roots {
 		pkg := act.Package
-		for _, f := range pkg.Syntax {
-			if name := pkg.Fset.File(f.FileStart).Name(); r.files[name].file == nil {
-				r.files[name] = rootFile{f, pkg.Fset, pkg.ID}
-			}
-		}
+		res := r.resolver(pkg)
 		if act.Err != nil {
 			if !pkg.IllTyped { // ill-typed packages were reported when loaded
 				e.errorf("%s on %s: %v", act.Analyzer.Name, pkg.ID, act.Err)
@@ -192,7 +192,7 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 			continue
 		}
 		for _, d := range act.Diagnostics {
-			f := newFinding(act.Analyzer, pkg.ID, pkg.Fset, pkg.Syntax, d)
+			f := res.newFinding(act.Analyzer, pkg.ID, d)
 			if k := f.key(); !seen[k] {
 				seen[k] = true
 				r.findings = append(r.findings, f)
@@ -200,4 +200,23 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 		}
 	}
 	slices.SortFunc(r.findings, compare)
+}
+
+// resolver returns the resolver of pkg's positions, recording its files.
+func (r *report) resolver(pkg *packages.Package) *resolver {
+	res := &resolver{fset: pkg.Fset, files: pkg.Syntax, sources: map[string]bool{}, src: r.src}
+	for _, name := range pkg.GoFiles {
+		res.sources[name] = true
+		r.editable[name] = true
+	}
+	for _, f := range pkg.Syntax {
+		name := pkg.Fset.File(f.FileStart).Name()
+		if r.files[name].file == nil {
+			r.files[name] = rootFile{f, res, pkg.ID}
+		}
+		if res.sources[name] && ast.IsGenerated(f) {
+			r.editable[name] = false
+		}
+	}
+	return res
 }

@@ -40,7 +40,7 @@ func (e *env) vetLint(o *options, dir string) int {
 	cmd.Dir = dir
 	var stdout bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &stdout, e.stderr // build and type errors, as go vet words them
-	r := &report{cfg: cfg, src: sources{}, root: sc.root, files: map[string]rootFile{}}
+	r := newReport(cfg, sc.root)
 	if err := cmd.Run(); err != nil {
 		var exit *exec.ExitError
 		if !errors.As(err, &exit) {
@@ -113,11 +113,7 @@ func (s sources) position(posn string) token.Position {
 	if !ok1 || !ok2 {
 		return token.Position{}
 	}
-	p := token.Position{Filename: file, Line: line, Column: col, Offset: col - 1}
-	for _, text := range s.lines(file)[:min(line-1, len(s.lines(file)))] {
-		p.Offset += len(text) + 1
-	}
-	return p
+	return token.Position{Filename: file, Line: line, Column: col, Offset: s.offset(file, line, col)}
 }
 
 // cutLastInt splits s at its last colon, which a positive integer follows.

@@ -89,10 +89,16 @@ var gitEnv = []string{
 // returns its standard output, its standard error and its exit status.
 func run(t *testing.T, dir, name string, args ...string) (stdout, stderr string, code int) {
 	t.Helper()
+	return runEnv(t, dir, nil, name, args...)
+}
+
+// runEnv is run with more environment variables, which win.
+func runEnv(t *testing.T, dir string, env []string, name string, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
 	cmd := exec.Command(name, args...)
 	cmd.Dir = dir
 	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOPROXY=off", "GOWORK=off")
-	cmd.Env = append(cmd.Env, gitEnv...)
+	cmd.Env = append(append(cmd.Env, gitEnv...), env...)
 	var out, errOut bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &errOut
 	err := cmd.Run()

@@ -397,7 +397,8 @@ func TestHook(t *testing.T) {
 	head := mustRun(t, dir, "git", "rev-parse", "HEAD")
 	write(t, dir, "ramp/probe.go", probeSrc)
 	mustRun(t, dir, "git", "add", "ramp/probe.go")
-	stdout, stderr, code := run(t, dir, "git", "commit", "-q", "-m", "probe")
+	env, _ := onPath(t)
+	stdout, stderr, code := runEnv(t, dir, env, "git", "commit", "-q", "-m", "probe")
 	assert.NotEqual(t, 0, code)
 	out := stdout + stderr
 	assert.Contains(t, out, "ramp/probe.go:7:9: exacteq: "+nanMsg)
@@ -409,7 +410,8 @@ func TestHook(t *testing.T) {
 	mustRun(t, dir, "git", "rm", "-q", "--cached", "ramp/probe.go")
 	require.NoError(t, os.Remove(filepath.Join(dir, "ramp", "probe.go")))
 	edit(t, dir, "ramp/ramp.go", "// Package ramp plans", "// Package ramp plans, for the lab,")
-	mustRun(t, dir, "git", "commit", "-q", "-am", "doc")
+	stdout, stderr, code = runEnv(t, dir, env, "git", "commit", "-q", "-am", "doc")
+	require.Equal(t, 0, code, stdout+stderr)
 
 	_, stderr, code = run(t, dir, tool, "hook", "uninstall")
 	assert.Equal(t, 0, code, stderr)
@@ -488,6 +490,11 @@ func TestSubcommands(t *testing.T) {
 	assert.Equal(t, "roundoff", hooks[0].ID)
 	assert.Equal(t, "roundoff hook run", hooks[0].Entry)
 	assert.Equal(t, "golang", hooks[0].Language)
+	// Such a manager installs every main package of the module (go
+	// install ./...): that must be the roundoff command alone.
+	stdout, stderr, code = run(t, filepath.Join("..", ".."), "go", "list", "-f", `{{if eq .Name "main"}}{{.ImportPath}}{{end}}`, "./...")
+	require.Equal(t, 0, code, stderr)
+	assert.Equal(t, "roundoff/cmd/roundoff\n", stdout)
 	// The limits calculator is its own package; here only the dispatch.
 	stdout, stderr, code = run(t, dir, tool, "limits", "1")
 	assert.Equal(t, 0, code, stderr)

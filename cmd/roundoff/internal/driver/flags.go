@@ -25,6 +25,7 @@ type options struct {
 	patterns      []string
 
 	changed *changedLines // set by the pre-commit hook instead of since
+	staged  *indexView    // set by the pre-commit hook: lint the index
 }
 
 // Output formats.

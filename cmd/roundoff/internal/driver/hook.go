@@ -7,6 +7,7 @@ import (
 	"io"
 	"io/fs"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"slices"
 	"strings"
@@ -55,16 +56,18 @@ func (e *env) hookPath() (string, error) {
 	return p, nil
 }
 
-// hookScript returns the hook, which runs this executable.
-func hookScript() string {
-	exe, err := os.Executable()
-	if err != nil || strings.Contains(exe, "go-build") { // go run: use the installed one
-		exe = "roundoff"
-	}
-	return "#!/bin/sh\n" + hookMark + ": lints the packages with staged Go files and\n" +
-		"# reports findings on the staged lines only. Remove it with: roundoff hook uninstall\n" +
-		"exec " + shellQuote(exe) + " hook run\n"
-}
+// hookScript is the hook. It first runs a hook that install -force moved
+// aside, then roundoff from PATH, so that it survives the binary moving.
+const hookScript = "#!/bin/sh\n" + hookMark + ": runs a hook it replaced, then lints\n" +
+	"# the packages with staged Go files, reporting findings on staged lines.\n" +
+	"# Remove it with: roundoff hook uninstall\n" +
+	"saved=\"$(dirname \"$0\")/pre-commit" + hookSaved + "\"\n" +
+	"if [ -x \"$saved\" ]; then \"$saved\" \"$@\" || exit; fi\n" +
+	"if ! command -v roundoff >/dev/null 2>&1; then\n" +
+	"\techo 'roundoff pre-commit hook: no roundoff command on PATH; install it (go install ./cmd/roundoff in its repository), or remove the hook with: roundoff hook uninstall' >&2\n" +
+	"\texit 1\n" +
+	"fi\n" +
+	"exec roundoff hook run\n"
 
 func shellQuote(s string) string {
 	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
@@ -101,18 +104,21 @@ func (e *env) hookInstall(force bool) int {
 		if err := os.Rename(path, saved); err != nil {
 			return e.errorf("hook install: %v", err)
 		}
-		fmt.Fprintf(e.stderr, "roundoff: saved the existing hook as %s\n", saved)
+		fmt.Fprintf(e.stderr, "roundoff: saved the existing hook as %s; the new hook runs it first\n", saved)
 	}
 	if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
 		return e.errorf("hook install: %v", err)
 	}
-	if err := writeAtomic(path, []byte(hookScript())); err != nil {
+	if err := writeAtomic(path, []byte(hookScript)); err != nil {
 		return e.errorf("hook install: %s: %v", path, err)
 	}
 	if err := os.Chmod(path, 0o755); err != nil {
 		return e.errorf("hook install: %v", err)
 	}
 	fmt.Fprintf(e.stderr, "roundoff: installed the pre-commit hook %s\n", path)
+	if _, err := exec.LookPath("roundoff"); err != nil {
+		fmt.Fprintln(e.stderr, "roundoff: the hook runs roundoff from PATH, where there is none; commits fail until it is installed there")
+	}
 	return exitClean
 }
 
@@ -147,12 +153,18 @@ func (e *env) hookUninstall() int {
 
 // hookRun is what the hook runs: lint the packages that hold staged Go
 // files, module by module, through go vet (whose cache makes re-linting a
-// changed package fast), reporting findings on staged lines only.
+// changed package fast), as the index holds them, reporting findings on
+// staged lines only.
 func (e *env) hookRun() int {
 	changed, err := stagedChanges(e.cwd)
 	if err != nil {
 		return e.errorf("hook: %v", err)
 	}
+	staged, err := stageIndex(changed.root)
+	if err != nil {
+		return e.errorf("hook: %v", err)
+	}
+	defer staged.remove()
 	modules := map[string][]string{} // module root → package patterns
 	for rel := range changed.files {
 		if !strings.HasSuffix(rel, ".go") {
@@ -170,7 +182,7 @@ func (e *env) hookRun() int {
 	}
 	code := exitClean
 	for mod, patterns := range modules {
-		o := &options{format: "text", tests: true, patterns: patterns, changed: changed, enable: map[string]*triState{}}
+		o := &options{format: "text", tests: true, patterns: patterns, changed: changed, staged: staged, enable: map[string]*triState{}}
 		if c := e.vetLint(o, mod); c == exitErrors || code == exitErrors {
 			code = exitErrors
 		} else {

@@ -36,12 +36,18 @@ func (e *env) vetLint(o *options, dir string) int {
 	if err != nil {
 		return e.errorf("%v", err)
 	}
-	cmd := exec.Command("go", append([]string{"vet", "-vettool=" + exe, "-json"}, o.patterns...)...)
+	args := []string{"vet", "-vettool=" + exe, "-json"}
+	if o.staged != nil && o.staged.overlay != "" {
+		args = append(args, "-overlay="+o.staged.overlay)
+	}
+	cmd := exec.Command("go", append(args, o.patterns...)...)
 	cmd.Dir = dir
-	var stdout bytes.Buffer
-	cmd.Stdout, cmd.Stderr = &stdout, e.stderr // build and type errors, as go vet words them
+	var stdout, stderr bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &stdout, &stderr
 	r := newReport(cfg, sc.root)
-	if err := cmd.Run(); err != nil {
+	err = cmd.Run()
+	e.stderr.Write(o.staged.rename(stderr.Bytes(), e.display)) // build and type errors, as go vet words them
+	if err != nil {
 		var exit *exec.ExitError
 		if !errors.As(err, &exit) {
 			return e.errorf("go vet: %v", err)
@@ -50,6 +56,12 @@ func (e *env) vetLint(o *options, dir string) int {
 	}
 	if err := e.readVetJSON(r, &stdout); err != nil {
 		return e.errorf("reading the output of go vet: %v", err)
+	}
+	if o.staged != nil { // go vet saw the staged files under temporary names
+		for _, f := range r.findings {
+			f.posn.Filename, f.end.Filename = o.staged.file(f.posn.Filename), o.staged.file(f.end.Filename)
+		}
+		r.findings = keep(r.findings, func(f *finding) bool { return !cfg.Excluded(f.posn.Filename) })
 	}
 	return e.finish(o, r, sc)
 }

@@ -330,3 +330,17 @@ func TestBrokenModule(t *testing.T) {
 		})
 	}
 }
+
+// go vet caches results under the tool's ID, which must change with the
+// module's roundoff.yaml when go vet runs from a subdirectory too.
+func TestGoVetSeesConfigFromSubdirectory(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	sub := filepath.Join(dir, "ramp")
+	_, stderr, _ := run(t, sub, "go", "vet", "-vettool="+tool, ".")
+	assert.Contains(t, stderr, nanMsg)
+	write(t, dir, "roundoff.yaml", "analyzers:\n  exacteq:\n    enabled: false\n")
+	_, stderr, code := run(t, sub, "go", "vet", "-vettool="+tool, ".")
+	assert.Equal(t, 0, code, stderr)
+	assert.NotContains(t, stderr, nanMsg)
+}

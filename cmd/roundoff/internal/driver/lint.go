@@ -6,6 +6,7 @@ import (
 	"flag"
 	"fmt"
 	"go/ast"
+	"go/token"
 	"os"
 	"slices"
 	"strings"
@@ -34,6 +35,7 @@ type report struct {
 	cfg      *config.Config
 	findings []*finding
 	failed   bool                // some package did not load or analyze
+	errors   []loadError         // the errors of loading them
 	files    map[string]rootFile // the root packages' files, by name
 	editable map[string]bool     // their Go source files, false when generated
 	src      sources
@@ -76,7 +78,7 @@ func (e *env) lint(o *options, dir string) int {
 		return e.errorf("%v", err)
 	}
 	r := newReport(cfg, sc.root)
-	pkgs, ok := e.load(o, dir, analyzers)
+	pkgs, ok := e.load(o, dir, analyzers, r)
 	if pkgs == nil {
 		return exitErrors
 	}
@@ -113,14 +115,15 @@ func (e *env) loadConfig(file, dir string) (*config.Config, error) {
 	return c, err
 }
 
-// load loads the packages o names, printing their errors; ok is false
-// when some did not load or type-check, and pkgs nil when none did.
-func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer) (pkgs []*packages.Package, ok bool) {
+// load loads the packages o names, printing their errors and recording
+// them in r; ok is false when some did not load or type-check, and pkgs
+// nil when none did.
+func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer, r *report) (pkgs []*packages.Package, ok bool) {
 	mode := packages.LoadSyntax | packages.NeedModule
 	if needFacts(analyzers) {
 		mode = packages.LoadAllSyntax | packages.NeedModule
 	}
-	cfg := &packages.Config{Mode: mode, Tests: o.tests, Dir: dir}
+	cfg := &packages.Config{Mode: mode, Tests: o.tests, Dir: dir, BuildFlags: o.buildFlags()}
 	pkgs, err := packages.Load(cfg, o.patterns...)
 	if err != nil {
 		e.errorf("loading packages: %v", err)
@@ -130,32 +133,68 @@ func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer) (pkgs
 		e.errorf("%s matched no packages", strings.Join(o.patterns, " "))
 		return nil, false
 	}
-	ok = true
 	seen := map[string]bool{}
 	packages.Visit(pkgs, nil, func(p *packages.Package) {
-		for _, err := range p.Errors {
-			if msg := e.loadError(err); !seen[msg] {
+		for _, err := range compilerErrors(p.Errors) {
+			le := loadErrorOf(err)
+			if msg := e.errorLine(le); !seen[msg] {
 				seen[msg] = true
 				fmt.Fprintln(e.stderr, msg)
+				r.errors = append(r.errors, le)
 			}
-			ok = false
 		}
 	})
-	return pkgs, ok
+	return pkgs, len(seen) == 0
 }
 
-// loadError formats a package error as file:line:col: message, with the
-// file relative to the current directory.
-func (e *env) loadError(err packages.Error) string {
-	pos, msg := err.Pos, err.Msg
-	if pos == "" || pos == "-" {
-		return "roundoff: " + msg
+// compilerErrors returns the errors of a package as the compiler reports
+// them: when a file does not parse, only the first syntax error of each
+// file (what follows it, syntax or type errors, is mostly its echo).
+func compilerErrors(errs []packages.Error) []packages.Error {
+	if !slices.ContainsFunc(errs, func(e packages.Error) bool { return e.Kind == packages.ParseError }) {
+		return errs
 	}
-	file, rest, found := strings.Cut(pos, ":")
-	if found {
-		return e.display(file) + ":" + rest + ": " + msg
+	var out []packages.Error
+	files := map[string]bool{}
+	for _, e := range errs {
+		file, _, _ := strings.Cut(e.Pos, ":")
+		if e.Kind == packages.ParseError && !files[file] {
+			files[file] = true
+			out = append(out, e)
+		}
 	}
-	return e.display(pos) + ": " + msg
+	return out
+}
+
+// A loadError is an error of loading or type-checking a package.
+type loadError struct {
+	posn token.Position // invalid when the error has no position
+	msg  string
+}
+
+// errorLine formats l as file:line:col: message, the file relative to
+// the current directory.
+func (e *env) errorLine(l loadError) string {
+	if !l.posn.IsValid() {
+		return "roundoff: " + l.msg
+	}
+	return e.position(l.posn) + ": " + l.msg
+}
+
+// loadErrorOf resolves the position of a package error (file:line:col or
+// file:line).
+func loadErrorOf(err packages.Error) loadError {
+	le := loadError{msg: err.Msg}
+	rest, n, ok := cutLastInt(err.Pos)
+	if !ok {
+		return le
+	}
+	if file, line, ok := cutLastInt(rest); ok {
+		le.posn = token.Position{Filename: file, Line: line, Column: n}
+	} else {
+		le.posn = token.Position{Filename: rest, Line: n, Column: 1}
+	}
+	return le
 }
 
 // needFacts reports whether an analyzer, or one it requires, uses facts,

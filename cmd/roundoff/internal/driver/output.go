@@ -126,24 +126,37 @@ func endOr(end, start token.Position) token.Position {
 // note).
 func (e *env) printGitHub(r *report) error {
 	var b strings.Builder
+	for _, le := range r.errors { // packages that did not load
+		props := []string{"title=" + escapeProperty("roundoff")}
+		if le.posn.IsValid() {
+			props = append(r.githubPlace(le.posn, token.Position{}), props...)
+		}
+		fmt.Fprintf(&b, "::error %s::%s\n", strings.Join(props, ","), escapeData(le.msg))
+	}
 	for _, f := range r.findings {
 		cmd := r.cfg.Level(f.analyzer.Name)
 		if cmd == "note" {
 			cmd = "notice"
 		}
-		file, ok := relTo(r.root, f.posn.Filename)
-		if !ok {
-			file = f.posn.Filename
-		}
-		props := []string{"file=" + escapeProperty(file), "line=" + strconv.Itoa(f.posn.Line), "col=" + strconv.Itoa(r.src.column(f.posn))}
-		if f.end.IsValid() {
-			props = append(props, "endLine="+strconv.Itoa(f.end.Line), "endColumn="+strconv.Itoa(r.src.column(f.end)))
-		}
-		props = append(props, "title="+escapeProperty("roundoff "+f.analyzer.Name))
+		props := append(r.githubPlace(f.posn, f.end), "title="+escapeProperty("roundoff "+f.analyzer.Name))
 		fmt.Fprintf(&b, "::%s %s::%s\n", cmd, strings.Join(props, ","), escapeData(f.diag.Message))
 	}
 	_, err := io.WriteString(e.stdout, b.String())
 	return err
+}
+
+// githubPlace returns the properties of a workflow command that place it
+// at [posn, end): the file relative to the project root, line and column.
+func (r *report) githubPlace(posn, end token.Position) []string {
+	file, ok := relTo(r.root, posn.Filename)
+	if !ok {
+		file = posn.Filename
+	}
+	props := []string{"file=" + escapeProperty(file), "line=" + strconv.Itoa(posn.Line), "col=" + strconv.Itoa(r.src.column(posn))}
+	if end.IsValid() {
+		props = append(props, "endLine="+strconv.Itoa(end.Line), "endColumn="+strconv.Itoa(r.src.column(end)))
+	}
+	return props
 }
 
 // escapeData escapes the message of a workflow command: %, CR and LF

@@ -55,14 +55,14 @@ func (e *env) finish(o *options, r *report, sc *scope) int {
 	if o.writeBaseline != "" {
 		return e.writeBaseline(o.writeBaseline, r)
 	}
+	if sc.baseline != nil { // over every finding, so that entries out of scope are not stale
+		e.applyBaseline(r, o.baseline, sc.baseline)
+	}
 	if sc.changed != nil {
 		r.findings = keep(r.findings, func(f *finding) bool {
 			rel, ok := relTo(sc.changed.root, f.posn.Filename)
 			return ok && sc.changed.contains(rel, f.posn.Line)
 		})
-	}
-	if sc.baseline != nil {
-		e.applyBaseline(r, o.baseline, sc.baseline)
 	}
 	var code int
 	switch {

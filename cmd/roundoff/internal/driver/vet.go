@@ -50,16 +50,22 @@ func vet(analyzers []*analysis.Analyzer, args []string) int {
 
 // version answers the go command's -V=full handshake with an ID that
 // changes with the executable and with the configuration file of the
-// module in the current directory: go vet caches each package's results
-// under it, and must not replay them once roundoff.yaml has changed.
+// module holding the current directory (looked for upwards from any
+// subdirectory): go vet caches each package's results under it, and must
+// not replay them once roundoff.yaml has changed.
 func version() int {
 	exe, err := os.Executable()
 	if err != nil {
 		fmt.Fprintln(os.Stderr, "roundoff:", err)
 		return exitErrors
 	}
+	cwd, err := os.Getwd()
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "roundoff:", err)
+		return exitErrors
+	}
 	h := sha256.New()
-	for _, file := range []string{exe, filepath.Join(moduleRoot("."), config.FileName)} {
+	for _, file := range []string{exe, filepath.Join(moduleRoot(cwd), config.FileName)} {
 		data, err := os.ReadFile(file)
 		if err != nil && !errors.Is(err, fs.ErrNotExist) {
 			fmt.Fprintln(os.Stderr, "roundoff:", err)

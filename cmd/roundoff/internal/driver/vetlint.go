@@ -36,7 +36,7 @@ func (e *env) vetLint(o *options, dir string) int {
 	if err != nil {
 		return e.errorf("%v", err)
 	}
-	args := []string{"vet", "-vettool=" + exe, "-json"}
+	args := append([]string{"vet", "-vettool=" + exe, "-json"}, o.buildFlags()...)
 	if o.staged != nil && o.staged.overlay != "" {
 		args = append(args, "-overlay="+o.staged.overlay)
 	}

@@ -1,0 +1,89 @@
+package main_test
+
+import (
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+)
+
+// The documented CI recipe, -since with -baseline: entries of findings
+// outside the changed lines are not stale.
+func TestSinceWithBaseline(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	_, stderr, code := run(t, dir, tool, "-write-baseline", "accepted.txt", "./...")
+	require.Equal(t, 0, code, stderr)
+	gitInit(t, dir)
+	write(t, dir, "ramp/probe.go", probeSrc)
+	stdout, stderr, code := run(t, dir, tool, "-since", "HEAD", "-baseline", "accepted.txt", "./...")
+	assert.Equal(t, 3, code)
+	assert.Equal(t, []string{"ramp/probe.go:7:9: exacteq: " + nanMsg + ": NaN is unequal to every value, itself included; test with math.IsNaN"}, findingLines(stdout))
+	assert.Empty(t, stderr, "no entry is stale")
+}
+
+// A package that does not load is an error notification in SARIF (SARIF
+// 2.1.0 §3.20.21 toolExecutionNotifications, §3.58 notification) and an
+// ::error workflow command in the github format.
+func TestLoadErrorsInMachineFormats(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	write(t, dir, "vent/vent.go", "package vent\n\n// Open is the damper setting.\nvar Open float64 = \"wide\"\n")
+	const msg = "cannot use \"wide\" (untyped string constant) as float64 value in variable declaration"
+	stdout, _, code := run(t, dir, tool, "-format", "sarif", "./...")
+	assert.Equal(t, 1, code)
+	require.NoError(t, validateSARIF(t, stdout))
+	var log struct {
+		Runs []struct {
+			Invocations []struct {
+				ExecutionSuccessful        bool
+				ToolExecutionNotifications []struct {
+					Level     string
+					Message   struct{ Text string }
+					Locations []struct{ PhysicalLocation sarifPhysical }
+				}
+			}
+		}
+	}
+	require.NoError(t, json.Unmarshal([]byte(stdout), &log))
+	inv := log.Runs[0].Invocations[0]
+	assert.False(t, inv.ExecutionSuccessful)
+	require.Len(t, inv.ToolExecutionNotifications, 1)
+	n := inv.ToolExecutionNotifications[0]
+	assert.Equal(t, "error", n.Level)
+	assert.Contains(t, n.Message.Text, msg)
+	require.Len(t, n.Locations, 1)
+	assert.Equal(t, sarifArtifact{"vent/vent.go", "SRCROOT"}, n.Locations[0].PhysicalLocation.ArtifactLocation)
+	assert.Equal(t, 4, n.Locations[0].PhysicalLocation.Region.StartLine)
+
+	stdout, _, code = run(t, dir, tool, "-format", "github", "./...")
+	assert.Equal(t, 1, code)
+	assert.Contains(t, stdout, "::error file=vent/vent.go,line=4,col=20,title=roundoff::"+msg+"\n")
+}
+
+// Build tags select files as for go build.
+func TestBuildTags(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	write(t, dir, "ramp/probe.go", "//go:build bench\n\n"+probeSrc)
+	stdout, _, _ := run(t, dir, tool, "./ramp")
+	assert.NotContains(t, stdout, "probe.go")
+	stdout, stderr, code := run(t, dir, tool, "-tags", "bench", "./ramp")
+	assert.Equal(t, 3, code, stderr)
+	assert.Contains(t, stdout, "ramp/probe.go:9:9: exacteq: "+nanMsg)
+}
+
+// A syntax error reads as the compiler reports it: one line, the first
+// error of the file.
+func TestSyntaxErrorOneLine(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	write(t, dir, "vent/vent.go", "package vent\n\n// Open reports a full opening.\nfunc Open(x float64) bool {\n\treturn x == 0.3 +\n}\n")
+	stdout, stderr, code := run(t, dir, tool, "./vent")
+	assert.Equal(t, 1, code)
+	assert.Empty(t, stdout)
+	assert.Equal(t, "vent/vent.go:6:1: expected operand, found '}'\n", stderr)
+	assert.Equal(t, 1, strings.Count(stderr, "\n"))
+}

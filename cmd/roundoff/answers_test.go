@@ -87,3 +87,43 @@ func TestSyntaxErrorOneLine(t *testing.T) {
 	assert.Equal(t, "vent/vent.go:6:1: expected operand, found '}'\n", stderr)
 	assert.Equal(t, 1, strings.Count(stderr, "\n"))
 }
+
+// One convention for help and usage: help TOPIC and -h print the usage
+// on standard output with status 0; usage errors give status 1, as
+// README's table says, in one line.
+func TestHelpConvention(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	for _, args := range [][]string{
+		{"help", "limits"}, {"limits", "-h"},
+		{"help", "config"}, {"config", "-h"},
+		{"help", "hook"}, {"hook", "-h"}, {"hook", "install", "-h"},
+		{"-h"}, {"help"},
+	} {
+		stdout, stderr, code := run(t, dir, tool, args...)
+		assert.Equal(t, 0, code, args)
+		assert.Empty(t, stderr, args)
+		assert.Contains(t, stdout, "usage", args)
+	}
+	for _, args := range [][]string{{"limits"}, {"limits", "-bogus", "1"}, {"hook"}, {"config", "extra"}, {"help", "nosuch"}} {
+		stdout, stderr, code := run(t, dir, tool, args...)
+		assert.Equal(t, 1, code, args)
+		assert.Empty(t, stdout, args)
+		assert.Equal(t, 1, strings.Count(stderr, "\n"), "one line: %s", stderr)
+	}
+	// Negative magnitudes need no "--".
+	stdout, stderr, code := run(t, dir, tool, "limits", "-3")
+	assert.Equal(t, 0, code, stderr)
+	assert.Contains(t, stdout, "x = -3 ")
+}
+
+// Counts read as English: one finding, one fix, one file.
+func TestPlurals(t *testing.T) {
+	t.Parallel()
+	dir := gaugeModule(t)
+	write(t, dir, "gauge/fault.go", gaugeSrc)
+	_, stderr, _ := run(t, dir, tool, "-write-baseline", "one.txt", "./...")
+	assert.Equal(t, "roundoff: recorded 1 finding in one.txt\n", stderr)
+	_, stderr, _ = run(t, dir, tool, "-fix", "./...")
+	assert.Equal(t, "roundoff: applied 1 fix to 1 file\n", stderr)
+}

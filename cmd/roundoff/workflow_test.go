@@ -293,7 +293,7 @@ func TestBaseline(t *testing.T) {
 	stdout, stderr, code = run(t, dir, tool, "-baseline", "roundoff-baseline.txt", "./...")
 	assert.Equal(t, 3, code)
 	assert.Equal(t, []string{"ramp/probe.go:7:9: exacteq: " + nanMsg + ": NaN is unequal to every value, itself included; test with math.IsNaN"}, findingLines(stdout))
-	assert.Equal(t, "roundoff: 1 of the 3 entries of baseline roundoff-baseline.txt match no finding any more (ramp/ramp.go: 1); rewrite it with -write-baseline roundoff-baseline.txt\n", stderr)
+	assert.Equal(t, "roundoff: 1 of the 3 entries of baseline roundoff-baseline.txt matches no finding any more (ramp/ramp.go: 1); rewrite it with -write-baseline roundoff-baseline.txt\n", stderr)
 
 	// Rewriting the baseline is allowed; overwriting a source file is not.
 	_, stderr, code = run(t, dir, tool, "-write-baseline", "roundoff-baseline.txt", "./...")

@@ -167,8 +167,12 @@ func (e *env) applyBaseline(r *report, path string, b *baseline) {
 		}
 	}
 	if total > 0 {
-		fmt.Fprintf(e.stderr, "roundoff: %d of the %d entries of baseline %s match no finding any more (%s); rewrite it with -write-baseline %s\n",
-			total, len(b.entries), path, countsByFile(stale), path)
+		verb := "match"
+		if total == 1 {
+			verb = "matches"
+		}
+		fmt.Fprintf(e.stderr, "roundoff: %d of the %s of baseline %s %s no finding any more (%s); rewrite it with -write-baseline %s\n",
+			total, plural(len(b.entries), "entry", "entries"), path, verb, countsByFile(stale), path)
 	}
 }
 

@@ -19,6 +19,15 @@ const hookMark = "# roundoff pre-commit hook"
 // hookSaved is the suffix of the name a foreign hook is saved under.
 const hookSaved = ".saved-by-roundoff"
 
+// hookUsage is the help of roundoff hook.
+const hookUsage = `usage: roundoff hook install [-force] | uninstall | run
+
+  install    install the git pre-commit hook; -force moves a hook roundoff
+             did not install aside, and the new hook runs it first
+  uninstall  remove roundoff's hook, putting a moved-aside one back
+  run        lint the staged lines, as the index holds them (what the hook runs)
+`
+
 // hookCmd runs roundoff hook install|uninstall|run.
 func (e *env) hookCmd(args []string) int {
 	const use = "usage: roundoff hook install [-force] | uninstall | run"
@@ -28,7 +37,12 @@ func (e *env) hookCmd(args []string) int {
 	fs := flag.NewFlagSet("roundoff hook", flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	force := fs.Bool("force", false, "save an existing foreign hook and install over it")
-	if err := fs.Parse(args[1:]); err != nil || fs.NArg() > 0 || *force && args[0] != "install" {
+	err := fs.Parse(args[min(1, len(args)):])
+	if isHelp(args[0]) || errors.Is(err, flag.ErrHelp) {
+		fmt.Fprint(e.stdout, hookUsage)
+		return exitClean
+	}
+	if err != nil || fs.NArg() > 0 || *force && args[0] != "install" {
 		return e.errorf("%s", use)
 	}
 	switch args[0] {

@@ -57,11 +57,12 @@ func edit(t *testing.T, dir, rel, old, new string) {
 	write(t, dir, rel, strings.Replace(src, old, new, 1))
 }
 
-// findingLines returns the lines of text output that report findings.
+// findingLines returns the lines of text output that report findings
+// (not the indented lines of their related places).
 func findingLines(output string) []string {
 	var out []string
 	for l := range strings.Lines(output) {
-		if strings.Contains(l, ".go:") {
+		if strings.Contains(l, ".go:") && !strings.HasPrefix(l, " ") {
 			out = append(out, strings.TrimSuffix(l, "\n"))
 		}
 	}

@@ -227,15 +227,23 @@ func (s sources) offset(filename string, line, col int) int {
 
 // fingerprint identifies f by what survives unrelated edits: its source
 // line with all white space removed and its enclosing function, not its
-// line number. 16 hex digits (64 bits of SHA-256).
+// line number, and so too the source lines of its related places, so
+// that changing one of them (the tolerance value a test reads) makes the
+// finding new. 16 hex digits (64 bits of SHA-256).
 func (f *finding) fingerprint(src sources) string {
-	line := strings.Map(func(r rune) rune {
-		if unicode.IsSpace(r) {
-			return -1
-		}
-		return r
-	}, src.line(f.posn.Filename, f.posn.Line))
-	sum := sha256.Sum256([]byte(line + "\x00" + f.function))
+	squeeze := func(posn token.Position) string {
+		return strings.Map(func(r rune) rune {
+			if unicode.IsSpace(r) {
+				return -1
+			}
+			return r
+		}, src.line(posn.Filename, posn.Line))
+	}
+	text := squeeze(f.posn) + "\x00" + f.function
+	for _, p := range f.related {
+		text += "\x00" + squeeze(p.posn)
+	}
+	sum := sha256.Sum256([]byte(text))
 	return hex.EncodeToString(sum[:8])
 }
 

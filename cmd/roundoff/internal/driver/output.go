@@ -40,11 +40,16 @@ func (e *env) position(posn token.Position) string {
 	return fmt.Sprintf("%s:%d:%d", e.display(posn.Filename), posn.Line, posn.Column)
 }
 
-// printText writes one line per finding: file:line:col: analyzer: message.
+// printText writes one line per finding, file:line:col: analyzer:
+// message, and below it one indented line per related place,
+// file:line:col: message.
 func (e *env) printText(r *report) error {
 	var b strings.Builder
 	for _, f := range r.findings {
 		fmt.Fprintf(&b, "%s: %s: %s\n", e.position(f.posn), f.analyzer.Name, f.diag.Message)
+		for _, rel := range f.related {
+			fmt.Fprintf(&b, "    %s: %s\n", e.position(rel.posn), rel.message)
+		}
 	}
 	_, err := io.WriteString(e.stdout, b.String())
 	return err
@@ -139,7 +144,11 @@ func (e *env) printGitHub(r *report) error {
 			cmd = "notice"
 		}
 		props := append(r.githubPlace(f.posn, f.end), "title="+escapeProperty("roundoff "+f.analyzer.Name))
-		fmt.Fprintf(&b, "::%s %s::%s\n", cmd, strings.Join(props, ","), escapeData(f.diag.Message))
+		msg := f.diag.Message
+		for _, rel := range f.related { // an annotation has one place: name the others
+			msg += fmt.Sprintf(" (%s: %s)", r.rootPath(rel.posn.Filename)+":"+strconv.Itoa(rel.posn.Line), rel.message)
+		}
+		fmt.Fprintf(&b, "::%s %s::%s\n", cmd, strings.Join(props, ","), escapeData(msg))
 	}
 	_, err := io.WriteString(e.stdout, b.String())
 	return err
@@ -148,15 +157,19 @@ func (e *env) printGitHub(r *report) error {
 // githubPlace returns the properties of a workflow command that place it
 // at [posn, end): the file relative to the project root, line and column.
 func (r *report) githubPlace(posn, end token.Position) []string {
-	file, ok := relTo(r.root, posn.Filename)
-	if !ok {
-		file = posn.Filename
-	}
-	props := []string{"file=" + escapeProperty(file), "line=" + strconv.Itoa(posn.Line), "col=" + strconv.Itoa(r.src.column(posn))}
+	props := []string{"file=" + escapeProperty(r.rootPath(posn.Filename)), "line=" + strconv.Itoa(posn.Line), "col=" + strconv.Itoa(r.src.column(posn))}
 	if end.IsValid() {
 		props = append(props, "endLine="+strconv.Itoa(end.Line), "endColumn="+strconv.Itoa(r.src.column(end)))
 	}
 	return props
+}
+
+// rootPath returns filename relative to the project root when inside it.
+func (r *report) rootPath(filename string) string {
+	if rel, ok := relTo(r.root, filename); ok {
+		return rel
+	}
+	return filename
 }
 
 // escapeData escapes the message of a workflow command: %, CR and LF

@@ -59,10 +59,7 @@ func (e *env) finish(o *options, r *report, sc *scope) int {
 		e.applyBaseline(r, o.baseline, sc.baseline)
 	}
 	if sc.changed != nil {
-		r.findings = keep(r.findings, func(f *finding) bool {
-			rel, ok := relTo(sc.changed.root, f.posn.Filename)
-			return ok && sc.changed.contains(rel, f.posn.Line)
-		})
+		r.findings = keep(r.findings, func(f *finding) bool { return sc.changed.touches(f) })
 	}
 	var code int
 	switch {

@@ -60,6 +60,9 @@ func (e *env) vetLint(o *options, dir string) int {
 	if o.staged != nil { // go vet saw the staged files under temporary names
 		for _, f := range r.findings {
 			f.posn.Filename, f.end.Filename = o.staged.file(f.posn.Filename), o.staged.file(f.end.Filename)
+			for i := range f.related {
+				f.related[i].posn.Filename = o.staged.file(f.related[i].posn.Filename)
+			}
 		}
 		r.findings = keep(r.findings, func(f *finding) bool { return !cfg.Excluded(f.posn.Filename) })
 	}
@@ -108,13 +111,17 @@ func (e *env) readVetJSON(r *report, in io.Reader) error {
 // vetFinding turns a diagnostic of go vet's JSON into a finding, its
 // positions resolved in the file on disk.
 func (r *report) vetFinding(a *analysis.Analyzer, pkgID string, d jsonDiagnostic) *finding {
-	return &finding{
+	f := &finding{
 		analyzer: a,
 		pkgID:    pkgID,
 		diag:     analysis.Diagnostic{Category: d.Category, Message: d.Message},
 		posn:     r.src.position(d.Posn),
 		end:      r.src.position(d.End),
 	}
+	for _, rel := range d.Related {
+		f.related = append(f.related, place{r.src.position(rel.Posn), r.src.position(rel.End), rel.Message})
+	}
+	return f
 }
 
 // position parses file:line:col (the file may hold colons), adding the

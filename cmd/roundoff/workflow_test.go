@@ -448,6 +448,7 @@ func TestBadInput(t *testing.T) {
 		{"corrupt baseline", []string{"-baseline", "accepted.txt", "./..."}, func(dir string) { write(t, dir, "accepted.txt", "roundoff baseline 1\nexacteq ramp/ramp.go\n") },
 			"roundoff: accepted.txt:2: malformed baseline entry"},
 		{"baseline over source", []string{"-write-baseline", "main.go", "./..."}, nil, "refusing to overwrite it"},
+		{"baseline in a missing directory", []string{"-write-baseline", "nodir/b.txt", "./..."}, nil, "roundoff: -write-baseline nodir/b.txt: no such file or directory\n"}, // no temporary file name
 		{"write and read baseline", []string{"-write-baseline", "b.txt", "-baseline", "b.txt", "./..."}, nil, "roundoff: -write-baseline records every current finding"},
 		{"missing config", []string{"-config", "lab.yaml", "./..."}, nil, "roundoff: -config lab.yaml: no such file"},
 		{"corrupt config", []string{"./..."}, func(dir string) { write(t, dir, "roundoff.yaml", "analyzers:\n  exacteq: [\n") }, "roundoff: roundoff.yaml:2: not valid YAML"},

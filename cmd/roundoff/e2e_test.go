@@ -10,6 +10,8 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -343,4 +345,26 @@ func TestGoVetSeesConfigFromSubdirectory(t *testing.T) {
 	_, stderr, code := run(t, sub, "go", "vet", "-vettool="+tool, ".")
 	assert.Equal(t, 0, code, stderr)
 	assert.NotContains(t, stderr, nanMsg)
+}
+
+// go vet prints an analyzer's findings of a package in file order (the
+// demo's turbine minimization gives two stoptol findings, reported by
+// the analyzer in the other order).
+func TestGoVetFileOrder(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	require.NoError(t, os.CopyFS(filepath.Join(dir, "turbine"), os.DirFS(filepath.Join("..", "..", "testdata", "demo", "turbine"))))
+	write(t, dir, "go.mod", "module hydro\n\ngo 1.26\n")
+	_, stderr, _ := run(t, dir, "go", "vet", "-vettool="+tool, "-stoptol", "./turbine")
+	var lines []int
+	for l := range strings.Lines(stderr) {
+		if rest, ok := strings.CutPrefix(l, "turbine/turbine.go:"); ok {
+			n, _, _ := strings.Cut(rest, ":")
+			line, err := strconv.Atoi(n)
+			require.NoError(t, err)
+			lines = append(lines, line)
+		}
+	}
+	require.GreaterOrEqual(t, len(lines), 2, stderr)
+	assert.True(t, slices.IsSorted(lines), "in file order: %v", lines)
 }

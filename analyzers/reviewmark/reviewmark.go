@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/token"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -33,6 +34,9 @@ const (
 	catUnknown  = "unknown"
 	catSpaced   = "spaced"
 	catNoise    = "noise"
+	catGlued    = "glued"
+	catBlock    = "block"
+	catEmpty    = "emptyname"
 )
 
 // spaced is a review directive written with a space after the slashes.
@@ -47,6 +51,7 @@ func run(pass *analysis.Pass) (any, error) {
 		for _, g := range f.Comments {
 			for _, c := range g.List {
 				checkSpaced(pass, c)
+				checkForm(pass, cfg, c)
 			}
 		}
 		checkNoise(pass, f)
@@ -63,8 +68,11 @@ func check(pass *analysis.Pass, cfg *config.Config, r config.Review) {
 		report(catNoNames, "review directive names no analyzer and suppresses nothing; write %s <analyzer> <reason>", config.ReviewDirective)
 		return
 	}
+	if slices.Contains(r.Names, "") {
+		report(catEmpty, "review directive has an empty analyzer name (a comma at the end of the names, or a space after a comma); write the names joined by commas without spaces, such as %s", strings.Join(cfg.Names()[:min(2, len(cfg.Names()))], ","))
+	}
 	for _, n := range r.Names {
-		if !cfg.Known(n) {
+		if n != "" && !cfg.Known(n) {
 			report(catUnknown, "review directive names %q, which is not a roundoff analyzer (the suite has %s)", n, strings.Join(cfg.Names(), ", "))
 		}
 	}
@@ -84,6 +92,26 @@ func checkSpaced(pass *analysis.Pass, c *ast.Comment) {
 		Pos: c.Pos(), End: c.End(), Category: catSpaced,
 		Message: fmt.Sprintf("comment %q is not a directive because of the space after //, so it suppresses nothing", spaced),
 	}, fixes.Judgement("Remove the space after //", analysis.TextEdit{Pos: space, End: space + 1}))
+}
+
+// checkForm reports comments meant as review directives that are not
+// one: the directive word glued to an analyzer name, or a block comment.
+func checkForm(pass *analysis.Pass, cfg *config.Config, c *ast.Comment) {
+	report := func(cat, msg string) {
+		fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: cat, Message: msg})
+	}
+	word, _, _ := strings.Cut(c.Text, " ")
+	if glued, ok := strings.CutPrefix(word, config.ReviewDirective); ok && glued != "" {
+		name, _, _ := strings.Cut(glued, ",")
+		if slices.Contains(cfg.Names(), name) { // not a longer word such as reviewedness
+			report(catGlued, fmt.Sprintf("comment %q is not a review directive: put a space between %s and the analyzer names", word, config.ReviewDirective))
+		}
+		return
+	}
+	inner, ok := strings.CutPrefix(c.Text, "/*")
+	if _, _, isDirective := config.ParseReview("//" + strings.TrimSpace(strings.TrimSuffix(inner, "*/"))); ok && isDirective {
+		report(catBlock, "review directives are // line comments; in a /* */ comment it suppresses nothing")
+	}
 }
 
 // checkNoise reports noise directives that declare nothing: malformed, or

@@ -19,15 +19,14 @@ import (
 	"fmt"
 	"go/ast"
 	"go/types"
-	"math"
 	"reflect"
-	"strconv"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/internal/config"
+	"roundoff/internal/numeric"
 )
 
 // Analyzer learns the noise levels of this package's functions and of
@@ -125,8 +124,8 @@ func funcName(fn *types.Func) string {
 }
 
 // Parse finds the noise directive in a doc comment and returns it, nil
-// when there is none. Its first word is the level, a number strictly
-// between 0 and 1; words after it are a free explanation. err says what is
+// when there is none. Its first word is the level, checked by
+// config.ParseNoise; words after it are a free explanation. err says what is
 // wrong with a malformed one.
 func Parse(doc *ast.CommentGroup) (level float64, directive *ast.Comment, err error) {
 	if doc == nil {
@@ -142,9 +141,9 @@ func Parse(doc *ast.CommentGroup) (level float64, directive *ast.Comment, err er
 		if len(fields) == 0 {
 			return 0, c, fmt.Errorf("%s takes a relative accuracy, such as %s 1e-6", Directive, Directive)
 		}
-		v, perr := strconv.ParseFloat(fields[0], 64)
-		if perr != nil || !(v > 0 && v < 1) || math.IsNaN(v) {
-			return 0, c, fmt.Errorf("%s %s: the relative accuracy must be a number between 0 and 1", Directive, fields[0])
+		v, err := config.ParseNoise(fields[0], numeric.Float64)
+		if err != nil {
+			return 0, c, fmt.Errorf("%s %s: %v", Directive, fields[0], err)
 		}
 		return v, c, nil
 	}

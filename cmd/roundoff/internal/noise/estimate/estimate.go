@@ -140,16 +140,18 @@ func Central(l Line, f0, noise, scale float64) (Step, error) {
 }
 
 // curvature estimates φ^(order) at 0 after Moré & Wild 2012, §5: try the
-// stencil at h_a = (noise/|φ0|)^(1/(order+2))·scale, then at h_b =
+// stencil at h_a, first (noise/|φ0|)^(1/(order+2))·scale, then at h_b =
 // (noise/|μ_a|)^(1/(order+2)), where the noise error (about noise/h^order)
 // balances a truncation error of the size h²·|μ|; take μ_b when both agree
-// within 50% or when only h_b passes the tests, μ_a when only h_a does;
-// otherwise move h_a 10 times up (noise dominates) or down (values move
-// too much) and retry. ok is false when no step passes.
+// within 50% or when only h_b passes the tests, μ_a when only h_a does.
+// Otherwise move h_a 10 times up (noise dominates) or down (values move
+// too much), or to the geometric middle once steps on both sides have
+// failed, and retry. ok is false when no step passes.
 func curvature(l Line, s stencil, f0, noise, scale float64) (mu float64, ok bool, err error) {
 	p := 1 / float64(s.order+2)
 	ha := math.Pow(noise/max(math.Abs(f0), noise), p) * scale
-	for range 6 {
+	small, large := 0.0, math.Inf(1) // the largest step too small, the smallest too large
+	for range 10 {
 		ma, fa, err := s.apply(l, f0, noise, ha)
 		if err != nil {
 			return 0, false, err
@@ -168,9 +170,17 @@ func curvature(l Line, s stencil, f0, noise, scale float64) (mu float64, ok bool
 		case fa == 0:
 			return ma, true, nil
 		case fa > 0:
-			ha *= 10
+			small = max(small, ha)
 		default:
-			ha /= 10
+			large = min(large, ha)
+		}
+		switch {
+		case small > 0 && !math.IsInf(large, 1):
+			ha = math.Sqrt(small * large)
+		case small > 0:
+			ha = small * 10
+		default:
+			ha = large / 10
 		}
 	}
 	return 0, false, nil

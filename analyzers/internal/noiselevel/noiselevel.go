@@ -19,10 +19,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/types"
-	"math"
 	"reflect"
-	"strconv"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -41,7 +38,7 @@ var Analyzer = &analysis.Analyzer{
 }
 
 // Directive is the comment prefix that declares a noise level.
-const Directive = "//roundoff:noise"
+const Directive = config.NoiseDirective
 
 // Fact is the declared relative accuracy of a function.
 type Fact struct{ Level float64 }
@@ -124,29 +121,7 @@ func funcName(fn *types.Func) string {
 	return fn.Name()
 }
 
-// Parse finds the noise directive in a doc comment and returns it, nil
-// when there is none. Its first word is the level, a number strictly
-// between 0 and 1; words after it are a free explanation. err says what is
-// wrong with a malformed one.
+// Parse finds the noise directive in a doc comment: see config.ParseNoise.
 func Parse(doc *ast.CommentGroup) (level float64, directive *ast.Comment, err error) {
-	if doc == nil {
-		return 0, nil, nil
-	}
-	for _, c := range doc.List {
-		rest, ok := strings.CutPrefix(c.Text, Directive)
-		if !ok || rest != "" && rest[0] != ' ' && rest[0] != '\t' {
-			continue
-		}
-		rest, _, _ = strings.Cut(rest, "//") // a trailing comment is no part of it
-		fields := strings.Fields(rest)
-		if len(fields) == 0 {
-			return 0, c, fmt.Errorf("%s takes a relative accuracy, such as %s 1e-6", Directive, Directive)
-		}
-		v, perr := strconv.ParseFloat(fields[0], 64)
-		if perr != nil || !(v > 0 && v < 1) || math.IsNaN(v) {
-			return 0, c, fmt.Errorf("%s %s: the relative accuracy must be a number between 0 and 1", Directive, fields[0])
-		}
-		return v, c, nil
-	}
-	return 0, nil, nil
+	return config.ParseNoise(doc)
 }

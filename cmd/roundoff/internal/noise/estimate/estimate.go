@@ -236,7 +236,7 @@ type Report struct {
 var ErrNoNoise = errors.New("no difference table found the noise")
 
 // Analyze measures the noise of φ at 0, the steps it calls for and the
-// error-against-step curve. A zero Step is one whose curvature could not
+// best estimate of φ'(0). A zero Step is one whose curvature could not
 // be measured.
 func Analyze(l Line, o Options) (Report, error) {
 	tables, err := Noise(l, o.H, o.M, o.Tries)
@@ -255,9 +255,6 @@ func Analyze(l Line, o Options) (Report, error) {
 	if r.Central, err = Central(l, r.F0, r.Noise, o.Scale); err != nil {
 		return r, err
 	}
-	if r.Best, err = Best(l, r.F0, r.Noise, o.Scale); err != nil {
-		return r, err
-	}
-	r.Curve, err = Curve(l, r.F0, r.Best, Steps(o.Scale, 2))
+	r.Best, err = Best(l, r.F0, r.Noise, o.Scale)
 	return r, err
 }

@@ -111,8 +111,8 @@ func TestRoundedToSpacing(t *testing.T) {
 
 // For smooth functions the recommended steps follow the textbook rules
 // sqrt(eps)·max(1,|x|) and eps^(1/3)·max(1,|x|) up to the curvature terms
-// those rules leave out: h_f = 8^(1/4)·sqrt(ε_f/|f''|) and h_c =
-// (3ε_f/|f'''|)^(1/3) (Moré & Wild 2012; Nocedal & Wright 2nd ed. §8.1),
+// those rules leave out: h_f = 8^(1/4)·sqrt(ε_f/|f”|) and h_c =
+// (3ε_f/|f”'|)^(1/3) (Moré & Wild 2012; Nocedal & Wright 2nd ed. §8.1),
 // with the exact derivatives of the test functions.
 func TestSmoothSteps(t *testing.T) {
 	eps := 0x1p-52

@@ -75,8 +75,8 @@ func TestIntegratorConverges(t *testing.T) {
 
 // An adaptive integrator run to a tolerance τ is a noisy function: its
 // measured relative noise falls with τ, the recommended forward step
-// follows sqrt(noise) (Moré & Wild 2012: h = 8^(1/4)·sqrt(noise/|f''|),
-// with f'' a property of the model), and the forward difference at that
+// follows sqrt(noise) (Moré & Wild 2012: h = 8^(1/4)·sqrt(noise/|f”|),
+// with f” a property of the model), and the forward difference at that
 // step, measured against the exact derivative, is within the error the
 // step promises (times 10). The step where the measured error is least is
 // logged: for this integrator it lies far below the recommended one,
@@ -102,6 +102,7 @@ func TestAdaptiveIntegrator(t *testing.T) {
 		assert.Less(t, slices.Max(ratios)/slices.Min(ratios), 3.0, "x=%g: h_f/sqrt(noise): %v", x, ratios)
 	}
 }
+
 // measuredMinimum returns the step, on a grid of 10 to a decade, where the
 // forward difference of f at x is closest to the exact derivative.
 func measuredMinimum(f func(float64) float64, x float64) float64 {

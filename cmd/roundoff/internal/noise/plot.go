@@ -24,8 +24,8 @@ func drawCurve(file string, r *Result) error {
 	p.X.Label.Text = "step h"
 	p.Y.Label.Text = "|difference quotient − best estimate|"
 	p.X.Scale, p.Y.Scale = plot.LogScale{}, plot.LogScale{}
-	p.X.Tick.Marker, p.Y.Tick.Marker = plot.LogTicks{Prec: -1}, plot.LogTicks{Prec: -1}
-	p.Legend.Top = true
+	p.X.Tick.Marker, p.Y.Tick.Marker = plot.LogTicks{Prec: 0}, plot.LogTicks{Prec: 0}
+	p.Legend.Left = true
 	fwd, cen, floor := points(r)
 	for i, s := range []struct {
 		name string

@@ -80,8 +80,8 @@ func TestIntegratorConverges(t *testing.T) {
 
 // An adaptive integrator run to a tolerance τ is a noisy function: its
 // measured relative noise falls with τ, the recommended forward step
-// follows sqrt(noise) (Moré & Wild 2012: h = 8^(1/4)·sqrt(noise/|f''|),
-// with f'' a property of the model) and lies within a factor 10 of the
+// follows sqrt(noise) (Moré & Wild 2012: h = 8^(1/4)·sqrt(noise/|f”|),
+// with f” a property of the model) and lies within a factor 10 of the
 // step where the forward-difference error, measured against the exact
 // derivative, is least.
 func TestAdaptiveIntegrator(t *testing.T) {

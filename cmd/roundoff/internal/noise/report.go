@@ -128,7 +128,6 @@ func report(w io.Writer, r *Result, asJSON bool) error {
 
 // writeText prints the result for a reader.
 func writeText(w io.Writer, r *Result) {
-	g := func(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }
 	fmt.Fprintf(w, "%s at x = %s (%s, %d evaluations)\n\n", r.Function, pointString(r.X), r.Type, r.Evaluations)
 	fmt.Fprintf(w, "noise      %s absolute; %s relative to |f(x)| = %s: about %.1f correct digits\n", g(r.Noise), g(r.Relative), g(math.Abs(r.F)), r.Digits)
 	for _, t := range r.Tables {
@@ -153,10 +152,12 @@ func writeText(w io.Writer, r *Result) {
 	fmt.Fprintf(w, "directive for the doc comment (-write inserts it):\n%s\n", r.Directive)
 }
 
+// g writes v with three significant digits.
+func g(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }
+
 // step prints a recommended step, or the rule of thumb when the curvature
 // could not be measured.
 func step(w io.Writer, name string, s estimate.Step, rule string, thumb float64, thumbRule string) {
-	g := func(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }
 	if !s.Measured {
 		fmt.Fprintf(w, "  %-8s h = %-10s %s (the curvature could not be measured)\n", name, g(thumb), thumbRule)
 		return

@@ -99,11 +99,11 @@ func (t *target) check() error {
 	in, out := sig.Params().At(0).Type(), sig.Results().At(0).Type()
 	f64, f32 := types.Typ[types.Float64], types.Typ[types.Float32]
 	switch {
-	case in == f64 && out == f64:
+	case types.Identical(in, f64) && types.Identical(out, f64):
 		t.kind = scalar64
-	case in == f32 && out == f32:
+	case types.Identical(in, f32) && types.Identical(out, f32):
 		t.kind = scalar32
-	case types.Identical(in, types.NewSlice(f64)) && out == f64:
+	case types.Identical(in, types.NewSlice(f64)) && types.Identical(out, f64):
 		t.kind = vector
 	default:
 		return fmt.Errorf("%s.%s has type %s: want one of %s (docs/noise.md shows the adapter to write)", t.pkgName, t.name, t.obj.Type(), accepted)

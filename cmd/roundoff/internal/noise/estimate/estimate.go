@@ -21,15 +21,6 @@ func (l Line) snap(t float64) float64 {
 	return l.Snap(t)
 }
 
-// at evaluates φ at one offset.
-func (l Line) at(t float64) (float64, error) {
-	v, err := l.Eval([]float64{t})
-	if err != nil {
-		return 0, err
-	}
-	return v[0], nil
-}
-
 // ErrConstant reports that φ took one value at every point of every table.
 var ErrConstant = errors.New("constant at every spacing tried")
 

@@ -92,9 +92,10 @@ func (t *target) check() error {
 	default:
 		return fmt.Errorf("%s.%s is not a function: want one of %s", t.pkgName, t.name, accepted)
 	}
+	wrong := fmt.Errorf("%s.%s has type %s: want one of %s (docs/noise.md shows the adapter to write)", t.pkgName, t.name, t.obj.Type(), accepted)
 	sig, ok := t.obj.Type().Underlying().(*types.Signature)
 	if !ok || sig.TypeParams() != nil || sig.Variadic() || sig.Params().Len() != 1 || sig.Results().Len() != 1 {
-		return fmt.Errorf("%s.%s has type %s: want one of %s (docs/noise.md shows the adapter to write)", t.pkgName, t.name, t.obj.Type(), accepted)
+		return wrong
 	}
 	in, out := sig.Params().At(0).Type(), sig.Results().At(0).Type()
 	f64, f32 := types.Typ[types.Float64], types.Typ[types.Float32]
@@ -106,7 +107,7 @@ func (t *target) check() error {
 	case types.Identical(in, types.NewSlice(f64)) && types.Identical(out, f64):
 		t.kind = vector
 	default:
-		return fmt.Errorf("%s.%s has type %s: want one of %s (docs/noise.md shows the adapter to write)", t.pkgName, t.name, t.obj.Type(), accepted)
+		return wrong
 	}
 	return nil
 }

@@ -55,16 +55,18 @@ func measure(ev *evaluator, t *target, o *options, x, p []float64) (*Result, err
 	if h == 0 {
 		h = 1e-4 * scale
 	}
-	lenient := false
-	l := line(ev, t.kind, x, p, &lenient)
-	if _, err := l.Eval([]float64{0}); err != nil {
+	l := line(ev, t.kind, x, p)
+	f0, err := l.Eval([]float64{0})
+	if err != nil {
 		return nil, err
+	}
+	if math.IsNaN(f0[0]) || math.IsInf(f0[0], 0) {
+		return nil, fmt.Errorf("returns %v at x = %s", f0[0], pointString(x))
 	}
 	est, err := estimate.Analyze(l, estimate.Options{H: h, M: o.points - 1, Tries: 5, Scale: scale})
 	if err != nil {
-		return nil, diagnose(err, est.Tables)
+		return nil, diagnose(err, est.Tables, x, p)
 	}
-	lenient = true // a step of the curve may leave the function's domain
 	curve, err := estimate.Curve(l, est.F0, est.Best, estimate.Steps(scale, 2))
 	if err != nil {
 		return nil, err
@@ -99,7 +101,14 @@ func level(rel float64) string {
 }
 
 // diagnose words a failed measurement.
-func diagnose(err error, tables []estimate.Table) error {
+func diagnose(err error, tables []estimate.Table, x, p []float64) error {
+	if nf, ok := errors.AsType[*estimate.NotFinite](err); ok {
+		at := make([]float64, len(x))
+		for i := range x {
+			at[i] = x[i] + nf.T*p[i]
+		}
+		return fmt.Errorf("returns %v at x = %s, in the difference table around the point; try another -at or a smaller -spacing", nf.V, pointString(at))
+	}
 	if len(tables) == 0 {
 		return err
 	}

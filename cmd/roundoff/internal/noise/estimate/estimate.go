@@ -2,6 +2,7 @@ package estimate
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"slices"
 )
@@ -20,6 +21,14 @@ func (l Line) snap(t float64) float64 {
 	}
 	return l.Snap(t)
 }
+
+// NotFinite reports a value of φ that is NaN or infinite in a difference
+// table: the table cannot measure noise there.
+type NotFinite struct{ T, V float64 }
+
+func (e *NotFinite) Error() string { return fmt.Sprintf("φ(%g) = %g", e.T, e.V) }
+
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
 // ErrConstant reports that φ took one value at every point of every table.
 var ErrConstant = errors.New("constant at every spacing tried")
@@ -41,6 +50,11 @@ func Noise(l Line, h float64, m, tries int) ([]Table, error) {
 		vs, err := l.Eval(ts)
 		if err != nil {
 			return tables, err
+		}
+		for i, v := range vs {
+			if !finite(v) {
+				return tables, &NotFinite{ts[i], v}
+			}
 		}
 		t := Differences(h, vs)
 		tables = append(tables, t)
@@ -179,7 +193,8 @@ func curvature(l Line, s stencil, f0, noise, scale float64) (mu float64, ok bool
 
 // apply returns the stencil's estimate at step h and which test failed:
 // +1 when the difference is within tau1 times the noise (h too small), -1
-// when a value moves more than tau2 from φ(0) (h too large), else 0.
+// when a value moves more than tau2 from φ(0) or is not finite (h too
+// large, or out of the function's domain), else 0.
 func (s stencil) apply(l Line, f0, noise, h float64) (mu float64, fail int, err error) {
 	h = l.snap(h)
 	ts := make([]float64, len(s.offsets))
@@ -193,7 +208,7 @@ func (s stencil) apply(l Line, f0, noise, h float64) (mu float64, fail int, err 
 	delta := 0.0
 	for i, v := range vs {
 		delta += s.weights[i] * v
-		if math.Abs(v-f0) > tau2*max(math.Abs(f0), math.Abs(v)) {
+		if !finite(v) || math.Abs(v-f0) > tau2*max(math.Abs(f0), math.Abs(v)) {
 			fail = -1
 		}
 	}

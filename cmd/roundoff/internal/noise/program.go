@@ -95,7 +95,7 @@ type evaluator struct {
 	cmd      *exec.Cmd
 	in       io.WriteCloser
 	out      *bufio.Reader
-	stderr   bytes.Buffer
+	stderr   capped
 	ctx      context.Context
 	timeout  time.Duration
 	count    int
@@ -175,6 +175,18 @@ func buildError(out []byte, err error) string {
 		}
 	}
 	return err.Error()
+}
+
+// capped keeps the first 64 KiB written to it: the start of the
+// program's standard error, where a crash or the function's own printing
+// shows, without holding all of a chatty function's output.
+type capped struct{ bytes.Buffer }
+
+func (c *capped) Write(p []byte) (int, error) {
+	if room := 64<<10 - c.Len(); room > 0 {
+		c.Buffer.Write(p[:min(len(p), room)])
+	}
+	return len(p), nil
 }
 
 // errEval is an evaluation failure, already worded for the user.

@@ -145,3 +145,26 @@ func TestConstant(t *testing.T) {
 	_, err := estimate.Analyze(line(func(float64) float64 { return 2.5 }, 1), options(1))
 	assert.ErrorIs(t, err, estimate.ErrConstant)
 }
+
+// The diagnoses of Moré & Wild 2011 move the spacing: a function rounded to
+// 1e-3 shows too few distinct values at spacing 1e-8 and is measured after
+// retries at 100 times larger spacings; a smooth function varies too much at
+// spacing 0.5 and is measured after retries at 100 times smaller ones.
+func TestSpacingRetries(t *testing.T) {
+	coarse := func(x float64) float64 { return 1e-3 * math.Round(math.Sin(x)/1e-3) }
+	o := options(1)
+	o.H = 1e-8
+	r, err := estimate.Analyze(line(coarse, 1), o)
+	require.NoError(t, err)
+	require.Greater(t, len(r.Tables), 1)
+	assert.Equal(t, estimate.TooSmall, r.Tables[0].Verdict)
+	assert.InEpsilon(t, 1e-8*math.Pow(100, float64(len(r.Tables)-1)), r.Tables[len(r.Tables)-1].H, 1e-6)
+	assert.InEpsilon(t, 1e-3/math.Sqrt(12), r.Noise, 1) // within a factor 2 (Δ/√12, textbook)
+
+	o.H = 0.5
+	r, err = estimate.Analyze(line(math.Exp, 1), o)
+	require.NoError(t, err)
+	require.Greater(t, len(r.Tables), 1)
+	assert.Equal(t, estimate.TooLarge, r.Tables[0].Verdict)
+	assert.Equal(t, estimate.Detected, r.Tables[len(r.Tables)-1].Verdict)
+}

@@ -63,7 +63,7 @@ func resolve(arg, tags, dir string) (*target, error) {
 	}
 	pkg := pkgs[0]
 	if len(pkg.Errors) > 0 {
-		return nil, fmt.Errorf("package %s: %s", pattern, firstLine(pkg.Errors[0].Error()))
+		return nil, fmt.Errorf("package %s: %s", pattern, strings.TrimPrefix(firstLine(pkg.Errors[0].Error()), "-: "))
 	}
 	if len(pkg.GoFiles) == 0 || pkg.Types == nil {
 		return nil, fmt.Errorf("no Go package in %s", pattern)

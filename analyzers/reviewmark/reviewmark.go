@@ -12,7 +12,6 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/internal/config"
 )
 
@@ -121,15 +120,15 @@ func checkNoise(pass *analysis.Pass, f *ast.File) {
 	for _, d := range f.Decls {
 		if fd, ok := d.(*ast.FuncDecl); ok && fd.Doc != nil {
 			docs[fd.Doc] = true
-			if _, c, err := noiselevel.Parse(fd.Doc); err != nil {
+			if _, c, err := config.FindNoiseDirective(fd.Doc); err != nil {
 				fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: catNoise, Message: err.Error() + ", so it declares nothing"})
 			}
 		}
 	}
 	for _, g := range f.Comments {
-		if _, c, _ := noiselevel.Parse(g); c != nil && !docs[g] {
+		if _, c, _ := config.FindNoiseDirective(g); c != nil && !docs[g] {
 			fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: catNoise,
-				Message: noiselevel.Directive + " declares a function's noise level only in its doc comment; here it declares nothing"})
+				Message: config.NoiseDirective + " declares a function's noise level only in its doc comment; here it declares nothing"})
 		}
 	}
 }

@@ -20,13 +20,11 @@ import (
 	"go/ast"
 	"go/types"
 	"reflect"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/internal/config"
-	"roundoff/internal/numeric"
 )
 
 // Analyzer learns the noise levels of this package's functions and of
@@ -38,9 +36,6 @@ var Analyzer = &analysis.Analyzer{
 	ResultType: reflect.TypeFor[*Levels](),
 	FactTypes:  []analysis.Fact{new(Fact)},
 }
-
-// Directive is the comment prefix that declares a noise level.
-const Directive = "//roundoff:noise"
 
 // Fact is the declared relative accuracy of a function.
 type Fact struct{ Level float64 }
@@ -103,7 +98,7 @@ func declared(pkgPath string, fd *ast.FuncDecl, fn *types.Func) (float64, bool) 
 	if fn == nil {
 		return 0, false
 	}
-	if level, c, err := Parse(fd.Doc); c != nil {
+	if level, c, err := config.FindNoiseDirective(fd.Doc); c != nil {
 		return level, err == nil
 	}
 	return config.Noise(pkgPath, funcName(fn))
@@ -121,31 +116,4 @@ func funcName(fn *types.Func) string {
 		}
 	}
 	return fn.Name()
-}
-
-// Parse finds the noise directive in a doc comment and returns it, nil
-// when there is none. Its first word is the level, checked by
-// config.ParseNoise; words after it are a free explanation. err says what is
-// wrong with a malformed one.
-func Parse(doc *ast.CommentGroup) (level float64, directive *ast.Comment, err error) {
-	if doc == nil {
-		return 0, nil, nil
-	}
-	for _, c := range doc.List {
-		rest, ok := strings.CutPrefix(c.Text, Directive)
-		if !ok || rest != "" && rest[0] != ' ' && rest[0] != '\t' {
-			continue
-		}
-		rest, _, _ = strings.Cut(rest, "//") // a trailing comment is no part of it
-		fields := strings.Fields(rest)
-		if len(fields) == 0 {
-			return 0, c, fmt.Errorf("%s takes a relative accuracy, such as %s 1e-6", Directive, Directive)
-		}
-		v, err := config.ParseNoise(fields[0], numeric.Float64)
-		if err != nil {
-			return 0, c, fmt.Errorf("%s %s: %v", Directive, fields[0], err)
-		}
-		return v, c, nil
-	}
-	return 0, nil, nil
 }

@@ -14,6 +14,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/cmd/roundoff/internal/limits"
+	"roundoff/cmd/roundoff/internal/noise"
 )
 
 // Exit statuses of the standalone driver.
@@ -44,6 +45,8 @@ func Main(analyzers []*analysis.Analyzer, args []string) int {
 			return e.hookCmd(args[1:])
 		case "limits":
 			return limits.Run(args[1:], e.stdout, e.stderr)
+		case "noise":
+			return noise.Run(args[1:], e.cwd, e.stdout, e.stderr)
 		case "help":
 			return e.help(args[1:])
 		}
@@ -73,8 +76,9 @@ Usage:
   roundoff hook uninstall          remove it (restoring a saved hook)
   roundoff hook run                lint the staged lines (what the hook runs)
   roundoff limits [flags] X...     float spacing, attainable tolerances and steps at X
+  roundoff noise [flags] PKG.FUNC  measure a function's noise level, its steps and tolerances
   roundoff help [topic]            this text, or the help of an analyzer or
-                                   of limits, config or hook
+                                   of limits, config, hook or noise
 
 Every subcommand prints its usage with -h.
 

@@ -49,9 +49,9 @@ type site struct {
 // A finding is one diagnostic with the sites it names: its own position
 // and its related locations.
 type finding struct {
-	analyzer string
-	at       site
-	sites    []site
+	analyzer, message string
+	at                site
+	sites             []site
 }
 
 // TestCorpus lints every repository of the development corpus with the
@@ -124,7 +124,7 @@ func lintRepo(t *testing.T, root, repo, commit string) []finding {
 			continue
 		}
 		for _, d := range act.Diagnostics {
-			f := finding{analyzer: act.Analyzer.Name, at: siteOf(act.Package.Fset, root, repo, d.Pos)}
+			f := finding{analyzer: act.Analyzer.Name, message: d.Message, at: siteOf(act.Package.Fset, root, repo, d.Pos)}
 			f.sites = append(f.sites, f.at)
 			for _, r := range d.Related {
 				f.sites = append(f.sites, siteOf(act.Package.Fset, root, repo, r.Pos))
@@ -202,7 +202,7 @@ func report(t *testing.T, labels []label, findings []finding) {
 			}
 		}
 		if verdict == "" {
-			unjudged = append(unjudged, fmt.Sprintf("%s\t%s:%d\t%s", f.at.repo, f.at.file, f.at.line, f.analyzer))
+			unjudged = append(unjudged, fmt.Sprintf("%s\t%s\t%d\t%s\t%s", f.at.repo, f.at.file, f.at.line, f.analyzer, f.message))
 		}
 	}
 	for _, l := range labels {

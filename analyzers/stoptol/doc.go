@@ -57,8 +57,9 @@
 //     tol as the loop condition does not); a series whose only exit tests
 //     the term, when a NaN term keeps it running;
 //   - a range reduction by repeated addition, for x < 0 { x += 2*math.Pi },
-//     which takes |x|/c passes and never ends once c is absorbed, from
-//     |x| = 2^56 ≈ 7.2e16 for 2π in float64 (category reduction);
+//     on a parameter of an exported function, which takes |x|/c passes and
+//     never ends once c is absorbed, from |x| = 2^56 ≈ 7.2e16 for 2π in
+//     float64 (category reduction);
 //   - a loop that advances x by a step computed by a formula that can round
 //     to zero (acos(r/(r+d)) once d/r < eps/2, a difference, a remainder)
 //     and ends only on float tests (category stall);
@@ -104,8 +105,13 @@
 //     once), or by a step that cannot round to zero (1/slope);
 //   - exits on errors count as no bound, but loops with another exit on
 //     data (a length, a state flag) are left alone;
+//   - range reductions in unexported functions (their callers are the
+//     package's own, and a value within a few periods takes a pass or two)
+//     or against another variable (how far apart they start is the
+//     caller's);
 //   - loops in test files, which run on the fixed inputs they were written
-//     for: one that never ended would hang the test;
+//     for: one that never ended would hang the test; and constants written
+//     in test files, since each case runs on its one problem;
 //   - loops it cannot classify, except for the missing cap.
 //
 // Fixes (all need review): in a minimization, the test becomes

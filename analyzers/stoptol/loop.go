@@ -35,6 +35,7 @@ func (c class) locatesToUlps() bool {
 // function holds what stoptol learns about a function body once.
 type function struct {
 	body  ast.Node
+	decl  *ast.FuncDecl             // nil for a function literal
 	fvals map[*types.Var]bool       // variables holding function values
 	flags map[*types.Var][]ast.Expr // booleans holding tests (tolerance.Flags)
 }

@@ -157,7 +157,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if tv := c.pass.TypesInfo.Types[step]; tv.Value != nil {
 		h, isConst = f.Value(tv.Value), true
 	}
-	if isConst && h != 0 && d.onlyAdvances(x) && !d.constStart(x) {
+	if isConst && h != 0 && d.onlyAdvances(x) && d.constBound(x) && c.exportedParam(l, x) {
 		what := numeric.Short(h)
 		if step != nil {
 			what = numeric.WithValue(fixes.Source(c.pass.Fset, step), h)
@@ -681,16 +681,42 @@ func (d *deps) interiorEnd(m, end *types.Var) bool {
 	return other && moved
 }
 
-// constStart reports whether x starts the loop as a constant
-// (for x := 0.0; ...).
-func (d *deps) constStart(x *types.Var) bool {
-	init, ok := d.l.stmt.Init.(*ast.AssignStmt)
-	if !ok || len(init.Lhs) != len(init.Rhs) {
+// constBound reports whether every exit test compares x with a constant,
+// as a reduction into a fixed range does (for x < 0, for x >= 2*math.Pi);
+// a test against another variable aligns x with it, and how far apart
+// they start is the caller's.
+func (d *deps) constBound(x *types.Var) bool {
+	for _, t := range d.tests {
+		b, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
+		if !ok {
+			return false
+		}
+		other := b.Y
+		if subjectOf(d.info, b.X) != x {
+			other = b.X
+		}
+		if d.info.Types[other].Value == nil {
+			return false
+		}
+	}
+	return true
+}
+
+// exportedParam reports whether x is a parameter of the exported function
+// around the loop: its callers may pass any float, however large. The
+// callers of an unexported function are the package's own, which stoptol
+// does not follow; repeated reduction of a value within a few periods
+// takes a pass or two.
+func (c *checker) exportedParam(l *loop, x *types.Var) bool {
+	fd := l.decl
+	if fd == nil || !fd.Name.IsExported() {
 		return false
 	}
-	for i, lhs := range init.Lhs {
-		if tolerance.VarOf(d.info, lhs) == x {
-			return d.info.Types[init.Rhs[i]].Value != nil
+	for _, field := range fd.Type.Params.List {
+		for _, name := range field.Names {
+			if c.pass.TypesInfo.Defs[name] == x {
+				return true
+			}
 		}
 	}
 	return false

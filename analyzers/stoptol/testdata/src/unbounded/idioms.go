@@ -128,3 +128,26 @@ func marks(start, gap, end float64, mark func(float64)) {
 		i++
 	}
 }
+
+// wrapSmall is unexported: its callers are this package's own, which
+// stoptol does not follow; a value within a few periods takes a pass or
+// two.
+func wrapSmall(p float64) float64 {
+	for p < 0 { // an unexported helper
+		p += 2 * math.Pi
+	}
+	return p
+}
+
+// Align brings one angle within a turn of another: how far apart they
+// start is the caller's, and here the loop does not even run when
+// delta >= 0.
+func Align(start, delta float64) float64 {
+	end := start + delta
+	if delta >= 0 {
+		for end < start { // bounded by another variable, not a fixed range
+			end += 2 * math.Pi
+		}
+	}
+	return end
+}

@@ -7,6 +7,7 @@ import (
 	"go/types"
 	"maps"
 	"slices"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -33,8 +34,8 @@ const (
 // the term, fresh draws (sampling, polling), values carried only by integer
 // counters or by walking data, and scans by a given step.
 func (c *checker) unbounded(l *loop) {
-	if l.capped || l.other || len(l.exits) == 0 {
-		return
+	if l.capped || l.other || len(l.exits) == 0 || inTestFile(c.pass, l.stmt) {
+		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)
 	for i, e := range l.exits {
@@ -50,13 +51,15 @@ func (c *checker) unbounded(l *loop) {
 		return // no float test, or bisection until no float is left between the ends
 	}
 	nanRuns := d.nanRuns()
-	geo := tolerance.Geometric(c.pass.TypesInfo, l.stmt.Cond, l.stmt.Post, l.stmt.Body)
 	tested := d.tested()
 	carried := d.effects && d.readsState()
 	series := false
 	for v := range tested {
-		if _, ok := geo[v]; ok || !nanRuns && (d.scaled(v) || d.series(v)) || !d.effects && d.fresh(v, 4) {
-			return // it reaches 0 or ±Inf, it is a term and NaN ends the loop, or it is drawn anew
+		switch {
+		case d.scaled(v, true), !nanRuns && (d.scaled(v, false) || d.series(v)):
+			return // it reaches 0 or ±Inf, or it is a term and NaN ends the loop
+		case !d.effects && d.fresh(v, 4), d.counted(v):
+			return // it is drawn anew, or read at a new integer each pass
 		}
 		carried = carried || d.carried(v)
 		series = series || d.series(v)
@@ -154,7 +157,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if tv := c.pass.TypesInfo.Types[step]; tv.Value != nil {
 		h, isConst = f.Value(tv.Value), true
 	}
-	if isConst && h != 0 && d.onlyAdvances(x) && !d.constStart(x) {
+	if isConst && h != 0 && d.onlyAdvances(x) && d.constBound(x) && c.exportedParam(l, x) {
 		what := numeric.Short(h)
 		if step != nil {
 			what = numeric.WithValue(fixes.Source(c.pass.Fset, step), h)
@@ -347,7 +350,7 @@ func (d *deps) floatTest(e ast.Expr) bool {
 		}
 		for _, a := range args {
 			if holdsFloats(d.info.TypeOf(a)) {
-				return true
+				return true // a state machine's step (for d.Step()) is no float test
 			}
 		}
 	case *ast.Ident:
@@ -488,22 +491,26 @@ func (d *deps) canVanish(e ast.Expr, depth int) bool {
 var vanishing = map[string]bool{"Acos": true, "Log": true, "Log2": true, "Log10": true, "Mod": true, "Remainder": true, "Sin": true, "Tan": true, "Floor": true, "Trunc": true, "Round": true}
 
 // scaled reports whether the loop only ever multiplies or divides v by
-// something (v *= r, v = v*a*b, v /= b): a term of a series or a
-// scaling, which reaches 0 or ±Inf unless the factor is exactly 1. A
-// value computed from such a v in the loop counts too.
-func (d *deps) scaled(v *types.Var) bool {
-	if d.scaledOnly(v) {
+// something (v *= r, v = v*a*b, v /= b), by factors the loop does not
+// change when invariant: a scaling, which reaches 0 or ±Inf unless the
+// factor is exactly 1; or else a term of a series, where a value computed
+// from such a v in the loop counts too.
+func (d *deps) scaled(v *types.Var, invariant bool) bool {
+	if d.scaledOnly(v, invariant) {
 		return true
 	}
+	if invariant {
+		return false
+	}
 	for _, w := range d.from[v] {
-		if w != v && d.scaledOnly(w) {
+		if w != v && d.scaledOnly(w, invariant) {
 			return true
 		}
 	}
 	return false
 }
 
-func (d *deps) scaledOnly(v *types.Var) bool {
+func (d *deps) scaledOnly(v *types.Var, invariant bool) bool {
 	if len(d.rhs[v]) == 0 {
 		return false
 	}
@@ -517,8 +524,25 @@ func (d *deps) scaledOnly(v *types.Var) bool {
 		default:
 			return false
 		}
+		if invariant && slices.ContainsFunc(d.reads(r), func(w *types.Var) bool { return w != v && len(d.rhs[w]) > 0 }) {
+			return false // a factor the loop changes
+		}
 	}
 	return true
+}
+
+// counted reports whether v is, or is computed in the loop from, an
+// integer counter the loop steps: each pass reads it at a new integer,
+// so no float stalls it.
+func (d *deps) counted(v *types.Var) bool {
+	for _, w := range append(d.from[v], v) {
+		if b, ok := w.Type().Underlying().(*types.Basic); ok && b.Info()&types.IsInteger != 0 {
+			if _, ok := d.additive(w); ok {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // factorOf reports whether e is a product (or quotient) with v as a
@@ -598,24 +622,20 @@ func (d *deps) drawsIn(e ast.Expr) bool {
 	return found
 }
 
-// near returns the tested variables, and the variables they are offsets
-// of (rest = end - pos reads pos), in the order they are declared.
+// near returns the tested variables, then the variables they are computed
+// from in the loop (rest = end - pos reads pos), each in declaration order.
 func (d *deps) near(tested map[*types.Var]bool) []*types.Var {
-	set := maps.Clone(tested)
+	byPos := func(a, b *types.Var) int { return int(a.Pos() - b.Pos()) }
+	out := slices.SortedFunc(maps.Keys(tested), byPos)
+	from := make(map[*types.Var]bool)
 	for v := range tested {
-		for _, r := range d.rhs[v] {
-			if b, ok := ast.Unparen(r).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) {
-				for _, w := range []*types.Var{subjectOf(d.info, b.X), subjectOf(d.info, b.Y)} {
-					if w != nil {
-						set[w] = true
-					}
-				}
+		for _, w := range d.from[v] {
+			if !tested[w] {
+				from[w] = true
 			}
 		}
 	}
-	out := slices.Collect(maps.Keys(set))
-	slices.SortFunc(out, func(a, b *types.Var) int { return int(a.Pos() - b.Pos()) })
-	return out
+	return append(out, slices.SortedFunc(maps.Keys(from), byPos)...)
 }
 
 // onlyAdvances reports whether the loop does nothing but advance x.
@@ -661,16 +681,42 @@ func (d *deps) interiorEnd(m, end *types.Var) bool {
 	return other && moved
 }
 
-// constStart reports whether x starts the loop as a constant
-// (for x := 0.0; ...).
-func (d *deps) constStart(x *types.Var) bool {
-	init, ok := d.l.stmt.Init.(*ast.AssignStmt)
-	if !ok || len(init.Lhs) != len(init.Rhs) {
+// constBound reports whether every exit test compares x with a constant,
+// as a reduction into a fixed range does (for x < 0, for x >= 2*math.Pi);
+// a test against another variable aligns x with it, and how far apart
+// they start is the caller's.
+func (d *deps) constBound(x *types.Var) bool {
+	for _, t := range d.tests {
+		b, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
+		if !ok {
+			return false
+		}
+		other := b.Y
+		if subjectOf(d.info, b.X) != x {
+			other = b.X
+		}
+		if d.info.Types[other].Value == nil {
+			return false
+		}
+	}
+	return true
+}
+
+// exportedParam reports whether x is a parameter of the exported function
+// around the loop: its callers may pass any float, however large. The
+// callers of an unexported function are the package's own, which stoptol
+// does not follow; repeated reduction of a value within a few periods
+// takes a pass or two.
+func (c *checker) exportedParam(l *loop, x *types.Var) bool {
+	fd := l.decl
+	if fd == nil || !fd.Name.IsExported() {
 		return false
 	}
-	for i, lhs := range init.Lhs {
-		if tolerance.VarOf(d.info, lhs) == x {
-			return d.info.Types[init.Rhs[i]].Value != nil
+	for _, field := range fd.Type.Params.List {
+		for _, name := range field.Names {
+			if c.pass.TypesInfo.Defs[name] == x {
+				return true
+			}
 		}
 	}
 	return false
@@ -692,6 +738,11 @@ func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
 	return out
 }
 
+// inTestFile reports whether n lies in a _test.go file.
+func inTestFile(pass *analysis.Pass, n ast.Node) bool {
+	return strings.HasSuffix(pass.Fset.File(n.Pos()).Name(), "_test.go")
+}
+
 // carriesFloats reports whether a value of type t can carry float work
 // from pass to pass: not an integer, a pointer, an interface, a map, a
 // channel or a function.
@@ -705,7 +756,8 @@ func carriesFloats(t types.Type) bool {
 	return true
 }
 
-// holdsFloats reports whether t is a float, or a struct or array of them.
+// holdsFloats reports whether t is a float, or a struct or array holding
+// floats by value (a point, not a pointer to a solver).
 func holdsFloats(t types.Type) bool {
 	if t == nil {
 		return false
@@ -714,8 +766,6 @@ func holdsFloats(t types.Type) bool {
 		return true
 	}
 	switch u := t.Underlying().(type) {
-	case *types.Pointer:
-		return holdsFloats(u.Elem())
 	case *types.Array:
 		return holdsFloats(u.Elem())
 	case *types.Struct:

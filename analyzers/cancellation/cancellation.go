@@ -100,7 +100,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		}
 	case "Sqrt":
 		c.hypot(cur, call)
-	case "Acos", "Asin":
+	case "Acos":
 		c.acos(cur, call, name)
 	}
 }

@@ -44,6 +44,9 @@ func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 	if c.isConst(b) || c.wholeNumber(b) && c.isConst(a) || !c.lossShows(cur, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
+	if _, _, onePlus := c.onePlus(a); !onePlus && c.computed(a) {
+		return // a computed base carries its own rounding, which Expm1 would inherit
+	}
 	q := qualifier(call)
 	logA := q + ".Log(" + fixes.Source(c.pass.Fset, ast.Unparen(a)) + ")"
 	if x, neg, ok := c.onePlus(a); ok {
@@ -261,43 +264,117 @@ func asExpr(n ast.Node) ast.Expr {
 	return e
 }
 
-// normCosine reports whether e is a ratio over a norm, a/math.Sqrt(...)
-// or a/(|u|·|v|) with a square root among the factors of the denominator:
-// the cosine of an angle computed from a dot product.
+// normCosine reports whether e is a ratio over a norm, a/|u| or
+// a/(|u|·|v|): the cosine of an angle computed from a dot product.
 func (c *checker) normCosine(e ast.Expr) bool {
 	q, ok := e.(*ast.BinaryExpr)
-	if !ok || q.Op != token.QUO {
-		return false
-	}
-	var hasRoot func(ast.Expr, int) bool
-	hasRoot = func(d ast.Expr, depth int) bool {
-		d, _ = c.through(d)
-		switch d := d.(type) {
-		case *ast.CallExpr:
-			return c.mathFunc(d) == "Sqrt" || c.mathFunc2(d) == "Hypot"
-		case *ast.BinaryExpr:
-			return depth > 0 && d.Op == token.MUL && (hasRoot(d.X, depth-1) || hasRoot(d.Y, depth-1))
-		}
-		return false
-	}
-	return hasRoot(q.Y, 2)
+	return ok && q.Op == token.QUO && c.isNorm(q.Y, 2)
 }
 
-// acos reports math.Acos and math.Asin of a computed argument: near ±1
-// their slope 1/sqrt(1-x²) is unbounded, so an error of one rounding in x
-// becomes an angle error of about sqrt(2u) ≈ 1.49e-8 rad, half the digits,
-// at the angles 0 and π (Acos) or ±π/2 (Asin) where the argument lands
-// most often: parallel vectors, points near a centre. An angle only
-// counted (math.Ceil of it, an integer conversion) is left alone.
+// isNorm reports whether e is a Euclidean norm or a product of norms:
+// math.Hypot, or math.Sqrt (math.Pow(·, 0.5)) of a sum of squares or of a
+// self dot product (dot(v, v)), directly or through variables.
+func (c *checker) isNorm(e ast.Expr, depth int) bool {
+	e, _ = c.through(e)
+	switch e := e.(type) {
+	case *ast.BinaryExpr:
+		return depth > 0 && e.Op == token.MUL && (c.isNorm(e.X, depth-1) || c.isNorm(e.Y, depth-1))
+	case *ast.CallExpr:
+		if c.mathFunc2(e) == "Hypot" {
+			return true
+		}
+		if c.mathFunc(e) != "Sqrt" && (c.mathFunc2(e) != "Pow" || !c.isHalf(e.Args[1])) {
+			return false
+		}
+		if id, ok := ast.Unparen(e.Args[0]).(*ast.Ident); ok {
+			return c.sumOfSquares(id)
+		}
+		return c.hasSquare(e.Args[0])
+	}
+	return false
+}
+
+// hasSquare reports whether e contains a square x*x or a self dot product
+// dot(v, v).
+func (c *checker) hasSquare(e ast.Expr) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.BinaryExpr:
+			_, found = c.square(n)
+		case *ast.CallExpr:
+			found = len(n.Args) == 2 && same(n.Args[0], n.Args[1]) && fixes.Pure(c.pass.TypesInfo, n.Args[0])
+		}
+		return !found
+	})
+	return found
+}
+
+// sumOfSquares reports whether the variable id holds squares: its
+// initial value has one, or its function adds one to it (na += a[i]*a[i]).
+func (c *checker) sumOfSquares(id *ast.Ident) bool {
+	obj := c.pass.TypesInfo.Uses[id]
+	if init := c.decls[obj]; init != nil {
+		return c.hasSquare(init)
+	}
+	cur, ok := c.insp.Root().FindNode(id)
+	if !ok {
+		return false
+	}
+	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		for a := range fn.Preorder((*ast.AssignStmt)(nil)) {
+			as := a.Node().(*ast.AssignStmt)
+			if l, ok := as.Lhs[0].(*ast.Ident); ok && as.Tok == token.ADD_ASSIGN && c.pass.TypesInfo.ObjectOf(l) == obj && c.hasSquare(as.Rhs[0]) {
+				return true
+			}
+		}
+		break
+	}
+	return false
+}
+
+// isHalf reports whether e is the constant 0.5.
+func (c *checker) isHalf(e ast.Expr) bool {
+	v := c.pass.TypesInfo.Types[e].Value
+	return v != nil && constant.Compare(v, token.EQL, constant.MakeFloat64(0.5))
+}
+
+// lawOfCosines reports whether e is a sum of two products of sines and
+// cosines, sin a·sin b + cos a·cos b·cos c: the cosine of a great-circle
+// distance.
+func (c *checker) lawOfCosines(e ast.Expr) bool {
+	sum, ok := e.(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return false
+	}
+	trig := func(x ast.Expr) bool {
+		found := false
+		ast.Inspect(x, func(n ast.Node) bool {
+			if call, ok := n.(*ast.CallExpr); ok && (c.mathFunc(call) == "Sin" || c.mathFunc(call) == "Cos") {
+				found = true
+			}
+			return !found
+		})
+		m, isProduct := ast.Unparen(x).(*ast.BinaryExpr)
+		return found && isProduct && m.Op == token.MUL
+	}
+	return trig(sum.X) && trig(sum.Y)
+}
+
+// acos reports math.Acos of the cosine of an angle between vectors (a dot
+// product over norms) or of a great-circle distance (the spherical law of
+// cosines): near ±1 its slope 1/sqrt(1-x²) is unbounded, so an error of one
+// rounding in x becomes an angle error of about sqrt(2u) ≈ 1.49e-8 rad,
+// half the digits, at the angles 0 and π where such cosines land most
+// often (parallel vectors, nearby points), and math.Atan2 of the sine and
+// cosine parts is exact there. An angle only counted (math.Ceil of it, an
+// integer conversion) is left alone.
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	x := c.unclamped(call.Args[0])
-	if _, computed := x.(*ast.BinaryExpr); !computed || c.counted(cur) {
+	if !c.normCosine(x) && !c.lawOfCosines(x) || c.counted(cur) {
 		return
 	}
 	ends := "0 and π"
-	if name == "Asin" {
-		ends = "±π/2"
-	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catArc,
 		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near %s): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad; compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)",

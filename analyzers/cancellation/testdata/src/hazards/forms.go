@@ -40,13 +40,13 @@ func turnAngle(ax, ay, bx, by float64) float64 {
 	return math.Acos((ax*bx + ay*by) / (math.Hypot(ax, ay) * math.Hypot(bx, by))) // want `math.Acos\(x\) loses half the digits where x is near ±1 \(angles near 0 and π\): one rounding in x becomes an angle error of about sqrt\(2u\) ≈ 1.49e-08 rad`
 }
 
-func clampedAngle(dot, nu, nv float64) float64 {
-	c := math.Max(-1, math.Min(1, dot/(nu*nv)))
+func clampedAngle(ux, uy, vx, vy float64) float64 {
+	c := math.Max(-1, math.Min(1, (ux*vx+uy*vy)/math.Sqrt((ux*ux+uy*uy)*(vx*vx+vy*vy))))
 	return math.Acos(c) // want `math.Acos\(x\) with x = c loses half the digits`
 }
 
-func elevation(z, r float64) float64 {
-	return math.Asin(z / r) // want `math.Asin\(x\) with x = z / r loses half the digits where x is near ±1 \(angles near ±π/2\)`
+func greatCircle(lat1, lat2, dlon float64) float64 {
+	return math.Acos(math.Sin(lat1)*math.Sin(lat2) + math.Cos(lat1)*math.Cos(lat2)*math.Cos(dlon)) // want `math.Acos\(x\) loses half the digits where x is near ±1`
 }
 
 func cosineDistance(a, b []float64) float64 {

@@ -128,3 +128,15 @@ func reassignedRatio(a, b, c float64) float64 {
 	}
 	return 1 - r*r // every value of r is computed: its own rounding dominates
 }
+
+func elevation(z, r float64) float64 {
+	return math.Asin(z / r) // near ±π/2 the problem itself is ill-conditioned in z and r: asin adds nothing worse
+}
+
+func startAngle(theta float64, n int) float64 {
+	return math.Acos(theta / math.Sqrt(2*float64(n)+1)) // not a cosine over norms: a scaled guess
+}
+
+func ratioPower(x, lambda, k float64) float64 {
+	return math.Pow(x/lambda, k) - 1 // the computed base carries its own rounding, which Expm1 would inherit
+}

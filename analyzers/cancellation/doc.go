@@ -28,9 +28,11 @@
 //     is about |c|/(2|u|) with relative error about 2u·u²/|c|;
 //     math.Log(x + math.Sqrt(x*x+1)) is -Inf from x ≈ -1.34e8, where
 //     math.Asinh(x) is exact to an ulp;
-//   - math.Acos(x) and math.Asin(x) of a computed argument: near ±1 one
-//     rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8 rad,
-//     half the digits; math.Atan2 of the sine and cosine parts;
+//   - math.Acos(x) of the cosine of an angle between vectors (a dot
+//     product over norms) or of a great-circle distance (the spherical law
+//     of cosines): near ±1, where parallel vectors and nearby points put
+//     it, one rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8
+//     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
 //     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
 //   - a*a - b*b, 1 - x*x and x*x - 1: each square carries a rounding
@@ -71,13 +73,16 @@
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
 // data. The power rule also leaves alone a constant exponent (1 -
-// math.Pow(x, 2) is a difference of squares) and a whole power of a
-// constant base (math.Pow(2, float64(n)) - 1). The radical rule is silent
-// where the sign of u is known: math.Abs, math.Sqrt, math.Exp, a square,
-// or an enclosing condition that compares u. The arc rule is silent for an
-// argument computed elsewhere (a parameter) and for an angle that is only
-// counted (math.Ceil, an integer conversion), where half the digits are
-// plenty. An absolute value is recognised by meaning wherever these rules
+// math.Pow(x, 2) is a difference of squares), a whole power of a
+// constant base (math.Pow(2, float64(n)) - 1), and a computed base other
+// than 1±u ((x/λ)^k - 1: the base carries its own rounding, which
+// math.Expm1 would inherit). The radical rule is silent where the sign of
+// u is known: math.Abs, math.Sqrt, math.Exp, a square, or an enclosing
+// condition that compares u. The arc rule is silent for other arguments,
+// which reach ±1 only where the problem itself is ill-conditioned (a ratio
+// of sines near a pole) or feed a Newton iteration that refines them, for
+// math.Asin, and for an angle that is only counted (math.Ceil, an integer
+// conversion), where half the digits are plenty. An absolute value is recognised by meaning wherever these rules
 // look for one (guards, signs): math.Abs, a float32 library's Abs, or the
 // package's own helper (absval). The squares rule is silent for constants
 // and whole numbers, whose squares are exact, and for operands computed in

@@ -609,15 +609,17 @@ func (c *checker) farReaching(e ast.Expr, depth int) bool {
 // relative error of a rounding, so 1 - c*c has an absolute error of about
 // 2u near |c| = 1 however it is formed: (1-c)*(1+c) gains only for exact
 // inputs.
-func (c *checker) computed(e ast.Expr) bool {
+func (c *checker) computed(e ast.Expr) bool { return c.computedDepth(e, 3) }
+
+func (c *checker) computedDepth(e ast.Expr, depth int) bool {
 	e, _ = c.through(e)
 	switch e := e.(type) {
 	case *ast.BinaryExpr, *ast.CallExpr:
 		return !c.isConst(e)
 	case *ast.UnaryExpr:
-		return c.computed(e.X)
+		return depth > 0 && c.computedDepth(e.X, depth-1)
 	case *ast.Ident:
-		return c.assignedComputed(e)
+		return depth > 0 && c.assignedComputed(e, depth-1)
 	}
 	return false
 }
@@ -625,7 +627,7 @@ func (c *checker) computed(e ast.Expr) bool {
 // assignedComputed reports whether the local variable id is assigned, and
 // every value assigned to it in its function is computed (ack = (at+1)*raz
 // in one place, ack = ... in another).
-func (c *checker) assignedComputed(id *ast.Ident) bool {
+func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
 	v, ok := c.pass.TypesInfo.Uses[id].(*types.Var)
 	if !ok || v.Parent() == nil || v.Parent() == c.pass.Pkg.Scope() {
 		return false
@@ -645,7 +647,7 @@ func (c *checker) assignedComputed(id *ast.Ident) bool {
 				if len(as.Rhs) != len(as.Lhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
 					return false
 				}
-				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computed(as.Rhs[i]) {
+				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computedDepth(as.Rhs[i], depth) {
 					return false
 				}
 				n++

@@ -99,3 +99,10 @@ func mercatorY(s float64) float64 {
 func logisticLogDensity(z float64) float64 {
 	return z - 2*math.Log(math.Exp(z)+1) // want `math.Log\(1\+math.Exp\(y\)\) with y = z overflows`
 }
+
+// An input negated in place stays an input (and its self-reference does
+// not send the analysis round in circles).
+func flipped(x float64) float64 {
+	x = -x
+	return 1 - x*x // want `a\*a - b\*b with a = 1, b = x loses`
+}

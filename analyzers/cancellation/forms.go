@@ -657,3 +657,50 @@ func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
 	}
 	return n > 0
 }
+
+// turnFraction reports whether x is built only from constants and whole
+// numbers by products and quotients, directly or through never-reassigned
+// variables: an angle step c·i/n (2πi/(n-1) of a window, a quarter turn
+// over a segment count). It is 0 or at least |c|/n, so cos(x) rounds to 1
+// only for counts beyond 10^8·|c|, and 1-cos(x) keeps an absolute error of
+// one rounding of 1, the scale of such weights and sagittas.
+func (c *checker) turnFraction(x ast.Expr, depth int) bool {
+	ok, counts := c.ratioOfCounts(x, depth)
+	return ok && counts
+}
+
+// ratioOfCounts reports whether x is built from constants and whole
+// numbers by products and quotients (ok), and whether a whole number is
+// among them (counts).
+func (c *checker) ratioOfCounts(x ast.Expr, depth int) (ok, counts bool) {
+	x, _ = c.through(x)
+	switch {
+	case c.wholeNumber(x):
+		return true, true
+	case c.isConst(x):
+		return true, false
+	case depth == 0:
+		return false, false
+	}
+	switch e := x.(type) {
+	case *ast.UnaryExpr:
+		return c.ratioOfCounts(e.X, depth-1)
+	case *ast.BinaryExpr:
+		if e.Op != token.MUL && e.Op != token.QUO {
+			return false, false
+		}
+		okx, cx := c.ratioOfCounts(e.X, depth-1)
+		oky, cy := c.ratioOfCounts(e.Y, depth-1)
+		return okx && oky, cx || cy
+	}
+	return false, false
+}
+
+// commonShift reports whether a and b are both differences with the same
+// subtrahend (l1 - m, l2 - m): the log-sum-exp already shifted, by the
+// larger value when m is their maximum, so neither exponential overflows.
+func (c *checker) commonShift(a, b ast.Expr) bool {
+	da, oka := ast.Unparen(a).(*ast.BinaryExpr)
+	db, okb := ast.Unparen(b).(*ast.BinaryExpr)
+	return oka && okb && da.Op == token.SUB && db.Op == token.SUB && same(da.Y, db.Y)
+}

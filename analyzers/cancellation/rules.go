@@ -90,7 +90,7 @@ func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 // so the difference keeps only the rounding error of the cosine.
 func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
-	if !c.lossShows(cur, x) {
+	if !c.lossShows(cur, x) || c.turnFraction(x, 4) {
 		return
 	}
 	q := qualifier(call)
@@ -167,8 +167,8 @@ func (c *checker) logSumExp(cur inspector.Cursor, call *ast.CallExpr) bool {
 		return false
 	}
 	a, b := ea.Args[0], eb.Args[0]
-	if c.isConst(a) && c.isConst(b) {
-		return true // both terms are constants: the range is known
+	if c.isConst(a) && c.isConst(b) || c.commonShift(a, b) {
+		return true // constants, or already shifted by a common value (the larger): the range is known
 	}
 	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catLogSumExp,

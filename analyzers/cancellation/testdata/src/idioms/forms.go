@@ -140,3 +140,17 @@ func startAngle(theta float64, n int) float64 {
 func ratioPower(x, lambda, k float64) float64 {
 	return math.Pow(x/lambda, k) - 1 // the computed base carries its own rounding, which Expm1 would inherit
 }
+
+// A window's weights: the angle is a fraction of a turn by counts.
+func hannWeights(w []float64) {
+	k := 2 * math.Pi / float64(len(w)-1)
+	for i := range w {
+		w[i] = 0.5 * (1 - math.Cos(k*float64(i)))
+	}
+}
+
+// Already shifted by the larger log-probability.
+func logAddShifted(la, lb float64) float64 {
+	m := math.Max(la, lb)
+	return math.Log(math.Exp(la-m)+math.Exp(lb-m)) + m
+}

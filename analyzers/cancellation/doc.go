@@ -55,7 +55,8 @@
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));
-//   - math.Log(math.Exp(a)+math.Exp(b)): +Inf once an argument exceeds
+//   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
+//     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form
 //     max(a,b) + math.Log1p(math.Exp(-|a-b|)) is exact in range.
 //
@@ -72,7 +73,12 @@
 // sum too: a constant of at least 100 in magnitude (two digits of the
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
-// data. The power rule also leaves alone a constant exponent (1 -
+// data. The cosine rule leaves alone an angle built from constants and
+// whole numbers by products and quotients (2πi/(n-1) of a window, a
+// quarter turn over a segment count): it is 0 or at least |c|/n, cos rounds
+// to 1 there only for counts beyond 10^8, and the absolute error of 1-cos
+// stays one rounding of 1, the scale of such weights. The power rule also
+// leaves alone a constant exponent (1 -
 // math.Pow(x, 2) is a difference of squares), a whole power of a
 // constant base (math.Pow(2, float64(n)) - 1), and a computed base other
 // than 1±u ((x/λ)^k - 1: the base carries its own rounding, which

@@ -703,13 +703,14 @@ func (d *deps) constBound(x *types.Var) bool {
 }
 
 // exportedParam reports whether x is a parameter of the exported function
-// around the loop: its callers may pass any float, however large. The
-// callers of an unexported function are the package's own, which stoptol
-// does not follow; repeated reduction of a value within a few periods
-// takes a pass or two.
+// around the loop, in a package any module may import: its callers may
+// pass any float, however large. The callers of an unexported function, or
+// of one in an internal package, are the module's own, which stoptol does
+// not follow; repeated reduction of a value within a few periods takes a
+// pass or two.
 func (c *checker) exportedParam(l *loop, x *types.Var) bool {
 	fd := l.decl
-	if fd == nil || !fd.Name.IsExported() {
+	if fd == nil || !fd.Name.IsExported() || slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") {
 		return false
 	}
 	for _, field := range fd.Type.Params.List {

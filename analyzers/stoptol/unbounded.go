@@ -10,6 +10,7 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 
+	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
@@ -67,7 +68,7 @@ func (c *checker) unbounded(l *loop) {
 	}
 	if series {
 		c.reportLoop(d, catNoCap, fmt.Sprintf("series may never end: its only exits test the term (%s) and nothing caps the passes, so a NaN term, for which the test is false, or a sum that stalls keeps it running; add an iteration limit",
-			fixes.Source(c.pass.Fset, d.tests[0].e)))
+			c.exitText(d.tests[0].e)))
 		return
 	}
 	for _, v := range d.near(tested) {
@@ -81,7 +82,24 @@ func (c *checker) unbounded(l *loop) {
 		nan = ", and so does a NaN, which fails every ordered comparison"
 	}
 	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
-		fixes.Source(c.pass.Fset, d.tests[0].e), nan))
+		c.exitText(d.tests[0].e), nan))
+}
+
+// exitText writes an exit test for a message, with the value of a named
+// constant it compares with: d < tol, tol = 1e-09.
+func (c *checker) exitText(e ast.Expr) string {
+	text := fixes.Source(c.pass.Fset, e)
+	b, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok {
+		return text
+	}
+	for _, side := range []ast.Expr{b.Y, b.X} {
+		v, ok := constval.Exact(c.pass.TypesInfo, c.decls, side)
+		if _, lit := ast.Unparen(side).(*ast.BasicLit); ok && !lit && provenance.IsFloat(c.pass.TypesInfo.TypeOf(side)) {
+			return text + ", " + fixes.Source(c.pass.Fset, side) + " = " + numeric.Short(provenance.FormatOf(c.pass.TypesInfo.TypeOf(side)).Value(v))
+		}
+	}
+	return text
 }
 
 // exitTest is a float test that ends a loop.

@@ -105,8 +105,8 @@
 //     once), or by a step that cannot round to zero (1/slope);
 //   - exits on errors count as no bound, but loops with another exit on
 //     data (a length, a state flag) are left alone;
-//   - range reductions in unexported functions (their callers are the
-//     package's own, and a value within a few periods takes a pass or two)
+//   - range reductions in unexported functions or internal packages (their
+//     callers are the module's own, and a value within a few periods takes a pass or two)
 //     or against another variable (how far apart they start is the
 //     caller's);
 //   - loops in test files, which run on the fixed inputs they were written

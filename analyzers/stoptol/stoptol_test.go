@@ -91,7 +91,7 @@ func TestMeasures(t *testing.T) {
 // range reductions, steps that round to zero, iterations; and those that
 // end for other reasons.
 func TestUnbounded(t *testing.T) {
-	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "unbounded")
+	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "unbounded", "unbounded/internal/turn")
 }
 
 // TestRelated checks that a finding whose value is written in one place

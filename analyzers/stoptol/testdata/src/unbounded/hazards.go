@@ -105,3 +105,16 @@ func pivots(exchange func(r []float64) error, costs func(r []float64), r []float
 		}
 	}
 }
+
+// within repeats a map until successive values agree to a named
+// tolerance; the message gives its value.
+func within(g func(float64) float64, x float64) float64 {
+	const agree = 1e-12
+	for {
+		next := g(x)
+		if d := next - x; d*d < agree { // want `iteration may never end: its only exits are float tests \(d\*d < agree, agree = 1e-12\)`
+			return next
+		}
+		x = next
+	}
+}

@@ -16,7 +16,7 @@ import (
 )
 
 func TestHazards(t *testing.T) {
-	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), epsfloor.Analyzer, "hazards", "runfix")
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), epsfloor.Analyzer, "hazards", "runfix", "newton")
 }
 
 func TestIdioms(t *testing.T) {
@@ -60,4 +60,26 @@ func TestFixedProgramRuns(t *testing.T) {
 	}
 	assert.Equal(t, wantBefore.String(), before)
 	assert.Equal(t, wantAfter.String(), after)
+}
+
+// TestFixedNewtonConverges runs testdata/src/newton, Newton's method on the
+// residual r = k·q² - h, before and after its fix, for 1000 values of k at
+// h = 20 and 80 (the heads of the demo's Flow). The residual of the best q
+// rounds at about eps·h (IEEE 754-2019: each of k·q·q and the subtraction
+// errs by up to u relative, and the neighbours of the root move k·q² by
+// about 2h·u), so the test |r| < SmallestNonzeroFloat64 passes only when
+// rounding happens to give exactly 0; the fixed test, |r| below 4 ulps of
+// max(|k·q²|, |h|), passes for every k in a few iterations (Newton's
+// quadratic convergence from q = 1, Nocedal & Wright 2nd ed. Thm 11.2).
+func TestFixedNewtonConverges(t *testing.T) {
+	src := filepath.Join("testdata", "src", "newton")
+	before := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go")))
+	after := testrun.Values(t, testrun.Output(t, filepath.Join(src, "main.go.golden")))
+	for _, h := range []string{"20", "80"} {
+		// Before: many solves hit the cap of 100 (which ones depends on
+		// how the platform rounds and fuses k*q*q - h).
+		assert.Greater(t, before["capped-"+h], 0.0, "h = %s: some solves should never pass the subnormal test", h)
+		assert.Zero(t, after["capped-"+h], "h = %s: every fixed solve should converge", h)
+		assert.Less(t, after["most-"+h], 10.0, "h = %s: Newton needs only a few iterations", h)
+	}
 }

@@ -15,6 +15,7 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/provenance"
 )
@@ -40,6 +41,7 @@ const (
 	catLoop     = "loop"
 	catAggr     = "aggregate"
 	catTestify  = "testify"
+	catPinned   = "pinned"
 )
 
 // checker holds what one run needs.
@@ -116,12 +118,17 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	t := c.pass.TypesInfo.TypeOf(n.X)
 	switch {
 	case provenance.IsFloat(t):
-		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) {
+		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) {
 			return
 		}
-		c.scalar(cur, n, n.Op, x, y)
+		fix := func() []fixes.Fix { return c.toleranceFix(cur, n, x, y, t) }
+		if !c.pinned(cur, n, "exact "+n.Op.String(), n.X, n.Y, fix) {
+			c.scalar(cur, n, n.Op, x, y)
+		}
 	case holdsFloat(t, 0):
-		c.aggregate(n, x, y)
+		if !c.deliberate(cur) && !c.pinned(cur, n, n.Op.String()+" on "+typeName(t)+" values", n.X, n.Y, nil) {
+			c.aggregate(n, x, y)
+		}
 	}
 }
 
@@ -204,6 +211,14 @@ func (c *checker) exempt(o operand) bool {
 	}
 	f, _ := constant.Float64Val(v)
 	return f > 1.79e308 || f < -1.79e308
+}
+
+// deliberate reports whether cur lies in a test function that says it
+// checks exactness (fixes.FuncSaysExact): one correctly rounded operation
+// on each side gives the same float (IEEE 754-2019 §4.3), and such tests
+// check exactly that, so a tolerance would defeat them.
+func (c *checker) deliberate(cur inspector.Cursor) bool {
+	return c.inTest(cur) && fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
 }
 
 // holdsFloat reports whether t is an array or struct with a float element

@@ -152,3 +152,22 @@ func withDefault(a, b, tol float64) bool { // want withDefault:"parameter 2 is a
 	}
 	return math.Abs(a-b) <= tol*math.Abs(b)
 }
+
+// residualMoved gets no fix: q changes between the residual and its test,
+// so k*q*q written at the test would be another value.
+func residualMoved(k, h float64) float64 {
+	q := 1.0
+	r := k*q*q - h
+	q = h / k
+	if math.Abs(r) < math.SmallestNonzeroFloat64 { // want `math.SmallestNonzeroFloat64 \(5e-324\) is the smallest positive float64`
+		return q
+	}
+	return 0
+}
+
+// ledgerBalanced gets no fix: its comment says the test is exact, and a
+// tolerance would make that untrue.
+func ledgerBalanced(debit, credit float64) bool {
+	// The ledger must balance exactly.
+	return math.Abs(debit-credit) < 1e-20 // want `absolute tolerance 1e-20 is below float64 epsilon`
+}

@@ -6,3 +6,12 @@ func Scale(raw float64) float64 { return raw*0.1 + 0.2 }
 
 // Offset returns the calibration offset.
 func Offset(a, b float64) float64 { return a - b }
+
+// Droop returns the relative sag of a membrane at load w.
+func Droop(w float64) float64 { return w*w*0.75 + w/3 }
+
+// Pair is a reading and its uncertainty.
+type Pair struct{ Value, Spread float64 }
+
+// Read returns the reading for raw with its spread.
+func Read(raw float64) Pair { return Pair{Scale(raw), raw / 30} }

@@ -2,6 +2,8 @@ package gauge
 
 import (
 	"math"
+	"reflect"
+	"strconv"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -70,4 +72,59 @@ func TestRoutes(t *testing.T) {
 	assert.Equal(t, Scale(x), Scale(x)) // the same call twice
 	y := 3.0 * 2
 	assert.Equal(t, 6.0, y) // representable
+}
+
+// Printed results pinned bit for bit: reported.
+
+func TestPinnedLiteral(t *testing.T) {
+	if got := Droop(0.3); got != 0.16749999999999998 { // want `exact != pins a computed result to 0.16749999999999998, a printed value of 17 significant digits`
+		t.Errorf("Droop(0.3) = %v", got)
+	}
+	assert.Equal(t, 0.16749999999999998, Droop(0.3)) // want `assert.Equal pins a computed result to 0.16749999999999998`
+}
+
+func TestPinnedTable(t *testing.T) {
+	cases := []struct{ load, want float64 }{
+		{0.3, 0.16749999999999998},
+		{0.5, 0.35416666666666663},
+	}
+	for _, tc := range cases {
+		if got := Droop(tc.load); got != tc.want { // want `exact != pins a computed result to 0.16749999999999998`
+			t.Errorf("Droop(%v) = %v", tc.load, got)
+		}
+	}
+}
+
+func TestPinnedStruct(t *testing.T) {
+	want := Pair{Value: 0.23, Spread: 0.023333333333333334}
+	if got := Read(0.3); got != want { // want `!= on Pair values pins a computed result to 0.023333333333333334`
+		t.Errorf("Read(0.3) = %v", got)
+	}
+	if !reflect.DeepEqual(Read(0.3), want) { // want `reflect.DeepEqual pins a computed result to 0.023333333333333334`
+		t.Fail()
+	}
+}
+
+// Left alone in tests.
+
+func TestParsedBack(t *testing.T) {
+	v, _ := strconv.ParseFloat("0.16749999999999998", 64)
+	if v != 0.16749999999999998 { // parsed from the same digits: exact by correct rounding
+		t.Fail()
+	}
+}
+
+func TestDyadicLong(t *testing.T) {
+	if Droop(0) != 0.000030517578125 { // 2^-15 has 15 digits but is stored exactly
+		t.Fail()
+	}
+}
+
+// TestHalvingIsExact checks that halving is exact: one correctly rounded
+// operation on each side gives the same float.
+func TestHalvingIsExact(t *testing.T) {
+	a, b := 0.1, 0.7
+	if (a+b)/2 != a/2+b/2 { // the test says it checks exactness
+		t.Fail()
+	}
 }

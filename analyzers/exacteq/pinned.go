@@ -1,0 +1,227 @@
+package exacteq
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
+	"roundoff/internal/numeric"
+)
+
+// printedDigits is the number of significant digits from which a decimal
+// constant reads as a printed result: Go prints a float64 in its shortest
+// form, 15 to 17 digits for almost every value that is not a short decimal
+// (strconv 'g', -1), and a float32 in 6 to 9.
+func printedDigits(f numeric.Format) int {
+	if f == numeric.Float32 {
+		return 8
+	}
+	return 15
+}
+
+// pin describes an expected value that pins a printed result.
+type pin struct {
+	lit    *ast.BasicLit // the long literal
+	digits int
+}
+
+// pinned reports, in a _test.go file, an exact comparison of a value with an
+// expected one that holds a printed result: a decimal constant of 15 or
+// more significant digits (8 for float32) that the type stores inexactly,
+// written in the comparison, in a named constant, or in the table of
+// cases the expected value is read from. Such a test pins the last bits of
+// a computation, which change with the order of operations and with
+// fused multiply-add (Go may fuse x*y+z; arm64, ppc64le, s390x, riscv64
+// and amd64 at GOAMD64=v3 do), so it fails on other platforms. A value
+// parsed from a string that holds the same digits is a round trip, exact
+// by correct rounding (IEEE 754-2019 §5.12), and left alone. It reports
+// whether it reported.
+func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y ast.Expr, fix func() []fixes.Fix) bool {
+	if !c.inTest(cur) {
+		return false
+	}
+	fn := enclosingFunc(cur)
+	for _, pair := range [][2]ast.Expr{{x, y}, {y, x}} {
+		exp, got := pair[0], pair[1]
+		if c.isConst(got) {
+			continue
+		}
+		p, ok := c.printed(fn, exp)
+		if !ok || roundTrip(fn, p.lit) {
+			continue
+		}
+		var fs []fixes.Fix
+		if fix != nil && !fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
+			fs = fix()
+		}
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: node.Pos(), End: node.End(), Category: catPinned,
+			Message: fmt.Sprintf("%s pins a computed result to %s, a printed value of %d significant digits: its last bits depend on the order of operations and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
+				what, p.lit.Value, p.digits, rtol(provenance.FormatOf(c.pass.TypesInfo.TypeOf(p.lit)))),
+		}, fs...)
+		return true
+	}
+	return false
+}
+
+// printed finds the long decimal constant that e is, names, or reads from
+// the table of cases of fn (a field tt.want whose values fn's composite
+// literals give).
+func (c *checker) printed(fn ast.Node, e ast.Expr) (pin, bool) {
+	e = ast.Unparen(e)
+	if c.isConst(e) {
+		return c.longLiteral(e)
+	}
+	var vals []ast.Expr
+	switch e := e.(type) {
+	case *ast.CompositeLit:
+		vals = []ast.Expr{e}
+	case *ast.Ident:
+		if init, ok := c.decls[c.pass.TypesInfo.Uses[e]]; ok {
+			vals = []ast.Expr{init}
+		}
+	case *ast.SelectorExpr:
+		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil && fn != nil {
+			vals = fieldValues(c.pass.TypesInfo, fn, field)
+		}
+	}
+	for _, v := range vals {
+		var found pin
+		ast.Inspect(v, func(n ast.Node) bool {
+			if lit, ok := n.(*ast.BasicLit); ok {
+				if p, ok := c.longLiteral(lit); ok {
+					found = p
+				}
+			}
+			return found.lit == nil
+		})
+		if found.lit != nil {
+			return found, true
+		}
+	}
+	return pin{}, false
+}
+
+// fieldValues returns the values fn's composite literals give the field,
+// by key or by position.
+func fieldValues(info *types.Info, fn ast.Node, field types.Object) []ast.Expr {
+	var vals []ast.Expr
+	ast.Inspect(fn, func(n ast.Node) bool {
+		lit, ok := n.(*ast.CompositeLit)
+		if !ok {
+			return true
+		}
+		st, ok := structOf(info.TypeOf(lit))
+		for i, elt := range lit.Elts {
+			if kv, isKV := elt.(*ast.KeyValueExpr); isKV {
+				if id, ok := kv.Key.(*ast.Ident); ok && info.Uses[id] == field {
+					vals = append(vals, kv.Value)
+				}
+			} else if ok && i < st.NumFields() && st.Field(i) == field {
+				vals = append(vals, elt)
+			}
+		}
+		return true
+	})
+	return vals
+}
+
+// structOf returns the struct type t is or points to.
+func structOf(t types.Type) (*types.Struct, bool) {
+	if t == nil {
+		return nil, false
+	}
+	if p, ok := t.Underlying().(*types.Pointer); ok {
+		t = p.Elem()
+	}
+	st, ok := t.Underlying().(*types.Struct)
+	return st, ok
+}
+
+// longLiteral reports whether e is, or names through this package's
+// declarations, a float literal of a printed result's length that its type
+// stores inexactly.
+func (c *checker) longLiteral(e ast.Expr) (pin, bool) {
+	for range 4 {
+		switch x := ast.Unparen(e).(type) {
+		case *ast.UnaryExpr:
+			e = x.X
+			continue
+		case *ast.Ident:
+			if init, ok := c.decls[c.pass.TypesInfo.Uses[x]]; ok {
+				e = init
+				continue
+			}
+		case *ast.BasicLit:
+			t := c.pass.TypesInfo.TypeOf(x)
+			if x.Kind != token.FLOAT || t == nil || !provenance.IsFloat(t) || isComplex(t) {
+				return pin{}, false
+			}
+			f := provenance.FormatOf(t)
+			n := significant(x.Value)
+			_, exact := storedValue(constant.MakeFromLiteral(x.Value, x.Kind, 0), f)
+			return pin{x, n}, n >= printedDigits(f) && !exact
+		}
+		return pin{}, false
+	}
+	return pin{}, false
+}
+
+// significant counts the significant digits of a decimal float literal.
+func significant(lit string) int {
+	lit = strings.ToLower(strings.ReplaceAll(lit, "_", ""))
+	if strings.HasPrefix(lit, "0x") {
+		return 0
+	}
+	mant, _, _ := strings.Cut(lit, "e")
+	digits := strings.TrimLeft(strings.ReplaceAll(mant, ".", ""), "0")
+	if strings.Contains(mant, ".") {
+		return len(digits)
+	}
+	return len(strings.TrimRight(digits, "0"))
+}
+
+// roundTrip reports whether a string literal in fn holds the digits of lit:
+// the value under test was then parsed or printed from them.
+func roundTrip(fn ast.Node, lit *ast.BasicLit) bool {
+	if fn == nil {
+		return false
+	}
+	mant, _, _ := strings.Cut(strings.ToLower(lit.Value), "e")
+	digits := strings.TrimLeft(mant, "0.")
+	found := false
+	ast.Inspect(fn, func(n ast.Node) bool {
+		if s, ok := n.(*ast.BasicLit); ok && s.Kind == token.STRING && strings.Contains(s.Value, digits) {
+			found = true
+		}
+		return !found
+	})
+	return found
+}
+
+// isConst reports whether e is a constant expression.
+func (c *checker) isConst(e ast.Expr) bool {
+	tv, ok := c.pass.TypesInfo.Types[e]
+	return ok && tv.Value != nil
+}
+
+// inTest reports whether cur lies in a _test.go file.
+func (c *checker) inTest(cur inspector.Cursor) bool {
+	return strings.HasSuffix(c.pass.Fset.File(cur.Node().Pos()).Name(), "_test.go")
+}
+
+// enclosingFunc returns the outermost function declaration around cur, or nil.
+func enclosingFunc(cur inspector.Cursor) ast.Node {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		return fd.Node()
+	}
+	return nil
+}

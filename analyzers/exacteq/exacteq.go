@@ -69,8 +69,11 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
 		switch n := cur.Node().(type) {
 		case *ast.BinaryExpr:
-			if n.Op == token.EQL || n.Op == token.NEQ {
+			switch n.Op {
+			case token.EQL, token.NEQ:
 				c.comparison(cur, n)
+			case token.LSS, token.LEQ, token.GTR, token.GEQ:
+				c.orderedLoop(cur, n)
 			}
 		case *ast.CaseClause:
 			c.caseClause(cur, n)

@@ -128,3 +128,31 @@ func tie(r *road, from, to int, w float64) bool {
 	r.relax(to, joint)
 	return joint == r.dist[from+1] // want `exact == between a computed float64 value and field dist, which this package fills with computed values`
 }
+
+func inclusiveGrid() int {
+	n := 0
+	for w := 0.0; w <= 1; w += 0.05 { // want `float loop variable w goes from 0 in steps of 0.05 and the test w <= 1 passes 20 times, where exact arithmetic passes 21: the accumulated value 1.0000000000000002 is off by rounding`
+		n++
+	}
+	return n
+}
+
+func strictGrid() int {
+	n := 0
+	for w := 0.0; 1 > w; w += 0.1 { // want `the test 1 > w passes 11 times, where exact arithmetic passes 10`
+		n++
+	}
+	return n
+}
+
+func chosenStep(fine bool) int {
+	dw := 0.25
+	if fine {
+		dw = 0.01
+	}
+	n := 0
+	for w := 0.0; w <= 1; w += dw { // want `in steps of 0.01 and the test w <= 1 passes 100 times, where exact arithmetic passes 101`
+		n++
+	}
+	return n
+}

@@ -156,3 +156,18 @@ func chosenStep(fine bool) int {
 	}
 	return n
 }
+
+type vec struct{ X, Y float64 }
+
+func (p vec) sub(q vec) vec      { return vec{p.X - q.X, p.Y - q.Y} }
+func (p vec) cross(q vec) float64 { return p.X*q.Y - p.Y*q.X }
+
+func collinear(a, b, c vec) bool {
+	return b.sub(a).cross(c.sub(a)) == 0 // want `exact == 0 on b.sub\(a\).cross\(c.sub\(a\)\), a difference of computed float64 values: it is 0 only when both terms round to the same float`
+}
+
+func onLine(x1, y1, x2, y2, px, py float64) bool {
+	c := x2*y1 - x1*y2
+	r := (y2-y1)*px + (x1-x2)*py + c
+	return r != 0 // want `exact != 0 on r, a difference of computed float64 values`
+}

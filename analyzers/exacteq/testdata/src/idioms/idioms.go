@@ -242,3 +242,22 @@ func variableStep(h float64) int {
 	}
 	return n
 }
+
+// Zero tests that are not residues of cancelling computed terms: a
+// difference of inputs is 0 exactly when they are equal (Sterbenz), a sum
+// of squares only for the zero vector, and a remainder reduction x - k*y
+// with k = Floor(x/y) is exact where exact sign algorithms use it.
+func zeroTests(x1, x2, y1, y2 float64) int {
+	n := 0
+	if x2-x1 == 0 {
+		n++
+	}
+	if x1*x1+y1*y1 == 0 {
+		n++
+	}
+	k := math.Floor(x2 / x1)
+	if x2-k*x1 == 0 {
+		n++
+	}
+	return n
+}

@@ -4,12 +4,15 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
+	"go/token"
 	"go/types"
+	"path/filepath"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/provenance"
@@ -25,7 +28,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "epsfloor",
 	Doc:       analyzerdoc.Extract(doc, "epsfloor"),
 	URL:       "docs/epsfloor.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -44,6 +47,7 @@ type use struct {
 	Kind    tolerance.Kind
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
+	At      string // file:line of that comparison, for messages
 }
 
 func (u use) String() string {
@@ -51,24 +55,32 @@ func (u use) String() string {
 	if u.Kind == tolerance.Absolute {
 		article = "an"
 	}
-	return fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
+	s := fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
+	if u.At != "" {
+		s += ", tested at " + u.At
+	}
+	return s
 }
 
 func (u use) format() numeric.Format { return numeric.Select(u.Float32) }
 
 // checker holds what one run needs.
 type checker struct {
-	pass  *analysis.Pass
-	decls map[types.Object]ast.Expr
-	uses  *tolerance.Uses[use]
+	pass   *analysis.Pass
+	decls  map[types.Object]ast.Expr
+	read   tolerance.Reader
+	uses   *tolerance.Uses[use]
+	tested map[use]token.Pos // this package's tolerance tests, by use
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
-		pass:  pass,
-		decls: constval.DeclsOf(pass),
-		uses:  tolerance.NewUses[use](pass),
+		pass:   pass,
+		decls:  constval.DeclsOf(pass),
+		uses:   tolerance.NewUses[use](pass),
+		tested: make(map[use]token.Pos),
 	}
+	c.read = tolerance.Reader{Info: pass.TypesInfo, Decls: c.decls, Abs: absval.Of(pass)}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	// First the tolerance tests, which also learn the tolerance parameters
 	// and fields; then the places that pass constants to those.
@@ -87,6 +99,8 @@ func run(pass *analysis.Pass) (any, error) {
 			c.call(n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
+		case *ast.AssignStmt:
+			c.seed(cur, n)
 		}
 	}
 	return nil, nil
@@ -94,7 +108,7 @@ func run(pass *analysis.Pass) (any, error) {
 
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
-	t, ok := tolerance.Recognize(c.pass.TypesInfo, c.decls, n)
+	t, ok := c.read.Recognize(n)
 	if !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
@@ -103,7 +117,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.constantTol(cur, t, f, f.Value(v))
 		return
 	}
-	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur)}
+	posn := c.pass.Fset.Position(n.Pos())
+	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
+	c.tested[u] = n.Pos()
 	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}

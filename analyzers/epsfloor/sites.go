@@ -108,6 +108,9 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 		Pos: val.Pos(), End: val.End(), Category: category(res),
 		Message: fmt.Sprintf("%s, %s (%s), %s", numeric.WithValue(src, tol), how, u, explain(res, tol, f, mag)),
 	}
+	if pos, ok := c.tested[u]; ok {
+		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
+	}
 	var fs []fixes.Fix
 	switch res {
 	case tolerance.BelowRoundoff:

@@ -2,11 +2,11 @@ package epsfloor
 
 import (
 	"fmt"
-	"math"
 	"go/ast"
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"

@@ -159,7 +159,7 @@ func chosenStep(fine bool) int {
 
 type vec struct{ X, Y float64 }
 
-func (p vec) sub(q vec) vec      { return vec{p.X - q.X, p.Y - q.Y} }
+func (p vec) sub(q vec) vec       { return vec{p.X - q.X, p.Y - q.Y} }
 func (p vec) cross(q vec) float64 { return p.X*q.Y - p.Y*q.X }
 
 func collinear(a, b, c vec) bool {

@@ -193,7 +193,44 @@ func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 func derived(x, y ssa.Value) bool {
 	return provenance.DependsOn(x, y) || provenance.DependsOn(y, x) ||
 		provenance.MergedFrom(x, y) || provenance.MergedFrom(y, x) ||
-		provenance.SameSources(x, y) || provenance.Differenced(x, y)
+		provenance.SameSources(x, y) || provenance.Differenced(x, y) ||
+		lastValue(x, y) || lastValue(y, x)
+}
+
+// lastValue reports whether y holds x's value from the previous pass of a
+// loop: a merge one of whose incoming values is x itself (last = sum at
+// the top of each pass, then sum != last as the stop). A series summed
+// until a term no longer changes the sum stops exactly when the term is
+// absorbed, when the sum holds every digit the format can.
+func lastValue(x, y ssa.Value) bool {
+	phi, ok := provenance.Strip(y).(*ssa.Phi)
+	if !ok {
+		return false
+	}
+	for _, e := range phi.Edges {
+		if provenance.Strip(e) == provenance.Strip(x) && e != phi {
+			return true
+		}
+	}
+	return false
+}
+
+// landsOn reports whether x is a sum or difference with the constant y
+// itself among its operands: x = a + P; x == P asks whether a was absorbed
+// (an angle of -1e-17 wrapped by adding 2π rounds to 2π exactly), which is
+// the right question.
+func landsOn(x, y ssa.Value) bool {
+	c, ok := provenance.Strip(y).(*ssa.Const)
+	b, ok2 := provenance.Strip(x).(*ssa.BinOp)
+	if !ok || !ok2 || c.Value == nil || b.Op != token.ADD && b.Op != token.SUB {
+		return false
+	}
+	for _, op := range []ssa.Value{b.X, b.Y} {
+		if k, ok := provenance.Strip(op).(*ssa.Const); ok && k.Value != nil && constant.Compare(k.Value, token.EQL, c.Value) {
+			return true
+		}
+	}
+	return false
 }
 
 // exempt reports whether an operand makes any comparison deliberate: exact

@@ -55,7 +55,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 			continue
 		}
 		p, ok := c.printed(fn, exp)
-		if !ok || roundTrip(fn, p.lit) {
+		if !ok || roundTrip(fn, p.lit) || passedThrough(fn, p.lit) {
 			continue
 		}
 		var fs []fixes.Fix
@@ -200,6 +200,41 @@ func roundTrip(fn ast.Node, lit *ast.BasicLit) bool {
 	found := false
 	ast.Inspect(fn, func(n ast.Node) bool {
 		if s, ok := n.(*ast.BasicLit); ok && s.Kind == token.STRING && strings.Contains(s.Value, digits) {
+			found = true
+		}
+		return !found
+	})
+	return found
+}
+
+// passedThrough reports whether the literal's digits also appear in fn
+// among the inputs, not only as expected values of comparisons: a value
+// such as a vertex kept by a convex hull or a clip reaches the result
+// without arithmetic, and compares exactly.
+func passedThrough(fn ast.Node, lit *ast.BasicLit) bool {
+	if fn == nil {
+		return false
+	}
+	expected := map[ast.Node]bool{}
+	ast.Inspect(fn, func(m ast.Node) bool {
+		switch m := m.(type) {
+		case *ast.BinaryExpr:
+			if m.Op == token.EQL || m.Op == token.NEQ {
+				expected[ast.Unparen(m.X)], expected[ast.Unparen(m.Y)] = true, true
+			}
+		case *ast.CallExpr:
+			if strings.Contains(types.ExprString(m.Fun), "Equal") {
+				for _, a := range m.Args {
+					expected[ast.Unparen(a)] = true
+				}
+			}
+		}
+		return true
+	})
+	digits := strings.TrimLeft(lit.Value, "-")
+	found := false
+	ast.Inspect(fn, func(m ast.Node) bool {
+		if b, ok := m.(*ast.BasicLit); ok && b.Kind == token.FLOAT && !expected[b] && b != lit && b.Value == digits {
 			found = true
 		}
 		return !found

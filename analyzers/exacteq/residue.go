@@ -64,11 +64,25 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 			return false
 		}
 		if v.Op == token.SUB && c.track.Computed(v.X) && c.track.Computed(v.Y) {
-			return true
+			return !recurrent(v, 3)
 		}
 		return c.cancels(v.X, depth-1) || c.cancels(v.Y, depth-1)
 	case *ssa.Call:
 		return c.returnsCancelling(v.Common(), depth-1)
+	}
+	return false
+}
+
+// recurrent reports whether v is computed from values carried around a
+// loop: a term of a recurrence (the numerators and denominators of a
+// continued fraction), whose zero is no predicate on the inputs; a residue
+// there only scales the next term.
+func recurrent(v ssa.Value, depth int) bool {
+	switch v := provenance.Strip(v).(type) {
+	case *ssa.Phi:
+		return provenance.Of(v) == provenance.LoopCarried
+	case *ssa.BinOp:
+		return depth > 0 && (recurrent(v.X, depth-1) || recurrent(v.Y, depth-1))
 	}
 	return false
 }

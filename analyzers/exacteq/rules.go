@@ -105,8 +105,8 @@ func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op tok
 // type cannot represent exactly.
 func (c *checker) literal(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr)
-	if !ok || v.Kind() == constant.Complex {
-		return // not a constant, or complex: only real literals are judged
+	if !ok || v.Kind() == constant.Complex || landsOn(x.val, y.val) {
+		return // not a constant, complex (only real literals are judged), or an absorption test
 	}
 	t := c.pass.TypesInfo.TypeOf(x.expr)
 	f := provenance.FormatOf(t)

@@ -128,3 +128,11 @@ func TestHalvingIsExact(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// A value passed through from the inputs, as a vertex kept by a hull.
+func TestPassedThrough(t *testing.T) {
+	in := []float64{0.16749999999999998, 0.5}
+	if in[0]*1 != 0.16749999999999998 { // the same digits are an input
+		t.Fail()
+	}
+}

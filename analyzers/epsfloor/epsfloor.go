@@ -71,6 +71,7 @@ type checker struct {
 	read   tolerance.Reader
 	uses   *tolerance.Uses[use]
 	tested map[use]token.Pos // this package's tolerance tests, by use
+	fields map[types.Object][]ast.Expr
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -109,7 +110,7 @@ func run(pass *analysis.Pass) (any, error) {
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	t, ok := c.read.Recognize(n)
-	if !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
+	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))

@@ -2,6 +2,7 @@ package epsfloor
 
 import (
 	"fmt"
+	"go/constant"
 	"go/ast"
 	"go/token"
 	"go/types"
@@ -37,14 +38,37 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 }
 
 // magnitude returns the size of the compared values when an operand is a
-// constant, else 0.
+// constant or read from a table of constants, else 0.
 func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
 	for _, e := range []ast.Expr{t.A, t.B} {
-		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
-			return math.Abs(f.Value(v))
+		if m := c.sizeOf(e, f); m > 0 {
+			return m
 		}
 	}
 	return 0
+}
+
+// sizeOf returns |e| when e is a constant, or the largest magnitude among
+// the constants the package's composite literals give the field e reads
+// (the expected values of a table of test cases, tc.want), else 0.
+func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
+	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
+		return math.Abs(f.Value(v))
+	}
+	field := tolerance.FieldOf(c.pass.TypesInfo, e)
+	if field == nil {
+		return 0
+	}
+	if c.fields == nil {
+		c.fields = constval.Fields(c.pass.TypesInfo, c.pass.Files)
+	}
+	size := 0.0
+	for _, val := range c.fields[field] {
+		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && v.Kind() != constant.Complex {
+			size = max(size, math.Abs(f.Value(v)))
+		}
+	}
+	return size
 }
 
 func category(res tolerance.Resolution) string {

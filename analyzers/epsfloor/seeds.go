@@ -210,3 +210,41 @@ func nonNegative(info *types.Info, e ast.Expr) bool {
 	}
 	return false
 }
+
+// belowSmallest reports x < s (or s > x, or <=) where s is the smallest
+// positive value of x's format: no float lies strictly between 0 and s, so
+// for x ≥ 0 the test is x == 0, and a threshold meant to catch subnormal
+// values catches none but 0. It reports whether it reported.
+func (c *checker) belowSmallest(n *ast.BinaryExpr) bool {
+	x, s := n.X, n.Y
+	if n.Op == token.GTR || n.Op == token.GEQ {
+		x, s = n.Y, n.X
+	} else if n.Op != token.LSS && n.Op != token.LEQ {
+		return false
+	}
+	t := c.pass.TypesInfo.TypeOf(x)
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, s)
+	if !ok || c.isConst(x) || t == nil || !provenance.IsFloat(t) || isComplex(t) {
+		return false
+	}
+	f := provenance.FormatOf(t)
+	if f.Value(v) != f.Smallest {
+		return false
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catSubnormal,
+		Message: fmt.Sprintf("%s is the smallest positive %s (%.2g): no %[2]s lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal %[2]s, %[4]s (%.2[5]g), to catch subnormal values",
+			fixes.Source(c.pass.Fset, s), f.Name, f.Smallest, smallestNormal[f], floatOf(smallestNormal[f])),
+	})
+	return true
+}
+
+// smallestNormal writes the smallest positive normal value of each format
+// exactly (IEEE 754-2019: 2^-1022 for binary64, 2^-126 for binary32).
+var smallestNormal = map[numeric.Format]string{numeric.Float64: "0x1p-1022", numeric.Float32: "0x1p-126"}
+
+// isConst reports whether e is a constant expression.
+func (c *checker) isConst(e ast.Expr) bool {
+	tv, ok := c.pass.TypesInfo.Types[e]
+	return ok && tv.Value != nil
+}

@@ -3,9 +3,7 @@ package epsfloor
 import (
 	"fmt"
 	"go/ast"
-	"go/constant"
 	"go/types"
-	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -81,11 +79,10 @@ func (c *checker) call(call *ast.CallExpr) {
 // a constant, or 0.
 func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
 	for _, i := range p.values {
-		if i >= len(call.Args) {
-			continue
-		}
-		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, call.Args[i]); ok && constant.Sign(v) != 0 {
-			return math.Abs(numeric.Float64.Value(v))
+		if i < len(call.Args) {
+			if m := c.sizeOf(call.Args[i], numeric.Float64); m > 0 {
+				return m
+			}
 		}
 	}
 	return 0

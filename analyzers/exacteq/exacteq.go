@@ -53,6 +53,7 @@ type checker struct {
 	globals constval.Globals
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
+	fields  map[types.Object][]ast.Expr
 }
 
 func run(pass *analysis.Pass) (any, error) {

@@ -11,6 +11,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/internal/numeric"
@@ -54,7 +55,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 		if c.isConst(got) {
 			continue
 		}
-		p, ok := c.printed(fn, exp)
+		p, ok := c.printed(exp)
 		if !ok || roundTrip(fn, p.lit) || passedThrough(fn, p.lit) {
 			continue
 		}
@@ -73,9 +74,9 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 }
 
 // printed finds the long decimal constant that e is, names, or reads from
-// the table of cases of fn (a field tt.want whose values fn's composite
+// a table of cases (a field tt.want whose values the package's composite
 // literals give).
-func (c *checker) printed(fn ast.Node, e ast.Expr) (pin, bool) {
+func (c *checker) printed(e ast.Expr) (pin, bool) {
 	e = ast.Unparen(e)
 	if c.isConst(e) {
 		return c.longLiteral(e)
@@ -89,8 +90,8 @@ func (c *checker) printed(fn ast.Node, e ast.Expr) (pin, bool) {
 			vals = []ast.Expr{init}
 		}
 	case *ast.SelectorExpr:
-		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil && fn != nil {
-			vals = fieldValues(c.pass.TypesInfo, fn, field)
+		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil {
+			vals = c.fieldValues()[field]
 		}
 	}
 	for _, v := range vals {
@@ -108,42 +109,6 @@ func (c *checker) printed(fn ast.Node, e ast.Expr) (pin, bool) {
 		}
 	}
 	return pin{}, false
-}
-
-// fieldValues returns the values fn's composite literals give the field,
-// by key or by position.
-func fieldValues(info *types.Info, fn ast.Node, field types.Object) []ast.Expr {
-	var vals []ast.Expr
-	ast.Inspect(fn, func(n ast.Node) bool {
-		lit, ok := n.(*ast.CompositeLit)
-		if !ok {
-			return true
-		}
-		st, ok := structOf(info.TypeOf(lit))
-		for i, elt := range lit.Elts {
-			if kv, isKV := elt.(*ast.KeyValueExpr); isKV {
-				if id, ok := kv.Key.(*ast.Ident); ok && info.Uses[id] == field {
-					vals = append(vals, kv.Value)
-				}
-			} else if ok && i < st.NumFields() && st.Field(i) == field {
-				vals = append(vals, elt)
-			}
-		}
-		return true
-	})
-	return vals
-}
-
-// structOf returns the struct type t is or points to.
-func structOf(t types.Type) (*types.Struct, bool) {
-	if t == nil {
-		return nil, false
-	}
-	if p, ok := t.Underlying().(*types.Pointer); ok {
-		t = p.Elem()
-	}
-	st, ok := t.Underlying().(*types.Struct)
-	return st, ok
 }
 
 // longLiteral reports whether e is, or names through this package's
@@ -240,6 +205,15 @@ func passedThrough(fn ast.Node, lit *ast.BasicLit) bool {
 		return !found
 	})
 	return found
+}
+
+// fieldValues returns the values the package's composite literals give
+// each struct field, computed once.
+func (c *checker) fieldValues() map[types.Object][]ast.Expr {
+	if c.fields == nil {
+		c.fields = constval.Fields(c.pass.TypesInfo, c.pass.Files)
+	}
+	return c.fields
 }
 
 // isConst reports whether e is a constant expression.

@@ -224,3 +224,9 @@ func peak32(xs []float32) float32 {
 	}
 	return best
 }
+
+// A squared norm compared with the smallest subnormal, meant to catch
+// denormal values.
+func denormal(x, y float64) bool {
+	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
+}

@@ -2,8 +2,8 @@ package epsfloor
 
 import (
 	"fmt"
-	"go/constant"
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"math"

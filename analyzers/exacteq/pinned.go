@@ -6,6 +6,8 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
+	"strconv"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -30,8 +32,10 @@ func printedDigits(f numeric.Format) int {
 
 // pin describes an expected value that pins a printed result.
 type pin struct {
-	lit    *ast.BasicLit // the long literal
-	digits int
+	expr   ast.Expr // the constant as written
+	value  float64  // the value its type stores
+	digits string   // the significant digits of its shortest form
+	f      numeric.Format
 }
 
 // pinned reports, in a _test.go file, an exact comparison of a value with an
@@ -56,7 +60,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 			continue
 		}
 		p, ok := c.printed(exp)
-		if !ok || roundTrip(fn, p.lit) || passedThrough(fn, p.lit) {
+		if !ok || roundTrip(fn, p) || c.passedThrough(fn, p) {
 			continue
 		}
 		var fs []fixes.Fix
@@ -66,7 +70,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 		fixes.Report(c.pass, analysis.Diagnostic{
 			Pos: node.Pos(), End: node.End(), Category: catPinned,
 			Message: fmt.Sprintf("%s pins a computed result to %s, a printed value of %d significant digits: its last bits depend on the order of operations and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
-				what, p.lit.Value, p.digits, rtol(provenance.FormatOf(c.pass.TypesInfo.TypeOf(p.lit)))),
+				what, c.describe(p), len(p.digits), rtol(p.f)),
 		}, fs...)
 		return true
 	}
@@ -79,7 +83,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 func (c *checker) printed(e ast.Expr) (pin, bool) {
 	e = ast.Unparen(e)
 	if c.isConst(e) {
-		return c.longLiteral(e)
+		return c.printedConst(e)
 	}
 	var vals []ast.Expr
 	switch e := e.(type) {
@@ -98,73 +102,72 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 		var found pin
 		ast.Inspect(v, func(n ast.Node) bool {
 			if lit, ok := n.(*ast.BasicLit); ok {
-				if p, ok := c.longLiteral(lit); ok {
+				if p, ok := c.printedConst(lit); ok {
 					found = p
 				}
 			}
-			return found.lit == nil
+			return found.expr == nil
 		})
-		if found.lit != nil {
+		if found.expr != nil {
 			return found, true
 		}
 	}
 	return pin{}, false
 }
 
-// longLiteral reports whether e is, or names through this package's
-// declarations, a float literal of a printed result's length that its type
-// stores inexactly.
-func (c *checker) longLiteral(e ast.Expr) (pin, bool) {
-	for range 4 {
-		switch x := ast.Unparen(e).(type) {
-		case *ast.UnaryExpr:
-			e = x.X
-			continue
-		case *ast.Ident:
-			if init, ok := c.decls[c.pass.TypesInfo.Uses[x]]; ok {
-				e = init
-				continue
-			}
-		case *ast.BasicLit:
-			t := c.pass.TypesInfo.TypeOf(x)
-			if x.Kind != token.FLOAT || t == nil || !provenance.IsFloat(t) || isComplex(t) {
-				return pin{}, false
-			}
-			f := provenance.FormatOf(t)
-			n := significant(x.Value)
-			_, exact := storedValue(constant.MakeFromLiteral(x.Value, x.Kind, 0), f)
-			return pin{x, n}, n >= printedDigits(f) && !exact
-		}
+// printedConst reports whether e is a float constant of a printed
+// result's length that its type stores inexactly: the shortest decimal
+// that reads back as the stored value (strconv 'g', -1) has 15 or more
+// significant digits (8 for float32). A decimal written long whose value
+// is short (0.1000000000000000055) is no printed result, nor is a dyadic
+// value such as 2^-15.
+func (c *checker) printedConst(e ast.Expr) (pin, bool) {
+	t := c.pass.TypesInfo.TypeOf(e)
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e)
+	if !ok || t == nil || !provenance.IsFloat(t) || isComplex(t) || v.Kind() == constant.Complex {
 		return pin{}, false
 	}
-	return pin{}, false
+	f := provenance.FormatOf(t)
+	stored, exact := storedValue(v, f)
+	digits := shortestDigits(stored, f)
+	return pin{e, stored, digits, f}, !exact && len(digits) >= printedDigits(f)
 }
 
-// significant counts the significant digits of a decimal float literal.
-func significant(lit string) int {
-	lit = strings.ToLower(strings.ReplaceAll(lit, "_", ""))
-	if strings.HasPrefix(lit, "0x") {
-		return 0
+// describe writes the pinned constant as the message shows it: a literal
+// as written, a name with its value in its format's shortest form.
+func (c *checker) describe(p pin) string {
+	src := fixes.Source(c.pass.Fset, p.expr)
+	if _, ok := ast.Unparen(p.expr).(*ast.BasicLit); ok {
+		return src
 	}
-	mant, _, _ := strings.Cut(lit, "e")
-	digits := strings.TrimLeft(strings.ReplaceAll(mant, ".", ""), "0")
-	if strings.Contains(mant, ".") {
-		return len(digits)
+	bits := 64
+	if p.f == numeric.Float32 {
+		bits = 32
 	}
-	return len(strings.TrimRight(digits, "0"))
+	return src + " (" + strconv.FormatFloat(p.value, 'g', -1, bits) + ")"
 }
 
-// roundTrip reports whether a string literal in fn holds the digits of lit:
-// the value under test was then parsed or printed from them.
-func roundTrip(fn ast.Node, lit *ast.BasicLit) bool {
+// shortestDigits returns the significant digits of the shortest decimal
+// that format f reads back as x.
+func shortestDigits(x float64, f numeric.Format) string {
+	bits := 64
+	if f == numeric.Float32 {
+		bits = 32
+	}
+	mant, _, _ := strings.Cut(strconv.FormatFloat(math.Abs(x), 'e', -1, bits), "e")
+	return strings.ReplaceAll(mant, ".", "")
+}
+
+// roundTrip reports whether a string literal in fn holds the digits of the
+// pinned value: the value under test was then parsed or printed from them,
+// exact by correct rounding (IEEE 754-2019 §5.12).
+func roundTrip(fn ast.Node, p pin) bool {
 	if fn == nil {
 		return false
 	}
-	mant, _, _ := strings.Cut(strings.ToLower(lit.Value), "e")
-	digits := strings.TrimLeft(mant, "0.")
 	found := false
 	ast.Inspect(fn, func(n ast.Node) bool {
-		if s, ok := n.(*ast.BasicLit); ok && s.Kind == token.STRING && strings.Contains(s.Value, digits) {
+		if s, ok := n.(*ast.BasicLit); ok && s.Kind == token.STRING && strings.Contains(strings.ReplaceAll(s.Value, ".", ""), p.digits) {
 			found = true
 		}
 		return !found
@@ -172,11 +175,11 @@ func roundTrip(fn ast.Node, lit *ast.BasicLit) bool {
 	return found
 }
 
-// passedThrough reports whether the literal's digits also appear in fn
-// among the inputs, not only as expected values of comparisons: a value
-// such as a vertex kept by a convex hull or a clip reaches the result
-// without arithmetic, and compares exactly.
-func passedThrough(fn ast.Node, lit *ast.BasicLit) bool {
+// passedThrough reports whether the pinned value also appears in fn among
+// the inputs, not only as expected values of comparisons: a value such as a
+// vertex kept by a convex hull or a clip reaches the result without
+// arithmetic, and compares exactly.
+func (c *checker) passedThrough(fn ast.Node, p pin) bool {
 	if fn == nil {
 		return false
 	}
@@ -196,11 +199,13 @@ func passedThrough(fn ast.Node, lit *ast.BasicLit) bool {
 		}
 		return true
 	})
-	digits := strings.TrimLeft(lit.Value, "-")
 	found := false
 	ast.Inspect(fn, func(m ast.Node) bool {
-		if b, ok := m.(*ast.BasicLit); ok && b.Kind == token.FLOAT && !expected[b] && b != lit && b.Value == digits {
-			found = true
+		if b, ok := m.(*ast.BasicLit); ok && b.Kind == token.FLOAT && !expected[b] && b != p.expr {
+			v, ok := constval.Exact(c.pass.TypesInfo, c.decls, b)
+			if stored, _ := storedValue(v, p.f); ok && stored == p.value {
+				found = true
+			}
 		}
 		return !found
 	})

@@ -64,7 +64,7 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 			return false
 		}
 		if v.Op == token.SUB && c.track.Computed(v.X) && c.track.Computed(v.Y) {
-			return !recurrent(v, 3)
+			return !recurrent(v)
 		}
 		return c.cancels(v.X, depth-1) || c.cancels(v.Y, depth-1)
 	case *ssa.Call:
@@ -73,16 +73,15 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 	return false
 }
 
-// recurrent reports whether v is computed from values carried around a
-// loop: a term of a recurrence (the numerators and denominators of a
-// continued fraction), whose zero is no predicate on the inputs; a residue
+// recurrent reports whether v feeds a merge, as a term of a recurrence
+// does (the numerators and denominators of a continued fraction, carried
+// to the next pass): its zero is no predicate on the inputs, and a residue
 // there only scales the next term.
-func recurrent(v ssa.Value, depth int) bool {
-	switch v := provenance.Strip(v).(type) {
-	case *ssa.Phi:
-		return provenance.Of(v) == provenance.LoopCarried
-	case *ssa.BinOp:
-		return depth > 0 && (recurrent(v.X, depth-1) || recurrent(v.Y, depth-1))
+func recurrent(v ssa.Value) bool {
+	for _, r := range *v.Referrers() {
+		if _, ok := r.(*ssa.Phi); ok {
+			return true
+		}
 	}
 	return false
 }

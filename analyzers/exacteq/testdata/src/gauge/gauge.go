@@ -1,6 +1,8 @@
 // Package gauge converts invented sensor readings.
 package gauge
 
+import "math"
+
 // Scale converts a raw reading.
 func Scale(raw float64) float64 { return raw*0.1 + 0.2 }
 
@@ -15,3 +17,9 @@ type Pair struct{ Value, Spread float64 }
 
 // Read returns the reading for raw with its spread.
 func Read(raw float64) Pair { return Pair{Scale(raw), raw / 30} }
+
+// Ln3 is the natural logarithm of 3 in float32.
+const Ln3 = float32(1.09861228866810969139524523692252570464749055782274945173469433)
+
+// Log32 returns the natural logarithm of x in float32.
+func Log32(x float32) float32 { return float32(math.Log(float64(x))) }

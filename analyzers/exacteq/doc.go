@@ -29,8 +29,28 @@
 //     itself, with == or != (for x := 0.0; x != 1; x += 0.1 never stops); when
 //     start, step and bound are constants the loop is simulated in the
 //     variable's own format and reported only if the bound is missed;
+//   - an ordered loop condition (x <= b, x < b) on a float variable with a
+//     constant start and bound and a step of one or more constant values,
+//     whose pass count in the variable's format differs from the count
+//     exact arithmetic on the decimals as written gives (from 0 by 0.05,
+//     x <= 1 passes 20 times, not 21: the 21st value is
+//     1.0000000000000002);
+//   - a zero test of a difference of computed values (the cross product
+//     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
+//     difference, also through a package function): the difference is 0
+//     exactly when its terms round to the same float (Sterbenz), so inputs
+//     that make it 0 in exact arithmetic usually leave a residue of a few
+//     ulps;
 //   - in tests, testify's assert or require Equal (and its variants) compares
-//     floats under the same rules.
+//     floats under the same rules;
+//   - in tests, an exact comparison (==, !=, testify's Equal,
+//     reflect.DeepEqual, cmp.Equal, on floats or on structs and arrays of
+//     them) of a result with a printed value: a constant whose shortest
+//     decimal form has 15 or more significant digits (8 for float32) and
+//     that its type stores inexactly, written in the comparison, named, or
+//     read from a table of cases (tc.want). Such a test pins the last bits
+//     of a computation, which change with the order of operations and with
+//     fused multiply-add, so it fails on other platforms.
 //
 // It leaves alone the idioms that compare exactly on purpose: the NaN test
 // x != x; comparisons with exact zero, with infinities and with
@@ -45,9 +65,27 @@
 // copies of the same value shuffled through branches (the points a and c of
 // Brent's zero finder); a variable against its own earlier value; a pair
 // whose difference the same function also tests against a tolerance (the
-// exact test is a shortcut); loop variables clamped to the bound; and, in
-// _test.go files, results and fields produced by the code under test, which
-// a test compares with a second route through that code on purpose.
+// exact test is a shortcut); loop variables clamped to the bound; a value
+// against its own value from the previous pass (a series summed until a
+// term no longer changes the sum stops exactly when the term is absorbed,
+// with every digit the format holds); infinities held in variables, as
+// math.Inf itself; a sum tested against a constant it was made by adding
+// (a = a + 2π; a == 2π asks whether a was absorbed); absorption guards
+// (x+1 == x, and x != x-1 in a loop condition, which ask whether 1 is below
+// half the spacing at x); zero tests of differences of inputs (0 exactly
+// when they are equal), of sums of squares (0 only for the zero vector), of
+// remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
+// (exact where exact sign algorithms use them), and of recurrence terms
+// that feed the next pass (a residue there only scales the next term);
+// ordered float loops whose pass count agrees with exact arithmetic; and,
+// in _test.go files, results and fields produced by the code under test,
+// which a test compares with a second route through that code on purpose,
+// tests whose function says it checks exactness (one correctly rounded
+// operation on each side gives the same float, IEEE 754-2019 §4.3, and a
+// tolerance would defeat the check), printed values parsed back from a
+// string holding the same digits (exact by correct rounding, IEEE 754-2019
+// §5.12), and printed values that also appear among the test's inputs
+// (passed through without arithmetic, as the vertices a hull keeps).
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
 // condition x != b with a constant step s in the loop's post statement
@@ -59,5 +97,8 @@
 // positive constant c) with rtol 1e-9 for float64 and 1e-5 for float32, and
 // testify's Equal becomes InEpsilon when the expected value is a nonzero
 // constant; the tolerance is a judgement, so go fix and go vet -fix do not
-// apply these, only standalone roundoff -fix does.
+// apply these, only standalone roundoff -fix does. No tolerance fix is
+// offered where the statement's strings or nearby comments say the
+// comparison is exact ("exactly", "bit-for-bit"): the fix would leave them
+// untrue. Residues, ordered loops and pinned structs get no fix.
 package exacteq

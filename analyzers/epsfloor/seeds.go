@@ -44,7 +44,7 @@ func (c *checker) seed(cur inspector.Cursor, as *ast.AssignStmt) {
 		if !ok || !(x > 0) {
 			continue
 		}
-		body := enclosingBody(cur)
+		body := innermostFunc(cur)
 		switch {
 		case x < 1/maxOf(f) && divides(c.pass.TypesInfo, body, v):
 			c.reportFloor(as.Rhs[i], id.Name, x, f)
@@ -109,15 +109,10 @@ func (c *checker) reportMaxSeed(cur inspector.Cursor, val ast.Expr, name string,
 	fixes.Report(c.pass, d, fixes.Judgement("Start at "+text, append(edits, fixes.Replace(val, text))...))
 }
 
-// enclosingBody returns the body of the function around cur.
-func enclosingBody(cur inspector.Cursor) ast.Node {
+// innermostFunc returns the function declaration or literal around cur.
+func innermostFunc(cur inspector.Cursor) ast.Node {
 	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
-		switch fn := fn.Node().(type) {
-		case *ast.FuncDecl:
-			return fn.Body
-		case *ast.FuncLit:
-			return fn.Body
-		}
+		return fn.Node()
 	}
 	return nil
 }

@@ -40,9 +40,9 @@ func judge(u use, tol float64) verdict {
 		return floor
 	case u.Class == minimize && tol < u.floor():
 		return tight
-	case u.Class == root && u.Relative && u.Step && tol < f.U:
+	case u.Class.locatesToUlps() && u.Relative && u.Step && tol < f.U:
 		return tight
-	case u.Class == root && !u.Relative && tol < f.SqrtEps():
+	case u.Class.locatesToUlps() && !u.Relative && tol < f.SqrtEps():
 		return unscaled
 	}
 	return fine
@@ -84,6 +84,8 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 			Pos: l.stmt.For, End: l.stmt.For + 3, Category: catNoCap,
 			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and nothing caps the iterations; add an iteration limit", l.class, numeric.Float64.Eps),
 		})
+	} else {
+		c.unbounded(l)
 	}
 	c.backtrack(l)
 }
@@ -161,7 +163,7 @@ func (c *checker) test(cur inspector.Cursor, t tolerance.Test, l *loop) bool {
 		Noise:    l.noise,
 		Where:    enclosingName(cur),
 	}
-	src := c.resolve(cur, t.Tol, u)
+	src := c.resolve(cur, t.Tol, u, t.Cmp)
 	if !src.constant {
 		return src.learned
 	}
@@ -192,15 +194,24 @@ func describe(u use, src string, tol float64) string {
 }
 
 // site reports a constant val reaching a stopping tolerance of use u.
-func (c *checker) site(val ast.Expr, u use, how string) {
+// The finding stands at the test, naming the constant, when the test is
+// given (a default set in the testing function); otherwise at the
+// constant, naming the test when this package holds it.
+func (c *checker) site(val ast.Expr, u use, how string, test ast.Node) {
 	tv, ok := c.pass.TypesInfo.Types[val]
 	if !ok || tv.Value == nil {
 		return
 	}
+	at, related := ast.Node(val), []analysis.RelatedInformation(nil)
+	if test != nil {
+		at, related = test, []analysis.RelatedInformation{{Pos: val.Pos(), End: val.End(), Message: "the tolerance is set here"}}
+	} else if t, ok := c.tests[u]; ok {
+		related = []analysis.RelatedInformation{{Pos: t.Pos(), End: t.End(), Message: "the test it sets"}}
+	}
 	tol := u.format().Value(tv.Value)
 	if u.Grad {
 		if tol > 0 && tol < u.format().SqrtEps() && tol > tolerance.UnderflowGuard {
-			c.reportGrad(val, fmt.Sprintf("%s, %s (%s),", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u))
+			c.reportGrad(at, fmt.Sprintf("%s, %s (%s),", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u), related...)
 		}
 		return
 	}
@@ -210,7 +221,7 @@ func (c *checker) site(val ast.Expr, u use, how string) {
 	}
 	cat := map[verdict]string{tight: catTight, unscaled: catUnscaled}[v]
 	d := analysis.Diagnostic{
-		Pos: val.Pos(), End: val.End(), Category: cat,
+		Pos: at.Pos(), End: at.End(), Category: cat, Related: related,
 		Message: fmt.Sprintf("%s, %s (%s), is too tight: %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, explain(v, u, tol)),
 	}
 	var fs []fixes.Fix
@@ -246,7 +257,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 	f := u.format()
 	if u.Relative {
 		lit := u.floorLit()
-		if u.Class == root {
+		if u.Class.locatesToUlps() {
 			lit = f.FewUlpsLiteral()
 		}
 		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}
@@ -297,7 +308,7 @@ func (c *checker) gradient(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	u := use{Grad: true, Float32: provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A)) == numeric.Float32, Where: enclosingName(cur)}
-	src := c.resolve(cur, t.Tol, u)
+	src := c.resolve(cur, t.Tol, u, n)
 	if src.constant && src.value > 0 && src.value < u.format().SqrtEps() && src.value > tolerance.UnderflowGuard {
 		c.reportGrad(n, "absolute gradient-norm threshold "+numeric.WithValue(fixes.Source(c.pass.Fset, t.Tol), src.value))
 	}
@@ -323,9 +334,9 @@ func (c *checker) followed(e ast.Expr) ast.Expr {
 }
 
 // reportGrad reports a gradient threshold that ignores the scale of f.
-func (c *checker) reportGrad(n ast.Node, what string) {
+func (c *checker) reportGrad(n ast.Node, what string, related ...analysis.RelatedInformation) {
 	fixes.Report(c.pass, analysis.Diagnostic{
-		Pos: n.Pos(), End: n.End(), Category: catFScale,
+		Pos: n.Pos(), End: n.End(), Category: catFScale, Related: related,
 		Message: what + " ignores the scale of f and may stop a minimization too early or never: the gradient at a minimizer found to working precision scales with |f| (when f is of order 1e-14, every gradient is below 1e-12); scale it by 1+|f| (Gill, Murray & Wright 1981)",
 	})
 }

@@ -17,13 +17,19 @@ import (
 type class int
 
 const (
-	unknown  class = iota
-	minimize       // derivative-free minimization: compares function values
-	root           // root finding or derivative-based search: sign tests, quotient steps
+	unknown    class = iota
+	minimize         // derivative-free minimization: compares function values
+	root             // root finding or derivative-based search: sign tests, quotient steps
+	fixedPoint       // x = g(x) repeated: converges to a few ulps of x, as root finders do
 )
 
 func (c class) String() string {
-	return [...]string{"loop", "minimization", "root finding"}[c]
+	return [...]string{"loop", "minimization", "root finding", "fixed-point iteration"}[c]
+}
+
+// locatesToUlps reports whether the class locates x to a few ulps.
+func (c class) locatesToUlps() bool {
+	return c == root || c == fixedPoint
 }
 
 // function holds what stoptol learns about a function body once.
@@ -291,7 +297,7 @@ func (l *loop) classify(info *types.Info) class {
 				return false
 			case *ast.BinaryExpr:
 				sign = sign || l.signTest(info, n)
-				decrease = decrease || l.decreaseTest(info, n)
+				decrease = decrease || l.decreaseTest(info, n) || l.parabolaTerm(info, n)
 			case *ast.CallExpr:
 				if fn, ok := typeutil.Callee(info, n).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Signbit" {
 					sign = true
@@ -309,8 +315,83 @@ func (l *loop) classify(info *types.Info) class {
 		return minimize
 	case quotient:
 		return root
+	case l.replaces(info):
+		return fixedPoint
 	}
 	return unknown
+}
+
+// replaces reports whether the loop replaces a float variable by a
+// formula of itself that is neither a step added to it nor a scaling of
+// it: x = (x + a/x)/2 (Heron's rule, Newton rearranged), x = g(x), a
+// corrector applied again, directly or through a temporary defined in the
+// loop (next := g(x); x = next).
+func (l *loop) replaces(info *types.Info) bool {
+	temps := make(map[*types.Var]ast.Expr)
+	found := false
+	ast.Inspect(l.stmt.Body, func(n ast.Node) bool {
+		as, ok := n.(*ast.AssignStmt)
+		if !ok || len(as.Lhs) != len(as.Rhs) || found {
+			return !found
+		}
+		for i, lhs := range as.Lhs {
+			v, rhs := tolerance.VarOf(info, lhs), as.Rhs[i]
+			switch {
+			case v == nil || !provenance.IsFloat(v.Type()):
+			case as.Tok == token.DEFINE:
+				temps[v] = rhs
+			case as.Tok == token.ASSIGN:
+				if t, ok := temps[tolerance.VarOf(info, rhs)]; ok {
+					rhs = t
+				}
+				found = found || nonlinearIn(info, rhs, v)
+			}
+		}
+		return !found
+	})
+	return found
+}
+
+// nonlinearIn reports whether e divides by v or calls a function of v,
+// and is not v ± s: x = (x + a/x)/2, not x = x + h*f(x) nor the running
+// average x = (x + d)/2, which is linear in x.
+func nonlinearIn(info *types.Info, e ast.Expr, v *types.Var) bool {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) && (tolerance.VarOf(info, b.X) == v || tolerance.VarOf(info, b.Y) == v) {
+		return false
+	}
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.BinaryExpr:
+			found = found || n.Op == token.QUO && mentionsAny(info, n.Y, map[*types.Var]bool{v: true})
+		case *ast.CallExpr:
+			found = found || !info.Types[n.Fun].IsType() && mentionsAny(info, n, map[*types.Var]bool{v: true})
+		}
+		return !found
+	})
+	return found
+}
+
+// parabolaTerm reports whether b multiplies a difference of points by a
+// difference of function values, (b-a)*(fb-fc): the building block of the
+// vertex of the parabola through three points, x = b - ((b-a)²(fb-fc) -
+// (b-c)²(fb-fa)) / 2((b-a)(fb-fc) - (b-c)(fb-fa)), a minimization step
+// (Brent 1973, ch. 5). Secant and inverse quadratic steps multiply a
+// difference of points by one function value, or differences of function
+// values together.
+func (l *loop) parabolaTerm(info *types.Info, b *ast.BinaryExpr) bool {
+	if b.Op != token.MUL {
+		return false
+	}
+	fdiff := func(e ast.Expr) bool {
+		d, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		return ok && d.Op == token.SUB && l.fvalue(info, d.X) && l.fvalue(info, d.Y)
+	}
+	xdiff := func(e ast.Expr) bool {
+		d, ok := ast.Unparen(e).(*ast.BinaryExpr)
+		return ok && d.Op == token.SUB && !l.fvalue(info, d.X) && !l.fvalue(info, d.Y) && provenance.IsFloat(info.TypeOf(d))
+	}
+	return fdiff(b.X) && xdiff(b.Y) || xdiff(b.X) && fdiff(b.Y)
 }
 
 // decreaseTest reports whether b orders two function values, possibly one

@@ -69,6 +69,7 @@ type checker struct {
 	decls map[types.Object]ast.Expr
 	abs   *absval.Known
 	uses  *tolerance.Uses[use]
+	tests map[use]ast.Node // the tests of the tolerances learned here
 }
 
 // reader returns the tolerance reader for a loop of the function body.
@@ -89,6 +90,7 @@ func run(pass *analysis.Pass) (any, error) {
 		decls: constval.DeclsOf(pass),
 		abs:   absval.Of(pass),
 		uses:  tolerance.NewUses[use](pass),
+		tests: make(map[use]ast.Node),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	funcs := make(map[ast.Node]*function) // per function body
@@ -110,7 +112,7 @@ func run(pass *analysis.Pass) (any, error) {
 	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
 		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, how)
+			c.site(val, u, how, nil)
 		})
 	}
 	return nil, nil
@@ -142,15 +144,16 @@ type source struct {
 	learned  bool // a parameter or field, recorded for its callers
 }
 
-// resolve finds the value of tolerance expression tol, or records the
-// parameter or field it names (with the given use) and reports constants
-// given to it as a default.
-func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
+// resolve finds the value of tolerance expression tol, tested in test,
+// or records the parameter or field it names (with the given use) and
+// reports constants given to it as a default.
+func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use, test ast.Node) source {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tol); ok {
 		return source{constant: true, value: u.format().Value(v)}
 	}
 	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
 		c.uses.Field(field, u)
+		c.learned(u, test)
 		return source{learned: true}
 	}
 	id, ok := ast.Unparen(tol).(*ast.Ident)
@@ -162,14 +165,22 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use) source {
 		decl := fd.Node().(*ast.FuncDecl)
 		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
 			c.uses.Param(fn, i, u)
+			c.learned(u, test)
 			src.learned = true
 		}
 		v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
 		for _, val := range c.uses.DefaultsOf(decl)[v] {
-			c.site(val, u, "given as the default of "+id.Name)
+			c.site(val, u, "given as the default of "+id.Name, test)
 		}
 	}
 	return src
+}
+
+// learned remembers the first test of a tolerance of use u.
+func (c *checker) learned(u use, test ast.Node) {
+	if _, ok := c.tests[u]; !ok {
+		c.tests[u] = test
+	}
 }
 
 // enclosingBody returns the body of the function around cur.

@@ -2,6 +2,7 @@ package stoptol_test
 
 import (
 	"fmt"
+	"go/token"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -84,4 +85,33 @@ func TestGoldenSection(t *testing.T) {
 // fact, scaled and tracked widths, slice elements and flags.
 func TestMeasures(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "measures")
+}
+
+// TestUnbounded checks loops with no cap that end only on float tests:
+// range reductions, steps that round to zero, iterations; and those that
+// end for other reasons.
+func TestUnbounded(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "unbounded")
+}
+
+// TestRelated checks that a finding whose value is written in one place
+// and tested in another names both: the default of a threshold from its
+// test, the loop and the step from a loop's exit test.
+func TestRelated(t *testing.T) {
+	related := make(map[string][]string) // "file:line" of a finding -> "file:line" of its related places
+	for _, r := range analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "hazards", "unbounded") {
+		for _, d := range r.Diagnostics {
+			key := position(r.Pass.Fset.Position(d.Pos))
+			for _, rel := range d.Related {
+				related[key] = append(related[key], position(r.Pass.Fset.Position(rel.Pos)))
+			}
+		}
+	}
+	assert.Equal(t, []string{"settings.go:55"}, related["settings.go:62"], "the default, from the gradient test")
+	assert.Equal(t, []string{"settings.go:42"}, related["settings.go:50"], "the test, from the constant passed to its parameter")
+	assert.Equal(t, []string{"hazards.go:31", "hazards.go:29"}, related["hazards.go:32"], "the loop and the step, from the exit test")
+}
+
+func position(p token.Position) string {
+	return fmt.Sprintf("%s:%d", filepath.Base(p.Filename), p.Line)
 }

@@ -52,14 +52,14 @@ func callMinimize(f func(float64) float64) float64 {
 
 func checkGradient(grad []float64, gradThresh float64) bool { // want checkGradient:"parameter 1 is a gradient-norm threshold in checkGradient"
 	if gradThresh == 0 {
-		gradThresh = 1e-12 // want `1e-12, given as the default of gradThresh \(a gradient-norm threshold in checkGradient\), ignores the scale of f and may stop a minimization too early or never`
+		gradThresh = 1e-12 // the finding stands at the test below, naming this line
 	}
 	norm := 0.0
 	for _, g := range grad {
 		norm = math.Max(norm, math.Abs(g))
 	}
 	gradNorm := norm
-	return gradNorm < gradThresh
+	return gradNorm < gradThresh // want `1e-12, given as the default of gradThresh \(a gradient-norm threshold in checkGradient\), ignores the scale of f and may stop a minimization too early or never`
 }
 
 func gradientLiteral(gnorm float64) bool {

@@ -1,0 +1,107 @@
+// Package unbounded holds loops with no iteration cap whose only exits
+// are float tests.
+package unbounded
+
+import "math"
+
+// wrapPhase reduces a phase by repeated addition: 1e10 takes 1.6e9
+// passes, and from 2^56 ≈ 7.21e16 on, adding 2π is absorbed (IEEE
+// 754-2019 binary64: the spacing there is 16, more than twice 6.28).
+func wrapPhase(p float64) float64 {
+	for p < 0 { // want `range reduction by repeated addition of 2 \* math.Pi \(6.283185307179586\) takes \|p\|/6.28 passes and never ends once \|p\| >= 7.21e\+16, where adding 6.28 is absorbed; use math.Mod or math.Remainder`
+		p += 2 * math.Pi
+	}
+	return p
+}
+
+// turns counts down by whole turns: from 2^33 ≈ 8.59e9 on, float32
+// values are 1024 apart and subtracting 360 is absorbed.
+func turns(deg float32) float32 {
+	for deg >= 360 { // want `range reduction by repeated addition of 360 takes \|deg\|/360 passes and never ends once \|deg\| >= 8.59e\+09`
+		deg -= 360
+	}
+	return deg
+}
+
+// traceRim steps around a rim by an angle that rounds to 0 for a wide
+// rim: acos(r/(r+0.05)) is 0 once 0.05/r is below about 1.1e-16.
+func traceRim(r float64, plot func(float64)) {
+	da := 2 * math.Acos(r/(r+0.05))
+	a := 0.0
+	for {
+		if a > 2*math.Pi { // want `loop advances a by the computed step da and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of a \(1.11e-16·\|a\| in float64\), a stops moving`
+			return
+		}
+		plot(a)
+		a += da
+	}
+}
+
+// settle repeats a smoothing map until two passes agree; a map that
+// oscillates, or a NaN (which fails gap < 1e-9), keeps it running.
+func settle(level []float64, smooth func([]float64) []float64, gap func(a, b []float64) float64) []float64 {
+	for {
+		next := smooth(level)
+		d := gap(level, next)
+		level = next
+		if d < 1e-9 { // want `iteration may never end: its only exits are float tests \(d < 1e-9\) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running, and so does a NaN, which fails every ordered comparison; add an iteration limit`
+			return level
+		}
+	}
+}
+
+// heron is Newton's method for sqrt(a) written as Heron's rule, with no
+// cap: from a negative a it wanders forever.
+func heron(a float64) float64 {
+	x := a
+	for {
+		next := (x + a/x) / 2
+		if math.Abs(next-x) <= 1e-15*math.Abs(next) { // want `iteration may never end: its only exits are float tests`
+			return next
+		}
+		x = next
+	}
+}
+
+// ratioSeries stops on a term of a series with no cap: a NaN term (an
+// overflow in pow) fails t < 1e-16 and the loop never ends.
+func ratioSeries(x float64) float64 {
+	sum, pow, k := 0.0, x, 1.0
+	for {
+		t := pow / k
+		sum += t
+		if math.Abs(t) < 1e-16 { // want `series may never end: its only exits test the term \(math.Abs\(t\) < 1e-16\) and nothing caps the passes, so a NaN term`
+			return sum
+		}
+		pow *= x
+		k++
+	}
+}
+
+type field struct{ v []float64 }
+
+// relax applies an operator in place until two passes agree: the state
+// changes through calls, unseen by the loop's assignments.
+func relax(op func(dst, src *field), cur, prev *field, gap func(a, b []float64) float64, tol float64) {
+	for {
+		cur, prev = prev, cur
+		op(cur, prev)
+		if gap(cur.v, prev.v) < tol { // want `iteration may never end: its only exits are float tests \(gap\(cur.v, prev.v\) < tol\)`
+			return
+		}
+	}
+}
+
+// pivots repeats an exchange until no reduced cost is below -tol; its
+// other exit is a failure, which bounds nothing.
+func pivots(exchange func(r []float64) error, costs func(r []float64), r []float64, tol float64) error {
+	for {
+		costs(r)
+		if r[0] >= -tol { // want `iteration may never end: its only exits are float tests \(r\[0\] >= -tol\)`
+			return nil
+		}
+		if err := exchange(r); err != nil {
+			return err
+		}
+	}
+}

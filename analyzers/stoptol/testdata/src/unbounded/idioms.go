@@ -1,0 +1,93 @@
+package unbounded
+
+import "math"
+
+// Loops left alone: each ends for a reason the floats cannot take away.
+
+// halve scales by a constant factor: it reaches 0 within about 1075
+// halvings whatever the start.
+func halve(h float64) int {
+	n := 0
+	for h > 1e-12 { // scaled each pass
+		h /= 3
+		n++
+	}
+	return n
+}
+
+// expSeries stops on the term of a series; the term is scaled each pass
+// by x/k, which tends to 0, and a NaN term fails the loop condition.
+func expSeries(x float64) float64 {
+	sum, term, k := 1.0, 1.0, 1.0
+	for math.Abs(term) > 1e-17*math.Abs(sum) { // the term of a series
+		term *= x / k
+		sum += term
+		k++
+	}
+	return sum
+}
+
+// reject draws until a sample lands: each pass is a fresh draw.
+func reject(draw func() float64) float64 {
+	for {
+		u := draw()
+		if u*u < 0.5 { // a fresh draw each pass
+			return u
+		}
+	}
+}
+
+// bestOrder moves through integer orders: an integer counter moves
+// exactly and each pass scores a new order.
+func bestOrder(score func(int) float64, best float64) int {
+	for k := 2; ; k++ {
+		if score(k) < best { // read at a new integer each pass
+			return k
+		}
+	}
+}
+
+// ticks scans from lo to hi by the caller's step.
+func ticks(lo, hi, dx float64, mark func(float64)) {
+	for x := lo; x <= hi; x += dx { // the caller chose the step
+		mark(x)
+	}
+}
+
+// spread divides the span by a count: that many passes.
+func spread(lo, hi float64, n int, mark func(float64)) {
+	dx := (hi - lo) / float64(n)
+	for x := lo; x < hi; x += dx { // a span over a count
+		mark(x)
+	}
+}
+
+// degrees counts from a constant start by a constant step.
+func degrees(mark func(float64)) {
+	for d := -90.0; d <= 90; d++ { // a fixed number of passes
+		mark(d)
+	}
+}
+
+// cells steps by the reciprocal of a slope, which is never 0 for a finite
+// slope.
+func cells(slope float64, visit func(float64)) {
+	t, dt := 0.0, math.Abs(1/slope)
+	for t < 1 { // the step cannot round to 0
+		visit(t)
+		t += dt
+	}
+}
+
+type knot struct {
+	x    float64
+	next *knot
+}
+
+// walk follows a list until a knot lies past a mark: a pointer walks data.
+func walk(k *knot, mark float64) *knot {
+	for k.x < mark { // the loop carries a pointer, not floats
+		k = k.next
+	}
+	return k
+}

@@ -88,6 +88,7 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range root.Preorder((*ast.BinaryExpr)(nil)) {
 		c.comparison(cur, cur.Node().(*ast.BinaryExpr))
 	}
+	c.wrappers(root)
 	c.uses.Export()
 	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
@@ -139,6 +140,53 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		}
 		c.defaults(decl, id, u)
 	}
+}
+
+// wrappers learns the parameters and fields a function passes on, as they
+// are, to a tolerance parameter: a test helper that calls a helper that
+// tests. Facts carry them to importers, so wrappers of wrappers compose
+// within and across packages.
+func (c *checker) wrappers(root inspector.Cursor) {
+	known := c.uses.Lookup()
+	for range 4 {
+		grew := false
+		for cur := range root.Preorder((*ast.CallExpr)(nil)) {
+			tolerance.Sites(c.pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, _ string) {
+				grew = c.passesOn(cur, val, u, known) || grew
+			})
+		}
+		if !grew {
+			return
+		}
+	}
+}
+
+// passesOn records val, when it is a parameter of the enclosing function or
+// a field of this package, as a tolerance of use u, and reports whether
+// that is new.
+func (c *checker) passesOn(cur inspector.Cursor, val ast.Expr, u use, known tolerance.Lookup[use]) bool {
+	if field := tolerance.FieldOf(c.pass.TypesInfo, val); field != nil && field.Pkg() == c.pass.Pkg {
+		if _, ok := known.Field(field); !ok {
+			c.uses.Field(field, u)
+			return true
+		}
+		return false
+	}
+	id, ok := ast.Unparen(val).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, fd.Node().(*ast.FuncDecl), id)
+		if !ok {
+			continue
+		}
+		if _, has := known.Params(fn)[i]; !has {
+			c.uses.Param(fn, i, u)
+			return true
+		}
+	}
+	return false
 }
 
 // defaults reports constants given to the tolerance id in the defaulting

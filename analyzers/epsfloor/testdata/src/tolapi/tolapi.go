@@ -17,3 +17,8 @@ func Refine(s Settings, a, b float64) bool {
 func Agree(a, b, tol float64) bool { // want Agree:"parameter 2 is an absolute tolerance of float64 in Agree"
 	return math.Abs(a-b) < tol
 }
+
+// Close passes its tolerance on to Agree.
+func Close(a, b, eps float64) bool { // want Close:"parameter 2 is an absolute tolerance of float64 in Agree"
+	return Agree(a, b, eps)
+}

@@ -11,3 +11,12 @@ func use(a, b float64) bool {
 func sane(a, b float64) bool {
 	return tolapi.Agree(a, b, 1e-9) && tolapi.Refine(tolapi.Settings{RelTol: 1e-12}, a, b)
 }
+
+// near wraps a wrapper: its tolerance reaches Agree through tolapi.Close.
+func near(a, b, slack float64) bool { // want near:"parameter 2 is an absolute tolerance of float64 in Agree"
+	return tolapi.Close(a, b, slack)
+}
+
+func useNear(a, b float64) bool {
+	return near(a, b, 1e-30) // want `1e-30, passed as slack to near \(an absolute tolerance of float64 in Agree, tested at tolapi\.go:18\), is below float64 epsilon`
+}

@@ -51,8 +51,9 @@
 //     floats/scalar EqualWithinAbs, EqualWithinRel, EqualWithinAbsOrRel,
 //     floats.EqualApprox; testify's InDelta, InDeltaSlice, InEpsilon,
 //     InEpsilonSlice), and to functions and struct fields of any package
-//     that use a parameter or field as such a tolerance (carried across
-//     packages as facts): the call argument, composite-literal field or
+//     that use a parameter or field as such a tolerance, directly or by
+//     passing it on to one (wrappers of wrappers; carried across packages
+//     as facts): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
 //     is reported.
 //

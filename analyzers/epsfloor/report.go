@@ -6,6 +6,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"strings"
 	"math"
 
 	"golang.org/x/tools/go/analysis"
@@ -49,15 +50,16 @@ func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
 }
 
 // sizeOf returns |e| when e is a constant, or the largest magnitude among
-// the constants the package's composite literals give the field e reads
-// (the expected values of a table of test cases, tc.want), else 0.
+// the constants the package's composite literals give the field e reads,
+// when that field is declared in a test (the expected values of a table of
+// test cases, tc.want), else 0.
 func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
 		return math.Abs(f.Value(v))
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
-	if field == nil {
-		return 0
+	if field == nil || !inTestFile(c.pass.Fset, field.Pos()) {
+		return 0 // only a test's own table of cases says what values reach the test
 	}
 	if c.fields == nil {
 		c.fields = constval.Fields(c.pass.TypesInfo, c.pass.Files)
@@ -277,4 +279,10 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
+}
+
+// inTestFile reports whether pos lies in a _test.go file.
+func inTestFile(fset *token.FileSet, pos token.Pos) bool {
+	f := fset.File(pos)
+	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }

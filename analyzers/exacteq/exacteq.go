@@ -127,11 +127,11 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 			return
 		}
 		fix := func() []fixes.Fix { return c.toleranceFix(cur, n, x, y, t) }
-		if !c.pinned(cur, n, "exact "+n.Op.String(), n.X, n.Y, fix) {
+		if !c.pinned(cur, n, "exact "+n.Op.String(), x, y, fix) {
 			c.scalar(cur, n, n.Op, x, y)
 		}
 	case holdsFloat(t, 0):
-		if !c.deliberate(cur) && !c.pinned(cur, n, n.Op.String()+" on "+typeName(t)+" values", n.X, n.Y, nil) {
+		if !c.deliberate(cur) && !c.pinned(cur, n, n.Op.String()+" on "+typeName(t)+" values", x, y, nil) {
 			c.aggregate(n, x, y)
 		}
 	}

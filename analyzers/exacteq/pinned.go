@@ -6,12 +6,14 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"slices"
 	"math"
 	"strconv"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -49,14 +51,14 @@ type pin struct {
 // parsed from a string that holds the same digits is a round trip, exact
 // by correct rounding (IEEE 754-2019 §5.12), and left alone. It reports
 // whether it reported.
-func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y ast.Expr, fix func() []fixes.Fix) bool {
+func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y operand, fix func() []fixes.Fix) bool {
 	if !c.inTest(cur) {
 		return false
 	}
 	fn := enclosingFunc(cur)
-	for _, pair := range [][2]ast.Expr{{x, y}, {y, x}} {
-		exp, got := pair[0], pair[1]
-		if c.isConst(got) {
+	for _, pair := range [][2]operand{{x, y}, {y, x}} {
+		exp, got := pair[0].expr, pair[1]
+		if c.isConst(got.expr) || c.uncomputed(got.val) {
 			continue
 		}
 		p, ok := c.printed(exp)
@@ -77,6 +79,25 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 	return false
 }
 
+// uncomputed reports whether v is the float result of a function of this
+// package that returns no computed value (a conversion, a selection): what
+// it returns is exact, and so is its comparison with the value it came
+// from.
+func (c *checker) uncomputed(v ssa.Value) bool {
+	if mi, ok := v.(*ssa.MakeInterface); ok {
+		v = mi.X
+	}
+	call, ok := provenance.Strip(v).(*ssa.Call)
+	if !ok || !provenance.IsFloat(call.Type()) {
+		return false // only float results are summarised
+	}
+	fn := call.Common().StaticCallee()
+	if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg {
+		return false // unknown, or from another package: no claim
+	}
+	return !slices.Contains(c.track.Returns(fn), true)
+}
+
 // printed finds the long decimal constant that e is, names, or reads from
 // a table of cases (a field tt.want whose values the package's composite
 // literals give).
@@ -94,7 +115,7 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 			vals = []ast.Expr{init}
 		}
 	case *ast.SelectorExpr:
-		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil {
+		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil && inTestFile(c.pass.Fset, field.Pos()) {
 			vals = c.fieldValues()[field]
 		}
 	}
@@ -229,7 +250,13 @@ func (c *checker) isConst(e ast.Expr) bool {
 
 // inTest reports whether cur lies in a _test.go file.
 func (c *checker) inTest(cur inspector.Cursor) bool {
-	return strings.HasSuffix(c.pass.Fset.File(cur.Node().Pos()).Name(), "_test.go")
+	return inTestFile(c.pass.Fset, cur.Node().Pos())
+}
+
+// inTestFile reports whether pos lies in a _test.go file.
+func inTestFile(fset *token.FileSet, pos token.Pos) bool {
+	f := fset.File(pos)
+	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }
 
 // enclosingFunc returns the outermost function declaration around cur, or nil.

@@ -34,7 +34,10 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	if deepEqual[fn.Pkg().Path()+"."+fn.Name()] && len(call.Args) >= 2 {
-		c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), call.Args[0], call.Args[1], nil)
+		if sc := c.calls[call.Lparen]; sc != nil && len(sc.Common().Args) >= 2 {
+			args := sc.Common().Args
+			c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), operand{call.Args[0], args[0]}, operand{call.Args[1], args[1]}, nil)
+		}
 		return
 	}
 	if !isTestify(fn.Pkg().Path()) {
@@ -56,7 +59,7 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	exp, act := operand{call.Args[first], args[0]}, operand{call.Args[first+1], args[1]}
 	t := c.pass.TypesInfo.TypeOf(act.expr)
 	fix := func() []fixes.Fix { return c.inEpsilonFix(call, exp, first, replacement, provenance.FormatOf(t)) }
-	if replacement != "" && c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), exp.expr, act.expr, fix) {
+	if replacement != "" && c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), exp, act, fix) {
 		return
 	}
 	if !provenance.IsFloat(t) || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(exp.expr)) || c.exempt(exp) || c.exempt(act) {

@@ -232,6 +232,10 @@ func inTestFile(fn *ssa.Function) bool {
 	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }
 
+// Returns reports, per result, whether fn, a function of the tracked
+// package, returns a computed value on some path.
+func (t *Tracker) Returns(fn *ssa.Function) []bool { return t.resultComputed(fn) }
+
 // resultComputed summarises, per result, whether fn returns a computed value
 // on some path.
 func (t *Tracker) resultComputed(fn *ssa.Function) []bool {

@@ -23,3 +23,6 @@ const Ln3 = float32(1.0986122886681096913952452369225257046474905578227494517346
 
 // Log32 returns the natural logarithm of x in float32.
 func Log32(x float32) float32 { return float32(math.Log(float64(x))) }
+
+// Turns converts a quarter-turn count to turns, without arithmetic.
+func Turns(q float64) float64 { return q }

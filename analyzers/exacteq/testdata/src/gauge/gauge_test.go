@@ -142,3 +142,11 @@ func TestPinnedConstant(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// The code under test returns its argument: nothing rounds, and a constant
+// expression folded once compares exactly.
+func TestNothingRounds(t *testing.T) {
+	if Turns(math.Pi/4) != 0.7853981633974483 {
+		t.Fail()
+	}
+}

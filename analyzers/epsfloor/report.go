@@ -6,8 +6,8 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
-	"strings"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"

@@ -6,8 +6,8 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
-	"slices"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 

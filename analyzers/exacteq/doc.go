@@ -46,7 +46,7 @@
 //   - in tests, an exact comparison (==, !=, testify's Equal,
 //     reflect.DeepEqual, cmp.Equal, on floats or on structs and arrays of
 //     them) of a result with a printed value: a constant whose shortest
-//     decimal form has 15 or more significant digits (8 for float32) and
+//     decimal form has 16 or more significant digits (8 for float32) and
 //     that its type stores inexactly, written in the comparison, named, or
 //     read from a table of cases (tc.want). Such a test pins the last bits
 //     of a computation, which change with the order of operations and with

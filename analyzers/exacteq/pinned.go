@@ -23,13 +23,14 @@ import (
 
 // printedDigits is the number of significant digits from which a decimal
 // constant reads as a printed result: Go prints a float64 in its shortest
-// form, 15 to 17 digits for almost every value that is not a short decimal
-// (strconv 'g', -1), and a float32 in 6 to 9.
+// form (strconv 'g', -1), 16 or 17 digits for most values that are not
+// short decimals, and a float32 in 8 or 9. Data typed from other sources
+// (coordinates to 15 digits) stay below.
 func printedDigits(f numeric.Format) int {
 	if f == numeric.Float32 {
 		return 8
 	}
-	return 15
+	return 16
 }
 
 // pin describes an expected value that pins a printed result.
@@ -41,7 +42,7 @@ type pin struct {
 }
 
 // pinned reports, in a _test.go file, an exact comparison of a value with an
-// expected one that holds a printed result: a decimal constant of 15 or
+// expected one that holds a printed result: a decimal constant of 16 or
 // more significant digits (8 for float32) that the type stores inexactly,
 // written in the comparison, in a named constant, or in the table of
 // cases the expected value is read from. Such a test pins the last bits of
@@ -58,7 +59,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 	fn := enclosingFunc(cur)
 	for _, pair := range [][2]operand{{x, y}, {y, x}} {
 		exp, got := pair[0].expr, pair[1]
-		if c.isConst(got.expr) || c.uncomputed(got.val) {
+		if c.isConst(got.expr) || c.uncomputed(got.val) || decoded(got.val) {
 			continue
 		}
 		p, ok := c.printed(exp)
@@ -96,6 +97,53 @@ func (c *checker) uncomputed(v ssa.Value) bool {
 		return false // unknown, or from another package: no claim
 	}
 	return !slices.Contains(c.track.Returns(fn), true)
+}
+
+// decoded reports whether v is read from a variable that a standard-library
+// call fills through its address (json.Unmarshal(data, &got)): a value
+// decoded from text is correctly rounded from the digits written there
+// (IEEE 754-2019 §5.12), and compares exactly with them.
+func decoded(v ssa.Value) bool {
+	for range 8 {
+		switch x := provenance.Strip(v).(type) {
+		case *ssa.MakeInterface:
+			v = x.X
+		case *ssa.UnOp:
+			v = x.X
+		case *ssa.Field:
+			v = x.X
+		case *ssa.FieldAddr:
+			v = x.X
+		case *ssa.Index:
+			v = x.X
+		case *ssa.IndexAddr:
+			v = x.X
+		case *ssa.Alloc:
+			return filledByStd(x)
+		default:
+			return false
+		}
+	}
+	return false
+}
+
+// filledByStd reports whether the address a is passed to a function of
+// the standard library.
+func filledByStd(a ssa.Value) bool {
+	for _, r := range *a.Referrers() {
+		switch r := r.(type) {
+		case *ssa.MakeInterface:
+			if filledByStd(r) {
+				return true
+			}
+		case ssa.CallInstruction:
+			fn := r.Common().StaticCallee()
+			if fn != nil && fn.Pkg != nil && !strings.Contains(strings.Split(fn.Pkg.Pkg.Path(), "/")[0], ".") {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // printed finds the long decimal constant that e is, names, or reads from
@@ -138,7 +186,7 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 
 // printedConst reports whether e is a float constant of a printed
 // result's length that its type stores inexactly: the shortest decimal
-// that reads back as the stored value (strconv 'g', -1) has 15 or more
+// that reads back as the stored value (strconv 'g', -1) has 16 or more
 // significant digits (8 for float32). A decimal written long whose value
 // is short (0.1000000000000000055) is no printed result, nor is a dyadic
 // value such as 2^-15.

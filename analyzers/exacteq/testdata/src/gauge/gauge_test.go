@@ -1,6 +1,7 @@
 package gauge
 
 import (
+	"encoding/json"
 	"math"
 	"reflect"
 	"strconv"
@@ -147,6 +148,17 @@ func TestPinnedConstant(t *testing.T) {
 // expression folded once compares exactly.
 func TestNothingRounds(t *testing.T) {
 	if Turns(math.Pi/4) != 0.7853981633974483 {
+		t.Fail()
+	}
+}
+
+// sagJSON holds a reading as text, outside the test below.
+var sagJSON = []byte(`{"Sag": 0.16749999999999998}`)
+
+// A value decoded from text reads back exactly.
+func TestDecoded(t *testing.T) {
+	var got struct{ Sag float64 }
+	if err := json.Unmarshal(sagJSON, &got); err != nil || got.Sag != 0.16749999999999998 {
 		t.Fail()
 	}
 }

@@ -83,8 +83,9 @@
 // tests whose function says it checks exactness (one correctly rounded
 // operation on each side gives the same float, IEEE 754-2019 §4.3, and a
 // tolerance would defeat the check), printed values parsed back from a
-// string holding the same digits (exact by correct rounding, IEEE 754-2019
-// §5.12), and printed values that also appear among the test's inputs
+// string holding the same digits or decoded from text by the standard
+// library (exact by correct rounding, IEEE 754-2019 §5.12), results of
+// package functions that return their input unrounded, and printed values that also appear among the test's inputs
 // (passed through without arithmetic, as the vertices a hull keeps).
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop

@@ -111,6 +111,8 @@ func (c *checker) absorbedMixed(n *ast.BinaryExpr, terms []term, f numeric.Forma
 	for i, t := range terms {
 		if _, ok := c.value(t); ok {
 			consts = append(consts, i)
+		} else if !c.rounded(t.expr) {
+			return // a variable can cancel k exactly (1 - p is exact for p near 1), leaving c alone
 		}
 	}
 	for _, i := range consts {
@@ -128,6 +130,19 @@ func (c *checker) absorbedMixed(n *ast.BinaryExpr, terms []term, f numeric.Forma
 			}
 		}
 	}
+}
+
+// rounded reports whether e is a value that carries rounding error: a call
+// (not a conversion), a product or a quotient.
+func (c *checker) rounded(e ast.Expr) bool {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.CallExpr:
+		tv, ok := c.pass.TypesInfo.Types[e.Fun]
+		return !ok || !tv.IsType()
+	case *ast.BinaryExpr:
+		return e.Op == token.MUL || e.Op == token.QUO
+	}
+	return false
 }
 
 // restOf names the sum without addend i: the other addend of a pair, or

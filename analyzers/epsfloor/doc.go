@@ -42,11 +42,14 @@
 //     rounds to the same value (1 - math.SmallestNonzeroFloat64 is exactly
 //     1; math.Nextafter was meant). Go evaluates a constant expression
 //     exactly and rounds it once (Go spec, "Constant expressions"), so the
-//     sum is judged whole, never step by step. In a sum with run-time
-//     terms, a constant below half the spacing at another constant term
-//     (a float64 correction of 6.1e-17 kept beside π/2 in float32 code) has
-//     no effect either: absorbed while the sum stays near that term, and
-//     below the other terms' rounding errors when they cancel it;
+//     sum is judged whole, never step by step. In a sum whose run-time
+//     terms all carry rounding error (calls, products, quotients), a
+//     constant below half the spacing at another constant term (a float64
+//     correction of 6.1e-17 kept beside π/2 in float32 code) has no effect
+//     either: absorbed while the sum stays near that term, and below the
+//     other terms' rounding errors when they cancel it. A plain variable
+//     can cancel the term exactly (Sterbenz), so 1 - p + 1e-16 is left
+//     alone;
 //   - constant tolerance arguments to well-known APIs (gonum's
 //     floats/scalar EqualWithinAbs, EqualWithinRel, EqualWithinAbsOrRel,
 //     floats.EqualApprox; testify's InDelta, InDeltaSlice, InEpsilon,

@@ -168,3 +168,7 @@ type span struct{ lo, hi float64 }
 var spans = []span{{0, 99}, {1, 100}}
 
 func nearEnd(s span, x float64) bool { return math.Abs(s.hi-x) < 1e-15 }
+
+// 1 - p is exact for p in [0.5, 2] (Sterbenz), so at p = 1 the sum is
+// exactly 1e-16 and the tiny addend keeps the logarithm finite.
+func crossEntropy(p float64) float64 { return -math.Log(1 - p + 1e-16) }

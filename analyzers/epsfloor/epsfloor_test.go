@@ -176,3 +176,23 @@ func main() {
 	require.NoError(t, os.WriteFile(file, []byte(src), 0o644))
 	return file
 }
+
+// TestSiteRelated checks that a constant passed to a tolerance parameter
+// names the test that uses it as its second place, in the message and as
+// related information (common practice).
+func TestSiteRelated(t *testing.T) {
+	res := analysistest.Run(t, analysistest.TestData(), epsfloor.Analyzer, "hazards")
+	found := false
+	for _, r := range res {
+		for _, d := range r.Diagnostics {
+			if !strings.Contains(d.Message, "passed as tol to solve") {
+				continue
+			}
+			require.Len(t, d.Related, 1)
+			test := r.Pass.Fset.Position(d.Related[0].Pos)
+			assert.Contains(t, d.Message, fmt.Sprintf("tested at hazards.go:%d", test.Line))
+			found = true
+		}
+	}
+	assert.True(t, found)
+}

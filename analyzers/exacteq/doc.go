@@ -41,6 +41,10 @@
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few
 //     ulps;
+//   - a product or quotient tested against its own whole part
+//     (pos == math.Floor(pos), pos == float64(int(pos)) with pos := p*n): a
+//     value whole in exact arithmetic can come out an ulp below
+//     (0.29*100 is 28.999999999999996), and the test misses it;
 //   - in tests, testify's assert or require Equal (and its variants) compares
 //     floats under the same rules;
 //   - in tests, an exact comparison (==, !=, testify's Equal,
@@ -60,7 +64,8 @@
 // stores exactly (scale != 1 shortcuts); results of math functions that do
 // not round (Abs, Floor, Max...) and of functions from other packages; an
 // operand derived from the other on purpose (the bisection stop m == a where
-// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x)); a value
+// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x) for an x
+// that is not a product or quotient); a value
 // against a merge that has it as an input (did the branch change it?);
 // copies of the same value shuffled through branches (the points a and c of
 // Brent's zero finder); a variable against its own earlier value; a pair

@@ -43,6 +43,7 @@ const (
 	catTestify  = "testify"
 	catPinned   = "pinned"
 	catResidue  = "residue"
+	catWhole    = "whole"
 )
 
 // checker holds what one run needs.
@@ -157,6 +158,10 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
+	if cx && wholeOf(y.val, x.val) || cy && wholeOf(x.val, y.val) {
+		c.reportWhole(n, op, x, y)
+		return
+	}
 	if cx && cy {
 		if !derived(x.val, y.val) {
 			c.reportComputed(cur, n, op, x, y, nil)

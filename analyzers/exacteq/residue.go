@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/token"
+	"go/types"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ssa"
@@ -123,4 +124,44 @@ func (c *checker) returnsCancelling(call *ssa.CallCommon, depth int) bool {
 		seen = true
 	}
 	return seen
+}
+
+// wholeOf reports whether w is the whole part of x, a product or quotient:
+// math.Floor, Ceil, Trunc, Round or RoundToEven of x, or x converted to an
+// integer type and back.
+func wholeOf(w, x ssa.Value) bool {
+	x = provenance.Strip(x)
+	if b, ok := x.(*ssa.BinOp); !ok || b.Op != token.MUL && b.Op != token.QUO {
+		return false
+	}
+	switch w := provenance.Strip(w).(type) {
+	case *ssa.Call:
+		return integral(w) && len(w.Call.Args) == 1 && provenance.Strip(w.Call.Args[0]) == x
+	case *ssa.Convert:
+		in, ok := w.X.(*ssa.Convert)
+		return ok && isInteger(in.Type()) && provenance.Strip(in.X) == x
+	}
+	return false
+}
+
+// isInteger reports whether t is an integer type.
+func isInteger(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
+}
+
+// reportWhole reports a computed value tested against its own whole part.
+func (c *checker) reportWhole(n *ast.BinaryExpr, op token.Token, x, y operand) {
+	if n == nil {
+		return
+	}
+	v := x
+	if !c.track.Computed(x.val) {
+		v = y
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catWhole,
+		Message: fmt.Sprintf("exact %s tests whether the computed value %s is a whole number: a value whole in exact arithmetic can come out an ulp below or above (0.29*100 is 28.999999999999996), and the test then misses it; compare with the nearest whole number within a tolerance",
+			op, fixes.Source(c.pass.Fset, v.expr)),
+	})
 }

@@ -171,3 +171,18 @@ func onLine(x1, y1, x2, y2, px, py float64) bool {
 	r := (y2-y1)*px + (x1-x2)*py + c
 	return r != 0 // want `exact != 0 on r, a difference of computed float64 values`
 }
+
+// rankOf picks the rank at fraction p of n sorted values, averaging two
+// neighbours when p·n is whole.
+func rankOf(p float64, n int) (int, bool) {
+	pos := p * float64(n)
+	if pos == float64(int(pos)) { // want `exact == tests whether the computed value pos is a whole number: a value whole in exact arithmetic can come out an ulp below or above \(0.29\*100 is 28.999999999999996\)`
+		return int(pos), true
+	}
+	return int(pos), false
+}
+
+func ratioWhole(a, b float64) bool {
+	r := a / b
+	return math.Trunc(r) == r // want `tests whether the computed value r is a whole number`
+}

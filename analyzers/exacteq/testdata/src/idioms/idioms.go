@@ -85,9 +85,9 @@ func integerTest(x float64) bool {
 	return x == math.Floor(x) // integer test
 }
 
-func integerTestComputed(a, b float64) bool {
-	v := a * b
-	return v == math.Floor(v) // the floor is derived from v on purpose
+func integerTestSum(a, b float64) bool {
+	v := a + b
+	return v == math.Floor(v) // a sum of inputs: whole exactly when the inputs' fractions cancel, not judged
 }
 
 func bisectionStop(a, b float64) bool {

@@ -70,7 +70,11 @@
 // copies of the same value shuffled through branches (the points a and c of
 // Brent's zero finder); a variable against its own earlier value; a pair
 // whose difference the same function also tests against a tolerance (the
-// exact test is a shortcut); loop variables clamped to the bound; a value
+// exact test is a shortcut); results of the same function on arguments
+// passed by value (the same roundings applied to equal inputs give equal
+// results, so hue(a) == hue(b) in a comparator compares the inputs; a
+// function of slices such as a sum stays a hazard); loop variables clamped
+// to the bound; a value
 // against its own value from the previous pass (a series summed until a
 // term no longer changes the sum stops exactly when the term is absorbed,
 // with every digit the format holds); infinities held in variables, as

@@ -200,7 +200,50 @@ func derived(x, y ssa.Value) bool {
 	return provenance.DependsOn(x, y) || provenance.DependsOn(y, x) ||
 		provenance.MergedFrom(x, y) || provenance.MergedFrom(y, x) ||
 		provenance.SameSources(x, y) || provenance.Differenced(x, y) ||
-		lastValue(x, y) || lastValue(y, x)
+		lastValue(x, y) || lastValue(y, x) || sameRoute(x, y)
+}
+
+// sameRoute reports whether x and y are results of the same function on
+// arguments passed by value (numbers, and structs and arrays of them): the
+// same roundings applied to equal inputs give equal results, so the test
+// compares the inputs as the function sees them, as a sort comparator
+// breaking ties (hue(a) == hue(b)) or a snap to a grid (snap(p) == snap(q))
+// does. A function of slices or pointers, such as a sum over a slice in
+// another order, stays a hazard.
+func sameRoute(x, y ssa.Value) bool {
+	cx, ok1 := provenance.Strip(x).(*ssa.Call)
+	cy, ok2 := provenance.Strip(y).(*ssa.Call)
+	if !ok1 || !ok2 || cx.Common().StaticCallee() == nil || cx.Common().StaticCallee() != cy.Common().StaticCallee() {
+		return false
+	}
+	for _, a := range append(cx.Common().Args, cy.Common().Args...) {
+		if !byValue(a.Type(), 4) {
+			return false
+		}
+	}
+	return true
+}
+
+// byValue reports whether t holds no references: a number, a string, or a
+// struct or array of such.
+func byValue(t types.Type, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return true
+	case *types.Array:
+		return byValue(u.Elem(), depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if !byValue(f.Type(), depth-1) {
+				return false
+			}
+		}
+		return true
+	}
+	return false
 }
 
 // lastValue reports whether y holds x's value from the previous pass of a

@@ -247,11 +247,17 @@ func byValue(t types.Type, depth int) bool {
 }
 
 // lastValue reports whether y holds x's value from the previous pass of a
-// loop: a merge one of whose incoming values is x itself (last = sum at
-// the top of each pass, then sum != last as the stop). A series summed
+// loop, x being carried from pass to pass: a merge one of whose incoming
+// values is x itself (last = sum at the top of each pass, then sum != last
+// as the stop). A fresh value against a running minimum (w == min, a tie
+// of path costs summed in different orders) is not such a test. A series summed
 // until a term no longer changes the sum stops exactly when the term is
 // absorbed, when the sum holds every digit the format can.
 func lastValue(x, y ssa.Value) bool {
+	acc, ok := provenance.Strip(x).(*ssa.Phi)
+	if !ok || provenance.Of(acc) != provenance.LoopCarried {
+		return false // not a value carried from pass to pass, such as a fresh candidate against a running minimum
+	}
 	phi, ok := provenance.Strip(y).(*ssa.Phi)
 	if !ok {
 		return false

@@ -186,3 +186,15 @@ func ratioWhole(a, b float64) bool {
 	r := a / b
 	return math.Trunc(r) == r // want `tests whether the computed value r is a whole number`
 }
+
+// cheapest breaks ties between path costs summed in different orders.
+func cheapest(costs [][2]float64) int {
+	best, min := -1, math.Inf(1)
+	for i, c := range costs {
+		w := c[0] + c[1]
+		if w < min || w == min && i < best { // want `exact == between two computed float64 values`
+			best, min = i, w
+		}
+	}
+	return best
+}

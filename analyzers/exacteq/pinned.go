@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"math/bits"
 	"slices"
 	"strconv"
 	"strings"
@@ -189,7 +190,8 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 }
 
 // printedConst reports whether e is a float constant of a printed
-// result's length that its type stores inexactly: the shortest decimal
+// result's length that its type stores inexactly (or, for a constant whose
+// decimals are not in view, that fills the significand): the shortest decimal
 // that reads back as the stored value (strconv 'g', -1) has 16 or more
 // significant digits (8 for float32). A decimal written long whose value
 // is short (0.1000000000000000055) is no printed result, nor is a dyadic
@@ -203,7 +205,20 @@ func (c *checker) printedConst(e ast.Expr) (pin, bool) {
 	f := provenance.FormatOf(t)
 	stored, exact := storedValue(v, f)
 	digits := shortestDigits(stored, f)
-	return pin{e, stored, digits, f}, !exact && len(digits) >= printedDigits(f)
+	return pin{e, stored, digits, f}, (!exact || fullBits(stored, f)) && len(digits) >= printedDigits(f)
+}
+
+// fullBits reports whether x needs more than half the significand bits of
+// format f: a value rounded from an irrational or a long quotient, as a
+// constant of another package already is (go/types keeps typed constants
+// rounded), not a short binary fraction such as 2^-15 or 0.375.
+func fullBits(x float64, f numeric.Format) bool {
+	if x == 0 || math.IsInf(x, 0) || math.IsNaN(x) {
+		return false
+	}
+	frac, _ := math.Frexp(math.Abs(x))
+	mant := uint64(math.Ldexp(frac, 53))
+	return 53-bits.TrailingZeros64(mant) > f.Bits/2
 }
 
 // describe writes the pinned constant as the message shows it: a literal

@@ -62,7 +62,8 @@
 // anything (sentinels such as alpha == 1, sorting and deduplication, knot
 // hits in interpolation); computed values compared with a constant the type
 // stores exactly (scale != 1 shortcuts); results of math functions that do
-// not round (Abs, Floor, Max...) and of functions from other packages; an
+// not round (Abs, Floor, Max...) of inputs (Abs and Copysign of a computed
+// value carry its error) and of functions from other packages; an
 // operand derived from the other on purpose (the bisection stop m == a where
 // m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x) for an x
 // that is not a product or quotient); a value

@@ -69,6 +69,9 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 		}
 		return c.cancels(v.X, depth-1) || c.cancels(v.Y, depth-1)
 	case *ssa.Call:
+		if fn := v.Common().StaticCallee(); fn != nil && fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && fn.Name() == "Abs" {
+			return c.cancels(v.Common().Args[0], depth-1) // |d| == 0 exactly when d == 0
+		}
 		return c.returnsCancelling(v.Common(), depth-1)
 	}
 	return false

@@ -198,3 +198,14 @@ func cheapest(costs [][2]float64) int {
 	}
 	return best
 }
+
+// netArea is zero when the holes fill the shell in exact arithmetic; the
+// two rounded areas rarely agree to the last bit.
+func netArea(shell, holes float64, w, h float64) bool {
+	a := math.Abs(shell * w * h)
+	return a-holes*w*h == 0 // want `exact == 0 on a - holes\*w\*h, a difference of computed float64 values`
+}
+
+func sagZero(x1, y1, x2, y2 float64) bool {
+	return math.Abs(x1*y2-x2*y1) == 0 // want `exact == 0 on math.Abs\(x1\*y2 - x2\*y1\)`
+}

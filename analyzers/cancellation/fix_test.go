@@ -151,8 +151,10 @@ func TestPowLookAlikes(t *testing.T) {
 		if rng.IntN(2) == 0 {
 			x = -x
 		}
+		//roundoff:reviewed exacteq the test asserts bit-for-bit equality on purpose: both sides are correctly rounded
 		require.Equal(t, x*x, math.Pow(x, 2), "x=%g", x)
 		if x > 0 {
+			//roundoff:reviewed exacteq the test asserts bit-for-bit equality on purpose: both sides are correctly rounded
 			require.Equal(t, math.Sqrt(x), math.Pow(x, 0.5), "x=%g", x)
 		}
 	}

@@ -25,12 +25,21 @@
 //   - a comment "// roundoff:reviewed ..." with a space after the slashes,
 //     which Go tools treat as an ordinary comment, not a directive
 //     (category spaced); the fix removes the space, and as that makes the
-//     comment suppress findings it is offered for review only.
+//     comment suppress findings it is offered for review only;
+//   - the directive glued to an analyzer name, //roundoff:reviewedexacteq
+//     (category glued); a longer word such as reviewedness is not taken
+//     for a directive;
+//   - the directive in a block comment, which is no directive (category
+//     block);
+//   - an empty analyzer name, from a comma at the end of the names or a
+//     space after a comma, which makes the following names part of the
+//     reason (category emptyname).
 //
 // It also checks the noise directive //roundoff:noise <relative accuracy>
-// (see docs/noise.md): a level that is not a number between 0 and 1, and a
-// directive outside a function's doc comment, declare nothing (category
-// noise).
+// (see docs/noise.md): a level that is not a relative accuracy from the
+// unit roundoff of float64 (2^-53, IEEE 754-2019) up to 1 (the check the
+// configuration file and the limits calculator share), and a directive
+// outside a function's doc comment, declare nothing (category noise).
 //
 // Directives that no longer suppress anything (the code was fixed) are
 // reported by the standalone driver on request: roundoff -stale-reviews.

@@ -5,13 +5,13 @@ import (
 	"fmt"
 	"go/ast"
 	"go/token"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/fixes"
-	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/internal/config"
 )
 
@@ -33,6 +33,9 @@ const (
 	catUnknown  = "unknown"
 	catSpaced   = "spaced"
 	catNoise    = "noise"
+	catGlued    = "glued"
+	catBlock    = "block"
+	catEmpty    = "emptyname"
 )
 
 // spaced is a review directive written with a space after the slashes.
@@ -47,6 +50,7 @@ func run(pass *analysis.Pass) (any, error) {
 		for _, g := range f.Comments {
 			for _, c := range g.List {
 				checkSpaced(pass, c)
+				checkForm(pass, cfg, c)
 			}
 		}
 		checkNoise(pass, f)
@@ -63,8 +67,11 @@ func check(pass *analysis.Pass, cfg *config.Config, r config.Review) {
 		report(catNoNames, "review directive names no analyzer and suppresses nothing; write %s <analyzer> <reason>", config.ReviewDirective)
 		return
 	}
+	if slices.Contains(r.Names, "") {
+		report(catEmpty, "review directive has an empty analyzer name (a comma at the end of the names, or a space after a comma); write the names joined by commas without spaces, such as %s", strings.Join(cfg.Names()[:min(2, len(cfg.Names()))], ","))
+	}
 	for _, n := range r.Names {
-		if !cfg.Known(n) {
+		if n != "" && !cfg.Known(n) {
 			report(catUnknown, "review directive names %q, which is not a roundoff analyzer (the suite has %s)", n, strings.Join(cfg.Names(), ", "))
 		}
 	}
@@ -86,6 +93,26 @@ func checkSpaced(pass *analysis.Pass, c *ast.Comment) {
 	}, fixes.Judgement("Remove the space after //", analysis.TextEdit{Pos: space, End: space + 1}))
 }
 
+// checkForm reports comments meant as review directives that are not
+// one: the directive word glued to an analyzer name, or a block comment.
+func checkForm(pass *analysis.Pass, cfg *config.Config, c *ast.Comment) {
+	report := func(cat, msg string) {
+		fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: cat, Message: msg})
+	}
+	word, _, _ := strings.Cut(c.Text, " ")
+	if glued, ok := strings.CutPrefix(word, config.ReviewDirective); ok && glued != "" {
+		name, _, _ := strings.Cut(glued, ",")
+		if slices.Contains(cfg.Names(), name) { // not a longer word such as reviewedness
+			report(catGlued, fmt.Sprintf("comment %q is not a review directive: put a space between %s and the analyzer names", word, config.ReviewDirective))
+		}
+		return
+	}
+	inner, ok := strings.CutPrefix(c.Text, "/*")
+	if _, _, isDirective := config.ParseReview("//" + strings.TrimSpace(strings.TrimSuffix(inner, "*/"))); ok && isDirective {
+		report(catBlock, "review directives are // line comments; in a /* */ comment it suppresses nothing")
+	}
+}
+
 // checkNoise reports noise directives that declare nothing: malformed, or
 // outside a function's doc comment.
 func checkNoise(pass *analysis.Pass, f *ast.File) {
@@ -93,15 +120,15 @@ func checkNoise(pass *analysis.Pass, f *ast.File) {
 	for _, d := range f.Decls {
 		if fd, ok := d.(*ast.FuncDecl); ok && fd.Doc != nil {
 			docs[fd.Doc] = true
-			if _, c, err := noiselevel.Parse(fd.Doc); err != nil {
+			if _, c, err := config.FindNoiseDirective(fd.Doc); err != nil {
 				fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: catNoise, Message: err.Error() + ", so it declares nothing"})
 			}
 		}
 	}
 	for _, g := range f.Comments {
-		if _, c, _ := noiselevel.Parse(g); c != nil && !docs[g] {
+		if _, c, _ := config.FindNoiseDirective(g); c != nil && !docs[g] {
 			fixes.Report(pass, analysis.Diagnostic{Pos: c.Pos(), End: c.End(), Category: catNoise,
-				Message: noiselevel.Directive + " declares a function's noise level only in its doc comment; here it declares nothing"})
+				Message: config.NoiseDirective + " declares a function's noise level only in its doc comment; here it declares nothing"})
 		}
 	}
 }

@@ -17,21 +17,31 @@
 // 2^19 ≈ 5.2e5 on, float64 values are more than 1e-10 apart, so
 // |b-a| < 1e-10 never holds there.
 //
-// stoptol finds the stopping tests of loops (the loop condition, and
-// conditions guarding break or return in the body) that compare a step or
-// bracket quantity (|b-a|, |x1-x0|, |step|, their relative forms) with a
-// tolerance, and classifies the loop: a derivative-free minimization when it
-// compares function values to choose points (golden-section, parabolic,
-// Brent-like search, backtracking), a root finding or derivative-based
-// search when it tests signs (f(a)*f(m) < 0, math.Signbit) or steps by a
-// quotient (Newton, secant), otherwise unknown. It reports:
+// stoptol finds the stopping tests of loops (the loop condition, a flag
+// that holds a test, as in for !converged, and conditions guarding break,
+// return or panic in the body) that compare a measure of progress with a
+// tolerance: |b-a| with the absolute value taken by any route (math.Abs,
+// the Abs of a float32 library, a package's own helper, a variable bound
+// to one, learned by meaning in package absval), a bracket width b-a
+// written without one where the body keeps the bracket ordered, widths
+// scaled by constants ((b-a)/2 < tol holds when |b-a| < 2·tol), a width
+// shrunk by a constant factor each pass, differences of slice elements,
+// steps, and their relative forms. It classifies the loop: a
+// derivative-free minimization when it compares function values to choose
+// points (golden-section, parabolic interpolation through three points,
+// Brent-like search, backtracking), a root finding when it tests signs
+// (f(a)*f(m) < 0, math.Signbit) or steps by a quotient of function values
+// (Newton, secant), a fixed-point iteration when it replaces x by a
+// nonlinear formula of itself (Heron's x = (x + a/x)/2, x = g(x), a
+// corrector applied again), which converges to a few ulps as root finders
+// do; otherwise unknown. It reports:
 //
 //   - in a minimization, an x-tolerance below sqrt(eps) of the type,
 //     relative or at unit scale (category tight);
-//   - in a root finding, an absolute x-tolerance below sqrt(eps) that
-//     ignores |x|, with the |x| beyond which the test can never pass
-//     (category unscaled), and a relative step tolerance below the unit
-//     roundoff (category tight);
+//   - in a root finding or fixed-point iteration, an absolute x-tolerance
+//     below sqrt(eps) that ignores |x|, with the |x| beyond which the test
+//     can never pass (category unscaled), and a relative step tolerance
+//     below the unit roundoff (category tight);
 //   - absolute gradient-norm thresholds that ignore the scale of f, with
 //     lower confidence (category fscale);
 //   - loops whose only exits are such tolerance tests and that have no
@@ -40,22 +50,74 @@
 //     backtracking loops that shrink a step until a sufficient-decrease test
 //     holds with neither a floor on the step nor a cap (category
 //     backtrack);
+//   - any other loop with no cap whose only exits are float tests on values
+//     it carries from pass to pass by float work (category nocap): an
+//     iteration that stalls, oscillates or diverges keeps it running, and
+//     so does a NaN when every exit is false for NaN (d < tol breaks; d >
+//     tol as the loop condition does not); a series whose only exit tests
+//     the term, when a NaN term keeps it running;
+//   - a range reduction by repeated addition, for x < 0 { x += 2*math.Pi },
+//     on a parameter of an exported function, which takes |x|/c passes and
+//     never ends once c is absorbed, from |x| = 2^56 ≈ 7.2e16 for 2π in
+//     float64 (category reduction);
+//   - a loop that advances x by a step computed by a formula that can round
+//     to zero (acos(r/(r+d)) once d/r < eps/2, a difference, a remainder)
+//     and ends only on float tests (category stall);
 //   - constants reaching such a tolerance as a call argument, a struct
-//     field or a default, in this package or another (through facts).
+//     field, a default, the elements of a slice or a test table's field, in
+//     this package or another, through any number of wrappers (facts).
+//
+// A finding whose value is written in one place and tested in another
+// names both: a default is reported at its test with the constant as the
+// related place; a constant at a call or in a field names the test it sets
+// when this package holds it; a loop finding stands at its exit test and
+// names the loop and the computed step.
 //
 // A tolerance that no float could resolve (relative below the unit
 // roundoff, absolute below eps) is epsfloor's to report, and stoptol stays
 // silent there, so no test is reported twice.
 //
-// It leaves alone: bisection with a tolerance of a few eps relative to |x|;
-// tolerances already scaled (tol*(1+math.Abs(x)), sqrt(eps)·|x| + abstol,
-// Brent's mixed forms); loops with an iteration cap and a sane tolerance;
-// tolerances on quantities that are not x (residual norms); loops it cannot
-// classify, except for the missing cap.
+// It leaves alone, each for a numerical reason:
+//   - bisection with a tolerance of a few eps relative to |x|, tolerances
+//     already scaled (tol*(1+math.Abs(x)), sqrt(eps)·|x| + abstol, Brent's
+//     mixed forms), loops with an iteration cap (a counter, or a panic past
+//     a count) and a sane tolerance: they can be met;
+//   - tolerances on quantities that are not x (residual norms), a signed
+//     difference x1-x0 of successive iterates (not a width), a value
+//     passed through a helper that is not an absolute value (a ramp
+//     max(x, 0)), a step multiplier that starts at 1 (relative to a
+//     direction, not a length in x), and a running average (linear in x):
+//     none measures how well x is located;
+//   - bisection until no float is left (m <= a || m >= b): m rounds to an
+//     end after at most about 2100 halvings;
+//   - values scaled each pass by a factor the loop does not change (h /= 3,
+//     b *= 1/safmin): they reach 0 or ±Inf in at most about 2100 passes;
+//     series terms scaled by a changing factor and series that test the
+//     term, when a NaN ends the loop (|t| > tol as the loop condition);
+//   - tests on values drawn anew each pass (rejection sampling, polling)
+//     when no call acts by side effect: the loop ends with probability 1,
+//     not by convergence; tests read at a new integer each pass (an
+//     integer counter, or a value computed from one): no float stalls;
+//     loops that carry only integers or pointers (walking data);
+//   - scans by a constant step from a constant start, by a step the caller
+//     gives (a parameter, a field, data), by a span divided by a count
+//     ((hi-lo)/n, zero only when the span is, and then x < hi fails at
+//     once), or by a step that cannot round to zero (1/slope);
+//   - exits on errors count as no bound, but loops with another exit on
+//     data (a length, a state flag) are left alone;
+//   - range reductions in unexported functions or internal packages (their
+//     callers are the module's own, and a value within a few periods takes a pass or two)
+//     or against another variable (how far apart they start is the
+//     caller's);
+//   - loops in test files, which run on the fixed inputs they were written
+//     for: one that never ended would hang the test; and constants written
+//     in test files, since each case runs on its one problem;
+//   - loops it cannot classify, except for the missing cap.
 //
 // Fixes (all need review): in a minimization, the test becomes
 // |b-a| <= 2*(0x1p-26*|x| + tol) (sqrt(eps) = 2^-26 exactly for float64), or
 // a too-tight constant becomes 0x1p-26; in a root finding, an unscaled
 // tolerance gains 4 ulps of |x|: |b-a| <= tol + 4*0x1p-52*|x|. A missing
-// iteration cap gets guidance, not a fix.
+// iteration cap, a range reduction and a stalling step get guidance, not
+// a fix.
 package stoptol

@@ -197,9 +197,13 @@ func describe(u use, src string, tol float64) string {
 // The finding stands at the test, naming the constant, when the test is
 // given (a default set in the testing function); otherwise at the
 // constant, naming the test when this package holds it.
+//
+// A constant written in a test file is left alone: a test case's
+// tolerance runs on the one problem of that case, whose scale its author
+// knows, and running the test settles whether it is met.
 func (c *checker) site(val ast.Expr, u use, how string, test ast.Node) {
 	tv, ok := c.pass.TypesInfo.Types[val]
-	if !ok || tv.Value == nil {
+	if !ok || tv.Value == nil || inTestFile(c.pass, val) {
 		return
 	}
 	at, related := ast.Node(val), []analysis.RelatedInformation(nil)

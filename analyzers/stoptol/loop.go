@@ -35,6 +35,7 @@ func (c class) locatesToUlps() bool {
 // function holds what stoptol learns about a function body once.
 type function struct {
 	body  ast.Node
+	decl  *ast.FuncDecl             // nil for a function literal
 	fvals map[*types.Var]bool       // variables holding function values
 	flags map[*types.Var][]ast.Expr // booleans holding tests (tolerance.Flags)
 }
@@ -95,6 +96,10 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 			return false
 		case *ast.ReturnStmt:
 			l.exit(conds)
+		case *ast.ExprStmt:
+			if call, ok := n.X.(*ast.CallExpr); ok && isPanic(call) {
+				l.exit(conds) // if n > maxIter { panic(...) } is a cap too
+			}
 		case *ast.BranchStmt:
 			switch {
 			case n.Tok == token.BREAK && n.Label == nil:
@@ -105,6 +110,12 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 		}
 		return true
 	})
+}
+
+// isPanic reports whether call is of the builtin panic.
+func isPanic(call *ast.CallExpr) bool {
+	id, ok := ast.Unparen(call.Fun).(*ast.Ident)
+	return ok && id.Name == "panic" && id.Obj == nil
 }
 
 // walkInner looks into a nested loop or switch, where an unlabelled break

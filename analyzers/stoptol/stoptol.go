@@ -99,7 +99,7 @@ func run(pass *analysis.Pass) (any, error) {
 		case *ast.ForStmt:
 			body := enclosingBody(cur)
 			if funcs[body] == nil {
-				funcs[body] = &function{body: body, fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
+				funcs[body] = &function{body: body, decl: enclosingDecl(cur), fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
 			}
 			l := readLoop(pass.TypesInfo, n, funcs[body])
 			l.noise = c.objectiveNoise(l)
@@ -108,13 +108,7 @@ func run(pass *analysis.Pass) (any, error) {
 			c.gradient(cur, n)
 		}
 	}
-	c.uses.Export()
-	known := c.uses.Lookup()
-	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)) {
-		tolerance.Sites(pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, how, nil)
-		})
-	}
+	c.sites(root)
 	return nil, nil
 }
 
@@ -194,6 +188,16 @@ func enclosingBody(cur inspector.Cursor) ast.Node {
 		}
 	}
 	return cur.Node()
+}
+
+// enclosingDecl returns the function declaration whose body directly
+// holds cur, or nil inside a function literal.
+func enclosingDecl(cur inspector.Cursor) *ast.FuncDecl {
+	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		d, _ := fn.Node().(*ast.FuncDecl)
+		return d
+	}
+	return nil
 }
 
 // enclosingName names the function declaration around cur.

@@ -5,11 +5,10 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
-	"maps"
 	"slices"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
@@ -33,8 +32,8 @@ const (
 // the term, fresh draws (sampling, polling), values carried only by integer
 // counters or by walking data, and scans by a given step.
 func (c *checker) unbounded(l *loop) {
-	if l.capped || l.other || len(l.exits) == 0 {
-		return
+	if l.capped || l.other || len(l.exits) == 0 || inTestFile(c.pass, l.stmt) {
+		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)
 	for i, e := range l.exits {
@@ -50,13 +49,15 @@ func (c *checker) unbounded(l *loop) {
 		return // no float test, or bisection until no float is left between the ends
 	}
 	nanRuns := d.nanRuns()
-	geo := tolerance.Geometric(c.pass.TypesInfo, l.stmt.Cond, l.stmt.Post, l.stmt.Body)
 	tested := d.tested()
 	carried := d.effects && d.readsState()
 	series := false
 	for v := range tested {
-		if _, ok := geo[v]; ok || !nanRuns && (d.scaled(v) || d.series(v)) || !d.effects && d.fresh(v, 4) {
-			return // it reaches 0 or ±Inf, it is a term and NaN ends the loop, or it is drawn anew
+		switch {
+		case d.scaled(v, true), !nanRuns && (d.scaled(v, false) || d.series(v)):
+			return // it reaches 0 or ±Inf, or it is a term and NaN ends the loop
+		case !d.effects && d.fresh(v, 4), d.counted(v):
+			return // it is drawn anew, or read at a new integer each pass
 		}
 		carried = carried || d.carried(v)
 		series = series || d.series(v)
@@ -154,7 +155,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if tv := c.pass.TypesInfo.Types[step]; tv.Value != nil {
 		h, isConst = f.Value(tv.Value), true
 	}
-	if isConst && h != 0 && d.onlyAdvances(x) && !d.constStart(x) {
+	if isConst && h != 0 && d.onlyAdvances(x) && d.constBound(x) && c.exportedParam(l, x) {
 		what := numeric.Short(h)
 		if step != nil {
 			what = numeric.WithValue(fixes.Source(c.pass.Fset, step), h)
@@ -190,548 +191,23 @@ func abs(x float64) float64 {
 	return x
 }
 
-// deps holds the assignments of one loop: what each variable, field or
-// slice is computed from.
-type deps struct {
-	info    *types.Info
-	l       *loop
-	tests   []exitTest                  // the float exit tests
-	effects bool                        // the loop calls functions for their effects
-	from    map[*types.Var][]*types.Var // what the assignments to v read
-	rhs     map[*types.Var][]ast.Expr   // the assigned expressions (x += s records s)
-	tokens  map[*types.Var][]token.Token
-	memo    map[*types.Var]bool
-	onStack map[*types.Var]bool
-}
-
-func newDeps(info *types.Info, l *loop) *deps {
-	d := &deps{info: info, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}}
-	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
-		if n != nil {
-			ast.Inspect(n, d.record)
-		}
-	}
-	return d
-}
-
-// record notes an assignment.
-func (d *deps) record(n ast.Node) bool {
-	switch n := n.(type) {
-	case *ast.AssignStmt:
-		for i, lhs := range n.Lhs {
-			v := subjectOf(d.info, lhs)
-			if v == nil {
-				continue
-			}
-			rhs := n.Rhs
-			if len(n.Lhs) == len(n.Rhs) {
-				rhs = n.Rhs[i : i+1]
-			}
-			for _, r := range rhs {
-				d.rhs[v], d.tokens[v] = append(d.rhs[v], r), append(d.tokens[v], n.Tok)
-				d.from[v] = append(d.from[v], d.reads(r)...)
-			}
-			if n.Tok != token.ASSIGN && n.Tok != token.DEFINE {
-				d.from[v] = append(d.from[v], v) // x op= e reads x
-			}
-		}
-	case *ast.ExprStmt:
-		if call, ok := n.X.(*ast.CallExpr); ok && !d.info.Types[call.Fun].IsType() {
-			d.effects = true
-		}
-	case *ast.IncDecStmt:
-		if v := subjectOf(d.info, n.X); v != nil {
-			d.from[v] = append(d.from[v], v)
-			d.rhs[v], d.tokens[v] = append(d.rhs[v], nil), append(d.tokens[v], n.Tok)
-		}
-	}
-	return true
-}
-
-// reads returns the variables and fields e reads, except through a
-// slice expression: s = s[1:] consumes data, it computes nothing.
-func (d *deps) reads(e ast.Expr) []*types.Var {
-	var out []*types.Var
-	ast.Inspect(e, func(n ast.Node) bool {
-		switch n := n.(type) {
-		case *ast.SliceExpr:
-			return false
-		case *ast.Ident:
-			if v, ok := d.info.Uses[n].(*types.Var); ok {
-				out = append(out, v)
-			}
-		case *ast.SelectorExpr:
-			if f := tolerance.FieldOf(d.info, n); f != nil {
-				out = append(out, f)
-			}
-		}
-		return true
-	})
-	return out
-}
-
-// carried reports whether v's value depends on the previous pass: v lies
-// on, or reads from, a cycle of assignments within the loop.
-func (d *deps) carried(v *types.Var) bool {
-	if c, ok := d.memo[v]; ok {
-		return c
-	}
-	if !carriesFloats(v.Type()) {
-		return false // an integer counter moves exactly; a pointer walks data
-	}
-	if d.onStack[v] {
-		return true // a cycle
-	}
-	d.onStack[v] = true
-	c := false
-	for _, w := range d.from[v] {
-		if d.carried(w) {
-			c = true
-			break
-		}
-	}
-	delete(d.onStack, v)
-	d.memo[v] = c
-	return c
-}
-
-// tested returns the variables and fields the exits read, through the
-// flags that hold tests.
-func (d *deps) tested() map[*types.Var]bool {
-	out := make(map[*types.Var]bool)
-	var visit func(ast.Node) bool
-	visit = func(n ast.Node) bool {
-		if e, ok := n.(ast.Expr); ok {
-			for _, v := range d.reads(e) {
-				if !out[v] {
-					out[v] = true
-					for _, f := range d.l.flags[v] {
-						ast.Inspect(f, visit)
-					}
-				}
-			}
-		}
+// exportedParam reports whether x is a parameter of the exported function
+// around the loop, in a package any module may import: its callers may
+// pass any float, however large. The callers of an unexported function, or
+// of one in an internal package, are the module's own, which stoptol does
+// not follow; repeated reduction of a value within a few periods takes a
+// pass or two.
+func (c *checker) exportedParam(l *loop, x *types.Var) bool {
+	fd := l.decl
+	if fd == nil || !fd.Name.IsExported() || slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") {
 		return false
 	}
-	for _, t := range d.tests {
-		visit(t.e)
-	}
-	return out
-}
-
-// floatTest reports whether e is a test on floats: an ordered or equality
-// comparison of floats, a call returning bool from float arguments or a
-// float receiver (an approximate-equality helper), a flag holding such
-// tests, and their negations and combinations.
-func (d *deps) floatTest(e ast.Expr) bool {
-	switch e := ast.Unparen(e).(type) {
-	case *ast.UnaryExpr:
-		return e.Op == token.NOT && d.floatTest(e.X)
-	case *ast.BinaryExpr:
-		switch e.Op {
-		case token.LAND, token.LOR:
-			return d.floatTest(e.X) && d.floatTest(e.Y)
-		case token.EQL, token.NEQ:
-			if isBoolType(d.info.TypeOf(e.X)) { // (a < b) != up
-				return d.floatTest(e.X) || d.floatTest(e.Y)
-			}
-		}
-		return provenance.IsFloat(d.info.TypeOf(e.X)) && provenance.IsFloat(d.info.TypeOf(e.Y))
-	case *ast.CallExpr:
-		if !isBoolType(d.info.TypeOf(e)) {
-			return false
-		}
-		args := e.Args
-		if sel, ok := ast.Unparen(e.Fun).(*ast.SelectorExpr); ok && d.info.Selections[sel] != nil {
-			args = append([]ast.Expr{sel.X}, args...)
-		}
-		for _, a := range args {
-			if holdsFloats(d.info.TypeOf(a)) {
-				return true
-			}
-		}
-	case *ast.Ident:
-		v := tolerance.VarOf(d.info, e)
-		if fs := d.l.flags[v]; v != nil && len(fs) > 0 {
-			for _, f := range fs {
-				if !d.floatTest(f) {
-					return false
-				}
-			}
-			return true
-		}
-	}
-	return false
-}
-
-// onNaN evaluates e with NaN in every float comparison: ordered and ==
-// comparisons are false, != is true. known is false where the value
-// depends on something else.
-func (d *deps) onNaN(e ast.Expr) (holds, known bool) {
-	switch e := ast.Unparen(e).(type) {
-	case *ast.UnaryExpr:
-		h, k := d.onNaN(e.X)
-		return !h, k && e.Op == token.NOT
-	case *ast.BinaryExpr:
-		switch e.Op {
-		case token.LAND, token.LOR:
-			x, kx := d.onNaN(e.X)
-			y, ky := d.onNaN(e.Y)
-			if e.Op == token.LAND {
-				return x && y, kx && ky || kx && !x || ky && !y
-			}
-			return x || y, kx && ky || kx && x || ky && y
-		}
-		if provenance.IsFloat(d.info.TypeOf(e.X)) {
-			return e.Op == token.NEQ, true
-		}
-	case *ast.Ident:
-		if fs := d.l.flags[tolerance.VarOf(d.info, e)]; len(fs) == 1 {
-			return d.onNaN(fs[0])
-		}
-	}
-	return false, false
-}
-
-// additive returns the step s when every assignment to v in the loop is
-// v += s, v -= s or v = v ± s.
-// x++ and x-- give a nil step, a constant 1.
-func (d *deps) additive(v *types.Var) (ast.Expr, bool) {
-	var step ast.Expr
-	for i, r := range d.rhs[v] {
-		tok := d.tokens[v][i]
-		if tok == token.INC || tok == token.DEC {
-			continue
-		}
-		s, ok := d.stepIn(v, tok, r)
-		if !ok {
-			return nil, false
-		}
-		step = s
-	}
-	return step, len(d.rhs[v]) > 0
-}
-
-func (d *deps) stepIn(v *types.Var, tok token.Token, rhs ast.Expr) (ast.Expr, bool) {
-	switch tok {
-	case token.ADD_ASSIGN, token.SUB_ASSIGN:
-		return rhs, true
-	case token.ASSIGN:
-		b, ok := ast.Unparen(rhs).(*ast.BinaryExpr)
-		if ok && (b.Op == token.ADD || b.Op == token.SUB) && subjectOf(d.info, b.X) == v {
-			return b.Y, true
-		}
-		if ok && b.Op == token.ADD && subjectOf(d.info, b.Y) == v {
-			return b.X, true
-		}
-	}
-	return nil, false
-}
-
-// canVanish reports whether a step can round to zero for finite inputs:
-// a sum or difference (its terms may cancel), a function with a zero at a
-// representable point (acos(1), log(1), sin(0), a remainder), a product
-// with such a factor, a quotient with such a numerator, or a function of
-// such a value; followed through the variables of the function. A
-// constant, a parameter, a value loaded from data, or a span divided by a
-// count is the caller's step.
-func (d *deps) canVanish(e ast.Expr, depth int) bool {
-	if depth == 0 || e == nil {
-		return false
-	}
-	e = ast.Unparen(e)
-	if tv := d.info.Types[e]; tv.Value != nil || !provenance.IsFloat(tv.Type) {
-		return false
-	}
-	switch e := e.(type) {
-	case *ast.Ident:
-		v := tolerance.VarOf(d.info, e)
-		for _, r := range append(assignments(d.info, d.l.body, v), d.rhs[v]...) {
-			if tolerance.VarOf(d.info, r) != v && d.canVanish(r, depth-1) {
-				return true
-			}
-		}
-	case *ast.UnaryExpr:
-		return d.canVanish(e.X, depth)
-	case *ast.BinaryExpr:
-		switch e.Op {
-		case token.ADD, token.SUB:
-			return true
-		case token.MUL:
-			return d.canVanish(e.X, depth) || d.canVanish(e.Y, depth)
-		case token.QUO:
-			if q, ok := ast.Unparen(e.X).(*ast.BinaryExpr); ok && q.Op == token.SUB && d.info.Types[e.Y].Value == nil {
-				return false // (hi-lo)/n: zero only for an empty span, which the scan does not enter
-			}
-			return d.canVanish(e.X, depth)
-		}
-	case *ast.CallExpr:
-		if d.info.Types[e.Fun].IsType() {
-			return len(e.Args) == 1 && d.canVanish(e.Args[0], depth)
-		}
-		if fn, ok := typeutil.Callee(d.info, e).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
-			if vanishing[fn.Name()] {
-				return true
-			}
-		}
-		for _, a := range e.Args {
-			if d.canVanish(a, depth-1) {
+	for _, field := range fd.Type.Params.List {
+		for _, name := range field.Names {
+			if c.pass.TypesInfo.Defs[name] == x {
 				return true
 			}
 		}
 	}
 	return false
-}
-
-// vanishing lists math functions that return 0 at a float argument
-// other than 0 itself, or whose result can be 0 for arguments that are not.
-var vanishing = map[string]bool{"Acos": true, "Log": true, "Log2": true, "Log10": true, "Mod": true, "Remainder": true, "Sin": true, "Tan": true, "Floor": true, "Trunc": true, "Round": true}
-
-// scaled reports whether the loop only ever multiplies or divides v by
-// something (v *= r, v = v*a*b, v /= b): a term of a series or a
-// scaling, which reaches 0 or ±Inf unless the factor is exactly 1. A
-// value computed from such a v in the loop counts too.
-func (d *deps) scaled(v *types.Var) bool {
-	if d.scaledOnly(v) {
-		return true
-	}
-	for _, w := range d.from[v] {
-		if w != v && d.scaledOnly(w) {
-			return true
-		}
-	}
-	return false
-}
-
-func (d *deps) scaledOnly(v *types.Var) bool {
-	if len(d.rhs[v]) == 0 {
-		return false
-	}
-	for i, r := range d.rhs[v] {
-		switch d.tokens[v][i] {
-		case token.MUL_ASSIGN, token.QUO_ASSIGN:
-		case token.ASSIGN:
-			if !d.factorOf(r, v) {
-				return false
-			}
-		default:
-			return false
-		}
-	}
-	return true
-}
-
-// factorOf reports whether e is a product (or quotient) with v as a
-// factor of its numerator.
-func (d *deps) factorOf(e ast.Expr, v *types.Var) bool {
-	e = ast.Unparen(e)
-	if tolerance.VarOf(d.info, e) == v {
-		return true
-	}
-	b, ok := e.(*ast.BinaryExpr)
-	switch {
-	case !ok:
-		return false
-	case b.Op == token.MUL:
-		return d.factorOf(b.X, v) || d.factorOf(b.Y, v)
-	case b.Op == token.QUO:
-		return d.factorOf(b.X, v)
-	}
-	return false
-}
-
-// series reports whether v is a term the loop adds to a sum
-// (s += v, y = y + q): a test on the term of a series.
-func (d *deps) series(v *types.Var) bool {
-	if len(d.rhs[v]) == 0 {
-		return false // not recomputed in the loop
-	}
-	for sum, rs := range d.rhs {
-		for i, r := range rs {
-			if s, ok := d.stepIn(sum, d.tokens[sum][i], r); ok && sum != v && slices.Contains(d.reads(s), v) {
-				return true
-			}
-		}
-	}
-	return false
-}
-
-// fresh reports whether v is drawn anew each pass: it reads, in the loop,
-// a call (not of package math) none of whose arguments or receiver the
-// loop assigns, as random draws and polls are.
-func (d *deps) fresh(v *types.Var, depth int) bool {
-	if depth == 0 {
-		return false
-	}
-	for _, r := range d.rhs[v] {
-		if r != nil && d.drawsIn(r) {
-			return true
-		}
-	}
-	for _, w := range d.from[v] {
-		if w != v && d.fresh(w, depth-1) {
-			return true
-		}
-	}
-	return false
-}
-
-// drawsIn reports whether e contains such a call.
-func (d *deps) drawsIn(e ast.Expr) bool {
-	found := false
-	ast.Inspect(e, func(n ast.Node) bool {
-		call, ok := n.(*ast.CallExpr)
-		if !ok || found {
-			return !found
-		}
-		if fn, ok := typeutil.Callee(d.info, call).(*types.Func); d.info.Types[call.Fun].IsType() || ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
-			return true
-		}
-		for _, v := range d.reads(call) {
-			if len(d.rhs[v]) > 0 {
-				return true // it reads loop state
-			}
-		}
-		found = provenance.IsFloat(d.info.TypeOf(call))
-		return !found
-	})
-	return found
-}
-
-// near returns the tested variables, and the variables they are offsets
-// of (rest = end - pos reads pos), in the order they are declared.
-func (d *deps) near(tested map[*types.Var]bool) []*types.Var {
-	set := maps.Clone(tested)
-	for v := range tested {
-		for _, r := range d.rhs[v] {
-			if b, ok := ast.Unparen(r).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) {
-				for _, w := range []*types.Var{subjectOf(d.info, b.X), subjectOf(d.info, b.Y)} {
-					if w != nil {
-						set[w] = true
-					}
-				}
-			}
-		}
-	}
-	out := slices.Collect(maps.Keys(set))
-	slices.SortFunc(out, func(a, b *types.Var) int { return int(a.Pos() - b.Pos()) })
-	return out
-}
-
-// onlyAdvances reports whether the loop does nothing but advance x.
-func (d *deps) onlyAdvances(x *types.Var) bool {
-	for _, s := range d.l.stmt.Body.List {
-		as, ok := s.(*ast.AssignStmt)
-		if !ok || len(as.Lhs) != 1 || tolerance.VarOf(d.info, as.Lhs[0]) != x {
-			return false
-		}
-	}
-	return true
-}
-
-// noFloatLeft reports whether an exit compares a point m computed from
-// the ends a and b of a bracket with one of them, where the loop moves an
-// end to m (if m <= a || m >= b): when no float is left between the ends,
-// m rounds to one of them, so the test passes after at most about 2100
-// halvings in float64.
-func (d *deps) noFloatLeft() bool {
-	found := false
-	for _, t := range d.tests {
-		ast.Inspect(t.e, func(n ast.Node) bool {
-			b, ok := n.(*ast.BinaryExpr)
-			if !ok || !isOrdered(b.Op) {
-				return !found
-			}
-			x, y := subjectOf(d.info, b.X), subjectOf(d.info, b.Y)
-			found = found || d.interiorEnd(x, y) || d.interiorEnd(y, x)
-			return !found
-		})
-	}
-	return found
-}
-
-// interiorEnd reports whether m is computed from end and another value,
-// and end is moved to m.
-func (d *deps) interiorEnd(m, end *types.Var) bool {
-	if m == nil || end == nil || m == end || !slices.Contains(d.from[m], end) {
-		return false
-	}
-	other := slices.ContainsFunc(d.from[m], func(v *types.Var) bool { return v != m && v != end })
-	moved := slices.ContainsFunc(d.rhs[end], func(r ast.Expr) bool { return tolerance.VarOf(d.info, r) == m })
-	return other && moved
-}
-
-// constStart reports whether x starts the loop as a constant
-// (for x := 0.0; ...).
-func (d *deps) constStart(x *types.Var) bool {
-	init, ok := d.l.stmt.Init.(*ast.AssignStmt)
-	if !ok || len(init.Lhs) != len(init.Rhs) {
-		return false
-	}
-	for i, lhs := range init.Lhs {
-		if tolerance.VarOf(d.info, lhs) == x {
-			return d.info.Types[init.Rhs[i]].Value != nil
-		}
-	}
-	return false
-}
-
-// assignments returns the expressions assigned to v in body.
-func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
-	var out []ast.Expr
-	ast.Inspect(body, func(n ast.Node) bool {
-		if as, ok := n.(*ast.AssignStmt); ok && len(as.Lhs) == len(as.Rhs) {
-			for i, lhs := range as.Lhs {
-				if tolerance.VarOf(info, lhs) == v {
-					out = append(out, as.Rhs[i])
-				}
-			}
-		}
-		return true
-	})
-	return out
-}
-
-// carriesFloats reports whether a value of type t can carry float work
-// from pass to pass: not an integer, a pointer, an interface, a map, a
-// channel or a function.
-func carriesFloats(t types.Type) bool {
-	switch u := t.Underlying().(type) {
-	case *types.Basic:
-		return u.Info()&types.IsInteger == 0
-	case *types.Pointer, *types.Interface, *types.Map, *types.Chan, *types.Signature:
-		return false
-	}
-	return true
-}
-
-// holdsFloats reports whether t is a float, or a struct or array of them.
-func holdsFloats(t types.Type) bool {
-	if t == nil {
-		return false
-	}
-	if provenance.IsFloat(t) {
-		return true
-	}
-	switch u := t.Underlying().(type) {
-	case *types.Pointer:
-		return holdsFloats(u.Elem())
-	case *types.Array:
-		return holdsFloats(u.Elem())
-	case *types.Struct:
-		for i := range u.NumFields() {
-			if provenance.IsFloat(u.Field(i).Type()) {
-				return true
-			}
-		}
-	}
-	return false
-}
-
-func isBoolType(t types.Type) bool {
-	b, ok := t.(*types.Basic)
-	if !ok && t != nil {
-		b, ok = t.Underlying().(*types.Basic)
-	}
-	return ok && b.Info()&types.IsBoolean != 0
 }

@@ -10,6 +10,8 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -89,10 +91,16 @@ var gitEnv = []string{
 // returns its standard output, its standard error and its exit status.
 func run(t *testing.T, dir, name string, args ...string) (stdout, stderr string, code int) {
 	t.Helper()
+	return runEnv(t, dir, nil, name, args...)
+}
+
+// runEnv is run with more environment variables, which win.
+func runEnv(t *testing.T, dir string, env []string, name string, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
 	cmd := exec.Command(name, args...)
 	cmd.Dir = dir
 	cmd.Env = append(os.Environ(), "GOFLAGS=", "GOTOOLCHAIN=local", "GOPROXY=off", "GOWORK=off")
-	cmd.Env = append(cmd.Env, gitEnv...)
+	cmd.Env = append(append(cmd.Env, gitEnv...), env...)
 	var out, errOut bytes.Buffer
 	cmd.Stdout, cmd.Stderr = &out, &errOut
 	err := cmd.Run()
@@ -323,4 +331,40 @@ func TestBrokenModule(t *testing.T) {
 			assert.Equal(t, before, snapshot(t, dir))
 		})
 	}
+}
+
+// go vet caches results under the tool's ID, which must change with the
+// module's roundoff.yaml when go vet runs from a subdirectory too.
+func TestGoVetSeesConfigFromSubdirectory(t *testing.T) {
+	t.Parallel()
+	dir := fixture(t, "mod")
+	sub := filepath.Join(dir, "ramp")
+	_, stderr, _ := run(t, sub, "go", "vet", "-vettool="+tool, ".")
+	assert.Contains(t, stderr, nanMsg)
+	write(t, dir, "roundoff.yaml", "analyzers:\n  exacteq:\n    enabled: false\n")
+	_, stderr, code := run(t, sub, "go", "vet", "-vettool="+tool, ".")
+	assert.Equal(t, 0, code, stderr)
+	assert.NotContains(t, stderr, nanMsg)
+}
+
+// go vet prints an analyzer's findings of a package in file order (the
+// demo's turbine minimization gives two stoptol findings, reported by
+// the analyzer in the other order).
+func TestGoVetFileOrder(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	require.NoError(t, os.CopyFS(filepath.Join(dir, "turbine"), os.DirFS(filepath.Join("..", "..", "testdata", "demo", "turbine"))))
+	write(t, dir, "go.mod", "module hydro\n\ngo 1.26\n")
+	_, stderr, _ := run(t, dir, "go", "vet", "-vettool="+tool, "-stoptol", "./turbine")
+	var lines []int
+	for l := range strings.Lines(stderr) {
+		if rest, ok := strings.CutPrefix(l, "turbine/turbine.go:"); ok {
+			n, _, _ := strings.Cut(rest, ":")
+			line, err := strconv.Atoi(n)
+			require.NoError(t, err)
+			lines = append(lines, line)
+		}
+	}
+	require.GreaterOrEqual(t, len(lines), 2, stderr)
+	assert.True(t, slices.IsSorted(lines), "in file order: %v", lines)
 }

@@ -57,11 +57,12 @@ func edit(t *testing.T, dir, rel, old, new string) {
 	write(t, dir, rel, strings.Replace(src, old, new, 1))
 }
 
-// findingLines returns the lines of text output that report findings.
+// findingLines returns the lines of text output that report findings
+// (not the indented lines of their related places).
 func findingLines(output string) []string {
 	var out []string
 	for l := range strings.Lines(output) {
-		if strings.Contains(l, ".go:") {
+		if strings.Contains(l, ".go:") && !strings.HasPrefix(l, " ") {
 			out = append(out, strings.TrimSuffix(l, "\n"))
 		}
 	}
@@ -293,7 +294,7 @@ func TestBaseline(t *testing.T) {
 	stdout, stderr, code = run(t, dir, tool, "-baseline", "roundoff-baseline.txt", "./...")
 	assert.Equal(t, 3, code)
 	assert.Equal(t, []string{"ramp/probe.go:7:9: exacteq: " + nanMsg + ": NaN is unequal to every value, itself included; test with math.IsNaN"}, findingLines(stdout))
-	assert.Equal(t, "roundoff: 1 of the 3 entries of baseline roundoff-baseline.txt match no finding any more (ramp/ramp.go: 1); rewrite it with -write-baseline roundoff-baseline.txt\n", stderr)
+	assert.Equal(t, "roundoff: 1 of the 3 entries of baseline roundoff-baseline.txt matches no finding any more (ramp/ramp.go: 1); rewrite it with -write-baseline roundoff-baseline.txt\n", stderr)
 
 	// Rewriting the baseline is allowed; overwriting a source file is not.
 	_, stderr, code = run(t, dir, tool, "-write-baseline", "roundoff-baseline.txt", "./...")
@@ -397,7 +398,8 @@ func TestHook(t *testing.T) {
 	head := mustRun(t, dir, "git", "rev-parse", "HEAD")
 	write(t, dir, "ramp/probe.go", probeSrc)
 	mustRun(t, dir, "git", "add", "ramp/probe.go")
-	stdout, stderr, code := run(t, dir, "git", "commit", "-q", "-m", "probe")
+	env, _ := onPath(t)
+	stdout, stderr, code := runEnv(t, dir, env, "git", "commit", "-q", "-m", "probe")
 	assert.NotEqual(t, 0, code)
 	out := stdout + stderr
 	assert.Contains(t, out, "ramp/probe.go:7:9: exacteq: "+nanMsg)
@@ -409,7 +411,8 @@ func TestHook(t *testing.T) {
 	mustRun(t, dir, "git", "rm", "-q", "--cached", "ramp/probe.go")
 	require.NoError(t, os.Remove(filepath.Join(dir, "ramp", "probe.go")))
 	edit(t, dir, "ramp/ramp.go", "// Package ramp plans", "// Package ramp plans, for the lab,")
-	mustRun(t, dir, "git", "commit", "-q", "-am", "doc")
+	stdout, stderr, code = runEnv(t, dir, env, "git", "commit", "-q", "-am", "doc")
+	require.Equal(t, 0, code, stdout+stderr)
 
 	_, stderr, code = run(t, dir, tool, "hook", "uninstall")
 	assert.Equal(t, 0, code, stderr)
@@ -445,6 +448,7 @@ func TestBadInput(t *testing.T) {
 		{"corrupt baseline", []string{"-baseline", "accepted.txt", "./..."}, func(dir string) { write(t, dir, "accepted.txt", "roundoff baseline 1\nexacteq ramp/ramp.go\n") },
 			"roundoff: accepted.txt:2: malformed baseline entry"},
 		{"baseline over source", []string{"-write-baseline", "main.go", "./..."}, nil, "refusing to overwrite it"},
+		{"baseline in a missing directory", []string{"-write-baseline", "nodir/b.txt", "./..."}, nil, "roundoff: -write-baseline nodir/b.txt: no such file or directory\n"}, // no temporary file name
 		{"write and read baseline", []string{"-write-baseline", "b.txt", "-baseline", "b.txt", "./..."}, nil, "roundoff: -write-baseline records every current finding"},
 		{"missing config", []string{"-config", "lab.yaml", "./..."}, nil, "roundoff: -config lab.yaml: no such file"},
 		{"corrupt config", []string{"./..."}, func(dir string) { write(t, dir, "roundoff.yaml", "analyzers:\n  exacteq: [\n") }, "roundoff: roundoff.yaml:2: not valid YAML"},
@@ -488,6 +492,11 @@ func TestSubcommands(t *testing.T) {
 	assert.Equal(t, "roundoff", hooks[0].ID)
 	assert.Equal(t, "roundoff hook run", hooks[0].Entry)
 	assert.Equal(t, "golang", hooks[0].Language)
+	// Such a manager installs every main package of the module (go
+	// install ./...): that must be the roundoff command alone.
+	stdout, stderr, code = run(t, filepath.Join("..", ".."), "go", "list", "-f", `{{if eq .Name "main"}}{{.ImportPath}}{{end}}`, "./...")
+	require.Equal(t, 0, code, stderr)
+	assert.Equal(t, "roundoff/cmd/roundoff\n", stdout)
 	// The limits calculator is its own package; here only the dispatch.
 	stdout, stderr, code = run(t, dir, tool, "limits", "1")
 	assert.Equal(t, 0, code, stderr)

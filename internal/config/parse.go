@@ -13,6 +13,8 @@ import (
 	"strings"
 
 	"go.yaml.in/yaml/v3"
+
+	"roundoff/internal/numeric"
 )
 
 // Load returns the configuration of the module rooted at root: the one in
@@ -223,13 +225,15 @@ func (p *parser) text(n *yaml.Node, key string) string {
 	return n.Value
 }
 
-// relative reads a relative accuracy: a finite number strictly between 0
-// and 1 (1 would mean no correct digit at all).
+// relative reads a relative accuracy (see ParseNoise).
 func (p *parser) relative(n *yaml.Node) float64 {
-	x, err := strconv.ParseFloat(n.Value, 64)
-	if n.Kind != yaml.ScalarNode || err != nil || !(x > 0 && x < 1) {
-		p.fail(n, "relative must be a number between 0 and 1 such as 1e-6, not %q", n.Value)
+	if n.Kind != yaml.ScalarNode {
+		p.fail(n, "relative must be a number such as 1e-6")
 		return 0
+	}
+	x, err := ParseNoise(n.Value, numeric.Float64)
+	if err != nil {
+		p.fail(n, "relative %s: %v", n.Value, err)
 	}
 	return x
 }

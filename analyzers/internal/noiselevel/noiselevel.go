@@ -19,10 +19,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/types"
-	"math"
 	"reflect"
-	"strconv"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -39,9 +36,6 @@ var Analyzer = &analysis.Analyzer{
 	ResultType: reflect.TypeFor[*Levels](),
 	FactTypes:  []analysis.Fact{new(Fact)},
 }
-
-// Directive is the comment prefix that declares a noise level.
-const Directive = "//roundoff:noise"
 
 // Fact is the declared relative accuracy of a function.
 type Fact struct{ Level float64 }
@@ -104,7 +98,7 @@ func declared(pkgPath string, fd *ast.FuncDecl, fn *types.Func) (float64, bool) 
 	if fn == nil {
 		return 0, false
 	}
-	if level, c, err := Parse(fd.Doc); c != nil {
+	if level, c, err := config.FindNoiseDirective(fd.Doc); c != nil {
 		return level, err == nil
 	}
 	return config.Noise(pkgPath, funcName(fn))
@@ -122,31 +116,4 @@ func funcName(fn *types.Func) string {
 		}
 	}
 	return fn.Name()
-}
-
-// Parse finds the noise directive in a doc comment and returns it, nil
-// when there is none. Its first word is the level, a number strictly
-// between 0 and 1; words after it are a free explanation. err says what is
-// wrong with a malformed one.
-func Parse(doc *ast.CommentGroup) (level float64, directive *ast.Comment, err error) {
-	if doc == nil {
-		return 0, nil, nil
-	}
-	for _, c := range doc.List {
-		rest, ok := strings.CutPrefix(c.Text, Directive)
-		if !ok || rest != "" && rest[0] != ' ' && rest[0] != '\t' {
-			continue
-		}
-		rest, _, _ = strings.Cut(rest, "//") // a trailing comment is no part of it
-		fields := strings.Fields(rest)
-		if len(fields) == 0 {
-			return 0, c, fmt.Errorf("%s takes a relative accuracy, such as %s 1e-6", Directive, Directive)
-		}
-		v, perr := strconv.ParseFloat(fields[0], 64)
-		if perr != nil || !(v > 0 && v < 1) || math.IsNaN(v) {
-			return 0, c, fmt.Errorf("%s %s: the relative accuracy must be a number between 0 and 1", Directive, fields[0])
-		}
-		return v, c, nil
-	}
-	return 0, nil, nil
 }

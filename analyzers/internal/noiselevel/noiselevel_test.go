@@ -68,7 +68,7 @@ func TestParse(t *testing.T) {
 	} {
 		f, err := parser.ParseFile(token.NewFileSet(), "x.go", "package p\n\n"+src+"\nfunc F() {}\n", parser.ParseComments)
 		assert.NoError(t, err)
-		level, c, err := noiselevel.Parse(f.Decls[0].(*ast.FuncDecl).Doc)
+		level, c, err := config.FindNoiseDirective(f.Decls[0].(*ast.FuncDecl).Doc)
 		assert.Equal(t, want.found, c != nil, src)
 		assert.Equal(t, want.bad, err != nil, src)
 		assert.Equal(t, want.level, level, src)

@@ -112,8 +112,12 @@ func (r *report) entryOf(f *finding) (baselineEntry, bool) {
 	return baselineEntry{analyzer: f.analyzer.Name, path: rel, fingerprint: f.fingerprint(r.src)}, true
 }
 
-// writeBaseline records r's findings in the baseline file at path.
+// writeBaseline records r's findings in the baseline file at path; it
+// writes nothing when some package failed, whose entries would be lost.
 func (e *env) writeBaseline(path string, r *report) int {
+	if r.failed {
+		return e.errorf("-write-baseline %s: not written, as some packages did not load (see above)", path)
+	}
 	var buf bytes.Buffer
 	fmt.Fprintf(&buf, "%s\n# Findings accepted as they stand: roundoff -baseline %s hides them.\n", baselineHeader, path)
 	fmt.Fprintf(&buf, "# Written by roundoff -write-baseline; fields: analyzer, path, fingerprint, message.\n")
@@ -126,12 +130,9 @@ func (e *env) writeBaseline(path string, r *report) int {
 		}
 	}
 	if err := writeAtomic(path, buf.Bytes()); err != nil {
-		return e.errorf("-write-baseline: %v", err)
+		return e.errorf("-write-baseline %s: %v", path, err)
 	}
-	fmt.Fprintf(e.stderr, "roundoff: recorded %d findings in %s\n", n, path)
-	if r.failed {
-		return exitErrors
-	}
+	fmt.Fprintf(e.stderr, "roundoff: recorded %s in %s\n", plural(n, "finding", "findings"), path)
 	return exitClean
 }
 
@@ -166,8 +167,12 @@ func (e *env) applyBaseline(r *report, path string, b *baseline) {
 		}
 	}
 	if total > 0 {
-		fmt.Fprintf(e.stderr, "roundoff: %d of the %d entries of baseline %s match no finding any more (%s); rewrite it with -write-baseline %s\n",
-			total, len(b.entries), path, countsByFile(stale), path)
+		verb := "match"
+		if total == 1 {
+			verb = "matches"
+		}
+		fmt.Fprintf(e.stderr, "roundoff: %d of the %s of baseline %s %s no finding any more (%s); rewrite it with -write-baseline %s\n",
+			total, plural(len(b.entries), "entry", "entries"), path, verb, countsByFile(stale), path)
 	}
 }
 

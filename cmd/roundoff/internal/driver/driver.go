@@ -14,6 +14,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 
 	"roundoff/cmd/roundoff/internal/limits"
+	"roundoff/cmd/roundoff/internal/noise"
 )
 
 // Exit statuses of the standalone driver.
@@ -44,6 +45,8 @@ func Main(analyzers []*analysis.Analyzer, args []string) int {
 			return e.hookCmd(args[1:])
 		case "limits":
 			return limits.Run(args[1:], e.stdout, e.stderr)
+		case "noise":
+			return noise.Run(args[1:], e.cwd, e.stdout, e.stderr)
 		case "help":
 			return e.help(args[1:])
 		}
@@ -73,7 +76,11 @@ Usage:
   roundoff hook uninstall          remove it (restoring a saved hook)
   roundoff hook run                lint the staged lines (what the hook runs)
   roundoff limits [flags] X...     float spacing, attainable tolerances and steps at X
-  roundoff help [analyzer]         this text, or an analyzer's documentation
+  roundoff noise [flags] PKG.FUNC  measure a function's noise level, its steps and tolerances
+  roundoff help [topic]            this text, or the help of an analyzer or
+                                   of limits, config, hook or noise
+
+Every subcommand prints its usage with -h.
 
 Under the go command: go vet -vettool=$(command -v roundoff) ./...
                       go fix -fixtool=$(command -v roundoff) ./...
@@ -94,13 +101,25 @@ func (e *env) help(args []string) int {
 		return exitClean
 	}
 	for _, name := range args {
-		a := e.analyzer(name)
-		if a == nil {
-			return e.errorf("help: no analyzer %q (the suite has %s)", name, strings.Join(names(e.analyzers), ", "))
+		switch a := e.analyzer(name); {
+		case name == "limits":
+			limits.Run([]string{"-h"}, e.stdout, e.stderr)
+		case name == "config":
+			e.configCmd([]string{"-h"})
+		case name == "hook":
+			e.hookCmd([]string{"-h"})
+		case a != nil:
+			fmt.Fprintf(e.stdout, "%s: %s\n", a.Name, a.Doc)
+		default:
+			return e.errorf("help: no analyzer or subcommand %q (analyzers: %s; subcommands: limits, config, hook)", name, strings.Join(names(e.analyzers), ", "))
 		}
-		fmt.Fprintf(e.stdout, "%s: %s\n", a.Name, a.Doc)
 	}
 	return exitClean
+}
+
+// isHelp reports whether arg asks for help, as the flag package's -h does.
+func isHelp(arg string) bool {
+	return arg == "-h" || arg == "-help" || arg == "--help" || arg == "--h"
 }
 
 func (e *env) analyzer(name string) *analysis.Analyzer {

@@ -1,6 +1,7 @@
 package driver
 
 import (
+	"bytes"
 	"cmp"
 	"crypto/sha256"
 	"encoding/hex"
@@ -46,25 +47,72 @@ type edit struct {
 	text       string
 }
 
-// newFinding resolves d, reported by a on a package whose syntax is files.
-func newFinding(a *analysis.Analyzer, pkgID string, fset *token.FileSet, files []*ast.File, d analysis.Diagnostic) *finding {
-	f := &finding{analyzer: a, pkgID: pkgID, diag: d, posn: fset.PositionFor(d.Pos, false)}
-	if d.End.IsValid() {
-		f.end = fset.PositionFor(d.End, false)
+// A resolver resolves the positions of one package's syntax in the files
+// on disk. A package's own Go files are read as they are, line directives
+// ignored; the files cgo generates from them are mapped back to the
+// source through their line directives, as go vet shows them.
+type resolver struct {
+	fset    *token.FileSet
+	files   []*ast.File
+	sources map[string]bool // the package's Go files
+	src     sources
+}
+
+// position returns the position of pos in a source file of the package.
+func (r *resolver) position(pos token.Pos) token.Position {
+	p := r.fset.PositionFor(pos, false)
+	if r.sources[p.Filename] {
+		return p
 	}
-	f.function = enclosingFunc(files, d.Pos)
-	for _, r := range d.Related {
-		p := place{posn: fset.PositionFor(r.Pos, false), message: r.Message}
-		if r.End.IsValid() {
-			p.end = fset.PositionFor(r.End, false)
+	q := r.fset.PositionFor(pos, true)
+	if !r.sources[q.Filename] {
+		return p // no directive leads back to a source file
+	}
+	q.Offset = r.src.offset(q.Filename, q.Line, q.Column)
+	return q
+}
+
+// edit converts te to byte offsets in a source file of the package; ok is
+// false when te lies in a generated file and its bytes are not the same
+// bytes of the source that the line directives map it to.
+func (r *resolver) edit(te analysis.TextEdit) (ed edit, ok bool) {
+	start, end := r.fset.PositionFor(te.Pos, false), r.fset.PositionFor(cmp.Or(te.End, te.Pos), false)
+	ed = edit{start.Filename, start.Offset, end.Offset, string(te.NewText)}
+	if r.sources[start.Filename] {
+		return ed, true
+	}
+	s, e := r.position(te.Pos), r.position(cmp.Or(te.End, te.Pos))
+	gen, src := r.src.data(start.Filename), r.src.data(s.Filename)
+	if !r.sources[s.Filename] || e.Filename != s.Filename || e.Offset-s.Offset != end.Offset-start.Offset ||
+		e.Offset > len(src) || end.Offset > len(gen) || !bytes.Equal(src[s.Offset:e.Offset], gen[start.Offset:end.Offset]) {
+		return edit{}, false
+	}
+	return edit{s.Filename, s.Offset, e.Offset, ed.text}, true
+}
+
+// newFinding resolves d, reported by a on package pkgID.
+func (r *resolver) newFinding(a *analysis.Analyzer, pkgID string, d analysis.Diagnostic) *finding {
+	f := &finding{analyzer: a, pkgID: pkgID, diag: d, posn: r.position(d.Pos)}
+	if d.End.IsValid() {
+		f.end = r.position(d.End)
+	}
+	f.function = enclosingFunc(r.files, d.Pos)
+	for _, rel := range d.Related {
+		p := place{posn: r.position(rel.Pos), message: rel.Message}
+		if rel.End.IsValid() {
+			p.end = r.position(rel.End)
 		}
 		f.related = append(f.related, p)
 	}
+fixes:
 	for _, sf := range d.SuggestedFixes {
 		fx := fix{message: sf.Message}
 		for _, te := range sf.TextEdits {
-			start, end := fset.PositionFor(te.Pos, false), fset.PositionFor(cmp.Or(te.End, te.Pos), false)
-			fx.edits = append(fx.edits, edit{start.Filename, start.Offset, end.Offset, string(te.NewText)})
+			ed, ok := r.edit(te)
+			if !ok {
+				continue fixes // a fix that cannot be mapped to the source is not offered
+			}
+			fx.edits = append(fx.edits, ed)
 		}
 		f.fixes = append(f.fixes, fx)
 	}
@@ -134,19 +182,30 @@ func recvName(t ast.Expr) string {
 	}
 }
 
-// sources caches the lines of the files findings are in.
-type sources map[string][]string
+// sources caches the files findings are in.
+type sources map[string]*srcFile
 
-// lines returns the lines of filename, none when unreadable.
-func (s sources) lines(filename string) []string {
-	lines, ok := s[filename]
+type srcFile struct {
+	data  []byte
+	lines []string
+}
+
+// file returns the cached file, empty when unreadable.
+func (s sources) file(filename string) *srcFile {
+	f, ok := s[filename]
 	if !ok {
 		data, _ := os.ReadFile(filename)
-		lines = strings.Split(string(data), "\n")
-		s[filename] = lines
+		f = &srcFile{data, strings.Split(string(data), "\n")}
+		s[filename] = f
 	}
-	return lines
+	return f
 }
+
+// data returns the contents of filename, none when unreadable.
+func (s sources) data(filename string) []byte { return s.file(filename).data }
+
+// lines returns the lines of filename, none when unreadable.
+func (s sources) lines(filename string) []string { return s.file(filename).lines }
 
 // line returns line n (1-based) of filename, "" when unreadable.
 func (s sources) line(filename string, n int) string {
@@ -157,17 +216,34 @@ func (s sources) line(filename string, n int) string {
 	return lines[n-1]
 }
 
+// offset returns the byte offset of line and byte column col of filename.
+func (s sources) offset(filename string, line, col int) int {
+	off := col - 1
+	for _, text := range s.lines(filename)[:max(0, min(line-1, len(s.lines(filename))))] {
+		off += len(text) + 1
+	}
+	return off
+}
+
 // fingerprint identifies f by what survives unrelated edits: its source
 // line with all white space removed and its enclosing function, not its
-// line number. 16 hex digits (64 bits of SHA-256).
+// line number, and so too the source lines of its related places, so
+// that changing one of them (the tolerance value a test reads) makes the
+// finding new. 16 hex digits (64 bits of SHA-256).
 func (f *finding) fingerprint(src sources) string {
-	line := strings.Map(func(r rune) rune {
-		if unicode.IsSpace(r) {
-			return -1
-		}
-		return r
-	}, src.line(f.posn.Filename, f.posn.Line))
-	sum := sha256.Sum256([]byte(line + "\x00" + f.function))
+	squeeze := func(posn token.Position) string {
+		return strings.Map(func(r rune) rune {
+			if unicode.IsSpace(r) {
+				return -1
+			}
+			return r
+		}, src.line(posn.Filename, posn.Line))
+	}
+	text := squeeze(f.posn) + "\x00" + f.function
+	for _, p := range f.related {
+		text += "\x00" + squeeze(p.posn)
+	}
+	sum := sha256.Sum256([]byte(text))
 	return hex.EncodeToString(sum[:8])
 }
 

@@ -22,9 +22,31 @@ type options struct {
 	staleReviews  bool
 	configFile    string
 	enable        map[string]*triState // the -NAME flags
+	build         map[string]*string   // the build flags passed to the go command
 	patterns      []string
 
 	changed *changedLines // set by the pre-commit hook instead of since
+	staged  *indexView    // set by the pre-commit hook: lint the index
+}
+
+// buildFlags are the flags of go build that standalone runs pass on to
+// the go command, which loads the packages.
+var buildFlags = []struct{ name, usage string }{
+	{"tags", "build `tags` (comma-separated), as for go build"},
+	{"mod", "module download `mode` (readonly, vendor or mod), as for go build"},
+	{"modfile", "read and write `file` instead of go.mod, as for go build"},
+	{"overlay", "read the JSON overlay `file`, as for go build"},
+}
+
+// buildFlags returns the build flags set, in go command syntax.
+func (o *options) buildFlags() []string {
+	var out []string
+	for _, b := range buildFlags {
+		if v := o.build[b.name]; v != nil && *v != "" {
+			out = append(out, "-"+b.name+"="+*v)
+		}
+	}
+	return out
 }
 
 // Output formats.
@@ -74,6 +96,10 @@ func (e *env) flagSet(o *options) *flag.FlagSet {
 	fs.StringVar(&o.writeBaseline, "write-baseline", "", "record the current findings in baseline `file` instead of reporting them")
 	fs.BoolVar(&o.staleReviews, "stale-reviews", false, "report //roundoff:reviewed directives that suppress no finding")
 	fs.StringVar(&o.configFile, "config", "", "read the configuration from `file` instead of the module's roundoff.yaml")
+	o.build = map[string]*string{}
+	for _, b := range buildFlags {
+		o.build[b.name] = fs.String(b.name, "", b.usage)
+	}
 	o.enable = map[string]*triState{}
 	for _, a := range e.analyzers {
 		t := new(triState)

@@ -5,6 +5,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"go/token"
 	"os/exec"
 	"path/filepath"
 	"strconv"
@@ -49,6 +50,21 @@ type changedLines struct {
 func (c *changedLines) contains(rel string, line int) bool {
 	lines, ok := c.files[rel]
 	return ok && (lines == nil || lines[line])
+}
+
+// touches reports whether a line of f changed: its own, or that of a
+// related place (a tolerance written elsewhere that makes the test wrong).
+func (c *changedLines) touches(f *finding) bool {
+	changed := func(posn token.Position) bool {
+		rel, ok := relTo(c.root, posn.Filename)
+		return ok && c.contains(rel, posn.Line)
+	}
+	for _, p := range f.related {
+		if changed(p.posn) {
+			return true
+		}
+	}
+	return changed(f.posn)
 }
 
 // diffArgs make git print a plain unified diff with no context whatever

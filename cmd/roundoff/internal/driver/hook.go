@@ -7,6 +7,7 @@ import (
 	"io"
 	"io/fs"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"slices"
 	"strings"
@@ -18,6 +19,15 @@ const hookMark = "# roundoff pre-commit hook"
 // hookSaved is the suffix of the name a foreign hook is saved under.
 const hookSaved = ".saved-by-roundoff"
 
+// hookUsage is the help of roundoff hook.
+const hookUsage = `usage: roundoff hook install [-force] | uninstall | run
+
+  install    install the git pre-commit hook; -force moves a hook roundoff
+             did not install aside, and the new hook runs it first
+  uninstall  remove roundoff's hook, putting a moved-aside one back
+  run        lint the staged lines, as the index holds them (what the hook runs)
+`
+
 // hookCmd runs roundoff hook install|uninstall|run.
 func (e *env) hookCmd(args []string) int {
 	const use = "usage: roundoff hook install [-force] | uninstall | run"
@@ -27,7 +37,12 @@ func (e *env) hookCmd(args []string) int {
 	fs := flag.NewFlagSet("roundoff hook", flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	force := fs.Bool("force", false, "save an existing foreign hook and install over it")
-	if err := fs.Parse(args[1:]); err != nil || fs.NArg() > 0 || *force && args[0] != "install" {
+	err := fs.Parse(args[min(1, len(args)):])
+	if isHelp(args[0]) || errors.Is(err, flag.ErrHelp) {
+		fmt.Fprint(e.stdout, hookUsage)
+		return exitClean
+	}
+	if err != nil || fs.NArg() > 0 || *force && args[0] != "install" {
 		return e.errorf("%s", use)
 	}
 	switch args[0] {
@@ -55,16 +70,18 @@ func (e *env) hookPath() (string, error) {
 	return p, nil
 }
 
-// hookScript returns the hook, which runs this executable.
-func hookScript() string {
-	exe, err := os.Executable()
-	if err != nil || strings.Contains(exe, "go-build") { // go run: use the installed one
-		exe = "roundoff"
-	}
-	return "#!/bin/sh\n" + hookMark + ": lints the packages with staged Go files and\n" +
-		"# reports findings on the staged lines only. Remove it with: roundoff hook uninstall\n" +
-		"exec " + shellQuote(exe) + " hook run\n"
-}
+// hookScript is the hook. It first runs a hook that install -force moved
+// aside, then roundoff from PATH, so that it survives the binary moving.
+const hookScript = "#!/bin/sh\n" + hookMark + ": runs a hook it replaced, then lints\n" +
+	"# the packages with staged Go files, reporting findings on staged lines.\n" +
+	"# Remove it with: roundoff hook uninstall\n" +
+	"saved=\"$(dirname \"$0\")/pre-commit" + hookSaved + "\"\n" +
+	"if [ -x \"$saved\" ]; then \"$saved\" \"$@\" || exit; fi\n" +
+	"if ! command -v roundoff >/dev/null 2>&1; then\n" +
+	"\techo 'roundoff pre-commit hook: no roundoff command on PATH; install it (go install ./cmd/roundoff in its repository), or remove the hook with: roundoff hook uninstall' >&2\n" +
+	"\texit 1\n" +
+	"fi\n" +
+	"exec roundoff hook run\n"
 
 func shellQuote(s string) string {
 	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
@@ -101,18 +118,21 @@ func (e *env) hookInstall(force bool) int {
 		if err := os.Rename(path, saved); err != nil {
 			return e.errorf("hook install: %v", err)
 		}
-		fmt.Fprintf(e.stderr, "roundoff: saved the existing hook as %s\n", saved)
+		fmt.Fprintf(e.stderr, "roundoff: saved the existing hook as %s; the new hook runs it first\n", saved)
 	}
 	if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
 		return e.errorf("hook install: %v", err)
 	}
-	if err := writeAtomic(path, []byte(hookScript())); err != nil {
-		return e.errorf("hook install: %v", err)
+	if err := writeAtomic(path, []byte(hookScript)); err != nil {
+		return e.errorf("hook install: %s: %v", path, err)
 	}
 	if err := os.Chmod(path, 0o755); err != nil {
 		return e.errorf("hook install: %v", err)
 	}
 	fmt.Fprintf(e.stderr, "roundoff: installed the pre-commit hook %s\n", path)
+	if _, err := exec.LookPath("roundoff"); err != nil {
+		fmt.Fprintln(e.stderr, "roundoff: the hook runs roundoff from PATH, where there is none; commits fail until it is installed there")
+	}
 	return exitClean
 }
 
@@ -147,12 +167,18 @@ func (e *env) hookUninstall() int {
 
 // hookRun is what the hook runs: lint the packages that hold staged Go
 // files, module by module, through go vet (whose cache makes re-linting a
-// changed package fast), reporting findings on staged lines only.
+// changed package fast), as the index holds them, reporting findings on
+// staged lines only.
 func (e *env) hookRun() int {
 	changed, err := stagedChanges(e.cwd)
 	if err != nil {
 		return e.errorf("hook: %v", err)
 	}
+	staged, err := stageIndex(changed.root)
+	if err != nil {
+		return e.errorf("hook: %v", err)
+	}
+	defer staged.remove()
 	modules := map[string][]string{} // module root → package patterns
 	for rel := range changed.files {
 		if !strings.HasSuffix(rel, ".go") {
@@ -170,7 +196,7 @@ func (e *env) hookRun() int {
 	}
 	code := exitClean
 	for mod, patterns := range modules {
-		o := &options{format: "text", tests: true, patterns: patterns, changed: changed, enable: map[string]*triState{}}
+		o := &options{format: "text", tests: true, patterns: patterns, changed: changed, staged: staged, enable: map[string]*triState{}}
 		if c := e.vetLint(o, mod); c == exitErrors || code == exitErrors {
 			code = exitErrors
 		} else {

@@ -35,7 +35,9 @@ type report struct {
 	cfg      *config.Config
 	findings []*finding
 	failed   bool                // some package did not load or analyze
+	errors   []loadError         // the errors of loading them
 	files    map[string]rootFile // the root packages' files, by name
+	editable map[string]bool     // their Go source files, false when generated
 	src      sources
 	root     string // the project root: git work tree top or module root
 }
@@ -43,7 +45,7 @@ type report struct {
 // A rootFile is a file of a package named on the command line.
 type rootFile struct {
 	file  *ast.File
-	fset  *token.FileSet
+	res   *resolver
 	pkgID string
 }
 
@@ -75,8 +77,8 @@ func (e *env) lint(o *options, dir string) int {
 	if err != nil {
 		return e.errorf("%v", err)
 	}
-	r := &report{cfg: cfg, src: sources{}, root: sc.root, files: map[string]rootFile{}}
-	pkgs, ok := e.load(o, dir, analyzers)
+	r := newReport(cfg, sc.root)
+	pkgs, ok := e.load(o, dir, analyzers, r)
 	if pkgs == nil {
 		return exitErrors
 	}
@@ -90,6 +92,10 @@ func (e *env) lint(o *options, dir string) int {
 		e.staleReviews(r, analyzers)
 	}
 	return e.finish(o, r, sc)
+}
+
+func newReport(cfg *config.Config, root string) *report {
+	return &report{cfg: cfg, src: sources{}, root: root, files: map[string]rootFile{}, editable: map[string]bool{}}
 }
 
 // loadConfig reads the configuration file named by -config, or else the
@@ -109,14 +115,15 @@ func (e *env) loadConfig(file, dir string) (*config.Config, error) {
 	return c, err
 }
 
-// load loads the packages o names, printing their errors; ok is false
-// when some did not load or type-check, and pkgs nil when none did.
-func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer) (pkgs []*packages.Package, ok bool) {
+// load loads the packages o names, printing their errors and recording
+// them in r; ok is false when some did not load or type-check, and pkgs
+// nil when none did.
+func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer, r *report) (pkgs []*packages.Package, ok bool) {
 	mode := packages.LoadSyntax | packages.NeedModule
 	if needFacts(analyzers) {
 		mode = packages.LoadAllSyntax | packages.NeedModule
 	}
-	cfg := &packages.Config{Mode: mode, Tests: o.tests, Dir: dir}
+	cfg := &packages.Config{Mode: mode, Tests: o.tests, Dir: dir, BuildFlags: o.buildFlags()}
 	pkgs, err := packages.Load(cfg, o.patterns...)
 	if err != nil {
 		e.errorf("loading packages: %v", err)
@@ -126,32 +133,68 @@ func (e *env) load(o *options, dir string, analyzers []*analysis.Analyzer) (pkgs
 		e.errorf("%s matched no packages", strings.Join(o.patterns, " "))
 		return nil, false
 	}
-	ok = true
 	seen := map[string]bool{}
 	packages.Visit(pkgs, nil, func(p *packages.Package) {
-		for _, err := range p.Errors {
-			if msg := e.loadError(err); !seen[msg] {
+		for _, err := range compilerErrors(p.Errors) {
+			le := loadErrorOf(err)
+			if msg := e.errorLine(le); !seen[msg] {
 				seen[msg] = true
 				fmt.Fprintln(e.stderr, msg)
+				r.errors = append(r.errors, le)
 			}
-			ok = false
 		}
 	})
-	return pkgs, ok
+	return pkgs, len(seen) == 0
 }
 
-// loadError formats a package error as file:line:col: message, with the
-// file relative to the current directory.
-func (e *env) loadError(err packages.Error) string {
-	pos, msg := err.Pos, err.Msg
-	if pos == "" || pos == "-" {
-		return "roundoff: " + msg
+// compilerErrors returns the errors of a package as the compiler reports
+// them: when a file does not parse, only the first syntax error of each
+// file (what follows it, syntax or type errors, is mostly its echo).
+func compilerErrors(errs []packages.Error) []packages.Error {
+	if !slices.ContainsFunc(errs, func(e packages.Error) bool { return e.Kind == packages.ParseError }) {
+		return errs
 	}
-	file, rest, found := strings.Cut(pos, ":")
-	if found {
-		return e.display(file) + ":" + rest + ": " + msg
+	var out []packages.Error
+	files := map[string]bool{}
+	for _, e := range errs {
+		file, _, _ := strings.Cut(e.Pos, ":")
+		if e.Kind == packages.ParseError && !files[file] {
+			files[file] = true
+			out = append(out, e)
+		}
 	}
-	return e.display(pos) + ": " + msg
+	return out
+}
+
+// A loadError is an error of loading or type-checking a package.
+type loadError struct {
+	posn token.Position // invalid when the error has no position
+	msg  string
+}
+
+// errorLine formats l as file:line:col: message, the file relative to
+// the current directory.
+func (e *env) errorLine(l loadError) string {
+	if !l.posn.IsValid() {
+		return "roundoff: " + l.msg
+	}
+	return e.position(l.posn) + ": " + l.msg
+}
+
+// loadErrorOf resolves the position of a package error (file:line:col or
+// file:line).
+func loadErrorOf(err packages.Error) loadError {
+	le := loadError{msg: err.Msg}
+	rest, n, ok := cutLastInt(err.Pos)
+	if !ok {
+		return le
+	}
+	if file, line, ok := cutLastInt(rest); ok {
+		le.posn = token.Position{Filename: file, Line: line, Column: n}
+	} else {
+		le.posn = token.Position{Filename: rest, Line: n, Column: 1}
+	}
+	return le
 }
 
 // needFacts reports whether an analyzer, or one it requires, uses facts,
@@ -179,11 +222,7 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 	seen := map[key]bool{}
 	for _, act := range graph.Roots {
 		pkg := act.Package
-		for _, f := range pkg.Syntax {
-			if name := pkg.Fset.File(f.FileStart).Name(); r.files[name].file == nil {
-				r.files[name] = rootFile{f, pkg.Fset, pkg.ID}
-			}
-		}
+		res := r.resolver(pkg)
 		if act.Err != nil {
 			if !pkg.IllTyped { // ill-typed packages were reported when loaded
 				e.errorf("%s on %s: %v", act.Analyzer.Name, pkg.ID, act.Err)
@@ -192,7 +231,7 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 			continue
 		}
 		for _, d := range act.Diagnostics {
-			f := newFinding(act.Analyzer, pkg.ID, pkg.Fset, pkg.Syntax, d)
+			f := res.newFinding(act.Analyzer, pkg.ID, d)
 			if k := f.key(); !seen[k] {
 				seen[k] = true
 				r.findings = append(r.findings, f)
@@ -200,4 +239,23 @@ func (e *env) collect(r *report, graph *checker.Graph) {
 		}
 	}
 	slices.SortFunc(r.findings, compare)
+}
+
+// resolver returns the resolver of pkg's positions, recording its files.
+func (r *report) resolver(pkg *packages.Package) *resolver {
+	res := &resolver{fset: pkg.Fset, files: pkg.Syntax, sources: map[string]bool{}, src: r.src}
+	for _, name := range pkg.GoFiles {
+		res.sources[name] = true
+		r.editable[name] = true
+	}
+	for _, f := range pkg.Syntax {
+		name := pkg.Fset.File(f.FileStart).Name()
+		if r.files[name].file == nil {
+			r.files[name] = rootFile{f, res, pkg.ID}
+		}
+		if res.sources[name] && ast.IsGenerated(f) {
+			r.editable[name] = false
+		}
+	}
+	return res
 }

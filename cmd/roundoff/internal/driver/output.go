@@ -40,11 +40,16 @@ func (e *env) position(posn token.Position) string {
 	return fmt.Sprintf("%s:%d:%d", e.display(posn.Filename), posn.Line, posn.Column)
 }
 
-// printText writes one line per finding: file:line:col: analyzer: message.
+// printText writes one line per finding, file:line:col: analyzer:
+// message, and below it one indented line per related place,
+// file:line:col: message.
 func (e *env) printText(r *report) error {
 	var b strings.Builder
 	for _, f := range r.findings {
 		fmt.Fprintf(&b, "%s: %s: %s\n", e.position(f.posn), f.analyzer.Name, f.diag.Message)
+		for _, rel := range f.related {
+			fmt.Fprintf(&b, "    %s: %s\n", e.position(rel.posn), rel.message)
+		}
 	}
 	_, err := io.WriteString(e.stdout, b.String())
 	return err
@@ -126,24 +131,45 @@ func endOr(end, start token.Position) token.Position {
 // note).
 func (e *env) printGitHub(r *report) error {
 	var b strings.Builder
+	for _, le := range r.errors { // packages that did not load
+		props := []string{"title=" + escapeProperty("roundoff")}
+		if le.posn.IsValid() {
+			props = append(r.githubPlace(le.posn, token.Position{}), props...)
+		}
+		fmt.Fprintf(&b, "::error %s::%s\n", strings.Join(props, ","), escapeData(le.msg))
+	}
 	for _, f := range r.findings {
 		cmd := r.cfg.Level(f.analyzer.Name)
 		if cmd == "note" {
 			cmd = "notice"
 		}
-		file, ok := relTo(r.root, f.posn.Filename)
-		if !ok {
-			file = f.posn.Filename
+		props := append(r.githubPlace(f.posn, f.end), "title="+escapeProperty("roundoff "+f.analyzer.Name))
+		msg := f.diag.Message
+		for _, rel := range f.related { // an annotation has one place: name the others
+			msg += fmt.Sprintf(" (%s: %s)", r.rootPath(rel.posn.Filename)+":"+strconv.Itoa(rel.posn.Line), rel.message)
 		}
-		props := []string{"file=" + escapeProperty(file), "line=" + strconv.Itoa(f.posn.Line), "col=" + strconv.Itoa(r.src.column(f.posn))}
-		if f.end.IsValid() {
-			props = append(props, "endLine="+strconv.Itoa(f.end.Line), "endColumn="+strconv.Itoa(r.src.column(f.end)))
-		}
-		props = append(props, "title="+escapeProperty("roundoff "+f.analyzer.Name))
-		fmt.Fprintf(&b, "::%s %s::%s\n", cmd, strings.Join(props, ","), escapeData(f.diag.Message))
+		fmt.Fprintf(&b, "::%s %s::%s\n", cmd, strings.Join(props, ","), escapeData(msg))
 	}
 	_, err := io.WriteString(e.stdout, b.String())
 	return err
+}
+
+// githubPlace returns the properties of a workflow command that place it
+// at [posn, end): the file relative to the project root, line and column.
+func (r *report) githubPlace(posn, end token.Position) []string {
+	props := []string{"file=" + escapeProperty(r.rootPath(posn.Filename)), "line=" + strconv.Itoa(posn.Line), "col=" + strconv.Itoa(r.src.column(posn))}
+	if end.IsValid() {
+		props = append(props, "endLine="+strconv.Itoa(end.Line), "endColumn="+strconv.Itoa(r.src.column(end)))
+	}
+	return props
+}
+
+// rootPath returns filename relative to the project root when inside it.
+func (r *report) rootPath(filename string) string {
+	if rel, ok := relTo(r.root, filename); ok {
+		return rel
+	}
+	return filename
 }
 
 // escapeData escapes the message of a workflow command: %, CR and LF

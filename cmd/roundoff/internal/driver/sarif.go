@@ -61,7 +61,14 @@ type (
 		Level string `json:"level"`
 	}
 	sarifInvocation struct {
-		ExecutionSuccessful bool `json:"executionSuccessful"`
+		ExecutionSuccessful        bool                `json:"executionSuccessful"`
+		ToolExecutionNotifications []sarifNotification `json:"toolExecutionNotifications,omitempty"`
+	}
+	// sarifNotification (§3.58) reports a package that did not load.
+	sarifNotification struct {
+		Level     string          `json:"level"`
+		Message   sarifMessage    `json:"message"`
+		Locations []sarifLocation `json:"locations,omitempty"`
 	}
 	sarifMessage struct {
 		Text string `json:"text"`
@@ -113,7 +120,7 @@ type (
 func (e *env) printSARIF(r *report) error {
 	run := sarifRun{
 		Tool:               sarifTool{sarifDriver{Name: "roundoff", Rules: []sarifRule{}}},
-		Invocations:        []sarifInvocation{{ExecutionSuccessful: !r.failed}},
+		Invocations:        []sarifInvocation{{ExecutionSuccessful: !r.failed, ToolExecutionNotifications: r.notifications()}},
 		OriginalURIBaseIDs: map[string]sarifArtifactLoc{srcRoot: {URI: dirURI(r.root)}},
 		ColumnKind:         "unicodeCodePoints",
 		Results:            []sarifResult{},
@@ -148,6 +155,19 @@ func (e *env) printSARIF(r *report) error {
 		run.Results = append(run.Results, res)
 	}
 	return writeJSON(e.stdout, sarifLog{sarifSchema, sarifVersion, []sarifRun{run}})
+}
+
+// notifications returns the load errors as error notifications.
+func (r *report) notifications() []sarifNotification {
+	var out []sarifNotification
+	for _, le := range r.errors {
+		n := sarifNotification{Level: "error", Message: sarifMessage{le.msg}}
+		if le.posn.IsValid() {
+			n.Locations = []sarifLocation{r.location(le.posn, token.Position{})}
+		}
+		out = append(out, n)
+	}
+	return out
 }
 
 // rule describes analyzer a as a reportingDescriptor (§3.49).

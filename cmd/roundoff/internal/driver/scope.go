@@ -2,7 +2,6 @@ package driver
 
 import (
 	"fmt"
-	"go/ast"
 	"slices"
 
 	"golang.org/x/tools/go/analysis"
@@ -56,19 +55,19 @@ func (e *env) finish(o *options, r *report, sc *scope) int {
 	if o.writeBaseline != "" {
 		return e.writeBaseline(o.writeBaseline, r)
 	}
-	if sc.changed != nil {
-		r.findings = keep(r.findings, func(f *finding) bool {
-			rel, ok := relTo(sc.changed.root, f.posn.Filename)
-			return ok && sc.changed.contains(rel, f.posn.Line)
-		})
-	}
-	if sc.baseline != nil {
+	if sc.baseline != nil { // over every finding, so that entries out of scope are not stale
 		e.applyBaseline(r, o.baseline, sc.baseline)
 	}
+	if sc.changed != nil {
+		r.findings = keep(r.findings, func(f *finding) bool { return sc.changed.touches(f) })
+	}
 	var code int
-	if o.fix {
-		code = e.applyFixes(r.findings, o.diff)
-	} else {
+	switch {
+	case o.fix && !o.diff && r.failed:
+		return e.errorf("no fixes applied, as some packages did not load (see above); fix those errors or name only the packages that load")
+	case o.fix:
+		code = e.applyFixes(r, o.diff)
+	default:
 		code = e.print(o.format, r)
 	}
 	if r.failed {
@@ -96,14 +95,14 @@ func (e *env) staleReviews(r *report, ran []*analysis.Analyzer) {
 		if r.cfg.Excluded(name) {
 			continue
 		}
-		for _, rev := range config.Reviews(rf.fset, rf.file) {
+		for _, rev := range config.Reviews(rf.res.fset, rf.file) {
 			for _, a := range rev.Names {
 				if rev.Reason == "" || !slices.ContainsFunc(ran, func(x *analysis.Analyzer) bool { return x.Name == a }) || config.ReviewUsed(name, rev.Line, a) {
 					continue
 				}
 				d := analysis.Diagnostic{Pos: rev.Comment.Pos(), End: rev.Comment.End(), Category: staleCategory,
 					Message: fmt.Sprintf("review directive for %s suppresses no finding on its line or the next; remove %s from it", a, a)}
-				r.findings = append(r.findings, newFinding(reviewmark.Analyzer, rf.pkgID, rf.fset, []*ast.File{rf.file}, d))
+				r.findings = append(r.findings, rf.res.newFinding(reviewmark.Analyzer, rf.pkgID, d))
 			}
 		}
 	}

@@ -1,6 +1,7 @@
 package driver
 
 import (
+	"cmp"
 	"crypto/sha256"
 	"encoding/json"
 	"errors"
@@ -44,22 +45,52 @@ func vet(analyzers []*analysis.Analyzer, args []string) int {
 		config.Use(cfg)
 		config.KeepUnattendedOnly(slices.Contains(args, "-fix"))
 	}
-	unitchecker.Main(analyzers...) // exits
+	unitchecker.Main(inOrder(analyzers)...) // exits
 	panic("unreachable")
+}
+
+// inOrder returns copies of analyzers that report their diagnostics in
+// position order. The go command prints each analyzer's findings of a
+// package as one group, in the order reported; the order of the groups
+// is the go command's.
+func inOrder(analyzers []*analysis.Analyzer) []*analysis.Analyzer {
+	out := make([]*analysis.Analyzer, len(analyzers))
+	for i, a := range analyzers {
+		c := *a
+		c.Run = func(pass *analysis.Pass) (any, error) {
+			var diags []analysis.Diagnostic
+			p := *pass
+			p.Report = func(d analysis.Diagnostic) { diags = append(diags, d) }
+			res, err := a.Run(&p)
+			slices.SortStableFunc(diags, func(x, y analysis.Diagnostic) int { return cmp.Compare(x.Pos, y.Pos) })
+			for _, d := range diags {
+				pass.Report(d)
+			}
+			return res, err
+		}
+		out[i] = &c
+	}
+	return out
 }
 
 // version answers the go command's -V=full handshake with an ID that
 // changes with the executable and with the configuration file of the
-// module in the current directory: go vet caches each package's results
-// under it, and must not replay them once roundoff.yaml has changed.
+// module holding the current directory (looked for upwards from any
+// subdirectory): go vet caches each package's results under it, and must
+// not replay them once roundoff.yaml has changed.
 func version() int {
 	exe, err := os.Executable()
 	if err != nil {
 		fmt.Fprintln(os.Stderr, "roundoff:", err)
 		return exitErrors
 	}
+	cwd, err := os.Getwd()
+	if err != nil {
+		fmt.Fprintln(os.Stderr, "roundoff:", err)
+		return exitErrors
+	}
 	h := sha256.New()
-	for _, file := range []string{exe, filepath.Join(moduleRoot("."), config.FileName)} {
+	for _, file := range []string{exe, filepath.Join(moduleRoot(cwd), config.FileName)} {
 		data, err := os.ReadFile(file)
 		if err != nil && !errors.Is(err, fs.ErrNotExist) {
 			fmt.Fprintln(os.Stderr, "roundoff:", err)

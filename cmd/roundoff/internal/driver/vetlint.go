@@ -36,12 +36,18 @@ func (e *env) vetLint(o *options, dir string) int {
 	if err != nil {
 		return e.errorf("%v", err)
 	}
-	cmd := exec.Command("go", append([]string{"vet", "-vettool=" + exe, "-json"}, o.patterns...)...)
+	args := append([]string{"vet", "-vettool=" + exe, "-json"}, o.buildFlags()...)
+	if o.staged != nil && o.staged.overlay != "" {
+		args = append(args, "-overlay="+o.staged.overlay)
+	}
+	cmd := exec.Command("go", append(args, o.patterns...)...)
 	cmd.Dir = dir
-	var stdout bytes.Buffer
-	cmd.Stdout, cmd.Stderr = &stdout, e.stderr // build and type errors, as go vet words them
-	r := &report{cfg: cfg, src: sources{}, root: sc.root, files: map[string]rootFile{}}
-	if err := cmd.Run(); err != nil {
+	var stdout, stderr bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &stdout, &stderr
+	r := newReport(cfg, sc.root)
+	err = cmd.Run()
+	e.stderr.Write(o.staged.rename(stderr.Bytes(), e.display)) // build and type errors, as go vet words them
+	if err != nil {
 		var exit *exec.ExitError
 		if !errors.As(err, &exit) {
 			return e.errorf("go vet: %v", err)
@@ -50,6 +56,15 @@ func (e *env) vetLint(o *options, dir string) int {
 	}
 	if err := e.readVetJSON(r, &stdout); err != nil {
 		return e.errorf("reading the output of go vet: %v", err)
+	}
+	if o.staged != nil { // go vet saw the staged files under temporary names
+		for _, f := range r.findings {
+			f.posn.Filename, f.end.Filename = o.staged.file(f.posn.Filename), o.staged.file(f.end.Filename)
+			for i := range f.related {
+				f.related[i].posn.Filename = o.staged.file(f.related[i].posn.Filename)
+			}
+		}
+		r.findings = keep(r.findings, func(f *finding) bool { return !cfg.Excluded(f.posn.Filename) })
 	}
 	return e.finish(o, r, sc)
 }
@@ -96,13 +111,17 @@ func (e *env) readVetJSON(r *report, in io.Reader) error {
 // vetFinding turns a diagnostic of go vet's JSON into a finding, its
 // positions resolved in the file on disk.
 func (r *report) vetFinding(a *analysis.Analyzer, pkgID string, d jsonDiagnostic) *finding {
-	return &finding{
+	f := &finding{
 		analyzer: a,
 		pkgID:    pkgID,
 		diag:     analysis.Diagnostic{Category: d.Category, Message: d.Message},
 		posn:     r.src.position(d.Posn),
 		end:      r.src.position(d.End),
 	}
+	for _, rel := range d.Related {
+		f.related = append(f.related, place{r.src.position(rel.Posn), r.src.position(rel.End), rel.Message})
+	}
+	return f
 }
 
 // position parses file:line:col (the file may hold colons), adding the
@@ -113,11 +132,7 @@ func (s sources) position(posn string) token.Position {
 	if !ok1 || !ok2 {
 		return token.Position{}
 	}
-	p := token.Position{Filename: file, Line: line, Column: col, Offset: col - 1}
-	for _, text := range s.lines(file)[:min(line-1, len(s.lines(file)))] {
-		p.Offset += len(text) + 1
-	}
-	return p
+	return token.Position{Filename: file, Line: line, Column: col, Offset: s.offset(file, line, col)}
 }
 
 // cutLastInt splits s at its last colon, which a positive integer follows.

@@ -12,16 +12,20 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"math/big"
 	"strconv"
+	"strings"
 
+	"roundoff/internal/config"
 	"roundoff/internal/numeric"
 )
 
 // Step is a recommended finite-difference step and the relative error
-// expected at it.
+// expected at it; None says why there is no step (H is then 0).
 type Step struct {
 	H     float64 `json:"h"`
 	Error float64 `json:"error"`
+	None  string  `json:"none,omitempty"`
 }
 
 // Limits holds the numbers the calculator prints for one magnitude.
@@ -54,51 +58,71 @@ func Compute(f numeric.Format, acc, x float64) Limits {
 		X: x, Type: f.Name, Eps: f.Eps, Accuracy: acc, Ulp: ulp,
 		RootTol: max(acc*math.Abs(x), ulp),
 		MinTol:  math.Sqrt(acc) * xc,
-		Forward: Step{representable(f, x, math.Sqrt(acc)*xc), math.Sqrt(acc)},
-		Central: Step{representable(f, x, math.Cbrt(acc)*xc), math.Pow(math.Cbrt(acc), 2)},
-		Second:  Step{representable(f, x, math.Sqrt(math.Sqrt(acc))*xc), math.Sqrt(acc)},
+		Forward: step(f, x, math.Sqrt(acc)*xc, math.Sqrt(acc)),
+		Central: step(f, x, math.Cbrt(acc)*xc, math.Pow(math.Cbrt(acc), 2)),
+		Second:  step(f, x, math.Sqrt(math.Sqrt(acc))*xc, math.Sqrt(acc)),
 	}
 }
 
-// ulpAt returns the spacing of floats of format f at |x|.
+// ulpAt returns the spacing of floats of format f at |x|: the gap to the
+// next float up, or at the largest finite float, where the next is
+// infinite, the gap to the one below (2^(emax-p+1), IEEE 754-2019 §3.3).
 func ulpAt(f numeric.Format, x float64) float64 {
 	if f == numeric.Float32 {
-		return float64(numeric.Ulp32(float32(x)))
+		ax := float32(math.Abs(x))
+		if ax == math.MaxFloat32 {
+			return float64(ax - math.Nextafter32(ax, 0))
+		}
+		return float64(numeric.Ulp32(ax))
+	}
+	if math.Abs(x) == math.MaxFloat64 {
+		return math.MaxFloat64 - math.Nextafter(math.MaxFloat64, 0)
 	}
 	return numeric.Ulp(x)
 }
 
-// representable returns the step the format actually takes at x for a
-// requested step h: (x+h)-x, evaluated in the format [Numerical Recipes
-// 3rd ed. §5.7].
-func representable(f numeric.Format, x, h float64) float64 {
+// step returns the step the format actually takes at x for a requested
+// step h, (x+h)-x evaluated in the format [Numerical Recipes 3rd ed.
+// §5.7], or no step when x+h overflows.
+func step(f numeric.Format, x, h, errAt float64) Step {
+	taken := (x + h) - x
 	if f == numeric.Float32 {
 		x32 := float32(x)
-		return float64((x32 + float32(h)) - x32)
+		taken = float64((x32 + float32(h)) - x32)
 	}
-	return (x + h) - x
+	if math.IsInf(taken, 0) || math.IsNaN(taken) {
+		return Step{None: fmt.Sprintf("x+h overflows %s: no difference quotient can be formed at x", f.Name)}
+	}
+	return Step{H: taken, Error: errAt}
 }
 
+// usage is the synopsis of `roundoff limits`.
+const usage = "usage: roundoff limits [-type float32|float64] [-noise E] [-json] X..."
+
 // Run parses the arguments of `roundoff limits`, prints the limits for
-// each magnitude to stdout and returns the exit status: 0, or 2 for bad
-// input, reported on stderr.
+// each magnitude to stdout and returns the exit status: 0, or 1 for bad
+// input, reported on stderr in one line. -h prints the usage to stdout.
+// Magnitudes may be negative and mixed with the flags.
 func Run(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("limits", flag.ContinueOnError)
-	fs.SetOutput(stderr)
+	fs.SetOutput(io.Discard)
 	typ := fs.String("type", "float64", "float type: float32 or float64")
 	noise := fs.String("noise", "", "relative accuracy of the function (default: machine epsilon of the type)")
 	asJSON := fs.Bool("json", false, "print JSON")
-	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: roundoff limits [-type float32|float64] [-noise E] [-json] X...")
+	flags, xs := splitArgs(fs, args)
+	if err := fs.Parse(flags); errors.Is(err, flag.ErrHelp) {
+		fmt.Fprintln(stdout, usage)
+		fs.SetOutput(stdout)
 		fs.PrintDefaults()
+		return 0
+	} else if err != nil {
+		fmt.Fprintf(stderr, "roundoff limits: %v (%s)\n", err, usage)
+		return 1
 	}
-	if err := fs.Parse(args); err != nil {
-		return 2
-	}
-	rows, err := compute(*typ, *noise, fs.Args())
+	rows, err := compute(*typ, *noise, append(fs.Args(), xs...))
 	if err != nil {
 		fmt.Fprintln(stderr, "roundoff limits:", err)
-		return 2
+		return 1
 	}
 	if *asJSON {
 		enc := json.NewEncoder(stdout)
@@ -113,6 +137,35 @@ func Run(args []string, stdout, stderr io.Writer) int {
 	return 0
 }
 
+// splitArgs separates the magnitudes from the flags, so that a negative
+// magnitude such as -3 needs no "--" before it.
+func splitArgs(fs *flag.FlagSet, args []string) (flags, xs []string) {
+	for i := 0; i < len(args); i++ {
+		a := args[i]
+		if _, err := strconv.ParseFloat(a, 64); err == nil || errors.Is(err, strconv.ErrRange) {
+			xs = append(xs, a)
+			continue
+		}
+		flags = append(flags, a)
+		if takesValue(fs, a) && i+1 < len(args) {
+			flags = append(flags, args[i+1]) // the flag's value, whatever it looks like
+			i++
+		}
+	}
+	return flags, xs
+}
+
+// takesValue reports whether arg is a flag of fs, written without "=",
+// that takes the next argument as its value.
+func takesValue(fs *flag.FlagSet, arg string) bool {
+	f := fs.Lookup(strings.TrimLeft(arg, "-"))
+	if f == nil {
+		return false
+	}
+	b, ok := f.Value.(interface{ IsBoolFlag() bool })
+	return !ok || !b.IsBoolFlag()
+}
+
 // compute validates the inputs and computes one row per magnitude.
 func compute(typ, noise string, xs []string) ([]Limits, error) {
 	var f numeric.Format
@@ -124,9 +177,12 @@ func compute(typ, noise string, xs []string) ([]Limits, error) {
 	default:
 		return nil, fmt.Errorf("unknown -type %q: want float32 or float64", typ)
 	}
-	acc, err := accuracy(f, noise)
-	if err != nil {
-		return nil, err
+	acc := f.Eps
+	if noise != "" {
+		var err error
+		if acc, err = config.ParseNoise(noise, f); err != nil {
+			return nil, fmt.Errorf("-noise %s: %v", noise, err)
+		}
 	}
 	if len(xs) == 0 {
 		return nil, errors.New("no magnitude given: name at least one X, such as 1 or 1e6")
@@ -142,38 +198,44 @@ func compute(typ, noise string, xs []string) ([]Limits, error) {
 	return rows, nil
 }
 
-// accuracy returns the function's relative accuracy: the noise level when
-// one is given, which must lie in [eps, 1), else machine epsilon.
-func accuracy(f numeric.Format, noise string) (float64, error) {
-	if noise == "" {
-		return f.Eps, nil
-	}
-	e, err := strconv.ParseFloat(noise, 64)
-	switch {
-	case err != nil:
-		return 0, fmt.Errorf("-noise %q is not a number", noise)
-	case math.IsNaN(e) || e <= 0:
-		return 0, fmt.Errorf("-noise %s must be a positive relative accuracy, such as 1e-6", noise)
-	case e >= 1:
-		return 0, fmt.Errorf("-noise %s means no correct digit: a relative accuracy must be below 1", noise)
-	case e < f.Eps:
-		return 0, fmt.Errorf("-noise %s is below %s machine epsilon %s: no computed %[2]s value is that accurate", noise, f.Name, numeric.Short(f.Eps))
-	}
-	return e, nil
-}
-
-// magnitude parses one X, which must be finite in format f.
+// magnitude parses one X, rounded to format f, in which it must be finite
+// and, unless written as zero, not zero.
 func magnitude(f numeric.Format, s string) (float64, error) {
-	x, err := strconv.ParseFloat(s, 64)
+	bitSize := 64
+	if f == numeric.Float32 {
+		bitSize = 32
+	}
+	x, err := strconv.ParseFloat(s, bitSize)
+	exact, _, _ := big.ParseFloat(s, 0, 64, big.ToNearestEven)
 	switch {
 	case err != nil && !errors.Is(err, strconv.ErrRange):
 		return 0, fmt.Errorf("%q is not a number", s)
-	case math.IsNaN(x) || math.IsInf(x, 0) || errors.Is(err, strconv.ErrRange):
+	case math.IsNaN(x):
 		return 0, fmt.Errorf("%s is not a finite magnitude", s)
-	case f == numeric.Float32 && math.Abs(x) > math.MaxFloat32:
-		return 0, fmt.Errorf("%s overflows float32 (largest %g)", s, math.MaxFloat32)
+	case math.IsInf(x, 0) && err == nil: // written as infinity
+		return 0, fmt.Errorf("%s is not a finite magnitude", s)
+	case math.IsInf(x, 0):
+		return 0, fmt.Errorf("%s overflows %s (largest %s)", s, f.Name, short(f.Name, largest(f)))
+	case x == 0 && exact != nil && exact.Sign() != 0:
+		return 0, fmt.Errorf("%s underflows to zero in %s (smallest positive %s)", s, f.Name, short(f.Name, smallest(f)))
 	}
 	return x, nil
+}
+
+// largest and smallest return the largest finite and the smallest
+// positive (subnormal) value of format f.
+func largest(f numeric.Format) float64 {
+	if f == numeric.Float32 {
+		return math.MaxFloat32
+	}
+	return math.MaxFloat64
+}
+
+func smallest(f numeric.Format) float64 {
+	if f == numeric.Float32 {
+		return math.SmallestNonzeroFloat32
+	}
+	return math.SmallestNonzeroFloat64
 }
 
 // write prints the rows as text: a heading for the format and the
@@ -192,6 +254,10 @@ func write(w io.Writer, rows []Limits) {
 		line("root tolerance", short(r.Type, r.RootTol), "eps_f·|x|, at least ulp: best x from sign changes or Newton")
 		line("minimization tol", short(r.Type, r.MinTol), "sqrt(eps_f)·x_c: best x from comparing f values")
 		step := func(name string, s Step, rule string) {
+			if s.None != "" {
+				line(name, "none", s.None)
+				return
+			}
 			line(name, short(r.Type, s.H), fmt.Sprintf("%s, error ~%.2g", rule, s.Error))
 		}
 		step("forward step", r.Forward, "eps_f^(1/2)·x_c")

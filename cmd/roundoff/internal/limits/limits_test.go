@@ -152,22 +152,70 @@ func TestBadInput(t *testing.T) {
 		{[]string{"abc"}, `"abc" is not a number`},
 		{[]string{"NaN"}, "not a finite magnitude"},
 		{[]string{"Inf"}, "not a finite magnitude"},
-		{[]string{"1e999"}, "not a finite magnitude"},
-		{[]string{"-type", "float32", "1e39"}, "overflows float32"},
-		{[]string{"-noise", "-1e-6", "1"}, "must be a positive relative accuracy"},
-		{[]string{"-noise", "NaN", "1"}, "must be a positive relative accuracy"},
-		{[]string{"-noise", "0", "1"}, "must be a positive relative accuracy"},
-		{[]string{"-noise", "x", "1"}, `-noise "x" is not a number`},
-		{[]string{"-noise", "2", "1"}, "no correct digit"},
-		{[]string{"-noise", "1e-20", "1"}, "below float64 machine epsilon"},
+		{[]string{"1e999"}, "1e999 overflows float64 (largest 1.7976931348623157e+308)"},
+		{[]string{"-type", "float32", "1e39"}, "1e39 overflows float32 (largest 3.4028235e+38)"},
+		{[]string{"1e-400"}, "1e-400 underflows to zero in float64 (smallest positive 5e-324)"},
+		{[]string{"-type", "float32", "1e-50"}, "1e-50 underflows to zero in float32 (smallest positive 1e-45)"},
+		{[]string{"-noise", "-1e-6", "1"}, "-noise -1e-6: not a relative accuracy between the unit roundoff of float64"},
+		{[]string{"-noise", "NaN", "1"}, "-noise NaN: not a number"},
+		{[]string{"-noise", "0", "1"}, "-noise 0: below the unit roundoff of float64 (1.11e-16)"},
+		{[]string{"-noise", "x", "1"}, "-noise x: not a number"},
+		{[]string{"-noise", "2", "1"}, "-noise 2: not a relative accuracy between"},
+		{[]string{"-noise", "1e-20", "1"}, "-noise 1e-20: below the unit roundoff of float64"},
+		{[]string{"-type", "float32", "-noise", "1e-8", "1"}, "-noise 1e-8: below the unit roundoff of float32 (5.96e-08)"},
 		{[]string{"-type", "float16", "1"}, `unknown -type "float16"`},
 		{[]string{}, "no magnitude given"},
 		{[]string{"-bogus", "1"}, "flag provided but not defined"},
 	} {
 		code, out, stderr := run(c.args...)
-		assert.Equal(t, 2, code, c.args)
+		assert.Equal(t, 1, code, c.args) // bad input: status 1, as README's table says
 		assert.Empty(t, out, c.args)
 		assert.Contains(t, stderr, c.msg, c.args)
-		assert.Equal(t, 1, strings.Count(stderr, c.msg), c.args)
+		assert.Equal(t, 1, strings.Count(stderr, "\n"), "one line: %s", stderr)
 	}
+}
+
+// The unit roundoff itself is an accepted noise level (IEEE 754-2019:
+// u = 2^-53 for binary64, 2^-24 for binary32).
+func TestNoiseAtUnitRoundoff(t *testing.T) {
+	assert.Equal(t, pow2(-53), runJSON(t, "-noise", "0x1p-53", "1")[0].Accuracy)
+	assert.Equal(t, pow2(-24), runJSON(t, "-type", "float32", "-noise", "0x1p-24", "1")[0].Accuracy)
+}
+
+// At the top of the float32 range the spacing is 2^(emax-p+1) = 2^104
+// (IEEE 754-2019 §3.3, binary32: emax 127, p 24); x+h overflows for every
+// step, which the output says; and the printed x reads back.
+func TestTopOfFloat32(t *testing.T) {
+	r := runJSON(t, "-type", "float32", "3.4028235e+38")[0]
+	assert.Equal(t, float64(math.MaxFloat32), r.X)
+	assert.Equal(t, pow2(104), r.Ulp)
+	for _, s := range []limits.Step{r.Forward, r.Central, r.Second} {
+		assert.Zero(t, s.H)
+		assert.Equal(t, "x+h overflows float32: no difference quotient can be formed at x", s.None)
+	}
+	code, out, stderr := run("-type", "float32", "3.4028235e+38")
+	require.Equal(t, 0, code, stderr)
+	assert.Contains(t, out, "x = 3.4028235e+38 ")
+	assert.Contains(t, out, "ulp                    2.028241e+31 ")
+	assert.Contains(t, out, "forward step           none                     x+h overflows float32")
+	// binary64 likewise: 2^(1023-52).
+	assert.Equal(t, pow2(971), runJSON(t, "1.7976931348623157e308")[0].Ulp)
+}
+
+// Negative magnitudes need no "--", before or after the flags.
+func TestNegativeMagnitudes(t *testing.T) {
+	rows := runJSON(t, "-3", "-type", "float32", "-0.5", "-noise", "1e-6", "-1e3")
+	require.Len(t, rows, 3)
+	assert.Equal(t, []float64{-3, -0.5, -1e3}, []float64{rows[0].X, rows[1].X, rows[2].X})
+	assert.Equal(t, "float32", rows[0].Type)
+	assert.Equal(t, 1e-6, rows[0].Accuracy)
+}
+
+// -h prints the usage on standard output and succeeds.
+func TestHelp(t *testing.T) {
+	code, out, stderr := run("-h")
+	assert.Equal(t, 0, code)
+	assert.Empty(t, stderr)
+	assert.True(t, strings.HasPrefix(out, "usage: roundoff limits "), out)
+	assert.Contains(t, out, "-noise")
 }

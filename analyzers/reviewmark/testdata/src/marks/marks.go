@@ -34,6 +34,29 @@ func spaced(a, b float64) bool {
 	return a == b
 }
 
+func glued(a, b float64) bool {
+	// want +1 `comment "//roundoff:reviewedexacteq" is not a review directive: put a space between //roundoff:reviewed and the analyzer names`
+	//roundoff:reviewedexacteq gate positions are set from a table
+	return a == b
+}
+
+func block(a, b float64) bool {
+	/*roundoff:reviewed exacteq gate positions are set from a table*/ // want `review directives are // line comments; in a /\* \*/ comment it suppresses nothing`
+	return a == b
+}
+
+func trailing(a, b float64) bool {
+	// want +1 `review directive has an empty analyzer name \(a comma at the end of the names, or a space after a comma\); write the names joined by commas without spaces, such as exacteq,reviewmark`
+	//roundoff:reviewed exacteq, gate positions are set from a table
+	return a == b
+}
+
+func spacedList(a, b float64) bool {
+	// want +1 `review directive has an empty analyzer name`
+	//roundoff:reviewed exacteq, reviewmark gate positions are set from a table
+	return a == b
+}
+
 // Well-formed directives stay silent.
 
 func gates(a, b float64) bool {

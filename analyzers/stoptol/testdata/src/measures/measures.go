@@ -111,3 +111,21 @@ func simplexEnds(f func(float64) float64, pts []float64) float64 {
 	}
 	return pts[0]
 }
+
+// brentLike keeps the half-width of its bracket in a variable, as Brent's
+// zero finder does, and stops on it with an absolute tolerance.
+func brentLike(f func(float64) float64, b, c float64) float64 {
+	fb, fc := f(b), f(c)
+	for i := 0; i < 100; i++ {
+		if (fb > 0) == (fc > 0) {
+			return b
+		}
+		half := 0.5 * (c - b)
+		if math.Abs(half) <= 1e-12 || fb == 0 { // want `absolute x-tolerance 1e-12 in this root finding: it ignores \|x\|: from \|x\| = 1.64e\+04 on, adjacent float64 values are more than 2e-12 apart`
+			return b
+		}
+		b, c = b+half, b
+		fb, fc = f(b), fb
+	}
+	return b
+}

@@ -4,19 +4,19 @@ package unbounded
 
 import "math"
 
-// wrapPhase reduces a phase by repeated addition: 1e10 takes 1.6e9
-// passes, and from 2^56 ≈ 7.21e16 on, adding 2π is absorbed (IEEE
-// 754-2019 binary64: the spacing there is 16, more than twice 6.28).
-func wrapPhase(p float64) float64 {
+// WrapPhase reduces any phase its callers pass by repeated addition: 1e10
+// takes 1.6e9 passes, and from 2^56 ≈ 7.21e16 on, adding 2π is absorbed
+// (IEEE 754-2019 binary64: the spacing there is 16, more than twice 6.28).
+func WrapPhase(p float64) float64 {
 	for p < 0 { // want `range reduction by repeated addition of 2 \* math.Pi \(6.283185307179586\) takes \|p\|/6.28 passes and never ends once \|p\| >= 7.21e\+16, where adding 6.28 is absorbed; use math.Mod or math.Remainder`
 		p += 2 * math.Pi
 	}
 	return p
 }
 
-// turns counts down by whole turns: from 2^33 ≈ 8.59e9 on, float32
+// Turns counts down by whole turns: from 2^33 ≈ 8.59e9 on, float32
 // values are 1024 apart and subtracting 360 is absorbed.
-func turns(deg float32) float32 {
+func Turns(deg float32) float32 {
 	for deg >= 360 { // want `range reduction by repeated addition of 360 takes \|deg\|/360 passes and never ends once \|deg\| >= 8.59e\+09`
 		deg -= 360
 	}

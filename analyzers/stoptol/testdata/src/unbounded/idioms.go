@@ -91,3 +91,63 @@ func walk(k *knot, mark float64) *knot {
 	}
 	return k
 }
+
+// lift scales a tiny value up by an invariant factor until it is large
+// enough: finitely many passes unless the factor is exactly 1.
+func lift(b, floor float64) float64 {
+	up := 1 / floor
+	for {
+		b *= up
+		if math.Abs(b) >= floor { // scaled by a factor the loop does not change
+			return b
+		}
+	}
+}
+
+// guarded caps its passes with a panic.
+func guarded(f func(float64) float64, x float64) float64 {
+	for n := 0; f(x) > 1e-9; n++ {
+		if n > 100 { // a cap that panics
+			panic("no progress")
+		}
+		x = f(x)
+	}
+	return x
+}
+
+// marks steps a float counter and places marks from it until one passes
+// the end: a scan by the caller's spacing.
+func marks(start, gap, end float64, mark func(float64)) {
+	var i float64
+	for {
+		v := start + i*gap
+		if v > end { // computed from a counter stepped by 1
+			return
+		}
+		mark(v)
+		i++
+	}
+}
+
+// wrapSmall is unexported: its callers are this package's own, which
+// stoptol does not follow; a value within a few periods takes a pass or
+// two.
+func wrapSmall(p float64) float64 {
+	for p < 0 { // an unexported helper
+		p += 2 * math.Pi
+	}
+	return p
+}
+
+// Align brings one angle within a turn of another: how far apart they
+// start is the caller's, and here the loop does not even run when
+// delta >= 0.
+func Align(start, delta float64) float64 {
+	end := start + delta
+	if delta >= 0 {
+		for end < start { // bounded by another variable, not a fixed range
+			end += 2 * math.Pi
+		}
+	}
+	return end
+}

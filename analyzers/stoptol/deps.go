@@ -1,0 +1,589 @@
+package stoptol
+
+import (
+	"go/ast"
+	"go/token"
+	"go/types"
+	"maps"
+	"slices"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/tolerance"
+)
+
+// deps holds the assignments of one loop: what each variable, field or
+// slice is computed from.
+type deps struct {
+	info    *types.Info
+	l       *loop
+	tests   []exitTest                  // the float exit tests
+	effects bool                        // the loop calls functions for their effects
+	from    map[*types.Var][]*types.Var // what the assignments to v read
+	rhs     map[*types.Var][]ast.Expr   // the assigned expressions (x += s records s)
+	tokens  map[*types.Var][]token.Token
+	memo    map[*types.Var]bool
+	onStack map[*types.Var]bool
+}
+
+func newDeps(info *types.Info, l *loop) *deps {
+	d := &deps{info: info, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}}
+	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
+		if n != nil {
+			ast.Inspect(n, d.record)
+		}
+	}
+	return d
+}
+
+// record notes an assignment.
+func (d *deps) record(n ast.Node) bool {
+	switch n := n.(type) {
+	case *ast.AssignStmt:
+		for i, lhs := range n.Lhs {
+			v := subjectOf(d.info, lhs)
+			if v == nil {
+				continue
+			}
+			rhs := n.Rhs
+			if len(n.Lhs) == len(n.Rhs) {
+				rhs = n.Rhs[i : i+1]
+			}
+			for _, r := range rhs {
+				d.rhs[v], d.tokens[v] = append(d.rhs[v], r), append(d.tokens[v], n.Tok)
+				d.from[v] = append(d.from[v], d.reads(r)...)
+			}
+			if n.Tok != token.ASSIGN && n.Tok != token.DEFINE {
+				d.from[v] = append(d.from[v], v) // x op= e reads x
+			}
+		}
+	case *ast.ExprStmt:
+		if call, ok := n.X.(*ast.CallExpr); ok && !d.info.Types[call.Fun].IsType() {
+			d.effects = true
+		}
+	case *ast.IncDecStmt:
+		if v := subjectOf(d.info, n.X); v != nil {
+			d.from[v] = append(d.from[v], v)
+			d.rhs[v], d.tokens[v] = append(d.rhs[v], nil), append(d.tokens[v], n.Tok)
+		}
+	}
+	return true
+}
+
+// reads returns the variables and fields e reads, except through a
+// slice expression: s = s[1:] consumes data, it computes nothing.
+func (d *deps) reads(e ast.Expr) []*types.Var {
+	var out []*types.Var
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.SliceExpr:
+			return false
+		case *ast.Ident:
+			if v, ok := d.info.Uses[n].(*types.Var); ok {
+				out = append(out, v)
+			}
+		case *ast.SelectorExpr:
+			if f := tolerance.FieldOf(d.info, n); f != nil {
+				out = append(out, f)
+			}
+		}
+		return true
+	})
+	return out
+}
+
+// carried reports whether v's value depends on the previous pass: v lies
+// on, or reads from, a cycle of assignments within the loop.
+func (d *deps) carried(v *types.Var) bool {
+	if c, ok := d.memo[v]; ok {
+		return c
+	}
+	if !carriesFloats(v.Type()) {
+		return false // an integer counter moves exactly; a pointer walks data
+	}
+	if d.onStack[v] {
+		return true // a cycle
+	}
+	d.onStack[v] = true
+	c := false
+	for _, w := range d.from[v] {
+		if d.carried(w) {
+			c = true
+			break
+		}
+	}
+	delete(d.onStack, v)
+	d.memo[v] = c
+	return c
+}
+
+// tested returns the variables and fields the exits read, through the
+// flags that hold tests.
+func (d *deps) tested() map[*types.Var]bool {
+	out := make(map[*types.Var]bool)
+	var visit func(ast.Node) bool
+	visit = func(n ast.Node) bool {
+		if e, ok := n.(ast.Expr); ok {
+			for _, v := range d.reads(e) {
+				if !out[v] {
+					out[v] = true
+					for _, f := range d.l.flags[v] {
+						ast.Inspect(f, visit)
+					}
+				}
+			}
+		}
+		return false
+	}
+	for _, t := range d.tests {
+		visit(t.e)
+	}
+	return out
+}
+
+// floatTest reports whether e is a test on floats: an ordered or equality
+// comparison of floats, a call returning bool from float arguments or a
+// float receiver (an approximate-equality helper), a flag holding such
+// tests, and their negations and combinations.
+func (d *deps) floatTest(e ast.Expr) bool {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.UnaryExpr:
+		return e.Op == token.NOT && d.floatTest(e.X)
+	case *ast.BinaryExpr:
+		switch e.Op {
+		case token.LAND, token.LOR:
+			return d.floatTest(e.X) && d.floatTest(e.Y)
+		case token.EQL, token.NEQ:
+			if isBoolType(d.info.TypeOf(e.X)) { // (a < b) != up
+				return d.floatTest(e.X) || d.floatTest(e.Y)
+			}
+		}
+		return provenance.IsFloat(d.info.TypeOf(e.X)) && provenance.IsFloat(d.info.TypeOf(e.Y))
+	case *ast.CallExpr:
+		if !isBoolType(d.info.TypeOf(e)) {
+			return false
+		}
+		args := e.Args
+		if sel, ok := ast.Unparen(e.Fun).(*ast.SelectorExpr); ok && d.info.Selections[sel] != nil {
+			args = append([]ast.Expr{sel.X}, args...)
+		}
+		for _, a := range args {
+			if holdsFloats(d.info.TypeOf(a)) {
+				return true // a state machine's step (for d.Step()) is no float test
+			}
+		}
+	case *ast.Ident:
+		v := tolerance.VarOf(d.info, e)
+		if fs := d.l.flags[v]; v != nil && len(fs) > 0 {
+			for _, f := range fs {
+				if !d.floatTest(f) {
+					return false
+				}
+			}
+			return true
+		}
+	}
+	return false
+}
+
+// onNaN evaluates e with NaN in every float comparison: ordered and ==
+// comparisons are false, != is true. known is false where the value
+// depends on something else.
+func (d *deps) onNaN(e ast.Expr) (holds, known bool) {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.UnaryExpr:
+		h, k := d.onNaN(e.X)
+		return !h, k && e.Op == token.NOT
+	case *ast.BinaryExpr:
+		switch e.Op {
+		case token.LAND, token.LOR:
+			x, kx := d.onNaN(e.X)
+			y, ky := d.onNaN(e.Y)
+			if e.Op == token.LAND {
+				return x && y, kx && ky || kx && !x || ky && !y
+			}
+			return x || y, kx && ky || kx && x || ky && y
+		}
+		if provenance.IsFloat(d.info.TypeOf(e.X)) {
+			return e.Op == token.NEQ, true
+		}
+	case *ast.Ident:
+		if fs := d.l.flags[tolerance.VarOf(d.info, e)]; len(fs) == 1 {
+			return d.onNaN(fs[0])
+		}
+	}
+	return false, false
+}
+
+// additive returns the step s when every assignment to v in the loop is
+// v += s, v -= s or v = v ± s.
+// x++ and x-- give a nil step, a constant 1.
+func (d *deps) additive(v *types.Var) (ast.Expr, bool) {
+	var step ast.Expr
+	for i, r := range d.rhs[v] {
+		tok := d.tokens[v][i]
+		if tok == token.INC || tok == token.DEC {
+			continue
+		}
+		s, ok := d.stepIn(v, tok, r)
+		if !ok {
+			return nil, false
+		}
+		step = s
+	}
+	return step, len(d.rhs[v]) > 0
+}
+
+func (d *deps) stepIn(v *types.Var, tok token.Token, rhs ast.Expr) (ast.Expr, bool) {
+	switch tok {
+	case token.ADD_ASSIGN, token.SUB_ASSIGN:
+		return rhs, true
+	case token.ASSIGN:
+		b, ok := ast.Unparen(rhs).(*ast.BinaryExpr)
+		if ok && (b.Op == token.ADD || b.Op == token.SUB) && subjectOf(d.info, b.X) == v {
+			return b.Y, true
+		}
+		if ok && b.Op == token.ADD && subjectOf(d.info, b.Y) == v {
+			return b.X, true
+		}
+	}
+	return nil, false
+}
+
+// canVanish reports whether a step can round to zero for finite inputs:
+// a sum or difference (its terms may cancel), a function with a zero at a
+// representable point (acos(1), log(1), sin(0), a remainder), a product
+// with such a factor, a quotient with such a numerator, or a function of
+// such a value; followed through the variables of the function. A
+// constant, a parameter, a value loaded from data, or a span divided by a
+// count is the caller's step.
+func (d *deps) canVanish(e ast.Expr, depth int) bool {
+	if depth == 0 || e == nil {
+		return false
+	}
+	e = ast.Unparen(e)
+	if tv := d.info.Types[e]; tv.Value != nil || !provenance.IsFloat(tv.Type) {
+		return false
+	}
+	switch e := e.(type) {
+	case *ast.Ident:
+		v := tolerance.VarOf(d.info, e)
+		for _, r := range append(assignments(d.info, d.l.body, v), d.rhs[v]...) {
+			if tolerance.VarOf(d.info, r) != v && d.canVanish(r, depth-1) {
+				return true
+			}
+		}
+	case *ast.UnaryExpr:
+		return d.canVanish(e.X, depth)
+	case *ast.BinaryExpr:
+		switch e.Op {
+		case token.ADD, token.SUB:
+			return true
+		case token.MUL:
+			return d.canVanish(e.X, depth) || d.canVanish(e.Y, depth)
+		case token.QUO:
+			if q, ok := ast.Unparen(e.X).(*ast.BinaryExpr); ok && q.Op == token.SUB && d.info.Types[e.Y].Value == nil {
+				return false // (hi-lo)/n: zero only for an empty span, which the scan does not enter
+			}
+			return d.canVanish(e.X, depth)
+		}
+	case *ast.CallExpr:
+		if d.info.Types[e.Fun].IsType() {
+			return len(e.Args) == 1 && d.canVanish(e.Args[0], depth)
+		}
+		if fn, ok := typeutil.Callee(d.info, e).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+			if vanishing[fn.Name()] {
+				return true
+			}
+		}
+		for _, a := range e.Args {
+			if d.canVanish(a, depth-1) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// vanishing lists math functions that return 0 at a float argument
+// other than 0 itself, or whose result can be 0 for arguments that are not.
+var vanishing = map[string]bool{"Acos": true, "Log": true, "Log2": true, "Log10": true, "Mod": true, "Remainder": true, "Sin": true, "Tan": true, "Floor": true, "Trunc": true, "Round": true}
+
+// scaled reports whether the loop only ever multiplies or divides v by
+// something (v *= r, v = v*a*b, v /= b), by factors the loop does not
+// change when invariant: a scaling, which reaches 0 or ±Inf unless the
+// factor is exactly 1; or else a term of a series, where a value computed
+// from such a v in the loop counts too.
+func (d *deps) scaled(v *types.Var, invariant bool) bool {
+	if d.scaledOnly(v, invariant) {
+		return true
+	}
+	if invariant {
+		return false
+	}
+	for _, w := range d.from[v] {
+		if w != v && d.scaledOnly(w, invariant) {
+			return true
+		}
+	}
+	return false
+}
+
+func (d *deps) scaledOnly(v *types.Var, invariant bool) bool {
+	if len(d.rhs[v]) == 0 {
+		return false
+	}
+	for i, r := range d.rhs[v] {
+		switch d.tokens[v][i] {
+		case token.MUL_ASSIGN, token.QUO_ASSIGN:
+		case token.ASSIGN:
+			if !d.factorOf(r, v) {
+				return false
+			}
+		default:
+			return false
+		}
+		if invariant && slices.ContainsFunc(d.reads(r), func(w *types.Var) bool { return w != v && len(d.rhs[w]) > 0 }) {
+			return false // a factor the loop changes
+		}
+	}
+	return true
+}
+
+// counted reports whether v is, or is computed in the loop from, an
+// integer counter the loop steps: each pass reads it at a new integer,
+// so no float stalls it.
+func (d *deps) counted(v *types.Var) bool {
+	for _, w := range append(d.from[v], v) {
+		if b, ok := w.Type().Underlying().(*types.Basic); ok && b.Info()&types.IsInteger != 0 {
+			if _, ok := d.additive(w); ok {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// factorOf reports whether e is a product (or quotient) with v as a
+// factor of its numerator.
+func (d *deps) factorOf(e ast.Expr, v *types.Var) bool {
+	e = ast.Unparen(e)
+	if tolerance.VarOf(d.info, e) == v {
+		return true
+	}
+	b, ok := e.(*ast.BinaryExpr)
+	switch {
+	case !ok:
+		return false
+	case b.Op == token.MUL:
+		return d.factorOf(b.X, v) || d.factorOf(b.Y, v)
+	case b.Op == token.QUO:
+		return d.factorOf(b.X, v)
+	}
+	return false
+}
+
+// series reports whether v is a term the loop adds to a sum
+// (s += v, y = y + q): a test on the term of a series.
+func (d *deps) series(v *types.Var) bool {
+	if len(d.rhs[v]) == 0 {
+		return false // not recomputed in the loop
+	}
+	for sum, rs := range d.rhs {
+		for i, r := range rs {
+			if s, ok := d.stepIn(sum, d.tokens[sum][i], r); ok && sum != v && slices.Contains(d.reads(s), v) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// fresh reports whether v is drawn anew each pass: it reads, in the loop,
+// a call (not of package math) none of whose arguments or receiver the
+// loop assigns, as random draws and polls are.
+func (d *deps) fresh(v *types.Var, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	for _, r := range d.rhs[v] {
+		if r != nil && d.drawsIn(r) {
+			return true
+		}
+	}
+	for _, w := range d.from[v] {
+		if w != v && d.fresh(w, depth-1) {
+			return true
+		}
+	}
+	return false
+}
+
+// drawsIn reports whether e contains such a call.
+func (d *deps) drawsIn(e ast.Expr) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		call, ok := n.(*ast.CallExpr)
+		if !ok || found {
+			return !found
+		}
+		if fn, ok := typeutil.Callee(d.info, call).(*types.Func); d.info.Types[call.Fun].IsType() || ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+			return true
+		}
+		for _, v := range d.reads(call) {
+			if len(d.rhs[v]) > 0 {
+				return true // it reads loop state
+			}
+		}
+		found = provenance.IsFloat(d.info.TypeOf(call))
+		return !found
+	})
+	return found
+}
+
+// near returns the tested variables, then the variables they are computed
+// from in the loop (rest = end - pos reads pos), each in declaration order.
+func (d *deps) near(tested map[*types.Var]bool) []*types.Var {
+	byPos := func(a, b *types.Var) int { return int(a.Pos() - b.Pos()) }
+	out := slices.SortedFunc(maps.Keys(tested), byPos)
+	from := make(map[*types.Var]bool)
+	for v := range tested {
+		for _, w := range d.from[v] {
+			if !tested[w] {
+				from[w] = true
+			}
+		}
+	}
+	return append(out, slices.SortedFunc(maps.Keys(from), byPos)...)
+}
+
+// onlyAdvances reports whether the loop does nothing but advance x.
+func (d *deps) onlyAdvances(x *types.Var) bool {
+	for _, s := range d.l.stmt.Body.List {
+		as, ok := s.(*ast.AssignStmt)
+		if !ok || len(as.Lhs) != 1 || tolerance.VarOf(d.info, as.Lhs[0]) != x {
+			return false
+		}
+	}
+	return true
+}
+
+// noFloatLeft reports whether an exit compares a point m computed from
+// the ends a and b of a bracket with one of them, where the loop moves an
+// end to m (if m <= a || m >= b): when no float is left between the ends,
+// m rounds to one of them, so the test passes after at most about 2100
+// halvings in float64.
+func (d *deps) noFloatLeft() bool {
+	found := false
+	for _, t := range d.tests {
+		ast.Inspect(t.e, func(n ast.Node) bool {
+			b, ok := n.(*ast.BinaryExpr)
+			if !ok || !isOrdered(b.Op) {
+				return !found
+			}
+			x, y := subjectOf(d.info, b.X), subjectOf(d.info, b.Y)
+			found = found || d.interiorEnd(x, y) || d.interiorEnd(y, x)
+			return !found
+		})
+	}
+	return found
+}
+
+// interiorEnd reports whether m is computed from end and another value,
+// and end is moved to m.
+func (d *deps) interiorEnd(m, end *types.Var) bool {
+	if m == nil || end == nil || m == end || !slices.Contains(d.from[m], end) {
+		return false
+	}
+	other := slices.ContainsFunc(d.from[m], func(v *types.Var) bool { return v != m && v != end })
+	moved := slices.ContainsFunc(d.rhs[end], func(r ast.Expr) bool { return tolerance.VarOf(d.info, r) == m })
+	return other && moved
+}
+
+// constBound reports whether every exit test compares x with a constant,
+// as a reduction into a fixed range does (for x < 0, for x >= 2*math.Pi);
+// a test against another variable aligns x with it, and how far apart
+// they start is the caller's.
+func (d *deps) constBound(x *types.Var) bool {
+	for _, t := range d.tests {
+		b, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
+		if !ok {
+			return false
+		}
+		other := b.Y
+		if subjectOf(d.info, b.X) != x {
+			other = b.X
+		}
+		if d.info.Types[other].Value == nil {
+			return false
+		}
+	}
+	return true
+}
+
+// assignments returns the expressions assigned to v in body.
+func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
+	var out []ast.Expr
+	ast.Inspect(body, func(n ast.Node) bool {
+		if as, ok := n.(*ast.AssignStmt); ok && len(as.Lhs) == len(as.Rhs) {
+			for i, lhs := range as.Lhs {
+				if tolerance.VarOf(info, lhs) == v {
+					out = append(out, as.Rhs[i])
+				}
+			}
+		}
+		return true
+	})
+	return out
+}
+
+// inTestFile reports whether n lies in a _test.go file.
+func inTestFile(pass *analysis.Pass, n ast.Node) bool {
+	return strings.HasSuffix(pass.Fset.File(n.Pos()).Name(), "_test.go")
+}
+
+// carriesFloats reports whether a value of type t can carry float work
+// from pass to pass: not an integer, a pointer, an interface, a map, a
+// channel or a function.
+func carriesFloats(t types.Type) bool {
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return u.Info()&types.IsInteger == 0
+	case *types.Pointer, *types.Interface, *types.Map, *types.Chan, *types.Signature:
+		return false
+	}
+	return true
+}
+
+// holdsFloats reports whether t is a float, or a struct or array holding
+// floats by value (a point, not a pointer to a solver).
+func holdsFloats(t types.Type) bool {
+	if t == nil {
+		return false
+	}
+	if provenance.IsFloat(t) {
+		return true
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Array:
+		return holdsFloats(u.Elem())
+	case *types.Struct:
+		for i := range u.NumFields() {
+			if provenance.IsFloat(u.Field(i).Type()) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+func isBoolType(t types.Type) bool {
+	b, ok := t.(*types.Basic)
+	if !ok && t != nil {
+		b, ok = t.Underlying().(*types.Basic)
+	}
+	return ok && b.Info()&types.IsBoolean != 0
+}

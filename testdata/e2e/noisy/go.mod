@@ -1,0 +1,3 @@
+module spillway
+
+go 1.26

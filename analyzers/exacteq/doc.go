@@ -31,10 +31,9 @@
 //     variable's own format and reported only if the bound is missed;
 //   - an ordered loop condition (x <= b, x < b) on a float variable with a
 //     constant start and bound and a step of one or more constant values,
-//     whose pass count in the variable's format differs from the count
-//     exact arithmetic on the decimals as written gives (from 0 by 0.05,
-//     x <= 1 passes 20 times, not 21: the 21st value is
-//     1.0000000000000002);
+//     that makes fewer passes in the variable's format than exact
+//     arithmetic on the decimals as written gives (from 0 by 0.05, x <= 1
+//     passes 20 times, not 21: the 21st value is 1.0000000000000002);
 //   - a zero test of a difference of computed values (the cross product
 //     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
 //     difference, also through a package function): the difference is 0
@@ -87,7 +86,9 @@
 // remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
 // (exact where exact sign algorithms use them), and of recurrence terms
 // that feed the next pass (a residue there only scales the next term);
-// ordered float loops whose pass count agrees with exact arithmetic; and,
+// ordered float loops whose pass count agrees with exact arithmetic or
+// exceeds it (the extra value lies within rounding error below the bound,
+// inside the admitted range); and,
 // in _test.go files, results and fields produced by the code under test,
 // which a test compares with a second route through that code on purpose,
 // tests whose function says it checks exactness (one correctly rounded

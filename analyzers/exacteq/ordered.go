@@ -55,7 +55,7 @@ func (c *checker) orderedLoop(cur inspector.Cursor, n *ast.BinaryExpr) {
 		}
 		inFloat, ok1 := floatCount(start, step, bound, op, f)
 		exact, ok2 := exactCount(start, step, bound, op)
-		if ok1 && ok2 && inFloat != exact {
+		if ok1 && ok2 && inFloat < exact {
 			c.reportCount(n, x, start, step, bound, f, inFloat, exact)
 			return
 		}

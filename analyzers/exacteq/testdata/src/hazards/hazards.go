@@ -137,14 +137,6 @@ func inclusiveGrid() int {
 	return n
 }
 
-func strictGrid() int {
-	n := 0
-	for w := 0.0; 1 > w; w += 0.1 { // want `the test 1 > w passes 11 times, where exact arithmetic passes 10`
-		n++
-	}
-	return n
-}
-
 func chosenStep(fine bool) int {
 	dw := 0.25
 	if fine {

@@ -366,3 +366,12 @@ func tone(s shade) float64 { return (s.r - s.b) / (s.g + 1) }
 func sameTone(a, b shade) bool {
 	return tone(a) == tone(b)
 }
+
+// An extra pass runs at 0.9999999999999999, within the range w < 1 admits.
+func extraPass() int {
+	n := 0
+	for w := 0.0; w < 1; w += 0.1 {
+		n++
+	}
+	return n
+}

@@ -96,7 +96,12 @@
 // tolerance would defeat the check), printed values parsed back from a
 // string holding the same digits or decoded from text by the standard
 // library (exact by correct rounding, IEEE 754-2019 §5.12), results of
-// package functions that return their input unrounded, and printed values that also appear among the test's inputs
+// package functions that return their input unrounded, results computed
+// the same way on every platform (by + - * / with no product added to
+// another value, which Go may fuse into one rounding, and by correctly
+// rounded or exact math functions such as Sqrt, Abs and Floor, through
+// package functions built the same way; Sin, Exp, Pow and the like may
+// differ in the last bits between platforms), and printed values that also appear among the test's inputs
 // (passed through without arithmetic, as the vertices a hull keeps).
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop

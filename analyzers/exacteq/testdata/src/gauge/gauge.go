@@ -26,3 +26,7 @@ func Log32(x float32) float32 { return float32(math.Log(float64(x))) }
 
 // Turns converts a quarter-turn count to turns, without arithmetic.
 func Turns(q float64) float64 { return q }
+
+// Third returns a third of x + 1: one addition and one division, each
+// correctly rounded, nothing to fuse.
+func Third(x float64) float64 { return (x + 1) / 3 }

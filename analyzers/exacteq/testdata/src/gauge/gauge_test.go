@@ -162,3 +162,11 @@ func TestDecoded(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// A result computed by correctly rounded operations with nothing to fuse
+// is the same bit for bit on every platform, and may be pinned.
+func TestPortablePin(t *testing.T) {
+	if Third(1) != 0.6666666666666666 {
+		t.Fail()
+	}
+}

@@ -23,18 +23,22 @@ var correctlyRounded = map[string]bool{"Sqrt": true, "FMA": true}
 // package functions built the same way. A pinned result so computed is
 // reproducible, and its exact comparison holds everywhere.
 func (c *checker) portable(v ssa.Value) bool {
-	return c.portableValue(v, map[ssa.Value]bool{}, 6)
+	return c.portableValue(v, map[ssa.Value]bool{}, 24)
 }
 
 func (c *checker) portableValue(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	v = provenance.Strip(v)
-	if seen[v] {
-		return true
+	if ok, done := seen[v]; done {
+		return ok // known, or in progress around a loop (assumed portable until shown otherwise)
 	}
 	seen[v] = true
-	if depth == 0 {
-		return false
-	}
+	ok := depth > 0 && c.portableStep(v, seen, depth)
+	seen[v] = ok
+	return ok
+}
+
+// portableStep judges v by its operation and operands.
+func (c *checker) portableStep(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	switch v := v.(type) {
 	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global, *ssa.Alloc:
 		return true
@@ -63,6 +67,45 @@ func (c *checker) portableValue(v ssa.Value, seen map[ssa.Value]bool, depth int)
 	return false
 }
 
+// portableBody reports whether a package function computes its results
+// portably: its float results traced back, or, when a result is not a
+// float (a struct, a slice filled in place), every float it computes.
+func (c *checker) portableBody(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {
+	for _, b := range fn.Blocks {
+		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
+		if !ok {
+			continue
+		}
+		for _, r := range ret.Results {
+			if !provenance.IsFloat(r.Type()) {
+				return c.everyFloatPortable(fn, seen, depth)
+			}
+			if !c.portableValue(r, seen, depth) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// everyFloatPortable reports whether every float fn computes, and every
+// call it makes (builtins aside), is portable.
+func (c *checker) everyFloatPortable(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {
+	for _, b := range fn.Blocks {
+		for _, instr := range b.Instrs {
+			if call, ok := instr.(ssa.CallInstruction); ok {
+				if _, builtin := call.Common().Value.(*ssa.Builtin); !builtin && !c.portableCall(call.Common(), seen, depth-1) {
+					return false
+				}
+			}
+			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && !c.portableValue(v, seen, depth) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
 // isMul reports whether v is a float product.
 func isMul(v ssa.Value) bool {
 	b, ok := provenance.Strip(v).(*ssa.BinOp)
@@ -85,12 +128,8 @@ func (c *checker) portableCall(call *ssa.CallCommon, seen map[ssa.Value]bool, de
 		if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg {
 			return false // unknown: no claim of portability
 		}
-		for _, b := range fn.Blocks {
-			for _, instr := range b.Instrs {
-				if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && !c.portableValue(v, seen, depth) {
-					return false
-				}
-			}
+		if !c.portableBody(fn, seen, depth) {
+			return false
 		}
 	}
 	for _, a := range args {

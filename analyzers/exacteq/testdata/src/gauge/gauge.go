@@ -30,3 +30,9 @@ func Turns(q float64) float64 { return q }
 // Third returns a third of x + 1: one addition and one division, each
 // correctly rounded, nothing to fuse.
 func Third(x float64) float64 { return (x + 1) / 3 }
+
+// Tint is a colour in an invented perceptual space.
+type Tint struct{ L, C float64 }
+
+// ToTint converts a reflectance to a tint through a cube root.
+func ToTint(r float64) Tint { return Tint{L: math.Pow(r, 1.0/3), C: r / 7} }

@@ -170,3 +170,12 @@ func TestPortablePin(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// A struct computed through math.Pow, pinned to printed values.
+func TestPinnedPow(t *testing.T) {
+	got := ToTint(0.3)
+	want := Tint{L: 0.6694329500821695, C: 0.04285714285714286}
+	if got != want { // want `!= on Tint values pins a computed result to 0.6694329500821695`
+		t.Fail()
+	}
+}

@@ -116,6 +116,9 @@ func isMul(v ssa.Value) bool {
 // an exact or correctly rounded math function of portable arguments, or a
 // function of this package whose every instruction is portable.
 func (c *checker) portableCall(call *ssa.CallCommon, seen map[ssa.Value]bool, depth int) bool {
+	if depth <= 0 {
+		return false
+	}
 	args := call.Args
 	switch provenance.MathRounding(call) {
 	case provenance.Exact:
@@ -128,7 +131,13 @@ func (c *checker) portableCall(call *ssa.CallCommon, seen map[ssa.Value]bool, de
 		if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg {
 			return false // unknown: no claim of portability
 		}
-		if !c.portableBody(fn, seen, depth) {
+		ok, done := seen[fn]
+		if !done {
+			seen[fn] = true // a recursive call is judged by the rest of the body
+			ok = c.portableBody(fn, seen, depth)
+			seen[fn] = ok
+		}
+		if !ok {
 			return false
 		}
 	}

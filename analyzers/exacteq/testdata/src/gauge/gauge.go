@@ -36,3 +36,11 @@ type Tint struct{ L, C float64 }
 
 // ToTint converts a reflectance to a tint through a cube root.
 func ToTint(r float64) Tint { return Tint{L: math.Pow(r, 1.0/3), C: r / 7} }
+
+// Halve divides x by 2, n times, recursively.
+func Halve(x float64, n int) float64 {
+	if n == 0 {
+		return x
+	}
+	return Halve(x, n-1) / 2
+}

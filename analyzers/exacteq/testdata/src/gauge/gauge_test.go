@@ -179,3 +179,10 @@ func TestPinnedPow(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// A recursive package function of divisions only is portable too.
+func TestRecursivePin(t *testing.T) {
+	if Halve(1.0/3, 1) != 0.16666666666666666 {
+		t.Fail()
+	}
+}

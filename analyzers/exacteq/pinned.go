@@ -73,7 +73,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 		}
 		d := analysis.Diagnostic{
 			Pos: node.Pos(), End: node.End(), Category: catPinned,
-			Message: fmt.Sprintf("%s pins a computed result to %s, a printed value of %d significant digits: its last bits depend on the order of operations and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
+			Message: fmt.Sprintf("%s pins a computed result to %s, a printed value of %d significant digits: its last bits can depend on the order of operations, on the math library and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
 				what, c.describe(p), len(p.digits), rtol(p.f)),
 		}
 		if p.expr.Pos() < node.Pos() || p.expr.End() > node.End() {

@@ -6,6 +6,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -16,38 +17,150 @@ import (
 	"roundoff/internal/numeric"
 )
 
-// absorbed reports a constant k ± c of float type that rounds back to k:
-// c is below half the spacing of floats at k and has no effect.
+// term is one addend of a sum as written, with its sign.
+type term struct {
+	expr ast.Expr
+	neg  bool
+}
+
+// absorbed reports an addend c of a float sum that has no effect. Go
+// evaluates a constant expression exactly and rounds it once, to its type
+// (Go spec, "Constant expressions"), so in a constant sum c has no effect
+// when the whole sum rounds to the same value without it. In a sum with
+// run-time terms, a constant c below half the spacing at another constant
+// term k has no effect either: it is absorbed while the sum stays near k,
+// and when the other terms cancel k that closely, their own rounding
+// errors (about u·|k|) exceed c (Pi/2 - f(x) + 6.1e-17 in float32).
 func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
-	if n.Op != token.ADD && n.Op != token.SUB {
-		return
-	}
 	tv := c.pass.TypesInfo.Types[n]
-	if tv.Value == nil || !provenance.IsFloat(tv.Type) || isComplex(tv.Type) {
+	if n.Op != token.ADD && n.Op != token.SUB || !provenance.IsFloat(tv.Type) || isComplex(tv.Type) || c.inSum(cur) {
 		return
 	}
-	x, okx := constval.Exact(c.pass.TypesInfo, c.decls, n.X)
-	y, oky := constval.Exact(c.pass.TypesInfo, c.decls, n.Y)
-	if !okx || !oky {
-		return
-	}
+	terms := c.terms(n, false, nil)
 	f := provenance.FormatOf(tv.Type)
-	sum := f.Value(constant.BinaryOp(x, n.Op, y))
-	k, addend, up := n.X, n.Y, n.Op == token.ADD == (constant.Sign(y) > 0)
-	switch {
-	case constant.Sign(y) != 0 && sum == f.Value(x) && f.Value(x) != 0:
-	case n.Op == token.ADD && constant.Sign(x) != 0 && sum == f.Value(y) && f.Value(y) != 0:
-		k, addend, up = n.Y, n.X, constant.Sign(x) > 0
-	default:
+	if tv.Value != nil {
+		c.absorbedConstant(cur, n, terms, f)
 		return
 	}
-	kv := f.Value(map[ast.Expr]constant.Value{n.X: x, n.Y: y}[k])
-	d := analysis.Diagnostic{
+	c.absorbedMixed(n, terms, f)
+}
+
+// inSum reports whether cur's node is an operand of a larger sum, which
+// judges it whole.
+func (c *checker) inSum(cur inspector.Cursor) bool {
+	for p := cur.Parent(); ; p = p.Parent() {
+		switch b := p.Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			return b.Op == token.ADD || b.Op == token.SUB
+		}
+		return false
+	}
+}
+
+// terms flattens the sum e into its addends.
+func (c *checker) terms(e ast.Expr, neg bool, acc []term) []term {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) {
+		acc = c.terms(b.X, neg, acc)
+		return c.terms(b.Y, neg != (b.Op == token.SUB), acc)
+	}
+	return append(acc, term{e, neg})
+}
+
+// value returns the exact value of a constant term, sign included.
+func (c *checker) value(t term) (constant.Value, bool) {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.expr)
+	if ok && t.neg {
+		v = constant.UnaryOp(token.SUB, v, 0)
+	}
+	return v, ok && v.Kind() != constant.Complex
+}
+
+// absorbedConstant reports the first addend of a constant sum without
+// which the sum rounds to the same value.
+func (c *checker) absorbedConstant(cur inspector.Cursor, n *ast.BinaryExpr, terms []term, f numeric.Format) {
+	vals := make([]constant.Value, len(terms))
+	total := constant.MakeInt64(0)
+	for i, t := range terms {
+		v, ok := c.value(t)
+		if !ok {
+			return
+		}
+		vals[i], total = v, constant.BinaryOp(total, token.ADD, v)
+	}
+	sum := f.Value(total)
+	for i, t := range terms {
+		rest := f.Value(constant.BinaryOp(total, token.SUB, vals[i]))
+		if constant.Sign(vals[i]) == 0 || rest != sum || rest == 0 {
+			continue
+		}
+		var fs []fixes.Fix
+		if len(terms) == 2 {
+			fs = c.nextafterFix(cur, n, terms[1-i].expr, constant.Sign(vals[i]) > 0, f)
+		}
+		c.reportAbsorbed(n, t.expr, c.restOf(terms, i), rest, f, fs)
+		return
+	}
+}
+
+// absorbedMixed reports a constant addend below half the spacing at another
+// constant addend of a sum with run-time terms.
+func (c *checker) absorbedMixed(n *ast.BinaryExpr, terms []term, f numeric.Format) {
+	var consts []int
+	for i, t := range terms {
+		if _, ok := c.value(t); ok {
+			consts = append(consts, i)
+		} else if !c.rounded(t.expr) {
+			return // a variable can cancel k exactly (1 - p is exact for p near 1), leaving c alone
+		}
+	}
+	for _, i := range consts {
+		vi, _ := c.value(terms[i])
+		for _, j := range consts {
+			vj, _ := c.value(terms[j])
+			small, big := math.Abs(f.Value(vi)), math.Abs(f.Value(vj))
+			if i != j && small > 0 && big > 0 && small < f.Spacing(big)/2 {
+				fixes.Report(c.pass, analysis.Diagnostic{
+					Pos: n.Pos(), End: n.End(), Category: catAbsorbed,
+					Message: fmt.Sprintf("%s has no effect next to %s: it is below half the spacing of %s values there (%.3g), so it is absorbed while the sum stays near %s, and below the other terms' rounding errors (about %.2g) when they cancel it; drop it, or compute in a wider type",
+						fixes.Source(c.pass.Fset, terms[i].expr), fixes.Source(c.pass.Fset, terms[j].expr), f.Name, f.Spacing(big)/2, numeric.Short(big), f.U*big),
+				})
+				return
+			}
+		}
+	}
+}
+
+// rounded reports whether e is a value that carries rounding error: a call
+// (not a conversion), a product or a quotient.
+func (c *checker) rounded(e ast.Expr) bool {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.CallExpr:
+		tv, ok := c.pass.TypesInfo.Types[e.Fun]
+		return !ok || !tv.IsType()
+	case *ast.BinaryExpr:
+		return e.Op == token.MUL || e.Op == token.QUO
+	}
+	return false
+}
+
+// restOf names the sum without addend i: the other addend of a pair, or
+// "the rest of the sum".
+func (c *checker) restOf(terms []term, i int) string {
+	if len(terms) == 2 {
+		return fixes.Source(c.pass.Fset, terms[1-i].expr)
+	}
+	return "the rest of the sum"
+}
+
+// reportAbsorbed reports that addend has no effect on k, whose value is kv.
+func (c *checker) reportAbsorbed(n *ast.BinaryExpr, addend ast.Expr, k string, kv float64, f numeric.Format, fs []fixes.Fix) {
+	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catAbsorbed,
 		Message: fmt.Sprintf("%s has no effect on %s: it is below half the spacing of %s values there (%.3g), so the sum rounds back to exactly %s; use math.Nextafter for the neighbouring value",
-			fixes.Source(c.pass.Fset, addend), fixes.Source(c.pass.Fset, k), f.Name, f.Spacing(kv)/2, numeric.Short(kv)),
-	}
-	fixes.Report(c.pass, d, c.nextafterFix(cur, n, k, up, f)...)
+			fixes.Source(c.pass.Fset, addend), k, f.Name, f.Spacing(kv)/2, numeric.Short(kv)),
+	}, fs...)
 }
 
 func isComplex(t types.Type) bool {

@@ -25,28 +25,59 @@
 //     the test still means something only for values below about tol/eps,
 //     and is exact equality above; when one operand is a constant the
 //     spacing of floats there decides;
-//   - the smallest positive float used as a tolerance;
+//   - the smallest positive float used as a tolerance, and x < it (no
+//     float lies between 0 and it, so for x ≥ 0 the test is x == 0; the
+//     smallest normal value, 0x1p-1022, catches subnormal values);
+//   - a tiny constant that floors a variable which then divides (the
+//     modified Lentz method's if d == 0 { d = tiny }; d = 1/d): when
+//     1/constant overflows, as 1/4.9e-324 does (the largest float64 is
+//     1.8e308), the next quotient is +Inf;
+//   - a running maximum started at the smallest positive float: it is not
+//     the most negative value, so the maximum of values all ≤ 0 comes out
+//     as 4.9e-324;
 //   - tolerance tests on an iterate instead of on its change
 //     (math.Abs(x) < 1e-16 inside a loop that updates x from itself), which
 //     never pass for a root away from zero;
-//   - absorbed addends: a constant k ± c that rounds back to k, so c has no
-//     effect (1 - math.SmallestNonzeroFloat64 is exactly 1; math.Nextafter
-//     was meant);
+//   - absorbed addends: an addend of a constant sum without which the sum
+//     rounds to the same value (1 - math.SmallestNonzeroFloat64 is exactly
+//     1; math.Nextafter was meant). Go evaluates a constant expression
+//     exactly and rounds it once (Go spec, "Constant expressions"), so the
+//     sum is judged whole, never step by step. In a sum whose run-time
+//     terms all carry rounding error (calls, products, quotients), a
+//     constant below half the spacing at another constant term (a float64
+//     correction of 6.1e-17 kept beside π/2 in float32 code) has no effect
+//     either: absorbed while the sum stays near that term, and below the
+//     other terms' rounding errors when they cancel it. A plain variable
+//     can cancel the term exactly (Sterbenz), so 1 - p + 1e-16 is left
+//     alone;
 //   - constant tolerance arguments to well-known APIs (gonum's
 //     floats/scalar EqualWithinAbs, EqualWithinRel, EqualWithinAbsOrRel,
 //     floats.EqualApprox; testify's InDelta, InDeltaSlice, InEpsilon,
 //     InEpsilonSlice), and to functions and struct fields of any package
-//     that use a parameter or field as such a tolerance (carried across
-//     packages as facts): the call argument, composite-literal field or
+//     that use a parameter or field as such a tolerance, directly or by
+//     passing it on to one (wrappers of wrappers; carried across packages
+//     as facts): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
 //     is reported.
 //
-// float32 operands are judged against float32's resolution, and a type
-// parameter whose type set admits float32 against float32, since that
-// instantiation is allowed.
+// A tolerance test is read through any absolute value (math.Abs, the Abs
+// of a float32 math library, a package's own helper; see package absval),
+// so float32 code through its own math library is judged against float32's
+// resolution (eps 2^-23 ≈ 1.19e-7), as are float32 operands in general and
+// a type parameter whose type set admits float32. When a compared value is
+// read from a table of constants (tc.want), the largest of them is the
+// magnitude at which an absolute tolerance is judged. A finding at the
+// place that gives a tolerance parameter or field its value names the
+// test that uses it (file:line, and the related position in this package).
 //
 // It leaves alone: zero tolerances (exact on purpose), negative and NaN
-// sentinels; constants at or below 2^-1000, which guard against underflow
+// sentinels; tiny floors whose reciprocal is finite (1e-300), and floors
+// that never divide; running maxima of values non-negative by construction
+// (squares, Abs, Sqrt, Hypot, Exp), which a positive floor keeps positive
+// on purpose; a tiny constant added to a run-time value with no constant
+// beside it (x + 1e-300 keeps a logarithm finite at x = 0); constant sums
+// whose addends together change the rounded result (1 + 1e-16 + 1e-16 is
+// 1 + 2^-52); constants at or below 2^-511 ≈ 1.5e-154, which guard against underflow
 // (safe minimum), never tolerances; single magnitudes compared with tiny
 // constants before a division (|d| < 1e-300); thresholds on squared
 // quantities; mixed tests atol + rtol·scale; tolerances at or above eps
@@ -59,7 +90,15 @@
 // values a few roundings apart still compare equal; an absolute tolerance
 // below eps on a difference becomes a mixed test that keeps it as the floor
 // near zero, math.Abs(a-b) <= tol + 4*0x1p-52*math.Max(math.Abs(a),
-// math.Abs(b)); the smallest positive float becomes the type's eps; an
-// absorbed addend becomes math.Nextafter(k, ±Inf) in the direction of its
-// sign.
+// math.Abs(b)); the smallest positive float as the tolerance of a
+// difference becomes 4*0x1p-52*math.Max(math.Abs(a), math.Abs(b)) alone
+// (the residual k·q² - h of a Newton step rounds at about eps·|h|, so no
+// fixed tolerance passes for every h; one relative to the compared values
+// does); as a tolerance of a relative test it becomes the type's eps. The
+// difference may be held in a variable (r := k*q*q - h; if math.Abs(r) <
+// tol) when the variables it reads do not change before the test; no fix
+// is offered otherwise, nor where nearby text says the test is exact. A
+// subnormal floor that divides becomes 0x1p-970 (2^-1022/2^-52), a
+// maximum's seed math.Inf(-1), and an absorbed addend math.Nextafter(k,
+// ±Inf) in the direction of its sign.
 package epsfloor

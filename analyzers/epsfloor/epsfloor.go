@@ -4,12 +4,15 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
+	"go/token"
 	"go/types"
+	"path/filepath"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/provenance"
@@ -25,7 +28,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "epsfloor",
 	Doc:       analyzerdoc.Extract(doc, "epsfloor"),
 	URL:       "docs/epsfloor.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -44,6 +47,7 @@ type use struct {
 	Kind    tolerance.Kind
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
+	At      string // file:line of that comparison, for messages
 }
 
 func (u use) String() string {
@@ -51,30 +55,40 @@ func (u use) String() string {
 	if u.Kind == tolerance.Absolute {
 		article = "an"
 	}
-	return fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
+	s := fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
+	if u.At != "" {
+		s += ", tested at " + u.At
+	}
+	return s
 }
 
 func (u use) format() numeric.Format { return numeric.Select(u.Float32) }
 
 // checker holds what one run needs.
 type checker struct {
-	pass  *analysis.Pass
-	decls map[types.Object]ast.Expr
-	uses  *tolerance.Uses[use]
+	pass   *analysis.Pass
+	decls  map[types.Object]ast.Expr
+	read   tolerance.Reader
+	uses   *tolerance.Uses[use]
+	tested map[use]token.Pos // this package's tolerance tests, by use
+	fields map[types.Object][]ast.Expr
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	c := &checker{
-		pass:  pass,
-		decls: constval.DeclsOf(pass),
-		uses:  tolerance.NewUses[use](pass),
+		pass:   pass,
+		decls:  constval.DeclsOf(pass),
+		uses:   tolerance.NewUses[use](pass),
+		tested: make(map[use]token.Pos),
 	}
+	c.read = tolerance.Reader{Info: pass.TypesInfo, Decls: c.decls, Abs: absval.Of(pass)}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	// First the tolerance tests, which also learn the tolerance parameters
 	// and fields; then the places that pass constants to those.
 	for cur := range root.Preorder((*ast.BinaryExpr)(nil)) {
 		c.comparison(cur, cur.Node().(*ast.BinaryExpr))
 	}
+	c.wrappers(root)
 	c.uses.Export()
 	known := c.uses.Lookup()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
@@ -87,6 +101,8 @@ func run(pass *analysis.Pass) (any, error) {
 			c.call(n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
+		case *ast.AssignStmt:
+			c.seed(cur, n)
 		}
 	}
 	return nil, nil
@@ -94,8 +110,8 @@ func run(pass *analysis.Pass) (any, error) {
 
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
-	t, ok := tolerance.Recognize(c.pass.TypesInfo, c.decls, n)
-	if !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
+	t, ok := c.read.Recognize(n)
+	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))
@@ -103,7 +119,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.constantTol(cur, t, f, f.Value(v))
 		return
 	}
-	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur)}
+	posn := c.pass.Fset.Position(n.Pos())
+	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
+	c.tested[u] = n.Pos()
 	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
@@ -122,6 +140,75 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		}
 		c.defaults(decl, id, u)
 	}
+}
+
+// wrappers learns the parameters and fields a function passes on, as they
+// are, to a tolerance parameter: a test helper that calls a helper that
+// tests. Facts carry them to importers, so wrappers of wrappers compose
+// within and across packages.
+func (c *checker) wrappers(root inspector.Cursor) {
+	known := c.uses.Lookup()
+	for range 4 {
+		grew := false
+		for cur := range root.Preorder((*ast.CallExpr)(nil)) {
+			if eitherOr(cur) {
+				continue // one of several tests that pass on their own: its tolerance cannot make the whole exact
+			}
+			tolerance.Sites(c.pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, _ string) {
+				grew = c.passesOn(cur, val, u, known) || grew
+			})
+		}
+		if !grew {
+			return
+		}
+	}
+}
+
+// eitherOr reports whether the call at cur is an operand of ||, as in
+// EqualWithinAbs(a, b, atol) || EqualWithinRel(a, b, rtol): the other test
+// may pass where this one cannot.
+func eitherOr(cur inspector.Cursor) bool {
+	for p := cur.Parent(); ; p = p.Parent() {
+		switch b := p.Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			return b.Op == token.LOR
+		case *ast.UnaryExpr:
+			if b.Op == token.NOT {
+				continue
+			}
+		}
+		return false
+	}
+}
+
+// passesOn records val, when it is a parameter of the enclosing function or
+// a field of this package, as a tolerance of use u, and reports whether
+// that is new.
+func (c *checker) passesOn(cur inspector.Cursor, val ast.Expr, u use, known tolerance.Lookup[use]) bool {
+	if field := tolerance.FieldOf(c.pass.TypesInfo, val); field != nil && field.Pkg() == c.pass.Pkg {
+		if _, ok := known.Field(field); !ok {
+			c.uses.Field(field, u)
+			return true
+		}
+		return false
+	}
+	id, ok := ast.Unparen(val).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, fd.Node().(*ast.FuncDecl), id)
+		if !ok {
+			continue
+		}
+		if _, has := known.Params(fn)[i]; !has {
+			c.uses.Param(fn, i, u)
+			return true
+		}
+	}
+	return false
 }
 
 // defaults reports constants given to the tolerance id in the defaulting

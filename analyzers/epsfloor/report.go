@@ -3,11 +3,14 @@ package epsfloor
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/constval"
@@ -36,14 +39,38 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 }
 
 // magnitude returns the size of the compared values when an operand is a
-// constant, else 0.
+// constant or read from a table of constants, else 0.
 func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
 	for _, e := range []ast.Expr{t.A, t.B} {
-		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
-			return math.Abs(f.Value(v))
+		if m := c.sizeOf(e, f); m > 0 {
+			return m
 		}
 	}
 	return 0
+}
+
+// sizeOf returns |e| when e is a constant, or the largest magnitude among
+// the constants the package's composite literals give the field e reads,
+// when that field is declared in a test (the expected values of a table of
+// test cases, tc.want), else 0.
+func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
+	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
+		return math.Abs(f.Value(v))
+	}
+	field := tolerance.FieldOf(c.pass.TypesInfo, e)
+	if field == nil || !inTestFile(c.pass.Fset, field.Pos()) {
+		return 0 // only a test's own table of cases says what values reach the test
+	}
+	if c.fields == nil {
+		c.fields = constval.Fields(c.pass.TypesInfo, c.pass.Files)
+	}
+	size := 0.0
+	for _, val := range c.fields[field] {
+		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && v.Kind() != constant.Complex {
+			size = max(size, math.Abs(f.Value(v)))
+		}
+	}
+	return size
 }
 
 func category(res tolerance.Resolution) string {
@@ -106,24 +133,30 @@ func (c *checker) tolFix(cur inspector.Cursor, t tolerance.Test, res tolerance.R
 		}
 		return []fixes.Fix{fixes.Judgement("Use 4 ulps as the relative tolerance: "+f.FewUlpsLiteral(), fixes.Replace(target, f.FewUlpsLiteral()))}
 	case tolerance.Subnormal:
+		if t.Kind == tolerance.Absolute {
+			return c.relativeFix(cur, t, f, false) // eps would do no better away from 1
+		}
 		return []fixes.Fix{fixes.Judgement("Use "+f.Name+" epsilon: "+f.EpsLiteral(), fixes.Replace(t.Tol, f.EpsLiteral()))}
 	case tolerance.BelowEpsilon, tolerance.BelowSpacing:
-		return c.mixedFix(cur, t, f)
+		return c.relativeFix(cur, t, f, true)
 	}
 	return nil
 }
 
-// mixedFix turns |a-b| < tol into |a-b| < tol + 4ulps·max(|a|,|b|), keeping
-// tol as the floor near zero. It needs the difference written in the
-// comparison itself, so that a and b are the values compared, and float64
-// operands, which math.Abs and math.Max take as they are.
-func (c *checker) mixedFix(cur inspector.Cursor, t tolerance.Test, f numeric.Format) []fixes.Fix {
+// relativeFix makes the test |a-b| < tol relative to the size of the
+// compared values: |a-b| < tol + 4ulps·max(|a|,|b|), keeping tol as the
+// floor near zero, or, when tol is no floor worth keeping (the smallest
+// subnormal), |a-b| < 4ulps·max(|a|,|b|). A residual such as k·q² - h
+// rounds at about eps·|h|, so only a tolerance that grows with h can pass
+// for every h. It needs a and b repeatable at the comparison (see
+// repeatable) and float64, which math.Abs and math.Max take as they are;
+// and no text nearby saying the test is meant to be exact.
+func (c *checker) relativeFix(cur inspector.Cursor, t tolerance.Test, f numeric.Format, keep bool) []fixes.Fix {
 	f64 := types.Typ[types.Float64]
 	if !types.Identical(c.pass.TypesInfo.TypeOf(t.A), f64) || !types.Identical(c.pass.TypesInfo.TypeOf(t.B), f64) {
 		return nil
 	}
-	if t.Scale != nil || !within(t.A, t.Cmp) || !within(t.Tol, t.Cmp) ||
-		!fixes.Pure(c.pass.TypesInfo, t.A) || !fixes.Pure(c.pass.TypesInfo, t.B) {
+	if t.Scale != nil || !within(t.Tol, t.Cmp) || !c.repeatable(cur, t) || fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
 		return nil
 	}
 	name, edits, ok := fixes.Import(c.pass.TypesInfo, fileOf(cur), t.Cmp.Pos(), "math")
@@ -131,8 +164,108 @@ func (c *checker) mixedFix(cur inspector.Cursor, t tolerance.Test, f numeric.For
 		return nil
 	}
 	a, b := fixes.Source(c.pass.Fset, t.A), fixes.Source(c.pass.Fset, t.B)
-	text := fmt.Sprintf("%[1]s + %[2]s*%[3]s.Max(%[3]s.Abs(%[4]s), %[3]s.Abs(%[5]s))", fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()), f.FewUlpsLiteral(), name, a, b)
-	return []fixes.Fix{fixes.Judgement("Add a relative term of 4 ulps: "+text, append(edits, fixes.Replace(t.Tol, text))...)}
+	text := fmt.Sprintf("%[1]s*%[2]s.Max(%[2]s.Abs(%[3]s), %[2]s.Abs(%[4]s))", f.FewUlpsLiteral(), name, a, b)
+	msg := "Test relative to the compared values, 4 ulps: "
+	if keep {
+		text = fixes.Operand(c.pass.Fset, t.Tol, token.ADD.Precedence()) + " + " + text
+		msg = "Add a relative term of 4 ulps: "
+	}
+	return []fixes.Fix{fixes.Judgement(msg+text, append(edits, fixes.Replace(t.Tol, text))...)}
+}
+
+// repeatable reports whether the operands a and b of the tested difference
+// can be written again at the comparison and mean the same values there:
+// they are pure and either written in the comparison itself or in the
+// initialiser of a variable declared earlier in the same block, with no
+// statement in between assigning a variable they read (r := k*q*q - h;
+// if math.Abs(r) < tol).
+func (c *checker) repeatable(cur inspector.Cursor, t tolerance.Test) bool {
+	info := c.pass.TypesInfo
+	if !fixes.Pure(info, t.A) || !fixes.Pure(info, t.B) {
+		return false
+	}
+	if within(t.A, t.Cmp) && within(t.B, t.Cmp) {
+		return true
+	}
+	def, ok := cur.Inspector().Root().FindByPos(t.A.Pos(), t.A.End())
+	if !ok {
+		return false
+	}
+	block, from, ok := stmtInBlock(def, nil)
+	if !ok {
+		return false
+	}
+	_, to, ok := stmtInBlock(cur, block)
+	if !ok || to <= from {
+		return false
+	}
+	read := varsIn(info, t.A, t.B)
+	for _, s := range block.List[from+1 : to] {
+		if assigns(info, s, read) {
+			return false
+		}
+	}
+	return true
+}
+
+// stmtInBlock returns the block holding the statement around cur and the
+// statement's index there; with want set, the first such block that is want.
+func stmtInBlock(cur inspector.Cursor, want *ast.BlockStmt) (*ast.BlockStmt, int, bool) {
+	for ; cur.Valid(); cur = cur.Parent() {
+		if k, i := cur.ParentEdge(); k == edge.BlockStmt_List {
+			b := cur.Parent().Node().(*ast.BlockStmt)
+			if want == nil || b == want {
+				return b, i, true
+			}
+		}
+	}
+	return nil, 0, false
+}
+
+// varsIn returns the variables the expressions read.
+func varsIn(info *types.Info, es ...ast.Expr) map[types.Object]bool {
+	vars := make(map[types.Object]bool)
+	for _, e := range es {
+		ast.Inspect(e, func(n ast.Node) bool {
+			if id, ok := n.(*ast.Ident); ok {
+				if v, ok := info.Uses[id].(*types.Var); ok {
+					vars[v] = true
+				}
+			}
+			return true
+		})
+	}
+	return vars
+}
+
+// assigns reports whether statement s may change one of vars: by
+// assignment, increment, range or taking its address.
+func assigns(info *types.Info, s ast.Stmt, vars map[types.Object]bool) bool {
+	found := false
+	hit := func(e ast.Expr) {
+		if id, ok := ast.Unparen(e).(*ast.Ident); ok && vars[info.ObjectOf(id)] {
+			found = true
+		}
+	}
+	ast.Inspect(s, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			for _, l := range n.Lhs {
+				hit(l)
+			}
+		case *ast.IncDecStmt:
+			hit(n.X)
+		case *ast.RangeStmt:
+			hit(n.Key)
+			hit(n.Value)
+		case *ast.UnaryExpr:
+			if n.Op == token.AND {
+				hit(n.X)
+			}
+		}
+		return !found
+	})
+	return found
 }
 
 // within reports whether n lies inside outer.
@@ -146,4 +279,10 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
+}
+
+// inTestFile reports whether pos lies in a _test.go file.
+func inTestFile(fset *token.FileSet, pos token.Pos) bool {
+	f := fset.File(pos)
+	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }

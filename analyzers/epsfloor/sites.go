@@ -3,9 +3,7 @@ package epsfloor
 import (
 	"fmt"
 	"go/ast"
-	"go/constant"
 	"go/types"
-	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
@@ -81,11 +79,10 @@ func (c *checker) call(call *ast.CallExpr) {
 // a constant, or 0.
 func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
 	for _, i := range p.values {
-		if i >= len(call.Args) {
-			continue
-		}
-		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, call.Args[i]); ok && constant.Sign(v) != 0 {
-			return math.Abs(numeric.Float64.Value(v))
+		if i < len(call.Args) {
+			if m := c.sizeOf(call.Args[i], numeric.Float64); m > 0 {
+				return m
+			}
 		}
 	}
 	return 0
@@ -107,6 +104,9 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 	d := analysis.Diagnostic{
 		Pos: val.Pos(), End: val.End(), Category: category(res),
 		Message: fmt.Sprintf("%s, %s (%s), %s", numeric.WithValue(src, tol), how, u, explain(res, tol, f, mag)),
+	}
+	if pos, ok := c.tested[u]; ok {
+		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
 	}
 	var fs []fixes.Fix
 	switch res {

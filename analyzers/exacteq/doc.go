@@ -29,8 +29,31 @@
 //     itself, with == or != (for x := 0.0; x != 1; x += 0.1 never stops); when
 //     start, step and bound are constants the loop is simulated in the
 //     variable's own format and reported only if the bound is missed;
+//   - an ordered loop condition (x <= b, x < b) on a float variable with a
+//     constant start and bound and a step of one or more constant values,
+//     that makes fewer passes in the variable's format than exact
+//     arithmetic on the decimals as written gives (from 0 by 0.05, x <= 1
+//     passes 20 times, not 21: the 21st value is 1.0000000000000002);
+//   - a zero test of a difference of computed values (the cross product
+//     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
+//     difference, also through a package function): the difference is 0
+//     exactly when its terms round to the same float (Sterbenz), so inputs
+//     that make it 0 in exact arithmetic usually leave a residue of a few
+//     ulps;
+//   - a product or quotient tested against its own whole part
+//     (pos == math.Floor(pos), pos == float64(int(pos)) with pos := p*n): a
+//     value whole in exact arithmetic can come out an ulp below
+//     (0.29*100 is 28.999999999999996), and the test misses it;
 //   - in tests, testify's assert or require Equal (and its variants) compares
-//     floats under the same rules.
+//     floats under the same rules;
+//   - in tests, an exact comparison (==, !=, testify's Equal,
+//     reflect.DeepEqual, cmp.Equal, on floats or on structs and arrays of
+//     them) of a result with a printed value: a constant whose shortest
+//     decimal form has 16 or more significant digits (8 for float32) and
+//     that its type stores inexactly, written in the comparison, named, or
+//     read from a table of cases (tc.want). Such a test pins the last bits
+//     of a computation, which change with the order of operations and with
+//     fused multiply-add, so it fails on other platforms.
 //
 // It leaves alone the idioms that compare exactly on purpose: the NaN test
 // x != x; comparisons with exact zero, with infinities and with
@@ -38,16 +61,48 @@
 // anything (sentinels such as alpha == 1, sorting and deduplication, knot
 // hits in interpolation); computed values compared with a constant the type
 // stores exactly (scale != 1 shortcuts); results of math functions that do
-// not round (Abs, Floor, Max...) and of functions from other packages; an
+// not round (Abs, Floor, Max...) of inputs (Abs and Copysign of a computed
+// value carry its error) and of functions from other packages; an
 // operand derived from the other on purpose (the bisection stop m == a where
-// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x)); a value
+// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x) for an x
+// that is not a product or quotient); a value
 // against a merge that has it as an input (did the branch change it?);
 // copies of the same value shuffled through branches (the points a and c of
 // Brent's zero finder); a variable against its own earlier value; a pair
 // whose difference the same function also tests against a tolerance (the
-// exact test is a shortcut); loop variables clamped to the bound; and, in
-// _test.go files, results and fields produced by the code under test, which
-// a test compares with a second route through that code on purpose.
+// exact test is a shortcut); results of the same function on arguments
+// passed by value (the same roundings applied to equal inputs give equal
+// results, so hue(a) == hue(b) in a comparator compares the inputs; a
+// function of slices such as a sum stays a hazard); loop variables clamped
+// to the bound; a value
+// against its own value from the previous pass (a series summed until a
+// term no longer changes the sum stops exactly when the term is absorbed,
+// with every digit the format holds); infinities held in variables, as
+// math.Inf itself; a sum tested against a constant it was made by adding
+// (a = a + 2π; a == 2π asks whether a was absorbed); absorption guards
+// (x+1 == x, and x != x-1 in a loop condition, which ask whether 1 is below
+// half the spacing at x); zero tests of differences of inputs (0 exactly
+// when they are equal), of sums of squares (0 only for the zero vector), of
+// remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
+// (exact where exact sign algorithms use them), and of recurrence terms
+// that feed the next pass (a residue there only scales the next term);
+// ordered float loops whose pass count agrees with exact arithmetic or
+// exceeds it (the extra value lies within rounding error below the bound,
+// inside the admitted range); and,
+// in _test.go files, results and fields produced by the code under test,
+// which a test compares with a second route through that code on purpose,
+// tests whose function says it checks exactness (one correctly rounded
+// operation on each side gives the same float, IEEE 754-2019 §4.3, and a
+// tolerance would defeat the check), printed values parsed back from a
+// string holding the same digits or decoded from text by the standard
+// library (exact by correct rounding, IEEE 754-2019 §5.12), results of
+// package functions that return their input unrounded, results computed
+// the same way on every platform (by + - * / with no product added to
+// another value, which Go may fuse into one rounding, and by correctly
+// rounded or exact math functions such as Sqrt, Abs and Floor, through
+// package functions built the same way; Sin, Exp, Pow and the like may
+// differ in the last bits between platforms), and printed values that also appear among the test's inputs
+// (passed through without arithmetic, as the vertices a hull keeps).
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
 // condition x != b with a constant step s in the loop's post statement
@@ -59,5 +114,8 @@
 // positive constant c) with rtol 1e-9 for float64 and 1e-5 for float32, and
 // testify's Equal becomes InEpsilon when the expected value is a nonzero
 // constant; the tolerance is a judgement, so go fix and go vet -fix do not
-// apply these, only standalone roundoff -fix does.
+// apply these, only standalone roundoff -fix does. No tolerance fix is
+// offered where the statement's strings or nearby comments say the
+// comparison is exact ("exactly", "bit-for-bit"): the fix would leave them
+// untrue. Residues, ordered loops and pinned structs get no fix.
 package exacteq

@@ -15,6 +15,7 @@ import (
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/provenance"
 )
@@ -40,6 +41,9 @@ const (
 	catLoop     = "loop"
 	catAggr     = "aggregate"
 	catTestify  = "testify"
+	catPinned   = "pinned"
+	catResidue  = "residue"
+	catWhole    = "whole"
 )
 
 // checker holds what one run needs.
@@ -50,6 +54,7 @@ type checker struct {
 	globals constval.Globals
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
+	fields  map[types.Object][]ast.Expr
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -67,8 +72,11 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
 		switch n := cur.Node().(type) {
 		case *ast.BinaryExpr:
-			if n.Op == token.EQL || n.Op == token.NEQ {
+			switch n.Op {
+			case token.EQL, token.NEQ:
 				c.comparison(cur, n)
+			case token.LSS, token.LEQ, token.GTR, token.GEQ:
+				c.orderedLoop(cur, n)
 			}
 		case *ast.CaseClause:
 			c.caseClause(cur, n)
@@ -116,12 +124,17 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	t := c.pass.TypesInfo.TypeOf(n.X)
 	switch {
 	case provenance.IsFloat(t):
-		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) {
+		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) {
 			return
 		}
-		c.scalar(cur, n, n.Op, x, y)
+		fix := func() []fixes.Fix { return c.toleranceFix(cur, n, x, y, t) }
+		if !c.pinned(cur, n, "exact "+n.Op.String(), x, y, fix) {
+			c.scalar(cur, n, n.Op, x, y)
+		}
 	case holdsFloat(t, 0):
-		c.aggregate(n, x, y)
+		if !c.deliberate(cur) && !c.pinned(cur, n, n.Op.String()+" on "+typeName(t)+" values", x, y, nil) {
+			c.aggregate(n, x, y)
+		}
 	}
 }
 
@@ -141,10 +154,14 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 // scalar applies the computed-value rules to a float comparison; n is nil
 // for a switch case, which gets no fix.
 func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
-	if c.exempt(x) || c.exempt(y) {
+	if c.residue(n, op, x, y) || c.exempt(x) || c.exempt(y) {
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
+	if cx && wholeOf(y.val, x.val) || cy && wholeOf(x.val, y.val) {
+		c.reportWhole(n, op, x, y)
+		return
+	}
 	if cx && cy {
 		if !derived(x.val, y.val) {
 			c.reportComputed(cur, n, op, x, y, nil)
@@ -182,7 +199,93 @@ func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 func derived(x, y ssa.Value) bool {
 	return provenance.DependsOn(x, y) || provenance.DependsOn(y, x) ||
 		provenance.MergedFrom(x, y) || provenance.MergedFrom(y, x) ||
-		provenance.SameSources(x, y) || provenance.Differenced(x, y)
+		provenance.SameSources(x, y) || provenance.Differenced(x, y) ||
+		lastValue(x, y) || lastValue(y, x) || sameRoute(x, y)
+}
+
+// sameRoute reports whether x and y are results of the same function on
+// arguments passed by value (numbers, and structs and arrays of them): the
+// same roundings applied to equal inputs give equal results, so the test
+// compares the inputs as the function sees them, as a sort comparator
+// breaking ties (hue(a) == hue(b)) or a snap to a grid (snap(p) == snap(q))
+// does. A function of slices or pointers, such as a sum over a slice in
+// another order, stays a hazard.
+func sameRoute(x, y ssa.Value) bool {
+	cx, ok1 := provenance.Strip(x).(*ssa.Call)
+	cy, ok2 := provenance.Strip(y).(*ssa.Call)
+	if !ok1 || !ok2 || cx.Common().StaticCallee() == nil || cx.Common().StaticCallee() != cy.Common().StaticCallee() {
+		return false
+	}
+	for _, a := range append(cx.Common().Args, cy.Common().Args...) {
+		if !byValue(a.Type(), 4) {
+			return false
+		}
+	}
+	return true
+}
+
+// byValue reports whether t holds no references: a number, a string, or a
+// struct or array of such.
+func byValue(t types.Type, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return true
+	case *types.Array:
+		return byValue(u.Elem(), depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if !byValue(f.Type(), depth-1) {
+				return false
+			}
+		}
+		return true
+	}
+	return false
+}
+
+// lastValue reports whether y holds x's value from the previous pass of a
+// loop, x being carried from pass to pass: a merge one of whose incoming
+// values is x itself (last = sum at the top of each pass, then sum != last
+// as the stop). A fresh value against a running minimum (w == min, a tie
+// of path costs summed in different orders) is not such a test. A series summed
+// until a term no longer changes the sum stops exactly when the term is
+// absorbed, when the sum holds every digit the format can.
+func lastValue(x, y ssa.Value) bool {
+	acc, ok := provenance.Strip(x).(*ssa.Phi)
+	if !ok || provenance.Of(acc) != provenance.LoopCarried {
+		return false // not a value carried from pass to pass, such as a fresh candidate against a running minimum
+	}
+	phi, ok := provenance.Strip(y).(*ssa.Phi)
+	if !ok {
+		return false
+	}
+	for _, e := range phi.Edges {
+		if provenance.Strip(e) == provenance.Strip(x) && e != phi {
+			return true
+		}
+	}
+	return false
+}
+
+// landsOn reports whether x is a sum or difference with the constant y
+// itself among its operands: x = a + P; x == P asks whether a was absorbed
+// (an angle of -1e-17 wrapped by adding 2π rounds to 2π exactly), which is
+// the right question.
+func landsOn(x, y ssa.Value) bool {
+	c, ok := provenance.Strip(y).(*ssa.Const)
+	b, ok2 := provenance.Strip(x).(*ssa.BinOp)
+	if !ok || !ok2 || c.Value == nil || b.Op != token.ADD && b.Op != token.SUB {
+		return false
+	}
+	for _, op := range []ssa.Value{b.X, b.Y} {
+		if k, ok := provenance.Strip(op).(*ssa.Const); ok && k.Value != nil && constant.Compare(k.Value, token.EQL, c.Value) {
+			return true
+		}
+	}
+	return false
 }
 
 // exempt reports whether an operand makes any comparison deliberate: exact
@@ -204,6 +307,14 @@ func (c *checker) exempt(o operand) bool {
 	}
 	f, _ := constant.Float64Val(v)
 	return f > 1.79e308 || f < -1.79e308
+}
+
+// deliberate reports whether cur lies in a test function that says it
+// checks exactness (fixes.FuncSaysExact): one correctly rounded operation
+// on each side gives the same float (IEEE 754-2019 §4.3), and such tests
+// check exactly that, so a tolerance would defeat them.
+func (c *checker) deliberate(cur inspector.Cursor) bool {
+	return c.inTest(cur) && fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
 }
 
 // holdsFloat reports whether t is an array or struct with a float element

@@ -56,3 +56,23 @@ func TestFixedProgramRuns(t *testing.T) {
 	// the loop runs the 10 steps that exact arithmetic gives for 0 to 1 by 0.1.
 	assert.Equal(t, "sum equals 0.3: true\nreading is NaN: true\nsteps: 10\n", after)
 }
+
+// TestPinnedRelated checks that a printed value read from a table of cases
+// is named as the finding's second place (common practice: the reader
+// must find the value from the test and the test from the value).
+func TestPinnedRelated(t *testing.T) {
+	res := analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "gauge")
+	found := false
+	for _, r := range res {
+		for _, d := range r.Diagnostics {
+			if d.Category != "pinned" || len(d.Related) == 0 {
+				continue
+			}
+			at := r.Pass.Fset.Position(d.Related[0].Pos)
+			assert.Equal(t, "gauge_test.go", filepath.Base(at.Filename))
+			assert.Less(t, at.Line, r.Pass.Fset.Position(d.Pos).Line, "the table comes before the loop")
+			found = true
+		}
+	}
+	assert.True(t, found, "a pinned finding names the table's value")
+}

@@ -38,6 +38,9 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 			return false
 		}
 	}
+	if lastValue(phi, bound.val) || provenance.DependsOn(bound.val, phi) {
+		return true // the previous pass's value (a stagnation stop), or x != x-1 (an absorption guard)
+	}
 	step, _ := provenance.LoopStep(phi)
 	sim := c.simulate(phi, step, bound.val)
 	if sim.hits {

@@ -105,8 +105,8 @@ func (c *checker) reportComputed(cur inspector.Cursor, n *ast.BinaryExpr, op tok
 // type cannot represent exactly.
 func (c *checker) literal(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, y.expr)
-	if !ok || v.Kind() == constant.Complex {
-		return // not a constant, or complex: only real literals are judged
+	if !ok || v.Kind() == constant.Complex || landsOn(x.val, y.val) {
+		return // not a constant, complex (only real literals are judged), or an absorption test
 	}
 	t := c.pass.TypesInfo.TypeOf(x.expr)
 	f := provenance.FormatOf(t)
@@ -143,9 +143,11 @@ func typeName(t types.Type) string {
 
 // toleranceFix returns the fix replacing an exact comparison by a relative
 // tolerance test, or none when the operands cannot be repeated safely, the
-// comparison is a switch case, or the values are complex.
+// comparison is a switch case, the values are complex, or the code around
+// says the comparison is exact (fixes.SaysExact).
 func (c *checker) toleranceFix(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand, t types.Type) []fixes.Fix {
-	if n == nil || isComplex(t) || !fixes.Pure(c.pass.TypesInfo, x.expr) || !fixes.Pure(c.pass.TypesInfo, y.expr) {
+	if n == nil || isComplex(t) || !fixes.Pure(c.pass.TypesInfo, x.expr) || !fixes.Pure(c.pass.TypesInfo, y.expr) ||
+		fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
 		return nil
 	}
 	name, edits, ok := c.importMath(cur, n.Pos())

@@ -30,7 +30,17 @@ var testifyEqual = map[string]string{
 // exactly under the same rules as ==.
 func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || !isTestify(fn.Pkg().Path()) {
+	if !ok || fn.Pkg() == nil || c.deliberate(cur) {
+		return
+	}
+	if deepEqual[fn.Pkg().Path()+"."+fn.Name()] && len(call.Args) >= 2 {
+		if sc := c.calls[call.Lparen]; sc != nil && len(sc.Common().Args) >= 2 {
+			args := sc.Common().Args
+			c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), operand{call.Args[0], args[0]}, operand{call.Args[1], args[1]}, nil)
+		}
+		return
+	}
+	if !isTestify(fn.Pkg().Path()) {
 		return
 	}
 	replacement, ok := testifyEqual[fn.Name()]
@@ -48,6 +58,10 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	args := sc.Common().Args[recv+first:]
 	exp, act := operand{call.Args[first], args[0]}, operand{call.Args[first+1], args[1]}
 	t := c.pass.TypesInfo.TypeOf(act.expr)
+	fix := func() []fixes.Fix { return c.inEpsilonFix(call, exp, first, replacement, provenance.FormatOf(t)) }
+	if replacement != "" && c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), exp, act, fix) {
+		return
+	}
 	if !provenance.IsFloat(t) || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(exp.expr)) || c.exempt(exp) || c.exempt(act) {
 		return
 	}
@@ -60,8 +74,16 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		Message: fmt.Sprintf("%s.%s compares %s values exactly, but %s; %s",
 			fn.Pkg().Name(), fn.Name(), typeName(t), why, remedy(replacement, rtol(provenance.FormatOf(t)))),
 	}
-	fixes.Report(c.pass, d, c.inEpsilonFix(call, exp, first, replacement, provenance.FormatOf(t))...)
+	var fs []fixes.Fix
+	if !fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
+		fs = c.inEpsilonFix(call, exp, first, replacement, provenance.FormatOf(t))
+	}
+	fixes.Report(c.pass, d, fs...)
 }
+
+// deepEqual lists the functions outside testify that compare values, floats
+// included, exactly.
+var deepEqual = map[string]bool{"reflect.DeepEqual": true, "github.com/google/go-cmp/cmp.Equal": true}
 
 func isTestify(path string) bool {
 	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")

@@ -254,3 +254,24 @@ func TestFloatAndGlobals(t *testing.T) {
 		}
 	}
 }
+
+// TestFields checks that a field's values are gathered from composite
+// literals by key and by position, through pointers elided in slices (the
+// Go specification, "Composite literals").
+func TestFields(t *testing.T) {
+	pkg, info, files := build(t, `package p
+
+type row struct{ in, want float64 }
+
+var rows = []row{{1, 0.5}, {in: 2, want: 0.25}}
+
+var ptrs = []*row{{3, 0.125}}
+`)
+	fields := constval.Fields(info, files)
+	want := pkg.Pkg.Scope().Lookup("row").Type().Underlying().(*types.Struct).Field(1)
+	var got []string
+	for _, e := range fields[want] {
+		got = append(got, info.Types[e].Value.String())
+	}
+	assert.Equal(t, []string{"0.5", "0.25", "0.125"}, got)
+}

@@ -141,8 +141,9 @@ func LoopStep(phi *ssa.Phi) (*ssa.BinOp, bool) {
 // work done in this package: inexact arithmetic, a rounding math function,
 // a call of a package function whose result is computed, or a merge of
 // which some input is computed. Constants, parameters, loads, exact math
-// functions (Abs, Floor, Max...) and calls of unknown functions are not
-// computed. Multiplying or dividing by a power of two is exact and passes
+// functions (Floor, Max...) and calls of unknown functions are not
+// computed; Abs and Copysign of a computed value are, since they change
+// only its sign. Multiplying or dividing by a power of two is exact and passes
 // the provenance of the other operand through.
 func (t *Tracker) Computed(v ssa.Value) bool {
 	v = Strip(v)
@@ -213,7 +214,9 @@ func (t *Tracker) callComputed(caller *ssa.Function, c *ssa.CallCommon, index in
 	case Rounds:
 		return true
 	case Exact:
-		return false
+		// |x| and Copysign(x, y) change only the sign: x's rounding error stays.
+		name := c.StaticCallee().Name()
+		return (name == "Abs" || name == "Copysign") && len(c.Args) > 0 && t.Computed(c.Args[0])
 	}
 	fn := c.StaticCallee()
 	if fn == nil || fn.Blocks == nil || fn.Package() != t.pkg {
@@ -231,6 +234,10 @@ func inTestFile(fn *ssa.Function) bool {
 	f := fn.Prog.Fset.File(fn.Pos())
 	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }
+
+// Returns reports, per result, whether fn, a function of the tracked
+// package, returns a computed value on some path.
+func (t *Tracker) Returns(fn *ssa.Function) []bool { return t.resultComputed(fn) }
 
 // resultComputed summarises, per result, whether fn returns a computed value
 // on some path.

@@ -1,6 +1,7 @@
 package hazards
 
 import (
+	"math"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -19,4 +20,20 @@ func TestAPIs(t *testing.T) {
 	require.InDelta(t, x, 0.3, 1e-20)                // want `1e-20, passed to require.InDelta \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 0.3 \(2.78e-17\)`
 	a := assert.New(t)
 	a.InEpsilon(0.3, x, 1e-18) // want `1e-18, passed to assert.InEpsilon \(a relative tolerance of float64 in [A-Za-z]+\)`
+}
+
+// A table of expected values of size up to 1598.6, where float64 values
+// are 2.3e-13 apart: an absolute 1e-14 passes only on exact equality there.
+var moments = []struct{ order, want float64 }{
+	{2, 37.7},
+	{3, 1598.6},
+}
+
+func TestMoments(t *testing.T) {
+	for _, m := range moments {
+		got := m.want * m.order / m.order
+		if math.Abs(got-m.want) > 1e-14 { // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 1598.6 \(1.14e-13\): the test passes only on exact equality`
+			t.Fail()
+		}
+	}
 }

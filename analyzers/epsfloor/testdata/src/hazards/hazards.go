@@ -116,15 +116,15 @@ func (o *Options) close(a, b float64) bool {
 
 func defaults(o *Options) {
 	if o.RelTol == 0 {
-		o.RelTol = 1e-18 // want `1e-18, assigned to field RelTol \(a relative tolerance of float64 in converged\), is below the unit roundoff`
+		o.RelTol = 1e-18 // want `1e-18, assigned to field RelTol \(a relative tolerance of float64 in converged, tested at \w+\.go:\d+\), is below the unit roundoff`
 	}
 	if o.AbsTol == 0 {
-		o.AbsTol = 1e-30 // want `1e-30, assigned to field AbsTol \(an absolute tolerance of float64 in close\), is below float64 epsilon`
+		o.AbsTol = 1e-30 // want `1e-30, assigned to field AbsTol \(an absolute tolerance of float64 in close, tested at \w+\.go:\d+\), is below float64 epsilon`
 	}
 }
 
 func literalField() *Options {
-	return &Options{RelTol: 1e-19} // want `1e-19, set as field RelTol \(a relative tolerance of float64 in converged\), is below`
+	return &Options{RelTol: 1e-19} // want `1e-19, set as field RelTol \(a relative tolerance of float64 in converged, tested at \w+\.go:\d+\), is below`
 }
 
 func solve(a, b, tol float64) bool { // want solve:"parameter 2 is a relative tolerance of float64 in solve"
@@ -132,7 +132,7 @@ func solve(a, b, tol float64) bool { // want solve:"parameter 2 is a relative to
 }
 
 func callsSolve(a, b float64) bool {
-	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve \(a relative tolerance of float64 in [A-Za-z]+\), is below`
+	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve \(a relative tolerance of float64 in [A-Za-z]+, tested at \w+\.go:\d+\), is below`
 }
 
 func stepTest(x float64) float64 {
@@ -148,7 +148,85 @@ func stepTest(x float64) float64 {
 
 func withDefault(a, b, tol float64) bool { // want withDefault:"parameter 2 is a relative tolerance of float64 in withDefault"
 	if tol == 0 {
-		tol = 1e-20 // want `1e-20, given as the default of tol \(a relative tolerance of float64 in withDefault\), is below the unit roundoff`
+		tol = 1e-20 // want `1e-20, given as the default of tol \(a relative tolerance of float64 in withDefault, tested at \w+\.go:\d+\), is below the unit roundoff`
 	}
 	return math.Abs(a-b) <= tol*math.Abs(b)
+}
+
+// residualMoved gets no fix: q changes between the residual and its test,
+// so k*q*q written at the test would be another value.
+func residualMoved(k, h float64) float64 {
+	q := 1.0
+	r := k*q*q - h
+	q = h / k
+	if math.Abs(r) < math.SmallestNonzeroFloat64 { // want `math.SmallestNonzeroFloat64 \(5e-324\) is the smallest positive float64`
+		return q
+	}
+	return 0
+}
+
+// ledgerBalanced gets no fix: its comment says the test is exact, and a
+// tolerance would make that untrue.
+func ledgerBalanced(debit, credit float64) bool {
+	// The ledger must balance exactly.
+	return math.Abs(debit-credit) < 1e-20 // want `absolute tolerance 1e-20 is below float64 epsilon`
+}
+
+// A constant sum rounds once, to its type: each addend is judged against
+// the whole.
+func absorbedChain() float64 {
+	return 1 + 1e-17 + 2e-17 // want `1e-17 has no effect on the rest of the sum: it is below half the spacing of float64 values there \(1.11e-16\), so the sum rounds back to exactly 1`
+}
+
+// A float32 correction kept from float64 code: 6.1e-17 is far below the
+// spacing of float32 values at 1.57.
+func quarterTurn(x float32, g func(float32) float32) float32 {
+	const halfPi float32 = 1.5707963267948966
+	const extra float32 = 6.123233995736766e-17
+	return halfPi - g(x) + extra // want `extra has no effect next to halfPi: it is below half the spacing of float32 values there \(5.96e-08\), so it is absorbed while the sum stays near 1.5707963705062866`
+}
+
+// contFrac evaluates a continued fraction by the modified Lentz method with
+// the smallest subnormal as its floor.
+func contFrac(a, b func(int) float64) float64 {
+	const tiny = math.SmallestNonzeroFloat64
+	f, c, d := tiny, tiny, 0.0 // want `tiny \(5e-324\) floors c, which then divides: 1/4.9e-324 overflows to \+Inf \(the largest float64 is 1.8e\+308\)`
+	for j := 1; j < 100; j++ {
+		d = b(j) + a(j)*d
+		if d == 0 {
+			d = math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 \(5e-324\) floors d, which then divides`
+		}
+		c = b(j) + a(j)/c
+		d = 1 / d
+		f *= c * d
+	}
+	return f
+}
+
+// peak keeps a running maximum from the smallest positive float.
+func peak(xs []float64) float64 {
+	best := math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 starts the running maximum best at 4.9e-324, the smallest positive float64, not the most negative: when every value is ≤ 0 the maximum comes out as 4.9e-324; start at math.Inf\(-1\) or -math.MaxFloat64`
+	for _, x := range xs {
+		if x > best {
+			best = x
+		}
+	}
+	return best
+}
+
+func peak32(xs []float32) float32 {
+	var best float32
+	best = math.SmallestNonzeroFloat32 // want `starts the running maximum best at 1.4e-45, the smallest positive float32`
+	for _, x := range xs {
+		if best < x {
+			best = x
+		}
+	}
+	return best
+}
+
+// A squared norm compared with the smallest subnormal, meant to catch
+// denormal values.
+func denormal(x, y float64) bool {
+	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }

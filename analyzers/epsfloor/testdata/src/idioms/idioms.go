@@ -124,3 +124,51 @@ func saneDefault(c *config) {
 		c.Tol = 4 * 0x1p-52
 	}
 }
+
+// Go evaluates constant expressions exactly and rounds once: each 1e-16
+// alone is below half the spacing at 1, but together they reach the next
+// float64, 1 + 2^-52, and neither is without effect.
+const twoTiny = 1 + 1e-16 + 1e-16
+
+// A tiny constant added to a run-time value with no constant beside it is
+// not judged: the value may be as small as the constant (x + 1e-300 inside
+// a logarithm keeps it finite at x = 0).
+func keepFinite(x float64) float64 { return math.Log(x + 1e-300) }
+
+// A tiny floor that never divides, a running minimum from the largest
+// float, and a running maximum from the most negative one are right.
+func seedsRight(xs []float64) (float64, float64, float64) {
+	floor := math.SmallestNonzeroFloat64
+	lo, hi := math.MaxFloat64, -math.MaxFloat64
+	for _, x := range xs {
+		if x < lo {
+			lo = x
+		}
+		if x > hi {
+			hi = x
+		}
+		floor = math.Max(floor, x*x)
+	}
+	return floor, lo, hi
+}
+
+// A floor whose reciprocal is finite (1e-300 gives 1e300) may divide.
+func lentzSafe(a float64) float64 {
+	d := a
+	if d == 0 {
+		d = 1e-300
+	}
+	return 1 / d
+}
+
+// Values a production type's fields take somewhere in the package do not
+// say what reaches a test of them: only a test's own table of cases does.
+type span struct{ lo, hi float64 }
+
+var spans = []span{{0, 99}, {1, 100}}
+
+func nearEnd(s span, x float64) bool { return math.Abs(s.hi-x) < 1e-15 }
+
+// 1 - p is exact for p in [0.5, 2] (Sterbenz), so at p = 1 the sum is
+// exactly 1e-16 and the tiny addend keeps the logarithm finite.
+func crossEntropy(p float64) float64 { return -math.Log(1 - p + 1e-16) }

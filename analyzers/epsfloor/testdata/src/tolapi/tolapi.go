@@ -17,3 +17,14 @@ func Refine(s Settings, a, b float64) bool {
 func Agree(a, b, tol float64) bool { // want Agree:"parameter 2 is an absolute tolerance of float64 in Agree"
 	return math.Abs(a-b) < tol
 }
+
+// Close passes its tolerance on to Agree.
+func Close(a, b, eps float64) bool { // want Close:"parameter 2 is an absolute tolerance of float64 in Agree"
+	return Agree(a, b, eps)
+}
+
+// Either passes when either test does: its atol cannot make it exact, so
+// it is not learned as a tolerance.
+func Either(a, b, atol, rtol float64) bool { // want Either:"parameter 3 is a relative tolerance"
+	return Agree(a, b, atol) || math.Abs(a-b) <= rtol*math.Abs(b)
+}

@@ -128,3 +128,76 @@ func tie(r *road, from, to int, w float64) bool {
 	r.relax(to, joint)
 	return joint == r.dist[from+1] // want `exact == between a computed float64 value and field dist, which this package fills with computed values`
 }
+
+func inclusiveGrid() int {
+	n := 0
+	for w := 0.0; w <= 1; w += 0.05 { // want `float loop variable w goes from 0 in steps of 0.05 and the test w <= 1 passes 20 times, where exact arithmetic passes 21: the accumulated value 1.0000000000000002 is off by rounding`
+		n++
+	}
+	return n
+}
+
+func chosenStep(fine bool) int {
+	dw := 0.25
+	if fine {
+		dw = 0.01
+	}
+	n := 0
+	for w := 0.0; w <= 1; w += dw { // want `in steps of 0.01 and the test w <= 1 passes 100 times, where exact arithmetic passes 101`
+		n++
+	}
+	return n
+}
+
+type vec struct{ X, Y float64 }
+
+func (p vec) sub(q vec) vec       { return vec{p.X - q.X, p.Y - q.Y} }
+func (p vec) cross(q vec) float64 { return p.X*q.Y - p.Y*q.X }
+
+func collinear(a, b, c vec) bool {
+	return b.sub(a).cross(c.sub(a)) == 0 // want `exact == 0 on b.sub\(a\).cross\(c.sub\(a\)\), a difference of computed float64 values: it is 0 only when both terms round to the same float`
+}
+
+func onLine(x1, y1, x2, y2, px, py float64) bool {
+	c := x2*y1 - x1*y2
+	r := (y2-y1)*px + (x1-x2)*py + c
+	return r != 0 // want `exact != 0 on r, a difference of computed float64 values`
+}
+
+// rankOf picks the rank at fraction p of n sorted values, averaging two
+// neighbours when p·n is whole.
+func rankOf(p float64, n int) (int, bool) {
+	pos := p * float64(n)
+	if pos == float64(int(pos)) { // want `exact == tests whether the computed value pos is a whole number: a value whole in exact arithmetic can come out an ulp below or above \(0.29\*100 is 28.999999999999996\)`
+		return int(pos), true
+	}
+	return int(pos), false
+}
+
+func ratioWhole(a, b float64) bool {
+	r := a / b
+	return math.Trunc(r) == r // want `tests whether the computed value r is a whole number`
+}
+
+// cheapest breaks ties between path costs summed in different orders.
+func cheapest(costs [][2]float64) int {
+	best, min := -1, math.Inf(1)
+	for i, c := range costs {
+		w := c[0] + c[1]
+		if w < min || w == min && i < best { // want `exact == between two computed float64 values`
+			best, min = i, w
+		}
+	}
+	return best
+}
+
+// netArea is zero when the holes fill the shell in exact arithmetic; the
+// two rounded areas rarely agree to the last bit.
+func netArea(shell, holes float64, w, h float64) bool {
+	a := math.Abs(shell * w * h)
+	return a-holes*w*h == 0 // want `exact == 0 on a - holes\*w\*h, a difference of computed float64 values`
+}
+
+func sagZero(x1, y1, x2, y2 float64) bool {
+	return math.Abs(x1*y2-x2*y1) == 0 // want `exact == 0 on math.Abs\(x1\*y2 - x2\*y1\)`
+}

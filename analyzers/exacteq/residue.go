@@ -1,0 +1,170 @@
+package exacteq
+
+import (
+	"fmt"
+	"go/ast"
+	"go/token"
+	"go/types"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
+)
+
+// residue reports a zero test of a difference of computed values, such as
+// the cross product x1*y2 - x2*y1 == 0 that decides collinearity, or a
+// residual a*x + b*y + c with c itself such a difference. A difference is
+// zero exactly when its operands are the same float (Sterbenz: the
+// subtraction of close floats is exact, so a-b == 0 iff a == b), so the
+// test is an exact comparison of two computed values: inputs that make
+// them equal in exact arithmetic (collinear points, a point on the line)
+// usually leave a residue of a few ulps of the terms. It reports whether
+// the comparison was such a zero test.
+func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool {
+	other := x
+	if !c.isZero(y) {
+		if !c.isZero(x) {
+			return false
+		}
+		other = y
+	}
+	if n == nil || !c.cancels(other.val, 4) {
+		return true
+	}
+	t := c.pass.TypesInfo.TypeOf(other.expr)
+	f := provenance.FormatOf(t)
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catResidue,
+		Message: fmt.Sprintf("exact %s 0 on %s, a difference of computed %s values: it is 0 only when both terms round to the same float, so inputs that make it 0 in exact arithmetic (collinear points, a point on a line) usually leave a residue of a few ulps of the terms (%.3g relative each); compare its magnitude with a tolerance scaled by the terms",
+			op, fixes.Source(c.pass.Fset, other.expr), typeName(t), f.U),
+	})
+	return true
+}
+
+// isZero reports whether o is the constant zero.
+func (c *checker) isZero(o operand) bool {
+	tv, ok := c.pass.TypesInfo.Types[o.expr]
+	return ok && tv.Value != nil && tv.Value.String() == "0"
+}
+
+// cancels reports whether v is a difference of two computed values, a sum
+// or difference with such a difference among its operands, or the result
+// of a package function that returns one on every path. A difference that
+// subtracts an integral multiple (k := math.Floor(x/y); x - k*y) is a
+// remainder reduction, exact where exact sign algorithms use it, and does
+// not count.
+func (c *checker) cancels(v ssa.Value, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	switch v := provenance.Strip(v).(type) {
+	case *ssa.BinOp:
+		if v.Op != token.ADD && v.Op != token.SUB || integral(v.X) || integral(v.Y) {
+			return false
+		}
+		if v.Op == token.SUB && c.track.Computed(v.X) && c.track.Computed(v.Y) {
+			return !recurrent(v)
+		}
+		return c.cancels(v.X, depth-1) || c.cancels(v.Y, depth-1)
+	case *ssa.Call:
+		if fn := v.Common().StaticCallee(); fn != nil && fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && fn.Name() == "Abs" {
+			return c.cancels(v.Common().Args[0], depth-1) // |d| == 0 exactly when d == 0
+		}
+		return c.returnsCancelling(v.Common(), depth-1)
+	}
+	return false
+}
+
+// recurrent reports whether v feeds a merge, as a term of a recurrence
+// does (the numerators and denominators of a continued fraction, carried
+// to the next pass): its zero is no predicate on the inputs, and a residue
+// there only scales the next term.
+func recurrent(v ssa.Value) bool {
+	for _, r := range *v.Referrers() {
+		if _, ok := r.(*ssa.Phi); ok {
+			return true
+		}
+	}
+	return false
+}
+
+// integral reports whether v is, or is a product with, the result of a
+// math function that returns a whole number.
+func integral(v ssa.Value) bool {
+	v = provenance.Strip(v)
+	if b, ok := v.(*ssa.BinOp); ok && b.Op == token.MUL {
+		return integral(b.X) || integral(b.Y)
+	}
+	call, ok := v.(*ssa.Call)
+	if !ok {
+		return false
+	}
+	fn := call.Common().StaticCallee()
+	return fn != nil && fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && wholeMath[fn.Name()]
+}
+
+// wholeMath are the math functions whose results are whole numbers.
+var wholeMath = map[string]bool{"Floor": true, "Ceil": true, "Trunc": true, "Round": true, "RoundToEven": true}
+
+// returnsCancelling reports whether the callee, a function of this package
+// with one result, returns a cancelling difference on every path.
+func (c *checker) returnsCancelling(call *ssa.CallCommon, depth int) bool {
+	fn := call.StaticCallee()
+	if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg || fn.Signature.Results().Len() != 1 {
+		return false
+	}
+	seen := false
+	for _, b := range fn.Blocks {
+		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
+		if !ok {
+			continue
+		}
+		if !c.cancels(ret.Results[0], depth) {
+			return false
+		}
+		seen = true
+	}
+	return seen
+}
+
+// wholeOf reports whether w is the whole part of x, a product or quotient:
+// math.Floor, Ceil, Trunc, Round or RoundToEven of x, or x converted to an
+// integer type and back.
+func wholeOf(w, x ssa.Value) bool {
+	x = provenance.Strip(x)
+	if b, ok := x.(*ssa.BinOp); !ok || b.Op != token.MUL && b.Op != token.QUO {
+		return false
+	}
+	switch w := provenance.Strip(w).(type) {
+	case *ssa.Call:
+		return integral(w) && len(w.Call.Args) == 1 && provenance.Strip(w.Call.Args[0]) == x
+	case *ssa.Convert:
+		in, ok := w.X.(*ssa.Convert)
+		return ok && isInteger(in.Type()) && provenance.Strip(in.X) == x
+	}
+	return false
+}
+
+// isInteger reports whether t is an integer type.
+func isInteger(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
+}
+
+// reportWhole reports a computed value tested against its own whole part.
+func (c *checker) reportWhole(n *ast.BinaryExpr, op token.Token, x, y operand) {
+	if n == nil {
+		return
+	}
+	v := x
+	if !c.track.Computed(x.val) {
+		v = y
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catWhole,
+		Message: fmt.Sprintf("exact %s tests whether the computed value %s is a whole number: a value whole in exact arithmetic can come out an ulp below or above (0.29*100 is 28.999999999999996), and the test then misses it; compare with the nearest whole number within a tolerance",
+			op, fixes.Source(c.pass.Fset, v.expr)),
+	})
+}

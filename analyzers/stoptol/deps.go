@@ -481,8 +481,8 @@ func (d *deps) noFloatLeft() bool {
 	for _, t := range d.tests {
 		ast.Inspect(t.e, func(n ast.Node) bool {
 			b, ok := n.(*ast.BinaryExpr)
-			if !ok || !isOrdered(b.Op) {
-				return !found
+			if !ok || !isOrdered(b.Op) && b.Op != token.EQL {
+				return !found // m == a tests the same landing on an end as m <= a
 			}
 			x, y := subjectOf(d.info, b.X), subjectOf(d.info, b.Y)
 			found = found || d.interiorEnd(x, y) || d.interiorEnd(y, x)

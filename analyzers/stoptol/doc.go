@@ -88,8 +88,8 @@
 //     max(x, 0)), a step multiplier that starts at 1 (relative to a
 //     direction, not a length in x), and a running average (linear in x):
 //     none measures how well x is located;
-//   - bisection until no float is left (m <= a || m >= b): m rounds to an
-//     end after at most about 2100 halvings;
+//   - bisection until no float is left (m <= a || m >= b, or m == a ||
+//     m == b): m rounds to an end after at most about 2100 halvings;
 //   - values scaled each pass by a factor the loop does not change (h /= 3,
 //     b *= 1/safmin): they reach 0 or ±Inf in at most about 2100 passes;
 //     series terms scaled by a changing factor and series that test the

@@ -183,7 +183,7 @@ func report(t *testing.T, labels []label, findings []finding) {
 		}
 		return m[k]
 	}
-	var unjudged []string
+	var unjudged, falseAlarms []string
 	for _, f := range findings {
 		verdict := "" // hazard if any site is one, else clean if any is
 		for _, s := range f.sites {
@@ -200,6 +200,9 @@ func report(t *testing.T, labels []label, findings []finding) {
 			case "clean":
 				sc.fp++
 			}
+		}
+		if verdict == "clean" {
+			falseAlarms = append(falseAlarms, fmt.Sprintf("%s\t%s\t%d\t%s\t%s", f.at.repo, f.at.file, f.at.line, f.analyzer, f.message))
 		}
 		if verdict == "" {
 			unjudged = append(unjudged, fmt.Sprintf("%s\t%s\t%d\t%s\t%s", f.at.repo, f.at.file, f.at.line, f.analyzer, f.message))
@@ -220,8 +223,13 @@ func report(t *testing.T, labels []label, findings []finding) {
 	var b strings.Builder
 	table(&b, "analyzer", perAnalyzer)
 	table(&b, "repository", perRepo)
-	slices.Sort(unjudged)
-	fmt.Fprintf(&b, "\n%d unjudged findings:\n%s\n", len(unjudged), strings.Join(unjudged, "\n"))
+	for _, list := range []struct {
+		name  string
+		lines []string
+	}{{"false findings", falseAlarms}, {"unjudged findings", unjudged}} {
+		slices.Sort(list.lines)
+		fmt.Fprintf(&b, "\n%d %s:\n%s\n", len(list.lines), list.name, strings.Join(list.lines, "\n"))
+	}
 	t.Log("\n" + b.String())
 	if out := os.Getenv("ROUNDOFF_CORPUS_REPORT"); out != "" {
 		require.NoError(t, os.WriteFile(out, []byte(b.String()), 0o644))

@@ -60,7 +60,7 @@ func step(q, t, h float64, l levels) (levels, float64) {
 // 2 m deep, with the usual step control h·min(5, max(0.2, 0.9·(tol/err)^(1/3))).
 func IntakeHead(q float64) float64 {
 	t, h, l := 0.0, 0.01, levels{2, 2}
-	for t < hours {
+	for t < hours { // planted (stoptol): nothing floors h; if the error test keeps failing, h shrinks to 0 and t stops moving
 		h = min(h, hours-t)
 		next, err := step(q, t, h, l)
 		fac := 0.9 * math.Cbrt(tolLevel/max(err, 1e-300))

@@ -84,7 +84,7 @@ func Ramp(from, to float64, s Settings) []float64 {
 		s.Step = defaultStep
 	}
 	var ticks []float64
-	for g := from; g != to; g = math.Min(g+s.Step, to) { // idiom: clamped to the bound, the loop lands on it exactly
+	for g := from; g != to; g = math.Min(g+s.Step, to) { // idiom for exacteq: clamped to the bound, the loop lands on it exactly; planted (stoptol): a negative Step, or one below half the spacing of g, never gets there and nothing caps the ticks
 		ticks = append(ticks, g)
 	}
 	return append(ticks, to)

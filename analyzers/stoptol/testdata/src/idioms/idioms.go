@@ -85,6 +85,20 @@ func bisectFewEps(f func(float64) float64, a, b float64) float64 {
 	return a
 }
 
+func bisectUntilEndsMeet(f func(float64) float64, a, b float64) float64 {
+	for {
+		m := a + (b-a)/2
+		if m == a || m == b { // the same stop written with ==: m lands on an end
+			return m
+		}
+		if f(a)*f(m) <= 0 {
+			b = m
+		} else {
+			a = m
+		}
+	}
+}
+
 func bisectNoFloatLeft(f func(float64) float64, a, b float64) float64 {
 	for {
 		m := a + (b-a)/2

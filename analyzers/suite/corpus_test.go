@@ -38,6 +38,7 @@ type label struct {
 	repo, commit, file        string
 	line                      int
 	analyzer, verdict, source string
+	reason                    string
 }
 
 // A site is a file and line in one repository.
@@ -96,7 +97,7 @@ func readLabels(t *testing.T) []label {
 			line, err := strconv.Atoi(rec[3])
 			require.NoError(t, err, "%s: line of %v", name, rec)
 			require.Contains(t, []string{"hazard", "clean"}, rec[5], "%s: verdict of %v", name, rec)
-			out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5], rec[6]})
+			out = append(out, label{rec[0], rec[1], rec[2], line, rec[4], rec[5], rec[6], rec[7]})
 		}
 	}
 	return out
@@ -183,7 +184,7 @@ func report(t *testing.T, labels []label, findings []finding) {
 		}
 		return m[k]
 	}
-	var unjudged, falseAlarms []string
+	var unjudged, falseAlarms, missed []string
 	for _, f := range findings {
 		verdict := "" // hazard if any site is one, else clean if any is
 		for _, s := range f.sites {
@@ -213,6 +214,9 @@ func report(t *testing.T, labels []label, findings []finding) {
 			continue // recall counts only hazards found without the tool
 		}
 		found := named[site{l.repo, l.file, l.line}]
+		if !found {
+			missed = append(missed, fmt.Sprintf("%s\t%s\t%d\t%s\t%s", l.repo, l.file, l.line, l.analyzer, l.reason))
+		}
 		for _, sc := range []*score{get(perAnalyzer, l.analyzer), get(perRepo, l.repo)} {
 			sc.hazards++
 			if found {
@@ -226,7 +230,7 @@ func report(t *testing.T, labels []label, findings []finding) {
 	for _, list := range []struct {
 		name  string
 		lines []string
-	}{{"false findings", falseAlarms}, {"unjudged findings", unjudged}} {
+	}{{"missed hazards", missed}, {"false findings", falseAlarms}, {"unjudged findings", unjudged}} {
 		slices.Sort(list.lines)
 		fmt.Fprintf(&b, "\n%d %s:\n%s\n", len(list.lines), list.name, strings.Join(list.lines, "\n"))
 	}

@@ -27,10 +27,11 @@ type deps struct {
 	tokens  map[*types.Var][]token.Token
 	memo    map[*types.Var]bool
 	onStack map[*types.Var]bool
+	inFlag  map[*types.Var]bool // flags being read, for flags that read themselves
 }
 
 func newDeps(info *types.Info, l *loop) *deps {
-	d := &deps{info: info, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}}
+	d := &deps{info: info, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}, inFlag: map[*types.Var]bool{}}
 	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
 		if n != nil {
 			ast.Inspect(n, d.record)
@@ -145,9 +146,10 @@ func (d *deps) tested() map[*types.Var]bool {
 }
 
 // floatTest reports whether e is a test on floats: an ordered or equality
-// comparison of floats, a call returning bool from float arguments or a
-// float receiver (an approximate-equality helper), a flag holding such
-// tests, and their negations and combinations.
+// comparison of floats, a call returning bool from at least two float
+// operands, the receiver included (an approximate-equality helper:
+// near(a, b), p.Near(q), small(d, tol)), a flag holding such tests, and
+// their negations and combinations.
 func (d *deps) floatTest(e ast.Expr) bool {
 	switch e := ast.Unparen(e).(type) {
 	case *ast.UnaryExpr:
@@ -170,14 +172,21 @@ func (d *deps) floatTest(e ast.Expr) bool {
 		if sel, ok := ast.Unparen(e.Fun).(*ast.SelectorExpr); ok && d.info.Selections[sel] != nil {
 			args = append([]ast.Expr{sel.X}, args...)
 		}
+		n := 0 // a test compares two values, or a value with a threshold
 		for _, a := range args {
 			if holdsFloats(d.info.TypeOf(a)) {
-				return true // a state machine's step (for d.Step()) is no float test
+				n++
 			}
 		}
+		return n >= 2 // a state machine's step (for d.Step()) is no float test
 	case *ast.Ident:
 		v := tolerance.VarOf(d.info, e)
 		if fs := d.l.flags[v]; v != nil && len(fs) > 0 {
+			if d.inFlag[v] {
+				return true // done = done || …: the rest of the test decides
+			}
+			d.inFlag[v] = true
+			defer delete(d.inFlag, v)
 			for _, f := range fs {
 				if !d.floatTest(f) {
 					return false
@@ -211,7 +220,10 @@ func (d *deps) onNaN(e ast.Expr) (holds, known bool) {
 			return e.Op == token.NEQ, true
 		}
 	case *ast.Ident:
-		if fs := d.l.flags[tolerance.VarOf(d.info, e)]; len(fs) == 1 {
+		v := tolerance.VarOf(d.info, e)
+		if fs := d.l.flags[v]; len(fs) == 1 && !d.inFlag[v] {
+			d.inFlag[v] = true
+			defer delete(d.inFlag, v)
 			return d.onNaN(fs[0])
 		}
 	}

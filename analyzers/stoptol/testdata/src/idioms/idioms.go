@@ -390,3 +390,22 @@ func secantScaled(f func(float64) float64, x0, x1 float64) float64 {
 	}
 	return x1
 }
+
+// A bound with one float inside: passed to a bool helper alone it is a
+// record being learned, not a comparison of two values.
+type bound struct {
+	name  string
+	limit float64
+}
+
+// spreadBounds learns bounds until nothing changes: the loop ends on a
+// set that stops growing, not on a float test, although learn takes a
+// value that holds a float.
+func spreadBounds(learn func(b bound) bool, bs []bound) {
+	for changed := true; changed; {
+		changed = false
+		for _, b := range bs {
+			changed = learn(b) || changed
+		}
+	}
+}

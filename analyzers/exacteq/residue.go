@@ -21,7 +21,12 @@ import (
 // test is an exact comparison of two computed values: inputs that make
 // them equal in exact arithmetic (collinear points, a point on the line)
 // usually leave a residue of a few ulps of the terms. It reports whether
-// the comparison was such a zero test.
+// the comparison was such a zero test. A zero test of a value the
+// function then divides by is a division guard: zero is the one divisor
+// that gives Inf or NaN, and a residue of a few ulps in its place gives a
+// finite quotient of large magnitude, which the code goes on to judge
+// (a ratio far outside [0, 1] for near-parallel segments), so the test
+// decides nothing by itself.
 func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool {
 	other := x
 	if !c.isZero(y) {
@@ -30,7 +35,7 @@ func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool 
 		}
 		other = y
 	}
-	if n == nil || !c.cancels(other.val, 4) {
+	if n == nil || !c.cancels(other.val, 4) || divides(other.val) {
 		return true
 	}
 	t := c.pass.TypesInfo.TypeOf(other.expr)
@@ -41,6 +46,16 @@ func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool 
 			op, fixes.Source(c.pass.Fset, other.expr), typeName(t), f.U),
 	})
 	return true
+}
+
+// divides reports whether v is the divisor of a float division.
+func divides(v ssa.Value) bool {
+	for _, r := range *v.Referrers() {
+		if q, ok := r.(*ssa.BinOp); ok && q.Op == token.QUO && q.Y == v && provenance.IsFloat(q.Type()) {
+			return true
+		}
+	}
+	return false
 }
 
 // isZero reports whether o is the constant zero.

@@ -89,10 +89,12 @@
 // remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
 // (exact where exact sign algorithms use them), of recurrence terms
 // that feed the next pass (a residue there only scales the next term),
-// and of divisors the function then divides by (zero is the one divisor
-// that gives Inf or NaN; a residue in its place gives a large finite
-// quotient, which the code goes on to judge, as a ratio far outside
-// [0, 1] for near-parallel segments);
+// and of divisors the function then divides by when the zero branch only
+// assigns or returns constants (zero is the one divisor that gives Inf or
+// NaN; a residue in its place gives a large finite quotient, which the
+// code goes on to judge, as a ratio far outside [0, 1] for near-parallel
+// segments; a zero branch that handles a case of its own, such as
+// overlapping parallel segments, stays a hazard, since a residue skips it);
 // ordered float loops whose pass count agrees with exact arithmetic or
 // exceeds it (the extra value lies within rounding error below the bound,
 // inside the admitted range); and,

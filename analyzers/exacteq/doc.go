@@ -73,7 +73,10 @@
 // exact test is a shortcut); results of the same function on arguments
 // passed by value (the same roundings applied to equal inputs give equal
 // results, so hue(a) == hue(b) in a comparator compares the inputs; a
-// function of slices such as a sum stays a hazard); loop variables clamped
+// function of slices such as a sum stays a hazard); a field compared with
+// the result of a function whose results the package stores into it (the
+// same function gives the same bits for the same inputs: the test asks
+// whether a default is still in use); loop variables clamped
 // to the bound; a value
 // against its own value from the previous pass (a series summed until a
 // term no longer changes the sum stops exactly when the term is absorbed,
@@ -84,8 +87,14 @@
 // half the spacing at x); zero tests of differences of inputs (0 exactly
 // when they are equal), of sums of squares (0 only for the zero vector), of
 // remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
-// (exact where exact sign algorithms use them), and of recurrence terms
-// that feed the next pass (a residue there only scales the next term);
+// (exact where exact sign algorithms use them), of recurrence terms
+// that feed the next pass (a residue there only scales the next term),
+// and of divisors the function then divides by when the zero branch only
+// assigns or returns constants (zero is the one divisor that gives Inf or
+// NaN; a residue in its place gives a large finite quotient, which the
+// code goes on to judge, as a ratio far outside [0, 1] for near-parallel
+// segments; a zero branch that handles a case of its own, such as
+// overlapping parallel segments, stays a hazard, since a residue skips it);
 // ordered float loops whose pass count agrees with exact arithmetic or
 // exceeds it (the extra value lies within rounding error below the bound,
 // inside the admitted range); and,
@@ -98,7 +107,8 @@
 // library (exact by correct rounding, IEEE 754-2019 §5.12), results of
 // package functions that return their input unrounded, results computed
 // the same way on every platform (by + - * / with no product added to
-// another value, which Go may fuse into one rounding, and by correctly
+// another value, which Go may fuse into one rounding, unless an explicit
+// conversion float64(x*y) rounds the product first, and by correctly
 // rounded or exact math functions such as Sqrt, Abs and Floor, through
 // package functions built the same way; Sin, Exp, Pow and the like may
 // differ in the last bits between platforms), and printed values that also appear among the test's inputs

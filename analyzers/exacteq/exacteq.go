@@ -55,6 +55,12 @@ type checker struct {
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
 	fields  map[types.Object][]ast.Expr
+	// converted holds the products written inside float64(...) or
+	// float32(...), by operator position, found on first use.
+	converted map[token.Pos]bool
+	// fills holds, for each struct field, the functions whose results
+	// the package stores into it directly.
+	fills map[*types.Var]map[*ssa.Function]bool
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -66,6 +72,7 @@ func run(pass *analysis.Pass) (any, error) {
 		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
 		cmps:    make(map[token.Pos]*ssa.BinOp),
 		calls:   make(map[token.Pos]*ssa.Call),
+		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 	}
 	c.index(ssainfo.SrcFuncs)
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
@@ -102,10 +109,34 @@ func (c *checker) index(funcs []*ssa.Function) {
 					if v.Pos().IsValid() {
 						c.calls[v.Pos()] = v
 					}
+				case *ssa.Store:
+					c.recordFill(v)
 				}
 			}
 		}
 	}
+}
+
+// recordFill records a store of a call's result into a struct field.
+func (c *checker) recordFill(st *ssa.Store) {
+	fa, ok := st.Addr.(*ssa.FieldAddr)
+	call, ok2 := provenance.Strip(st.Val).(*ssa.Call)
+	if !ok || !ok2 || call.Common().StaticCallee() == nil {
+		return
+	}
+	ptr, ok := fa.X.Type().Underlying().(*types.Pointer)
+	if !ok {
+		return
+	}
+	s, ok := ptr.Elem().Underlying().(*types.Struct)
+	if !ok {
+		return
+	}
+	f := s.Field(fa.Field)
+	if c.fills[f] == nil {
+		c.fills[f] = map[*ssa.Function]bool{}
+	}
+	c.fills[f][call.Common().StaticCallee()] = true
 }
 
 // operand pairs an operand's syntax with its SSA value.
@@ -154,7 +185,7 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 // scalar applies the computed-value rules to a float comparison; n is nil
 // for a switch case, which gets no fix.
 func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
-	if c.residue(n, op, x, y) || c.exempt(x) || c.exempt(y) {
+	if c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
@@ -179,18 +210,29 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 }
 
 // stored reports a computed value x compared with y, a load of a field into
-// which the package stores computed values, unless x is derived from y or
-// stored into that very field (a cache key). It reports whether y was such
+// which the package stores computed values, unless x is derived from y,
+// stored into that very field (a cache key) or computed by a function whose
+// results the field receives. It reports whether y was such
 // a load.
 func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) bool {
 	field := c.track.StoredField(y.val)
 	if field == nil {
 		return false
 	}
-	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) {
+	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) && !c.sameFill(x.val, field) {
 		c.reportComputed(cur, n, op, x, y, field)
 	}
 	return true
+}
+
+// sameFill reports whether x is the result of a function whose results
+// the package also stores into field: the same function gives the same
+// bits for the same inputs, so the test asks whether the field still holds
+// what the function gives (a default still in use), not whether two
+// roundings of different routes agree.
+func (c *checker) sameFill(x ssa.Value, field *types.Var) bool {
+	call, ok := provenance.Strip(x).(*ssa.Call)
+	return ok && call.Common().StaticCallee() != nil && c.fills[field][call.Common().StaticCallee()]
 }
 
 // derived reports whether the operands are related in a way that makes an

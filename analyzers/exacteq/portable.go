@@ -1,6 +1,7 @@
 package exacteq
 
 import (
+	"go/ast"
 	"go/token"
 
 	"golang.org/x/tools/go/ssa"
@@ -19,7 +20,8 @@ var correctlyRounded = map[string]bool{"Sqrt": true, "FMA": true}
 // every platform: from constants, parameters and loads by + - * / on
 // operands none of which is a product added to or subtracted from another
 // value (x*y + z may be fused into one rounding, Go spec "Arithmetic
-// operators"), by correctly rounded or exact math functions, and by
+// operators"; a product wrapped in an explicit conversion, float64(x*y),
+// is rounded before the addition, and cannot fuse), by correctly rounded or exact math functions, and by
 // package functions built the same way. A pinned result so computed is
 // reproducible, and its exact comparison holds everywhere.
 func (c *checker) portable(v ssa.Value) bool {
@@ -50,7 +52,7 @@ func (c *checker) portableStep(v ssa.Value, seen map[ssa.Value]bool, depth int) 
 		}
 		return true
 	case *ssa.BinOp:
-		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (isMul(v.X) || isMul(v.Y)) {
+		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (c.fusable(v.X) || c.fusable(v.Y)) {
 			return false // x*y ± z may be fused
 		}
 		return c.portableValue(v.X, seen, depth-1) && c.portableValue(v.Y, seen, depth-1)
@@ -106,10 +108,39 @@ func (c *checker) everyFloatPortable(fn *ssa.Function, seen map[ssa.Value]bool, 
 	return true
 }
 
-// isMul reports whether v is a float product.
-func isMul(v ssa.Value) bool {
+// fusable reports whether v is a float product not wrapped in an explicit
+// float conversion, which the Go spec says rounds it ("Arithmetic
+// operators": an explicit floating-point type conversion rounds to the
+// precision of the target type, preventing fusion).
+func (c *checker) fusable(v ssa.Value) bool {
 	b, ok := provenance.Strip(v).(*ssa.BinOp)
-	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type())
+	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !c.convertedProducts()[b.Pos()]
+}
+
+// convertedProducts returns, by operator position, the products of the
+// package written as the argument of an explicit float conversion,
+// found once.
+func (c *checker) convertedProducts() map[token.Pos]bool {
+	if c.converted != nil {
+		return c.converted
+	}
+	c.converted = map[token.Pos]bool{}
+	for _, f := range c.pass.Files {
+		ast.Inspect(f, func(n ast.Node) bool {
+			call, ok := n.(*ast.CallExpr)
+			if !ok || len(call.Args) != 1 {
+				return true
+			}
+			if tv, ok := c.pass.TypesInfo.Types[call.Fun]; !ok || !tv.IsType() || !provenance.IsFloat(tv.Type) {
+				return true
+			}
+			if b, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr); ok && b.Op == token.MUL {
+				c.converted[b.OpPos] = true
+			}
+			return true
+		})
+	}
+	return c.converted
 }
 
 // portableCall reports whether a call computes the same bits everywhere:

@@ -7,6 +7,7 @@ import (
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/fixes"
@@ -21,8 +22,15 @@ import (
 // test is an exact comparison of two computed values: inputs that make
 // them equal in exact arithmetic (collinear points, a point on the line)
 // usually leave a residue of a few ulps of the terms. It reports whether
-// the comparison was such a zero test.
-func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool {
+// the comparison was such a zero test. A zero test of a value the
+// function then divides by, whose zero branch only records a constant
+// answer (no intersection, 0), is a division guard: zero is the one
+// divisor that gives Inf or NaN, and a residue of a few ulps in its place
+// gives a finite quotient of large magnitude, which the code goes on to
+// judge (a ratio far outside [0, 1] for near-parallel segments), so the
+// test decides nothing by itself. A zero branch that does other work (a
+// collinear case) stays a hazard: a residue skips it.
+func (c *checker) residue(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) bool {
 	other := x
 	if !c.isZero(y) {
 		if !c.isZero(x) {
@@ -30,7 +38,7 @@ func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool 
 		}
 		other = y
 	}
-	if n == nil || !c.cancels(other.val, 4) {
+	if n == nil || !c.cancels(other.val, 4) || divides(other.val) && c.constantBranch(cur, n, op) {
 		return true
 	}
 	t := c.pass.TypesInfo.TypeOf(other.expr)
@@ -40,6 +48,50 @@ func (c *checker) residue(n *ast.BinaryExpr, op token.Token, x, y operand) bool 
 		Message: fmt.Sprintf("exact %s 0 on %s, a difference of computed %s values: it is 0 only when both terms round to the same float, so inputs that make it 0 in exact arithmetic (collinear points, a point on a line) usually leave a residue of a few ulps of the terms (%.3g relative each); compare its magnitude with a tolerance scaled by the terms",
 			op, fixes.Source(c.pass.Fset, other.expr), typeName(t), f.U),
 	})
+	return true
+}
+
+// divides reports whether v is the divisor of a float division.
+func divides(v ssa.Value) bool {
+	for _, r := range *v.Referrers() {
+		if q, ok := r.(*ssa.BinOp); ok && q.Op == token.QUO && q.Y == v && provenance.IsFloat(q.Type()) {
+			return true
+		}
+	}
+	return false
+}
+
+// constantBranch reports whether n is the condition of an if statement
+// whose branch taken on zero (the body for ==, the else for !=) only
+// assigns or returns constants.
+func (c *checker) constantBranch(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token) bool {
+	ifs, ok := cur.Parent().Node().(*ast.IfStmt)
+	if !ok || ifs.Cond != n {
+		return false
+	}
+	branch, ok := ifs.Body, true
+	if op == token.NEQ {
+		branch, ok = ifs.Else.(*ast.BlockStmt)
+	}
+	if !ok {
+		return false
+	}
+	for _, st := range branch.List {
+		var vals []ast.Expr
+		switch st := st.(type) {
+		case *ast.AssignStmt:
+			vals = st.Rhs
+		case *ast.ReturnStmt:
+			vals = st.Results
+		default:
+			return false
+		}
+		for _, v := range vals {
+			if !c.isConst(v) {
+				return false
+			}
+		}
+	}
 	return true
 }
 

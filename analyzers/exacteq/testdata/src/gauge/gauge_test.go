@@ -186,3 +186,12 @@ func TestRecursivePin(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// Products rounded by explicit conversions before they are added cannot be
+// fused (Go spec, "Arithmetic operators"): the result is the same
+// everywhere, and may be pinned.
+func TestConvertedProducts(t *testing.T) {
+	if Blend(0.3, 0.7, 1.0/3) != 0.5666666666666667 {
+		t.Fail()
+	}
+}

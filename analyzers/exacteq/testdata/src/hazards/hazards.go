@@ -201,3 +201,16 @@ func netArea(shell, holes float64, w, h float64) bool {
 func sagZero(x1, y1, x2, y2 float64) bool {
 	return math.Abs(x1*y2-x2*y1) == 0 // want `exact == 0 on math.Abs\(x1\*y2 - x2\*y1\)`
 }
+
+// A divisor tested for zero whose zero branch handles a case of its own
+// (overlapping parallel segments): a residue skips that case and sends
+// the pair through the quotient instead.
+func meet(ux, uy, vx, vy, wx, wy float64) float64 {
+	det := ux*vy - uy*vx
+	if det == 0 { // want `exact == 0 on det, a difference of computed float64 values`
+		return overlapLength(ux, uy, wx, wy)
+	}
+	return (wx*vy - wy*vx) / det
+}
+
+func overlapLength(ux, uy, wx, wy float64) float64 { return math.Hypot(ux-wx, uy-wy) }

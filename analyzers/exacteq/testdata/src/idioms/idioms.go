@@ -375,3 +375,37 @@ func extraPass() int {
 	}
 	return n
 }
+
+// A cross product tested for zero only to guard the divisions by it: a
+// residue in place of zero gives a large finite ratio, which the range
+// test then rejects.
+func crossingRatio(ux, uy, vx, vy, wx, wy float64) (float64, bool) {
+	det := ux*vy - uy*vx
+	if det == 0 {
+		return 0, false
+	}
+	r := (wx*vy - wy*vx) / det
+	return r, r >= 0 && r <= 1
+}
+
+// A field filled by a function and compared with that function's result:
+// the same function gives the same bits for the same inputs, so the test
+// asks whether the default is still in use.
+type sieve struct {
+	tier  int
+	reach float64
+}
+
+func (s *sieve) defaultReach(tier int) float64 { return math.Ldexp(1, -tier) * 2.5 / 3 }
+
+func (s *sieve) widen(tier int) {
+	s.tier = tier
+	s.reach = s.defaultReach(tier)
+}
+
+func (s *sieve) margin() float64 {
+	if s.reach == s.defaultReach(s.tier) {
+		return s.reach / 2
+	}
+	return s.reach
+}

@@ -41,11 +41,14 @@ func (c *checker) through(e ast.Expr) (ast.Expr, bool) {
 // only the rounding error of the power.
 func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	a, b := call.Args[0], call.Args[1]
-	if c.isConst(b) || c.wholeNumber(b) && c.isConst(a) || !c.lossShows(cur, b) {
+	if c.isConst(b) || !c.lossShows(cur, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
-	if _, _, onePlus := c.onePlus(a); !onePlus && c.computed(a) {
-		return // a computed base carries its own rounding, which Expm1 would inherit
+	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(a) || c.counts(b)) {
+		// A computed base carries its own rounding, which Expm1 would
+		// inherit; a whole exponent n >= 1 keeps |1-a^n| >= |1-a|, so the
+		// power loses no more than 1-a does from the base's own rounding.
+		return
 	}
 	q := qualifier(call)
 	logA := q + ".Log(" + fixes.Source(c.pass.Fset, ast.Unparen(a)) + ")"

@@ -122,7 +122,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.dotCosine(n, e)
 		return
 	}
-	if c.isOne(n.X) && c.upperTail(n, e) {
+	if p, ok := c.complement(n); ok && c.upperTail(n, p) {
 		return
 	}
 	inner, ok := e.(*ast.CallExpr)

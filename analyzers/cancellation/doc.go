@@ -38,9 +38,11 @@
 //   - a*a - b*b, 1 - x*x and x*x - 1: each square carries a rounding
 //     error of about u·a², all of the difference where |a| and |b| are
 //     close; (a-b)*(a+b) forms the difference exactly first;
-//   - 1 - math.Erf(x) and 1 - F(x) for a function or method F named CDF:
-//     upper-tail probabilities below 1.11e-16 come out 0 and small ones
-//     lose digits; math.Erfc(x), or a complementary function;
+//   - 1 - math.Erf(x), 1 - 0.5*math.Erfc(-x) (the normal distribution
+//     function) and 1 - F(x) for a function or method F named CDF, also
+//     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
+//     below 1.11e-16 come out 0 and small ones lose digits; math.Erfc(x),
+//     0.5*math.Erfc(x), or a complementary function;
 //   - the one-pass variance E[x²]-E[x]²: s2/n - m*m or s2 - s1*s1/n where
 //     s2 accumulates squares of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a
 //     value squared in place first): both terms are about mean², so the

@@ -39,3 +39,19 @@ func TestOnePassVariance(t *testing.T) {
 		}
 	}
 }
+
+// TestNormalTailFix checks the tail fix 1 - 0.5*Erfc(-x) -> 0.5*Erfc(x)
+// by the identity erfc(-x) = 2 - erfc(x) (Abramowitz & Stegun 7.1.9,
+// from memory): the forms agree to a few ulps where the tail is large, and
+// the plain form is 0 where the tail is below u.
+func TestNormalTailFix(t *testing.T) {
+	for _, x := range []float64{-2, -0.5, 0, 0.5, 1, 2} {
+		plain, fixed := 1-0.5*math.Erfc(-x), 0.5*math.Erfc(x)
+		if d := math.Abs(plain - fixed); d > 4*0x1p-53 {
+			t.Errorf("x = %g: 1-0.5*Erfc(-x) = %v, 0.5*Erfc(x) = %v", x, plain, fixed)
+		}
+	}
+	if plain, fixed := 1-0.5*math.Erfc(-9), 0.5*math.Erfc(9); plain != 0 || fixed <= 0 {
+		t.Errorf("x = 9: plain %v (want 0), fixed %v (want > 0)", plain, fixed)
+	}
+}

@@ -182,3 +182,9 @@ func (s *stepper) update(g float64) float64 {
 	// loses no more than the parameter's own rounding.
 	return s.avg / (1 - math.Pow(s.decay, s.step))
 }
+
+// upperDirect forms the tail itself: 0.5*math.Erfc(z) is small where z is
+// large, so 1 minus it is near 1 and cancels nothing there.
+func upperDirect(z float64) float64 {
+	return 1 - 0.5*math.Erfc(z)
+}

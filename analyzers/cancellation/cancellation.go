@@ -45,6 +45,7 @@ const (
 	catArc       = "arc"
 	catSquares   = "squares"
 	catTail      = "tail"
+	catVariance  = "variance"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -67,6 +68,7 @@ type checker struct {
 	insp  *inspector.Inspector
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
 	abs   *absval.Known             // absolute-value functions, by meaning
+	acc   *accumulation             // how variables are updated, scanned when first needed
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -112,7 +114,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.squares(n) {
+	if c.squares(n) || c.variance(n) {
 		return
 	}
 	e, indirect := c.through(call)
@@ -120,7 +122,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.dotCosine(n, e)
 		return
 	}
-	if c.isOne(n.X) && c.upperTail(n, e) {
+	if p, ok := c.complement(n); ok && c.upperTail(n, p) {
 		return
 	}
 	inner, ok := e.(*ast.CallExpr)

@@ -38,9 +38,18 @@
 //   - a*a - b*b, 1 - x*x and x*x - 1: each square carries a rounding
 //     error of about u·a², all of the difference where |a| and |b| are
 //     close; (a-b)*(a+b) forms the difference exactly first;
-//   - 1 - math.Erf(x) and 1 - F(x) for a function or method F named CDF:
-//     upper-tail probabilities below 1.11e-16 come out 0 and small ones
-//     lose digits; math.Erfc(x), or a complementary function;
+//   - 1 - math.Erf(x), 1 - 0.5*math.Erfc(-x) (the normal distribution
+//     function) and 1 - F(x) for a function or method F named CDF, also
+//     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
+//     below 1.11e-16 come out 0 and small ones lose digits; math.Erfc(x),
+//     0.5*math.Erfc(x), or a complementary function;
+//   - the one-pass variance E[x²]-E[x]²: s2/n - m*m or s2 - s1*s1/n where
+//     s2 accumulates squares of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a
+//     value squared in place first): both terms are about mean², so the
+//     difference loses about log10(mean²/variance) digits and can turn
+//     negative; accumulate squared deviations from the mean (two passes
+//     or Welford's update). An accumulator of squared deviations
+//     ((x-m)*(x-m)) is the accurate two-pass form and is left alone;
 //   - 1-math.Cos(x) and math.Cos(x)-1: cos(x) rounds to 1 for |x| below
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
@@ -79,8 +88,11 @@
 // to 1 there only for counts beyond 10^8, and the absolute error of 1-cos
 // stays one rounding of 1, the scale of such weights. The power rule also
 // leaves alone a constant exponent (1 -
-// math.Pow(x, 2) is a difference of squares), a whole power of a
-// constant base (math.Pow(2, float64(n)) - 1), and a computed base other
+// math.Pow(x, 2) is a difference of squares), a whole exponent with a
+// base other than 1±u (math.Pow(2, float64(n)) - 1, a bias correction
+// 1 - math.Pow(beta, t) with t a float only ever incremented): for n >= 1,
+// |1-a^n| >= |1-a|, so the power loses no more than 1-a already does from
+// the base's own rounding, and a computed base other
 // than 1±u ((x/λ)^k - 1: the base carries its own rounding, which
 // math.Expm1 would inherit). The radical rule is silent where the sign of
 // u is known: math.Abs, math.Sqrt, math.Exp, a square, or an enclosing

@@ -41,11 +41,14 @@ func (c *checker) through(e ast.Expr) (ast.Expr, bool) {
 // only the rounding error of the power.
 func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	a, b := call.Args[0], call.Args[1]
-	if c.isConst(b) || c.wholeNumber(b) && c.isConst(a) || !c.lossShows(cur, b) {
+	if c.isConst(b) || !c.lossShows(cur, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
-	if _, _, onePlus := c.onePlus(a); !onePlus && c.computed(a) {
-		return // a computed base carries its own rounding, which Expm1 would inherit
+	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(a) || c.counts(b)) {
+		// A computed base carries its own rounding, which Expm1 would
+		// inherit; a whole exponent n >= 1 keeps |1-a^n| >= |1-a|, so the
+		// power loses no more than 1-a does from the base's own rounding.
+		return
 	}
 	q := qualifier(call)
 	logA := q + ".Log(" + fixes.Source(c.pass.Fset, ast.Unparen(a)) + ")"
@@ -485,6 +488,17 @@ func (c *checker) squares(n *ast.BinaryExpr) bool {
 // (a survival probability) is 0 below about 1.1e-16 and loses digits
 // above; the complementary function computes it directly.
 func (c *checker) upperTail(n *ast.BinaryExpr, e ast.Expr) bool {
+	if x, ok := c.normalCDF(e); ok {
+		use := "0.5*math.Erfc(x)"
+		var fix []fixes.Fix
+		if e == n.Y {
+			// The leading minus is the argument's first token.
+			text := "0.5 * " + qualifier(x.call) + ".Erfc(" + strings.TrimPrefix(fixes.Source(c.pass.Fset, x.arg), "-") + ")"
+			fix = append(fix, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+		}
+		c.reportTail(n, use, fix)
+		return true
+	}
 	call, ok := e.(*ast.CallExpr)
 	if !ok {
 		return false
@@ -502,12 +516,73 @@ func (c *checker) upperTail(n *ast.BinaryExpr, e ast.Expr) bool {
 	default:
 		return false
 	}
+	c.reportTail(n, use, fix)
+	return true
+}
+
+func (c *checker) reportTail(n *ast.BinaryExpr, use string, fix []fixes.Fix) {
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catTail,
-		Message: fmt.Sprintf("1 - %s returns 0 where the probability rounds to 1 (upper tails below %.3g) and loses about log10(1/tail) digits for small tails; use %s",
-			fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff, use),
+		Message: fmt.Sprintf("%s returns 0 where the probability rounds to 1 (upper tails below %.3g) and loses about log10(1/tail) digits for small tails; use %s",
+			fixes.Source(c.pass.Fset, n.X)+" - "+fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff, use),
 	}, fix...)
-	return true
+}
+
+// erfcCall is a call of math.Erfc and its negated argument.
+type erfcCall struct {
+	call *ast.CallExpr
+	arg  ast.Expr
+}
+
+// normalCDF reports 0.5*math.Erfc(-x), the normal distribution function
+// Φ(x√2), near 1 for large x; its upper tail is 0.5*math.Erfc(x).
+func (c *checker) normalCDF(e ast.Expr) (erfcCall, bool) {
+	m, ok := e.(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL {
+		return erfcCall{}, false
+	}
+	for _, pair := range [][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+		v := c.pass.TypesInfo.Types[pair[0]].Value
+		call, isCall := ast.Unparen(pair[1]).(*ast.CallExpr)
+		if v == nil || !constant.Compare(v, token.EQL, constant.MakeFloat64(0.5)) || !isCall || c.mathFunc(call) != "Erfc" {
+			continue
+		}
+		if leadingMinus(call.Args[0]) {
+			return erfcCall{call, call.Args[0]}, true
+		}
+	}
+	return erfcCall{}, false
+}
+
+// leadingMinus reports whether e is -x, or a product or quotient whose
+// leftmost factor is: -(a-m)/s negates the whole.
+func leadingMinus(e ast.Expr) bool {
+	switch e := e.(type) {
+	case *ast.UnaryExpr:
+		return e.Op == token.SUB
+	case *ast.BinaryExpr:
+		return (e.Op == token.MUL || e.Op == token.QUO) && leadingMinus(e.X)
+	}
+	return false
+}
+
+// complement returns P, through variables, where n is 1 - P or the
+// scaled c - c*P (a two-sided tail 2 - 2*P).
+func (c *checker) complement(n *ast.BinaryExpr) (ast.Expr, bool) {
+	if c.isOne(n.X) {
+		p, _ := c.through(n.Y)
+		return p, true
+	}
+	k := c.pass.TypesInfo.Types[n.X].Value
+	m, ok := ast.Unparen(n.Y).(*ast.BinaryExpr)
+	if k == nil || !ok || m.Op != token.MUL {
+		return nil, false
+	}
+	if v := c.pass.TypesInfo.Types[m.X].Value; v != nil && constant.Compare(v, token.EQL, k) {
+		p, _ := c.through(m.Y)
+		return p, true
+	}
+	return nil, false
 }
 
 // atanh reports math.Log((1+x)/(1-x)), twice the inverse hyperbolic

@@ -106,3 +106,18 @@ func flipped(x float64) float64 {
 	x = -x
 	return 1 - x*x // want `a\*a - b\*b with a = 1, b = x loses`
 }
+
+func exceedance(level, mu, sd float64) float64 {
+	return 1 - 0.5*math.Erfc(-(level-mu)/(sd*math.Sqrt2)) // want `1 - 0.5 \* math.Erfc\(-\(level-mu\)/\(sd\*math.Sqrt2\)\) returns 0 where the probability rounds to 1.*use 0.5\*math.Erfc\(x\)`
+}
+
+func exceedanceStored(z float64) float64 {
+	below := 0.5 * math.Erfc(-z)
+	return 1 - below // want `1 - below returns 0 where the probability rounds to 1`
+}
+
+func twoSided(z float64) float64 {
+	return 2 - 2*cdf(z) // want `2 - 2 \* cdf\(z\) returns 0 where the probability rounds to 1`
+}
+
+func cdf(z float64) float64 { return 0.5 * math.Erfc(-z/math.Sqrt2) }

@@ -154,3 +154,37 @@ func logAddShifted(la, lb float64) float64 {
 	m := math.Max(la, lb)
 	return math.Log(math.Exp(la-m)+math.Exp(lb-m)) + m
 }
+
+// deviationSpread accumulates squared deviations (the two-pass form):
+// subtracting the squared mean deviation, which is near 0, is the
+// corrected two-pass formula and cancels nothing (common practice).
+func deviationSpread(xs []float64, m float64) float64 {
+	var d1, d2 float64
+	for _, x := range xs {
+		dx := x - m
+		d1 += dx
+		d2 += dx * dx
+	}
+	n := float64(len(xs))
+	return (d2 - d1*d1/n) / (n - 1)
+}
+
+// stepper corrects a moving average for its zero start.
+type stepper struct {
+	decay, avg float64
+	step       float64
+}
+
+func (s *stepper) update(g float64) float64 {
+	s.step++
+	s.avg = s.decay*s.avg + (1-s.decay)*g
+	// A whole exponent n >= 1 keeps 1-decay^n at least 1-decay: the power
+	// loses no more than the parameter's own rounding.
+	return s.avg / (1 - math.Pow(s.decay, s.step))
+}
+
+// upperDirect forms the tail itself: 0.5*math.Erfc(z) is small where z is
+// large, so 1 minus it is near 1 and cancels nothing there.
+func upperDirect(z float64) float64 {
+	return 1 - 0.5*math.Erfc(z)
+}

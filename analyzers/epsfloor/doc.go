@@ -24,7 +24,11 @@
 //   - absolute tolerances on a difference, math.Abs(a-b) < tol, below eps:
 //     the test still means something only for values below about tol/eps,
 //     and is exact equality above; when one operand is a constant the
-//     spacing of floats there decides;
+//     gap between floats just under its magnitude decides: floats near m
+//     are all multiples of that gap, so two different ones differ by at
+//     least it (the difference is exact, Goldberg 1991 Thm 11), and a
+//     smaller tolerance is equality (1e-16 at 0.75, where the gap is
+//     1.11e-16);
 //   - the smallest positive float used as a tolerance, and x < it (no
 //     float lies between 0 and it, so for x ≥ 0 the test is x == 0; the
 //     smallest normal value, 0x1p-1022, catches subnormal values);
@@ -79,10 +83,14 @@
 // whose addends together change the rounded result (1 + 1e-16 + 1e-16 is
 // 1 + 2^-52); constants at or below 2^-511 ≈ 1.5e-154, which guard against underflow
 // (safe minimum), never tolerances; single magnitudes compared with tiny
-// constants before a division (|d| < 1e-300); thresholds on squared
+// constants before a division (|d| < 1e-300); constant sums that are
+// elements of a composite literal in a test file (a table of cases): fixed
+// at compile time, the case runs on one rounded value and passes or fails
+// on it every time, so the lost addend changes nothing the test checks;
+// thresholds on squared
 // quantities; mixed tests atol + rtol·scale; tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
-// tolerance exceeds half the spacing of floats there.
+// tolerance reaches the gap between floats just under that magnitude.
 //
 // Fixes (all need review, so go fix does not apply them): a relative
 // tolerance below u becomes 4 ulps of the type, written exactly as

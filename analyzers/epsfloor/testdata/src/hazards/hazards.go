@@ -41,6 +41,13 @@ func absKnown(x float64) bool {
 	return math.Abs(x-1) <= 1e-17 // want `absolute tolerance 1e-17 is below half the spacing of float64 values at 1 \(1.11e-16\): the test passes only on exact equality`
 }
 
+// Floats just under 0.75 are 1.11e-16 apart, so two different values near
+// 0.75 differ by at least that (Goldberg 1991, Thm 11: the difference is
+// exact); 1e-16 is above half the spacing yet still admits only equality.
+func absUnderGap(x float64) bool {
+	return math.Abs(x-0.75) < 1e-16 // want `absolute tolerance 1e-16 is below the spacing of float64 values just under 0.75 \(1.11e-16\): two different values there differ by at least that much, so the test passes only on exact equality`
+}
+
 func absNeq(x, y float64) bool {
 	return math.Abs(x-y) > 5e-17 // want `absolute tolerance 5e-17 is below float64 epsilon`
 }
@@ -230,3 +237,7 @@ func peak32(xs []float32) float32 {
 func denormal(x, y float64) bool {
 	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }
+
+// Outside a test, a table entry is run-time data like any other: the
+// offset meant to step off 4 is lost.
+var probes = []float64{4 - 1e-18} // want `1e-18 has no effect on 4: it is below half the spacing of float64 values there \(4.44e-16\)`

@@ -90,7 +90,7 @@ func newton(f, df func(float64) float64, theta float64) float64 {
 }
 
 func absorbedAdd() float64 {
-	p := 0.4985 + math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 0.4985: it is below half the spacing of float64 values there \(2.78e-17\), so the sum rounds back to exactly 0.4985`
+	p := 0.3125 + math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 0.3125: it is below half the spacing of float64 values there \(2.78e-17\), so the sum rounds back to exactly 0.3125`
 	return p
 }
 

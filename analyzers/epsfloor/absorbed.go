@@ -39,26 +39,10 @@ func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
 	terms := c.terms(n, false, nil)
 	f := provenance.FormatOf(tv.Type)
 	if tv.Value != nil {
-		if !c.inTestTable(cur) {
-			c.absorbedConstant(cur, n, terms, f)
-		}
+		c.absorbedConstant(cur, n, terms, f)
 		return
 	}
 	c.absorbedMixed(n, terms, f)
-}
-
-// inTestTable reports whether cur's node is an element of a composite
-// literal in a test file, such as an input of a table of test cases. A
-// constant sum is fixed at compile time, so the case runs on the same
-// double every time, and a case that passes shows its expected result holds
-// at the rounded value: the lost addend changes nothing the test checks.
-func (c *checker) inTestTable(cur inspector.Cursor) bool {
-	p := cur.Parent()
-	if _, ok := p.Node().(*ast.KeyValueExpr); ok {
-		p = p.Parent()
-	}
-	_, ok := p.Node().(*ast.CompositeLit)
-	return ok && inTestFile(c.pass.Fset, cur.Node().Pos())
 }
 
 // inSum reports whether cur's node is an operand of a larger sum, which

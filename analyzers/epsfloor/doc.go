@@ -83,11 +83,7 @@
 // whose addends together change the rounded result (1 + 1e-16 + 1e-16 is
 // 1 + 2^-52); constants at or below 2^-511 ≈ 1.5e-154, which guard against underflow
 // (safe minimum), never tolerances; single magnitudes compared with tiny
-// constants before a division (|d| < 1e-300); constant sums that are
-// elements of a composite literal in a test file (a table of cases): fixed
-// at compile time, the case runs on one rounded value and passes or fails
-// on it every time, so the lost addend changes nothing the test checks;
-// thresholds on squared
+// constants before a division (|d| < 1e-300); thresholds on squared
 // quantities; mixed tests atol + rtol·scale; tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
 // tolerance reaches the gap between floats just under that magnitude.

@@ -237,7 +237,3 @@ func peak32(xs []float32) float32 {
 func denormal(x, y float64) bool {
 	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }
-
-// Outside a test, a table entry is run-time data like any other: the
-// offset meant to step off 4 is lost.
-var probes = []float64{4 - 1e-18} // want `1e-18 has no effect on 4: it is below half the spacing of float64 values there \(4.44e-16\)`

@@ -24,7 +24,11 @@
 //   - absolute tolerances on a difference, math.Abs(a-b) < tol, below eps:
 //     the test still means something only for values below about tol/eps,
 //     and is exact equality above; when one operand is a constant the
-//     spacing of floats there decides;
+//     gap between floats just under its magnitude decides: floats near m
+//     are all multiples of that gap, so two different ones differ by at
+//     least it (the difference is exact, Goldberg 1991 Thm 11), and a
+//     smaller tolerance is equality (1e-16 at 0.75, where the gap is
+//     1.11e-16);
 //   - the smallest positive float used as a tolerance, and x < it (no
 //     float lies between 0 and it, so for x ≥ 0 the test is x == 0; the
 //     smallest normal value, 0x1p-1022, catches subnormal values);
@@ -82,7 +86,7 @@
 // constants before a division (|d| < 1e-300); thresholds on squared
 // quantities; mixed tests atol + rtol·scale; tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
-// tolerance exceeds half the spacing of floats there.
+// tolerance reaches the gap between floats just under that magnitude.
 //
 // Fixes (all need review, so go fix does not apply them): a relative
 // tolerance below u becomes 4 ulps of the type, written exactly as

@@ -25,7 +25,7 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		c.iterate(cur, t, f, tol)
 		return
 	}
-	res := tolerance.Judge(t.Kind, tol, f, c.magnitude(t, f))
+	res := judge(t.Kind, tol, f, c.magnitude(t, f))
 	if res == tolerance.Resolvable {
 		return
 	}
@@ -36,6 +36,29 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		Related:  c.declaredAt(t.Tol),
 	}
 	fixes.Report(c.pass, d, c.tolFix(cur, t, res, f)...)
+}
+
+// judge is tolerance.Judge with an absolute tolerance at a known magnitude
+// mag held to the gap between mag and the next float toward zero, not to
+// half the spacing: two floats near mag are both multiples of that gap, so
+// their difference is 0 or at least the gap (exact by Sterbenz, Goldberg
+// 1991 Thm 11), and a smaller tolerance passes only on exact equality.
+func judge(kind tolerance.Kind, tol float64, f numeric.Format, mag float64) tolerance.Resolution {
+	res := tolerance.Judge(kind, tol, f, mag)
+	if res == tolerance.Resolvable && kind == tolerance.Absolute && mag > 0 && tol < gapBelow(f, mag) {
+		return tolerance.BelowSpacing
+	}
+	return res
+}
+
+// gapBelow returns the distance from |m| to the next value of format f
+// toward zero.
+func gapBelow(f numeric.Format, m float64) float64 {
+	m = math.Abs(m)
+	if f == numeric.Float32 {
+		return float64(float32(m) - math.Nextafter32(float32(m), 0))
+	}
+	return m - math.Nextafter(m, 0)
 }
 
 // magnitude returns the size of the compared values when an operand is a
@@ -94,6 +117,10 @@ func explain(res tolerance.Resolution, tol float64, f numeric.Format, mag float6
 		return fmt.Sprintf("is below %s epsilon (%.3g): the test can hold for unequal values only when they are below about %.2g (tol/eps), and is exact equality above; add a relative term",
 			f.Name, f.Eps, tol/f.Eps)
 	case tolerance.BelowSpacing:
+		if gap := gapBelow(f, mag); tol >= f.Spacing(mag)/2 {
+			return fmt.Sprintf("is below the spacing of %s values just under %s (%.3g): two different values there differ by at least that much, so the test passes only on exact equality",
+				f.Name, numeric.Short(mag), gap)
+		}
 		return fmt.Sprintf("is below half the spacing of %s values at %s (%.3g): the test passes only on exact equality",
 			f.Name, numeric.Short(mag), f.Spacing(mag)/2)
 	}

@@ -96,7 +96,7 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 	}
 	f := u.format()
 	tol := f.Value(v)
-	res := tolerance.Judge(u.Kind, tol, f, mag)
+	res := judge(u.Kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
 	}

@@ -41,6 +41,13 @@ func absKnown(x float64) bool {
 	return math.Abs(x-1) <= 1e-17 // want `absolute tolerance 1e-17 is below half the spacing of float64 values at 1 \(1.11e-16\): the test passes only on exact equality`
 }
 
+// Floats just under 0.75 are 1.11e-16 apart, so two different values near
+// 0.75 differ by at least that (Goldberg 1991, Thm 11: the difference is
+// exact); 1e-16 is above half the spacing yet still admits only equality.
+func absUnderGap(x float64) bool {
+	return math.Abs(x-0.75) < 1e-16 // want `absolute tolerance 1e-16 is below the spacing of float64 values just under 0.75 \(1.11e-16\): two different values there differ by at least that much, so the test passes only on exact equality`
+}
+
 func absNeq(x, y float64) bool {
 	return math.Abs(x-y) > 5e-17 // want `absolute tolerance 5e-17 is below float64 epsilon`
 }
@@ -83,7 +90,7 @@ func newton(f, df func(float64) float64, theta float64) float64 {
 }
 
 func absorbedAdd() float64 {
-	p := 0.4985 + math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 0.4985: it is below half the spacing of float64 values there \(2.78e-17\), so the sum rounds back to exactly 0.4985`
+	p := 0.3125 + math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 has no effect on 0.3125: it is below half the spacing of float64 values there \(2.78e-17\), so the sum rounds back to exactly 0.3125`
 	return p
 }
 

@@ -26,6 +26,12 @@ func saneAbsolute(a, b float64) bool {
 	return math.Abs(a-b) < 1e-9
 }
 
+// 2e-16 exceeds the 1.11e-16 gap between floats just under 0.75: the
+// neighbouring double passes, so the test is not exact equality.
+func oneUlpNearThreeQuarters(x float64) bool {
+	return math.Abs(x-0.75) < 2e-16
+}
+
 func zeroTolerance(a, b float64) bool {
 	return math.Abs(a-b) <= 0 // exact on purpose
 }

@@ -155,7 +155,7 @@ func (c *checker) wrappers(root inspector.Cursor) {
 				continue // one of several tests that pass on their own: its tolerance cannot make the whole exact
 			}
 			tolerance.Sites(c.pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, _ string) {
-				grew = c.passesOn(cur, val, u, known) || grew
+				grew = c.uses.Forward(cur, val, u, known) || grew
 			})
 		}
 		if !grew {
@@ -181,34 +181,6 @@ func eitherOr(cur inspector.Cursor) bool {
 		}
 		return false
 	}
-}
-
-// passesOn records val, when it is a parameter of the enclosing function or
-// a field of this package, as a tolerance of use u, and reports whether
-// that is new.
-func (c *checker) passesOn(cur inspector.Cursor, val ast.Expr, u use, known tolerance.Lookup[use]) bool {
-	if field := tolerance.FieldOf(c.pass.TypesInfo, val); field != nil && field.Pkg() == c.pass.Pkg {
-		if _, ok := known.Field(field); !ok {
-			c.uses.Field(field, u)
-			return true
-		}
-		return false
-	}
-	id, ok := ast.Unparen(val).(*ast.Ident)
-	if !ok {
-		return false
-	}
-	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
-		fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, fd.Node().(*ast.FuncDecl), id)
-		if !ok {
-			continue
-		}
-		if _, has := known.Params(fn)[i]; !has {
-			c.uses.Param(fn, i, u)
-			return true
-		}
-	}
-	return false
 }
 
 // defaults reports constants given to the tolerance id in the defaulting

@@ -23,7 +23,7 @@ func (c *checker) sites(root inspector.Cursor) {
 		changed = false
 		for cur := range root.Preorder(filter...) {
 			tolerance.Sites(info, cur.Node(), known, func(val ast.Expr, u use, _ string) {
-				changed = c.forward(cur, val, u, known) || changed
+				changed = c.uses.Forward(cur, val, u, known) || changed
 			})
 		}
 	}
@@ -39,34 +39,6 @@ func (c *checker) sites(root inspector.Cursor) {
 			}
 		})
 	}
-}
-
-// forward learns val, handed on as a tolerance of use u, when it names a
-// parameter of the enclosing function or a field of this package; it
-// reports whether that is new.
-func (c *checker) forward(cur inspector.Cursor, val ast.Expr, u use, known tolerance.Lookup[use]) bool {
-	info := c.pass.TypesInfo
-	if field := tolerance.FieldOf(info, val); field != nil && field.Pkg() == c.pass.Pkg {
-		if _, ok := known.Field(field); !ok {
-			c.uses.Field(field, u)
-			return true
-		}
-		return false
-	}
-	id, ok := ast.Unparen(val).(*ast.Ident)
-	if !ok {
-		return false
-	}
-	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
-		decl := fd.Node().(*ast.FuncDecl)
-		if fn, i, ok := tolerance.ParamOf(info, decl, id); ok {
-			if _, seen := known.Params(fn)[i]; !seen {
-				c.uses.Param(fn, i, u)
-				return true
-			}
-		}
-	}
-	return false
 }
 
 // defaults returns the constants a wrapper gives val, a variable of the

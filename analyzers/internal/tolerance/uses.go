@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 )
 
 // ParamsFact records, for one analyzer, the parameters of a function used
@@ -63,6 +64,33 @@ func (u *Uses[U]) Field(field *types.Var, use U) {
 	if field.Pkg() == u.pass.Pkg {
 		u.fields[field] = use
 	}
+}
+
+// Forward learns val, handed on as a tolerance of use u, when it names a
+// parameter of a function declaration around cur or a field of this
+// package; it reports whether that is new.
+func (u *Uses[U]) Forward(cur inspector.Cursor, val ast.Expr, use U, known Lookup[U]) bool {
+	info := u.pass.TypesInfo
+	if field := FieldOf(info, val); field != nil && field.Pkg() == u.pass.Pkg {
+		if _, ok := known.Field(field); !ok {
+			u.Field(field, use)
+			return true
+		}
+		return false
+	}
+	id, ok := ast.Unparen(val).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		if fn, i, ok := ParamOf(info, fd.Node().(*ast.FuncDecl), id); ok {
+			if _, seen := known.Params(fn)[i]; !seen {
+				u.Param(fn, i, use)
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // Export makes the recorded parameters and fields known to the packages

@@ -7,7 +7,6 @@ import (
 	"go/token"
 	"go/types"
 	"math"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
@@ -15,6 +14,7 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
 )
@@ -81,7 +81,7 @@ func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
 		return math.Abs(f.Value(v))
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
-	if field == nil || !inTestFile(c.pass.Fset, field.Pos()) {
+	if field == nil || !provenance.InTestFile(c.pass.Fset, field.Pos()) {
 		return 0 // only a test's own table of cases says what values reach the test
 	}
 	if c.fields == nil {
@@ -306,10 +306,4 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
-}
-
-// inTestFile reports whether pos lies in a _test.go file.
-func inTestFile(fset *token.FileSet, pos token.Pos) bool {
-	f := fset.File(pos)
-	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }

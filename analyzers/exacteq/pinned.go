@@ -168,7 +168,7 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 			vals = []ast.Expr{init}
 		}
 	case *ast.SelectorExpr:
-		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil && inTestFile(c.pass.Fset, field.Pos()) {
+		if field := c.pass.TypesInfo.Uses[e.Sel]; field != nil && provenance.InTestFile(c.pass.Fset, field.Pos()) {
 			vals = c.fieldValues()[field]
 		}
 	}
@@ -317,13 +317,7 @@ func (c *checker) isConst(e ast.Expr) bool {
 
 // inTest reports whether cur lies in a _test.go file.
 func (c *checker) inTest(cur inspector.Cursor) bool {
-	return inTestFile(c.pass.Fset, cur.Node().Pos())
-}
-
-// inTestFile reports whether pos lies in a _test.go file.
-func inTestFile(fset *token.FileSet, pos token.Pos) bool {
-	f := fset.File(pos)
-	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
+	return provenance.InTestFile(c.pass.Fset, cur.Node().Pos())
 }
 
 // enclosingFunc returns the outermost function declaration around cur, or nil.

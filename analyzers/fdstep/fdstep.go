@@ -6,7 +6,6 @@ import (
 	"go/token"
 	"go/types"
 	"slices"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -248,11 +247,6 @@ func isReal(t types.Type) bool {
 	return provenance.IsFloat(t) && (!ok || b.Info()&types.IsComplex == 0)
 }
 
-// inTest reports whether pos lies in a _test.go file.
-func (c *checker) inTest(pos token.Pos) bool {
-	return strings.HasSuffix(c.pass.Fset.File(pos).Name(), "_test.go")
-}
-
 // deliberate reports whether verdict v at pos concerns a step a test chose
 // on purpose: a test's derivative check evaluates at the test's own points
 // and compares with its own tolerance, so a step that does not scale with
@@ -261,7 +255,7 @@ func (c *checker) inTest(pos token.Pos) bool {
 // far below the optimum is not: the check's own rounding error then nears
 // its tolerance, and the test passes or fails with the last bits.
 func (c *checker) deliberate(pos token.Pos, v verdict) bool {
-	return c.inTest(pos) && !v.bad
+	return provenance.InTestFile(c.pass.Fset, pos) && !v.bad
 }
 
 // line returns the line of pos.

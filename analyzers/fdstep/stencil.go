@@ -90,7 +90,7 @@ func (c *checker) judgeStencils() {
 	for _, p := range c.stencils {
 		fn := p.add.Parent()
 		h, cell, ok := c.step(p)
-		if !ok || seen[[2]any{fn, cell}] || c.inTest(p.add.Pos()) {
+		if !ok || seen[[2]any{fn, cell}] || provenance.InTestFile(c.pass.Fset, p.add.Pos()) {
 			continue
 		}
 		p.h = h
@@ -139,7 +139,7 @@ func (c *checker) stepLeaves(v ssa.Value, depth int, seen map[ssa.Value]bool, ou
 	case *ssa.Parameter:
 		i := slices.Index(w.Parent().Params, w)
 		for _, call := range c.callers[w.Parent()] {
-			if c.inTest(call.Pos()) {
+			if provenance.InTestFile(c.pass.Fset, call.Pos()) {
 				continue // a test's own step
 			}
 			if i >= len(call.Common().Args) || !c.stepLeaves(call.Common().Args[i], depth-1, seen, out) {
@@ -189,7 +189,7 @@ func (c *checker) fieldLeaves(f *types.Var, out *[]constSite) bool {
 		return false
 	}
 	for _, st := range c.stores[f] {
-		if v, ok := constval.Float(provenance.Strip(st.Val), c.globals); ok && v != 0 && !c.inTest(st.Pos()) {
+		if v, ok := constval.Float(provenance.Strip(st.Val), c.globals); ok && v != 0 && !provenance.InTestFile(c.pass.Fset, st.Pos()) {
 			*out = append(*out, constSite{v, c.values[st.Pos()]})
 		}
 	}

@@ -6,9 +6,7 @@ import (
 	"go/types"
 	"maps"
 	"slices"
-	"strings"
 
-	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/provenance"
@@ -550,11 +548,6 @@ func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
 		return true
 	})
 	return out
-}
-
-// inTestFile reports whether n lies in a _test.go file.
-func inTestFile(pass *analysis.Pass, n ast.Node) bool {
-	return strings.HasSuffix(pass.Fset.File(n.Pos()).Name(), "_test.go")
 }
 
 // carriesFloats reports whether a value of type t can carry float work

@@ -203,7 +203,7 @@ func describe(u use, src string, tol float64) string {
 // knows, and running the test settles whether it is met.
 func (c *checker) site(val ast.Expr, u use, how string, test ast.Node) {
 	tv, ok := c.pass.TypesInfo.Types[val]
-	if !ok || tv.Value == nil || inTestFile(c.pass, val) {
+	if !ok || tv.Value == nil || provenance.InTestFile(c.pass.Fset, val.Pos()) {
 		return
 	}
 	at, related := ast.Node(val), []analysis.RelatedInformation(nil)

@@ -33,7 +33,7 @@ const (
 // the term, fresh draws (sampling, polling), values carried only by integer
 // counters or by walking data, and scans by a given step.
 func (c *checker) unbounded(l *loop) {
-	if l.capped || l.other || len(l.exits) == 0 || inTestFile(c.pass, l.stmt) {
+	if l.capped || l.other || len(l.exits) == 0 || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)

@@ -230,8 +230,11 @@ func (t *Tracker) callComputed(caller *ssa.Function, c *ssa.CallCommon, index in
 }
 
 // inTestFile reports whether fn is declared in a _test.go file.
-func inTestFile(fn *ssa.Function) bool {
-	f := fn.Prog.Fset.File(fn.Pos())
+func inTestFile(fn *ssa.Function) bool { return InTestFile(fn.Prog.Fset, fn.Pos()) }
+
+// InTestFile reports whether pos lies in a _test.go file.
+func InTestFile(fset *token.FileSet, pos token.Pos) bool {
+	f := fset.File(pos)
 	return f != nil && strings.HasSuffix(f.Name(), "_test.go")
 }
 

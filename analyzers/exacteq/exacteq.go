@@ -12,6 +12,7 @@ import (
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
@@ -64,6 +65,16 @@ type checker struct {
 }
 
 func run(pass *analysis.Pass) (any, error) {
+	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
+	var work []inspector.Cursor
+	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
+		if mayConcern(pass.TypesInfo, cur) {
+			work = append(work, cur)
+		}
+	}
+	if len(work) == 0 {
+		return nil, nil // no SSA needed
+	}
 	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
 	c := &checker{
 		pass:    pass,
@@ -75,8 +86,7 @@ func run(pass *analysis.Pass) (any, error) {
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 	}
 	c.index(ssainfo.SrcFuncs)
-	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
-	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
+	for _, cur := range work {
 		switch n := cur.Node().(type) {
 		case *ast.BinaryExpr:
 			switch n.Op {
@@ -92,6 +102,26 @@ func run(pass *analysis.Pass) (any, error) {
 		}
 	}
 	return nil, nil
+}
+
+// mayConcern reports, from syntax and types alone, whether cur is a node
+// some rule may examine: a comparison of values holding floats, a case of
+// a switch, or a call to a comparing function. A package with none needs
+// no SSA.
+func mayConcern(info *types.Info, cur inspector.Cursor) bool {
+	switch n := cur.Node().(type) {
+	case *ast.BinaryExpr:
+		t := info.TypeOf(n.X)
+		return n.Op.IsOperator() && n.Op.Precedence() == token.EQL.Precedence() &&
+			(provenance.IsFloat(t) || holdsFloat(t, 0) || provenance.IsFloat(info.TypeOf(n.Y)))
+	case *ast.CaseClause:
+		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
+		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
+	case *ast.CallExpr:
+		fn, ok := typeutil.Callee(info, n).(*types.Func)
+		return ok && fn.Pkg() != nil && (deepEqual[fn.Pkg().Path()+"."+fn.Name()] || isTestify(fn.Pkg().Path()))
+	}
+	return false
 }
 
 // index records, in one walk of the package's SSA, every equality test and

@@ -30,17 +30,18 @@ var testifyEqual = map[string]string{
 // exactly under the same rules as ==.
 func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || c.deliberate(cur) {
+	if !ok || fn.Pkg() == nil {
 		return
 	}
-	if deepEqual[fn.Pkg().Path()+"."+fn.Name()] && len(call.Args) >= 2 {
+	deep := deepEqual[fn.Pkg().Path()+"."+fn.Name()]
+	if !deep && !isTestify(fn.Pkg().Path()) || c.deliberate(cur) {
+		return
+	}
+	if deep && len(call.Args) >= 2 {
 		if sc := c.calls[call.Lparen]; sc != nil && len(sc.Common().Args) >= 2 {
 			args := sc.Common().Args
 			c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), operand{call.Args[0], args[0]}, operand{call.Args[1], args[1]}, nil)
 		}
-		return
-	}
-	if !isTestify(fn.Pkg().Path()) {
 		return
 	}
 	replacement, ok := testifyEqual[fn.Name()]

@@ -4,7 +4,9 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
+	"go/token"
 	"go/types"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -15,6 +17,7 @@ import (
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
+	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
 )
@@ -93,23 +96,46 @@ func run(pass *analysis.Pass) (any, error) {
 		tests: make(map[use]ast.Node),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
-	funcs := make(map[ast.Node]*function) // per function body
-	for cur := range root.Preorder((*ast.ForStmt)(nil), (*ast.BinaryExpr)(nil)) {
-		switch n := cur.Node().(type) {
-		case *ast.ForStmt:
-			body := enclosingBody(cur)
-			if funcs[body] == nil {
-				funcs[body] = &function{body: body, decl: enclosingDecl(cur), fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
-			}
-			l := readLoop(pass.TypesInfo, n, funcs[body])
-			l.noise = c.objectiveNoise(l)
-			c.loop(cur, l)
-		case *ast.BinaryExpr:
+	var floatCmps []token.Pos
+	for cur := range root.Preorder((*ast.BinaryExpr)(nil)) {
+		n := cur.Node().(*ast.BinaryExpr)
+		if isFloatComparison(pass.TypesInfo, n) {
+			floatCmps = append(floatCmps, n.OpPos)
 			c.gradient(cur, n)
 		}
 	}
+	slices.Sort(floatCmps)                // files need not come in the order of their positions
+	funcs := make(map[ast.Node]*function) // per function body
+	for cur := range root.Preorder((*ast.ForStmt)(nil)) {
+		n := cur.Node().(*ast.ForStmt)
+		if !holdsAny(floatCmps, n) {
+			continue // every rule is about a loop ended by a float test
+		}
+		body := enclosingBody(cur)
+		if funcs[body] == nil {
+			funcs[body] = &function{body: body, decl: enclosingDecl(cur), fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
+		}
+		l := readLoop(pass.TypesInfo, n, funcs[body])
+		l.noise = c.objectiveNoise(l)
+		c.loop(cur, l)
+	}
 	c.sites(root)
 	return nil, nil
+}
+
+// isFloatComparison reports whether n orders or equates float operands.
+func isFloatComparison(info *types.Info, n *ast.BinaryExpr) bool {
+	switch n.Op {
+	case token.LSS, token.LEQ, token.GTR, token.GEQ, token.EQL, token.NEQ:
+		return provenance.IsFloat(info.TypeOf(n.X)) || provenance.IsFloat(info.TypeOf(n.Y))
+	}
+	return false
+}
+
+// holdsAny reports whether one of the sorted positions lies within n.
+func holdsAny(sorted []token.Pos, n ast.Node) bool {
+	i, _ := slices.BinarySearch(sorted, n.Pos())
+	return i < len(sorted) && sorted[i] < n.End()
 }
 
 // objectiveNoise returns the largest declared noise level among the

@@ -10,6 +10,7 @@ import (
 	"runtime/pprof"
 	"slices"
 	"strings"
+	"sync"
 	"time"
 
 	"golang.org/x/tools/go/analysis"
@@ -37,7 +38,13 @@ type benchOptions struct {
 	loadOnly, times        bool
 	cpuProfile, memProfile string
 	stopCPU                func() // set while a CPU profile is written
+
+	mu    sync.Mutex
+	lazys []buildTimer // lazyssa's results, kept for their build times
 }
+
+// buildTimer is the part of lazyssa's result the benchmark reads.
+type buildTimer interface{ BuildTime() time.Duration }
 
 // readBenchEnv parses benchEnv; unknown words are an error.
 func readBenchEnv() (*benchOptions, error) {
@@ -91,11 +98,40 @@ func startBench() (*benchOptions, error) {
 }
 
 // suite returns the analyzers to run: loadOnly alone, or analyzers.
+// When times are wanted it also makes lazyssa hand each package's result
+// to b: the checker drops the results of actions that are not roots, so
+// the SSA build times could not be read from the graph afterwards.
 func (b *benchOptions) suite(analyzers []*analysis.Analyzer) []*analysis.Analyzer {
 	if b.loadOnly {
 		return []*analysis.Analyzer{loadOnly}
 	}
+	if lazy := required(analyzers, "lazyssa"); b.times && lazy != nil {
+		run := lazy.Run
+		lazy.Run = func(pass *analysis.Pass) (any, error) {
+			res, err := run(pass)
+			if t, ok := res.(buildTimer); ok {
+				b.mu.Lock()
+				b.lazys = append(b.lazys, t)
+				b.mu.Unlock()
+			}
+			return res, err
+		}
+	}
 	return analyzers
+}
+
+// required returns the analyzer of that name among analyzers and what
+// they require, or nil.
+func required(analyzers []*analysis.Analyzer, name string) *analysis.Analyzer {
+	for _, a := range analyzers {
+		if a.Name == name {
+			return a
+		}
+		if r := required(a.Requires, name); r != nil {
+			return r
+		}
+	}
+	return nil
 }
 
 // options returns the checker's options: one action at a time when the
@@ -115,7 +151,7 @@ func (b *benchOptions) stop() {
 // asked.
 func (b *benchOptions) done(graph *checker.Graph, stderr io.Writer) error {
 	if b.times && graph != nil {
-		printTimes(graph, stderr)
+		b.printTimes(graph, stderr)
 	}
 	if b.memProfile == "" {
 		return nil
@@ -135,7 +171,7 @@ func (b *benchOptions) done(graph *checker.Graph, stderr io.Writer) error {
 // printTimes prints, for each analyzer of the graph (infrastructure
 // included), the packages it ran on and its time, largest first, and the
 // part of those times spent building SSA on request (lazyssa).
-func printTimes(graph *checker.Graph, w io.Writer) {
+func (b *benchOptions) printTimes(graph *checker.Graph, w io.Writer) {
 	type total struct {
 		name    string
 		actions int
@@ -160,10 +196,8 @@ func printTimes(graph *checker.Graph, w io.Writer) {
 			t.name, t.actions, t.time.Seconds(), 100*t.time.Seconds()/sum.Seconds())
 	}
 	var ssa time.Duration
-	for act := range graph.All() {
-		if l, ok := act.Result.(interface{ BuildTime() time.Duration }); ok {
-			ssa += l.BuildTime() // the lazyssa analyzer's result
-		}
+	for _, l := range b.lazys {
+		ssa += l.BuildTime()
 	}
 	fmt.Fprintf(w, "roundoff-bench: of which SSA construction through lazyssa %.3fs share %.1f%%\n", ssa.Seconds(), 100*ssa.Seconds()/sum.Seconds())
 }

@@ -94,11 +94,11 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		n := cur.Node()
 		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, 0, how)
+			c.site(val, u, 0, how, besideOf(n))
 		})
 		switch n := n.(type) {
 		case *ast.CallExpr:
-			c.call(n)
+			c.call(cur, n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:
@@ -188,7 +188,7 @@ func eitherOr(cur inspector.Cursor) bool {
 func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
 	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
 	for _, val := range c.uses.DefaultsOf(decl)[v] {
-		c.site(val, u, 0, "given as the default of "+id.Name)
+		c.site(val, u, 0, "given as the default of "+id.Name, nil)
 	}
 }
 

@@ -25,14 +25,15 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		c.iterate(cur, t, f, tol)
 		return
 	}
-	res := judge(t.Kind, tol, f, c.magnitude(t, f))
+	mag := c.magnitude(cur, t, f)
+	res := judge(t.Kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
 	}
 	d := analysis.Diagnostic{
 		Pos: t.Cmp.Pos(), End: t.Cmp.End(),
 		Category: category(res),
-		Message:  describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol) + " " + explain(res, tol, f, c.magnitude(t, f)),
+		Message:  describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol) + " " + explain(res, tol, f, mag),
 		Related:  c.declaredAt(t.Tol),
 	}
 	fixes.Report(c.pass, d, c.tolFix(cur, t, res, f)...)
@@ -61,23 +62,28 @@ func gapBelow(f numeric.Format, m float64) float64 {
 	return m - math.Nextafter(m, 0)
 }
 
-// magnitude returns the size of the compared values when an operand is a
-// constant or read from a table of constants, else 0.
-func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
+// magnitude returns the size of the compared values at cur when an operand
+// is a constant, read from a table of constants or a variable last given a
+// constant, else 0.
+func (c *checker) magnitude(cur inspector.Cursor, t tolerance.Test, f numeric.Format) float64 {
 	for _, e := range []ast.Expr{t.A, t.B} {
-		if m := c.sizeOf(e, f); m > 0 {
+		if m := c.sizeOf(cur, e, f); m > 0 {
 			return m
 		}
 	}
 	return 0
 }
 
-// sizeOf returns |e| when e is a constant, or the largest magnitude among
+// sizeOf returns |e| at cur when e is a constant or a local variable last
+// given a constant (see assignedBefore), or the largest magnitude among
 // the constants the package's composite literals give the field e reads,
 // when that field is declared in a test (the expected values of a table of
 // test cases, tc.want), else 0.
-func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
+func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
+		return math.Abs(f.Value(v))
+	}
+	if v, ok := c.assignedBefore(cur, e); ok {
 		return math.Abs(f.Value(v))
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)

@@ -237,3 +237,26 @@ func peak32(xs []float32) float32 {
 func denormal(x, y float64) bool {
 	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }
+
+// A coefficient times the value beside it is a relative tolerance, held
+// to the unit roundoff like any other.
+const lens = 3.5e-19
+
+type lensCase struct {
+	want float64
+	tol  float64 // want tol:"an absolute tolerance of float64 in lensOK"
+}
+
+var lensCases = []lensCase{{want: lens, tol: 1e-18 * lens}} // want `1e-18, the coefficient of lens in a tolerance set as field tol \(an absolute tolerance of float64 in lensOK, tested at \w+\.go:\d+\), is below the unit roundoff`
+
+func lensOK(c lensCase, got float64) bool { return math.Abs(got-c.want) <= c.tol }
+
+// A variable last given a constant holds exactly that value at the test,
+// so the tolerance is judged there: 1e-14 at 1000.5 is below half the
+// spacing of float64 values (5.68e-14).
+func logSumChecks(small, large float64) bool {
+	want := 2.5
+	ok := math.Abs(small-want) < 1e-14
+	want = -1000.5
+	return ok && math.Abs(large-want) < 1e-14 // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 1000.5 \(5.68e-14\): the test passes only on exact equality`
+}

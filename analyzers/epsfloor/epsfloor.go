@@ -40,6 +40,7 @@ const (
 	catSubnormal = "subnormal"
 	catIterate   = "iterate"
 	catAbsorbed  = "absorbed"
+	catOverflow  = "overflow"
 )
 
 // use records how a parameter or field is used as a tolerance.
@@ -110,6 +111,9 @@ func run(pass *analysis.Pass) (any, error) {
 
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
+	if c.aboveLargest(cur, n) {
+		return
+	}
 	t, ok := c.read.Recognize(n)
 	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return

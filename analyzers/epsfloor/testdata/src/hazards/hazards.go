@@ -260,3 +260,20 @@ func logSumChecks(small, large float64) bool {
 	want = -1000.5
 	return ok && math.Abs(large-want) < 1e-14 // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 1000.5 \(5.68e-14\): the test passes only on exact equality`
 }
+
+// No finite float64 exceeds math.MaxFloat64, so the overflow test is
+// x == +Inf and a negative value scaled past the range (-Inf) slips by.
+func rescale(x, k float64) float64 {
+	y := x * k
+	if y > math.MaxFloat64 { // want `y > math.MaxFloat64 holds only for y = \+Inf: no finite float64 exceeds 1.8e\+308, so an overflow of a negative value \(-Inf\) passes unseen; test math.IsInf\(y, 0\)`
+		return x
+	}
+	return y / k
+}
+
+func rescale32(x, k float32) float32 {
+	if y := x * k; math.MaxFloat32 <= y { // want `math.MaxFloat32 <= y holds only for y = \+Inf: no finite float32 exceeds 3.4e\+38`
+		return x
+	}
+	return x * k
+}

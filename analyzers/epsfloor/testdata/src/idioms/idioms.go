@@ -228,3 +228,19 @@ func closureSet(got float64, rescale func(func())) bool {
 	rescale(shrink)
 	return math.Abs(got-want) < 1e-14
 }
+
+// A non-negative value can overflow only to +Inf, and a test of both
+// sides catches both infinities: neither misses an overflow.
+func normOverflows(x, y float64) bool {
+	return math.Hypot(x, y) > math.MaxFloat64
+}
+
+func eitherOverflows(y float64) bool {
+	return y > math.MaxFloat64 || y < -math.MaxFloat64
+}
+
+// A float64 compared with the largest float32 is a range test with finite
+// values on both sides.
+func fitsFloat32(y float64) bool {
+	return y > math.MaxFloat32
+}

@@ -74,7 +74,11 @@
 // resolution (eps 2^-23 ≈ 1.19e-7), as are float32 operands in general and
 // a type parameter whose type set admits float32. When a compared value is
 // read from a table of constants (tc.want), the largest of them is the
-// magnitude at which an absolute tolerance is judged; when it is a local
+// magnitude at which an absolute tolerance is judged; inside a loop over a
+// literal table of cases, a compared value worked out from each case's
+// constants (want := tc.mu + tc.k*(tc.x[0]-tc.x[1])) is evaluated exactly
+// for every case, and the largest is the magnitude (a call, or a loop that
+// changes its case, leaves it unknown); when it is a local
 // variable whose last assignment before the test, in straight-line code,
 // gives it a constant (want = -1000.5 before the next check), it holds
 // exactly that constant there, and the test is judged at it. A branch,

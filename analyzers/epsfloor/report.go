@@ -75,16 +75,21 @@ func (c *checker) magnitude(cur inspector.Cursor, t tolerance.Test, f numeric.Fo
 }
 
 // sizeOf returns |e| at cur when e is a constant or a local variable last
-// given a constant (see assignedBefore), or the largest magnitude among
-// the constants the package's composite literals give the field e reads,
-// when that field is declared in a test (the expected values of a table of
-// test cases, tc.want), else 0.
+// given a constant (see assignedBefore); the largest |e| over the cases of
+// a table that a range loop around cur walks, when e can be evaluated in
+// each from the case's constants (trueMean := tc.mu + tc.k*tc.x); or the
+// largest magnitude among the constants the package's composite literals
+// give the field e reads, when that field is declared in a test (the
+// expected values of a table of test cases, tc.want); else 0.
 func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
 		return math.Abs(f.Value(v))
 	}
 	if v, ok := c.assignedBefore(cur, e); ok {
 		return math.Abs(f.Value(v))
+	}
+	if m := c.rowSize(cur, e, f); m > 0 {
+		return m
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
 	if field == nil || !provenance.InTestFile(c.pass.Fset, field.Pos()) {
@@ -100,6 +105,31 @@ func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) flo
 		}
 	}
 	return size
+}
+
+// rowSize returns the largest |e| over the cases of the table that the
+// innermost range loop around cur over a literal walks, when e can be
+// evaluated in every case (constval.InRow) and the loop does not change
+// the case it holds, else 0.
+func (c *checker) rowSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
+	info := c.pass.TypesInfo
+	for r := range cur.Enclosing((*ast.RangeStmt)(nil)) {
+		rs := r.Node().(*ast.RangeStmt)
+		row, cases, ok := constval.Table(info, c.decls, rs)
+		if !ok || setsPart(info, rs.Body, row) {
+			continue
+		}
+		size := 0.0
+		for _, k := range cases {
+			v, ok := constval.InRow(info, c.decls, e, row, k)
+			if !ok {
+				return 0
+			}
+			size = max(size, math.Abs(f.Value(v)))
+		}
+		return size
+	}
+	return 0
 }
 
 func category(res tolerance.Resolution) string {
@@ -312,4 +342,36 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
+}
+
+// setsPart reports whether body assigns to v or to a field or element of
+// it (tc.want = ..., tc.n++).
+func setsPart(info *types.Info, body ast.Node, v types.Object) bool {
+	found := false
+	ast.Inspect(body, func(n ast.Node) bool {
+		var lhs []ast.Expr
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			lhs = n.Lhs
+		case *ast.IncDecStmt:
+			lhs = []ast.Expr{n.X}
+		}
+		for _, l := range lhs {
+			for {
+				switch x := ast.Unparen(l).(type) {
+				case *ast.SelectorExpr:
+					l = x.X
+					continue
+				case *ast.IndexExpr:
+					l = x.X
+					continue
+				case *ast.Ident:
+					found = found || info.ObjectOf(x) == v
+				}
+				break
+			}
+		}
+		return !found
+	})
+	return found
 }

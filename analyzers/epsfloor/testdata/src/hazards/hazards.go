@@ -277,3 +277,23 @@ func rescale32(x, k float32) float32 {
 	}
 	return x * k
 }
+
+// The expected value of each case, computed from the case's own
+// constants, reaches 580 in the second case, where float64 values are
+// 1.14e-13 apart: 1e-14 there is exact equality.
+func conditionalMeans(mean func(mu, slope, x float64) float64) bool {
+	for _, tc := range []struct {
+		mu, slope float64
+		x         []float64
+	}{
+		{mu: 1, slope: 0.5, x: []float64{2, 4}},
+		{mu: 20, slope: -0.6, x: []float64{1000, 0}},
+	} {
+		slope := tc.slope
+		want := tc.mu + slope*(tc.x[0]-tc.x[1])
+		if math.Abs(mean(tc.mu, slope, tc.x[0])-want) > 1e-14 { // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 580 \(5.68e-14\)`
+			return false
+		}
+	}
+	return true
+}

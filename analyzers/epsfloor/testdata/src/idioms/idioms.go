@@ -244,3 +244,27 @@ func eitherOverflows(y float64) bool {
 func fitsFloat32(y float64) bool {
 	return y > math.MaxFloat32
 }
+
+// A case's expected value is known only when every case's can be worked
+// out from its constants: a call (a square root) or a loop that changes
+// the case leaves it unknown, and 1e-14, above eps, is not judged at the
+// size of the cases.
+func rootCases(root func(float64) float64) bool {
+	for _, tc := range []struct{ a float64 }{{2}, {1e6}} {
+		want := math.Sqrt(tc.a)
+		if math.Abs(root(tc.a)-want) > 1e-14 {
+			return false
+		}
+	}
+	return true
+}
+
+func shrunkCases(f func(float64) float64) bool {
+	for _, tc := range []struct{ x, want float64 }{{1, 2}, {1000, 2000}} {
+		tc.want /= 1e3
+		if math.Abs(f(tc.x)-(tc.want+1)) > 1e-14 {
+			return false
+		}
+	}
+	return true
+}

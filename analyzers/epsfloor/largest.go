@@ -19,7 +19,8 @@ import (
 // (2-2^-52)·2^1023 ≈ 1.8e308 for binary64), so the test is x == +Inf, and
 // an overflow of a negative value, -Inf, passes it unseen. It is left
 // alone when x is non-negative by construction or the same condition also
-// tests the other side (|| x < -m). It reports whether it reported.
+// tests the other side (|| x < -m, as an IsInf written with comparisons
+// does). It reports whether it reported.
 func (c *checker) aboveLargest(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	x, m := n.X, n.Y
 	if n.Op == token.LSS || n.Op == token.LEQ {
@@ -60,12 +61,12 @@ func (c *checker) followed(e ast.Expr) ast.Expr {
 	return e
 }
 
-// testsBelow reports whether the || chain around cur also compares x (as
-// written) with the constant low, the other side of a range test.
+// testsBelow reports whether the condition (|| and && of tests) around cur
+// also compares x (as written) with the constant low, the other side.
 func (c *checker) testsBelow(cur inspector.Cursor, x ast.Expr, low float64) bool {
 	top := cur
 	for p := cur.Parent(); ; p = p.Parent() {
-		if b, ok := p.Node().(*ast.BinaryExpr); ok && b.Op == token.LOR {
+		if b, ok := p.Node().(*ast.BinaryExpr); ok && (b.Op == token.LOR || b.Op == token.LAND) {
 			top = p
 		} else if _, ok := p.Node().(*ast.ParenExpr); !ok {
 			break

@@ -49,7 +49,7 @@ func literal(info *types.Info, decls map[types.Object]ast.Expr, e ast.Expr, dept
 // arithmetic gives; the program's floats differ from it by rounding only.
 func InRow(info *types.Info, decls map[types.Object]ast.Expr, e ast.Expr, row types.Object, c ast.Expr) (constant.Value, bool) {
 	r := rowEval{info, decls, row, c}
-	return r.value(e, 8)
+	return r.value(e, 12)
 }
 
 type rowEval struct {
@@ -72,7 +72,7 @@ func (r rowEval) value(e ast.Expr, depth int) (constant.Value, bool) {
 			return r.value(init, depth-1)
 		}
 	case *ast.SelectorExpr, *ast.IndexExpr:
-		if elt, ok := r.element(x, depth-1); ok {
+		if elt, ok := r.element(x, 6); ok {
 			return r.value(elt, depth-1)
 		}
 	case *ast.UnaryExpr:

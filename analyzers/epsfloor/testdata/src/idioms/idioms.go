@@ -268,3 +268,8 @@ func shrunkCases(f func(float64) float64) bool {
 	}
 	return true
 }
+
+// An infinity test written with comparisons, one side per sign.
+func isInf32(f float32, sign int) bool {
+	return sign >= 0 && f > math.MaxFloat32 || sign <= 0 && f < -math.MaxFloat32
+}

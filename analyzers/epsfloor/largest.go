@@ -29,8 +29,11 @@ func (c *checker) aboveLargest(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 		return false
 	}
 	t := c.pass.TypesInfo.TypeOf(x)
+	if t == nil || !provenance.IsFloat(t) || isComplex(t) || c.isConst(x) {
+		return false
+	}
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, m)
-	if !ok || c.isConst(x) || t == nil || !provenance.IsFloat(t) || isComplex(t) {
+	if !ok {
 		return false
 	}
 	f := provenance.FormatOf(t)

@@ -22,24 +22,11 @@ import (
 // tests the other side (|| x < -m, as an IsInf written with comparisons
 // does). It reports whether it reported.
 func (c *checker) aboveLargest(cur inspector.Cursor, n *ast.BinaryExpr) bool {
-	x, m := n.X, n.Y
-	if n.Op == token.LSS || n.Op == token.LEQ {
-		x, m = n.Y, n.X
-	} else if n.Op != token.GTR && n.Op != token.GEQ {
+	x, _, v, f, ok := c.boundTest(n, token.GTR)
+	if !ok || v != maxOf(f) || nonNegative(c.pass.TypesInfo, c.followed(x)) || c.testsBelow(cur, x, -maxOf(f)) {
 		return false
 	}
 	t := c.pass.TypesInfo.TypeOf(x)
-	if t == nil || !provenance.IsFloat(t) || isComplex(t) || c.isConst(x) {
-		return false
-	}
-	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, m)
-	if !ok {
-		return false
-	}
-	f := provenance.FormatOf(t)
-	if f.Value(v) != maxOf(f) || nonNegative(c.pass.TypesInfo, c.followed(x)) || c.testsBelow(cur, x, -maxOf(f)) {
-		return false
-	}
 	d := analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catOverflow,
 		Message: fmt.Sprintf("%s holds only for %s = +Inf: no finite %s exceeds %.2g, so an overflow of a negative value (-Inf) passes unseen; test math.IsInf(%[2]s, 0)",

@@ -81,7 +81,8 @@
 // changes its case, leaves it unknown); when it is a local
 // variable whose last assignment before the test, in straight-line code,
 // gives it a constant (want = -1000.5 before the next check), it holds
-// exactly that constant there, and the test is judged at it. A branch,
+// exactly that constant there, and the test is judged at it; so is a
+// tolerance variable set again (tol = 1e-20 before the next check). A branch,
 // a loop that assigns it, a closure that assigns it or its address taken
 // leave the value unknown. A tolerance written as a constant k times a
 // value given beside it (the expected value of the same case, or another

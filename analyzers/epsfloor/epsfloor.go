@@ -119,7 +119,11 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))
-	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.Tol); ok {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.Tol)
+	if !ok {
+		v, ok = c.assignedBefore(cur, t.Tol) // a tolerance variable set again: tol = 1e-20 before the next check
+	}
+	if ok {
 		c.constantTol(cur, t, f, f.Value(v))
 		return
 	}

@@ -297,3 +297,12 @@ func conditionalMeans(mean func(mu, slope, x float64) float64) bool {
 	}
 	return true
 }
+
+// A tolerance variable set again to a constant before a test holds that
+// constant there.
+func tightened(a, b, c float64) bool {
+	tol := 1e-9
+	ok := math.Abs(a-b) < tol
+	tol = 1e-20
+	return ok && math.Abs(b-c) < tol // want `absolute tolerance tol \(1e-20\) is below float64 epsilon`
+}

@@ -107,9 +107,9 @@ func (c *checker) constantGiven(s ast.Stmt, v *types.Var) (constant.Value, bool)
 	return nil, false
 }
 
-// escapes reports whether body takes v's address or assigns v inside a
-// function literal, either of which can change v between statements that
-// do not mention it.
+// escapes reports whether body takes v's address (explicitly, or by
+// calling a pointer method on it) or assigns v inside a function literal,
+// any of which can change v between statements that do not assign it.
 func escapes(info *types.Info, body ast.Node, v *types.Var) bool {
 	vars := map[types.Object]bool{v: true}
 	found := false
@@ -119,6 +119,8 @@ func escapes(info *types.Info, body ast.Node, v *types.Var) bool {
 			found = found || n != body && assigns(info, n.Body, vars)
 		case *ast.UnaryExpr:
 			found = found || n.Op == token.AND && isVar(info, n.X, v)
+		case *ast.SelectorExpr:
+			found = found || isVar(info, n.X, v) && constval.PointerMethod(info, n) // v.Grow() takes &v
 		}
 		return !found
 	})

@@ -273,3 +273,14 @@ func shrunkCases(f func(float64) float64) bool {
 func isInf32(f float32, sign int) bool {
 	return sign >= 0 && f > math.MaxFloat32 || sign <= 0 && f < -math.MaxFloat32
 }
+
+// A pointer method may change the value it is called on.
+type level float64
+
+func (l *level) halve() { *l /= 2 }
+
+func halved(got float64) bool {
+	want := level(1000.5)
+	want.halve()
+	return math.Abs(got-float64(want)) < 1e-14
+}

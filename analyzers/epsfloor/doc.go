@@ -32,6 +32,10 @@
 //   - the smallest positive float used as a tolerance, and x < it (no
 //     float lies between 0 and it, so for x ≥ 0 the test is x == 0; the
 //     smallest normal value, 0x1p-1022, catches subnormal values);
+//   - x > math.MaxFloat64 (or >=, and the float32 analogue): no finite
+//     value exceeds the largest one, so the test is x == +Inf, and an
+//     overflow of a negative value, -Inf, passes unseen (math.IsInf(x, 0)
+//     tests both);
 //   - a tiny constant that floors a variable which then divides (the
 //     modified Lentz method's if d == 0 { d = tiny }; d = 1/d): when
 //     1/constant overflows, as 1/4.9e-324 does (the largest float64 is
@@ -68,11 +72,32 @@
 // of a float32 math library, a package's own helper; see package absval),
 // so float32 code through its own math library is judged against float32's
 // resolution (eps 2^-23 ≈ 1.19e-7), as are float32 operands in general and
-// a type parameter whose type set admits float32. When a compared value is
-// read from a table of constants (tc.want), the largest of them is the
-// magnitude at which an absolute tolerance is judged. A finding at the
-// place that gives a tolerance parameter or field its value names the
-// test that uses it (file:line, and the related position in this package).
+// a type parameter whose type set admits float32. A finding at the place
+// that gives a tolerance parameter or field its value names the test that
+// uses it (file:line, and the related position in this package).
+//
+// An absolute tolerance is judged at the size of the compared values when
+// the source fixes it exactly:
+//
+//   - a constant operand;
+//   - a value read from a table of constants (tc.want): the largest of them;
+//   - inside a loop over a literal table of cases, a value worked out from
+//     each case's constants (want := tc.mu + tc.k*(tc.x[0]-tc.x[1])),
+//     evaluated exactly for every case: the largest (the program's value
+//     differs from it by rounding only);
+//   - a local variable whose last assignment before the test, in
+//     straight-line code, gives it a constant (want = -1000.5 before the
+//     next check): it holds exactly that constant there. A tolerance
+//     variable set again (tol = 1e-20) is read the same way.
+//
+// A call in the expression, a loop that changes the case or assigns the
+// variable, a branch, a closure that assigns it, or its address taken
+// (also by a pointer method) leave the value unknown, and nothing is
+// claimed. A tolerance written as a constant k times a value given beside
+// it (the expected value of the same case, or another argument of the same
+// call: 1e-14*want) is relative to that value: k is judged against u, not
+// the product against eps, since 1e-14 of an area of 5e-21 asks for 14
+// digits of it however small the product is.
 //
 // It leaves alone: zero tolerances (exact on purpose), negative and NaN
 // sentinels; tiny floors whose reciprocal is finite (1e-300), and floors

@@ -40,6 +40,7 @@ const (
 	catSubnormal = "subnormal"
 	catIterate   = "iterate"
 	catAbsorbed  = "absorbed"
+	catOverflow  = "overflow"
 )
 
 // use records how a parameter or field is used as a tolerance.
@@ -94,11 +95,11 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		n := cur.Node()
 		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, 0, how)
+			c.site(val, u, 0, how, besideOf(n))
 		})
 		switch n := n.(type) {
 		case *ast.CallExpr:
-			c.call(n)
+			c.call(cur, n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:
@@ -110,12 +111,19 @@ func run(pass *analysis.Pass) (any, error) {
 
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
+	if c.aboveLargest(cur, n) {
+		return
+	}
 	t, ok := c.read.Recognize(n)
 	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))
-	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.Tol); ok {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, t.Tol)
+	if !ok {
+		v, ok = c.assignedBefore(cur, t.Tol) // a tolerance variable set again: tol = 1e-20 before the next check
+	}
+	if ok {
 		c.constantTol(cur, t, f, f.Value(v))
 		return
 	}
@@ -188,7 +196,7 @@ func eitherOr(cur inspector.Cursor) bool {
 func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
 	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
 	for _, val := range c.uses.DefaultsOf(decl)[v] {
-		c.site(val, u, 0, "given as the default of "+id.Name)
+		c.site(val, u, 0, "given as the default of "+id.Name, nil)
 	}
 }
 

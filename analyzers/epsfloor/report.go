@@ -25,14 +25,15 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		c.iterate(cur, t, f, tol)
 		return
 	}
-	res := judge(t.Kind, tol, f, c.magnitude(t, f))
+	mag := c.magnitude(cur, t, f)
+	res := judge(t.Kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
 	}
 	d := analysis.Diagnostic{
 		Pos: t.Cmp.Pos(), End: t.Cmp.End(),
 		Category: category(res),
-		Message:  describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol) + " " + explain(res, tol, f, c.magnitude(t, f)),
+		Message:  describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol) + " " + explain(res, tol, f, mag),
 		Related:  c.declaredAt(t.Tol),
 	}
 	fixes.Report(c.pass, d, c.tolFix(cur, t, res, f)...)
@@ -61,24 +62,34 @@ func gapBelow(f numeric.Format, m float64) float64 {
 	return m - math.Nextafter(m, 0)
 }
 
-// magnitude returns the size of the compared values when an operand is a
-// constant or read from a table of constants, else 0.
-func (c *checker) magnitude(t tolerance.Test, f numeric.Format) float64 {
+// magnitude returns the size of the compared values at cur when an operand
+// is a constant, read from a table of constants or a variable last given a
+// constant, else 0.
+func (c *checker) magnitude(cur inspector.Cursor, t tolerance.Test, f numeric.Format) float64 {
 	for _, e := range []ast.Expr{t.A, t.B} {
-		if m := c.sizeOf(e, f); m > 0 {
+		if m := c.sizeOf(cur, e, f); m > 0 {
 			return m
 		}
 	}
 	return 0
 }
 
-// sizeOf returns |e| when e is a constant, or the largest magnitude among
-// the constants the package's composite literals give the field e reads,
-// when that field is declared in a test (the expected values of a table of
-// test cases, tc.want), else 0.
-func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
+// sizeOf returns |e| at cur when e is a constant or a local variable last
+// given a constant (see assignedBefore); the largest |e| over the cases of
+// a table that a range loop around cur walks, when e can be evaluated in
+// each from the case's constants (trueMean := tc.mu + tc.k*tc.x); or the
+// largest magnitude among the constants the package's composite literals
+// give the field e reads, when that field is declared in a test (the
+// expected values of a table of test cases, tc.want); else 0.
+func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e); ok {
 		return math.Abs(f.Value(v))
+	}
+	if v, ok := c.assignedBefore(cur, e); ok {
+		return math.Abs(f.Value(v))
+	}
+	if m := c.rowSize(cur, e, f); m > 0 {
+		return m
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
 	if field == nil || !provenance.InTestFile(c.pass.Fset, field.Pos()) {
@@ -94,6 +105,31 @@ func (c *checker) sizeOf(e ast.Expr, f numeric.Format) float64 {
 		}
 	}
 	return size
+}
+
+// rowSize returns the largest |e| over the cases of the table that the
+// innermost range loop around cur over a literal walks, when e can be
+// evaluated in every case (constval.InRow) and the loop does not change
+// the case it holds, else 0.
+func (c *checker) rowSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
+	info := c.pass.TypesInfo
+	for r := range cur.Enclosing((*ast.RangeStmt)(nil)) {
+		rs := r.Node().(*ast.RangeStmt)
+		row, cases, ok := constval.Table(info, c.decls, rs)
+		if !ok || setsPart(info, rs.Body, row) {
+			continue
+		}
+		size := 0.0
+		for _, k := range cases {
+			v, ok := constval.InRow(info, c.decls, e, row, k)
+			if !ok {
+				return 0
+			}
+			size = max(size, math.Abs(f.Value(v)))
+		}
+		return size
+	}
+	return 0
 }
 
 func category(res tolerance.Resolution) string {
@@ -306,4 +342,36 @@ func fileOf(cur inspector.Cursor) *ast.File {
 		return f.Node().(*ast.File)
 	}
 	return nil
+}
+
+// setsPart reports whether body assigns to v or to a field or element of
+// it (tc.want = ..., tc.n++).
+func setsPart(info *types.Info, body ast.Node, v types.Object) bool {
+	found := false
+	ast.Inspect(body, func(n ast.Node) bool {
+		var lhs []ast.Expr
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			lhs = n.Lhs
+		case *ast.IncDecStmt:
+			lhs = []ast.Expr{n.X}
+		}
+		for _, l := range lhs {
+			for {
+				switch x := ast.Unparen(l).(type) {
+				case *ast.SelectorExpr:
+					l = x.X
+					continue
+				case *ast.IndexExpr:
+					l = x.X
+					continue
+				case *ast.Ident:
+					found = found || info.ObjectOf(x) == v
+				}
+				break
+			}
+		}
+		return !found
+	})
+	return found
 }

@@ -211,19 +211,8 @@ func nonNegative(info *types.Info, e ast.Expr) bool {
 // for x ≥ 0 the test is x == 0, and a threshold meant to catch subnormal
 // values catches none but 0. It reports whether it reported.
 func (c *checker) belowSmallest(n *ast.BinaryExpr) bool {
-	x, s := n.X, n.Y
-	if n.Op == token.GTR || n.Op == token.GEQ {
-		x, s = n.Y, n.X
-	} else if n.Op != token.LSS && n.Op != token.LEQ {
-		return false
-	}
-	t := c.pass.TypesInfo.TypeOf(x)
-	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, s)
-	if !ok || c.isConst(x) || t == nil || !provenance.IsFloat(t) || isComplex(t) {
-		return false
-	}
-	f := provenance.FormatOf(t)
-	if f.Value(v) != f.Smallest {
+	_, s, v, f, ok := c.boundTest(n, token.LSS)
+	if !ok || v != f.Smallest {
 		return false
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
@@ -242,4 +231,30 @@ var smallestNormal = map[numeric.Format]string{numeric.Float64: "0x1p-1022", num
 func (c *checker) isConst(e ast.Expr) bool {
 	tv, ok := c.pass.TypesInfo.Types[e]
 	return ok && tv.Value != nil
+}
+
+// boundTest reads n as x < bound (or bound > x, or <=) when dir is
+// token.LSS, as x > bound (or bound < x, or >=) when it is token.GTR,
+// with x a run-time real float and bound a constant, whose value in x's
+// format it returns.
+func (c *checker) boundTest(n *ast.BinaryExpr, dir token.Token) (x, bound ast.Expr, v float64, f numeric.Format, ok bool) {
+	x, bound = n.X, n.Y
+	strict, loose, other, otherLoose := token.LSS, token.LEQ, token.GTR, token.GEQ
+	if dir == token.GTR {
+		strict, loose, other, otherLoose = other, otherLoose, strict, loose
+	}
+	switch n.Op {
+	case strict, loose:
+	case other, otherLoose:
+		x, bound = n.Y, n.X
+	default:
+		return nil, nil, 0, f, false
+	}
+	t := c.pass.TypesInfo.TypeOf(x)
+	if t == nil || !provenance.IsFloat(t) || isComplex(t) || c.isConst(x) {
+		return nil, nil, 0, f, false
+	}
+	val, ok := constval.Exact(c.pass.TypesInfo, c.decls, bound)
+	f = provenance.FormatOf(t)
+	return x, bound, f.Value(val), f, ok
 }

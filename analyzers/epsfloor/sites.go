@@ -3,9 +3,12 @@ package epsfloor
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
+	"go/token"
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
@@ -61,8 +64,8 @@ func apiParams(fn *types.Func) []apiParam {
 	return shifted
 }
 
-// call reports constant tolerances passed to a well-known API.
-func (c *checker) call(call *ast.CallExpr) {
+// call reports constant tolerances passed to a well-known API at cur.
+func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
 	if !ok {
 		return
@@ -70,17 +73,17 @@ func (c *checker) call(call *ast.CallExpr) {
 	for _, p := range apiParams(fn) {
 		if p.index < len(call.Args) {
 			u := use{Kind: p.kind, Where: fn.Name()}
-			c.site(call.Args[p.index], u, c.apiMagnitude(call, p), fmt.Sprintf("passed to %s.%s", fn.Pkg().Name(), fn.Name()))
+			c.site(call.Args[p.index], u, c.apiMagnitude(cur, call, p), fmt.Sprintf("passed to %s.%s", fn.Pkg().Name(), fn.Name()), call.Args)
 		}
 	}
 }
 
 // apiMagnitude returns the size of a compared value of an API call that is
 // a constant, or 0.
-func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
+func (c *checker) apiMagnitude(cur inspector.Cursor, call *ast.CallExpr, p apiParam) float64 {
 	for _, i := range p.values {
 		if i < len(call.Args) {
-			if m := c.sizeOf(call.Args[i], numeric.Float64); m > 0 {
+			if m := c.sizeOf(cur, call.Args[i], numeric.Float64); m > 0 {
 				return m
 			}
 		}
@@ -88,15 +91,22 @@ func (c *checker) apiMagnitude(call *ast.CallExpr, p apiParam) float64 {
 	return 0
 }
 
-// site reports a constant val that reaches a tolerance of the given use.
-func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
+// site reports a constant val that reaches a tolerance of the given use;
+// beside holds the other arguments or fields given with it, among them
+// the compared values.
+func (c *checker) site(val ast.Expr, u use, mag float64, how string, beside []ast.Expr) {
+	kind := u.Kind
+	if coef, w, ok := c.coefficientOf(val, beside); ok && kind == tolerance.Absolute {
+		val, kind, mag = coef, tolerance.Relative, 0
+		how = "the coefficient of " + fixes.Source(c.pass.Fset, w) + " in a tolerance " + how
+	}
 	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val)
 	if !ok {
 		return
 	}
 	f := u.format()
 	tol := f.Value(v)
-	res := judge(u.Kind, tol, f, mag)
+	res := judge(kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
 	}
@@ -116,4 +126,58 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string) {
 		fs = append(fs, fixes.Judgement("Use "+f.Name+" epsilon: "+f.EpsLiteral(), fixes.Replace(val, f.EpsLiteral())))
 	}
 	fixes.Report(c.pass, d, fs...)
+}
+
+// coefficientOf reads a tolerance val written as k*w (or w*k), with k a
+// constant and w one of the values given beside it (the expected value of
+// the same case, or another argument of the same call): the absolute
+// tolerance k·w is then relative to w, so k is what the float type must
+// resolve. 1e-14*want is as fine for want = 5e-21 as for want = 1, though
+// the product, 5e-35, is far below eps.
+func (c *checker) coefficientOf(val ast.Expr, beside []ast.Expr) (k, w ast.Expr, ok bool) {
+	m, ok := ast.Unparen(val).(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL {
+		return nil, nil, false
+	}
+	for _, kw := range [][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+		if _, ok := constval.Exact(c.pass.TypesInfo, c.decls, kw[0]); !ok {
+			continue
+		}
+		for _, b := range beside {
+			if b != val && c.same(kw[1], b) {
+				return kw[0], kw[1], true
+			}
+		}
+	}
+	return nil, nil, false
+}
+
+// same reports whether a and b are written alike or are equal nonzero
+// constants.
+func (c *checker) same(a, b ast.Expr) bool {
+	if types.ExprString(ast.Unparen(a)) == types.ExprString(ast.Unparen(b)) {
+		return true
+	}
+	va, ok := constval.Exact(c.pass.TypesInfo, c.decls, a)
+	vb, ok2 := constval.Exact(c.pass.TypesInfo, c.decls, b)
+	return ok && ok2 && constant.Sign(va) != 0 && constant.Compare(va, token.EQL, vb)
+}
+
+// besideOf returns the values given together in a call (its arguments) or
+// a composite literal (its elements), else nil.
+func besideOf(n ast.Node) []ast.Expr {
+	switch n := n.(type) {
+	case *ast.CallExpr:
+		return n.Args
+	case *ast.CompositeLit:
+		vals := make([]ast.Expr, len(n.Elts))
+		for i, e := range n.Elts {
+			if kv, ok := e.(*ast.KeyValueExpr); ok {
+				e = kv.Value
+			}
+			vals[i] = e
+		}
+		return vals
+	}
+	return nil
 }

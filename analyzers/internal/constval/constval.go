@@ -105,7 +105,8 @@ func isArith(op token.Token) bool {
 
 // Decls maps the constants declared in files, and the variables (local or
 // package-level) that are initialised once and never assigned again nor
-// have their address taken, to their initialising expressions. Constant
+// have their address taken (explicitly, or by a call of a pointer method),
+// to their initialising expressions. Constant
 // blocks' implicit repetition is followed; iota-dependent constants are left
 // out.
 func Decls(info *types.Info, files []*ast.File) map[types.Object]ast.Expr {
@@ -126,6 +127,10 @@ func Decls(info *types.Info, files []*ast.File) map[types.Object]ast.Expr {
 				if n.Op == token.AND {
 					markChanged(info, n.X, changed)
 				}
+			case *ast.SelectorExpr:
+				if PointerMethod(info, n) {
+					markChanged(info, n.X, changed) // v.M() with M on *T takes &v
+				}
 			case *ast.RangeStmt:
 				markChanged(info, n.Key, changed)
 				markChanged(info, n.Value, changed)
@@ -137,6 +142,17 @@ func Decls(info *types.Info, files []*ast.File) map[types.Object]ast.Expr {
 		delete(decls, obj)
 	}
 	return decls
+}
+
+// PointerMethod reports whether sel selects a method with a pointer
+// receiver, which, called on an addressable variable, takes its address.
+func PointerMethod(info *types.Info, sel *ast.SelectorExpr) bool {
+	s, ok := info.Selections[sel]
+	if !ok || s.Kind() != types.MethodVal {
+		return false
+	}
+	_, ptr := s.Obj().(*types.Func).Signature().Recv().Type().Underlying().(*types.Pointer)
+	return ptr
 }
 
 // valueSpecs records the initialisers of a const or var declaration.

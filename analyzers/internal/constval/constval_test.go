@@ -275,3 +275,18 @@ var ptrs = []*row{{3, 0.125}}
 	}
 	assert.Equal(t, []string{"0.5", "0.25", "0.125"}, got)
 }
+
+// TestDeclsPointerMethod: calling a method with a pointer receiver on a
+// variable takes its address (Go spec, "Calls": x.m() is (&x).m()), so the
+// variable may change and is no longer followed; a value method is not.
+func TestDeclsPointerMethod(t *testing.T) {
+	src := "package p\n\ntype L float64\n\nfunc (l *L) Halve() { *l /= 2 }\n\nfunc (l L) Twice() L { return 2 * l }\n\nfunc f() (L, L) {\n\ta := L(3)\n\ta.Halve()\n\tb := L(5)\n\treturn a, b.Twice()\n}\n"
+	_, info, files := build(t, src)
+	decls := constval.Decls(info, files)
+	names := map[string]bool{}
+	for obj := range decls {
+		names[obj.Name()] = true
+	}
+	assert.False(t, names["a"], "a.Halve() takes &a")
+	assert.True(t, names["b"], "b.Twice() copies b")
+}

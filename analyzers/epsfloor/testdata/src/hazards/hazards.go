@@ -237,3 +237,72 @@ func peak32(xs []float32) float32 {
 func denormal(x, y float64) bool {
 	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }
+
+// A coefficient times the value beside it is a relative tolerance, held
+// to the unit roundoff like any other.
+const lens = 3.5e-19
+
+type lensCase struct {
+	want float64
+	tol  float64 // want tol:"an absolute tolerance of float64 in lensOK"
+}
+
+var lensCases = []lensCase{{want: lens, tol: 1e-18 * lens}} // want `1e-18, the coefficient of lens in a tolerance set as field tol \(an absolute tolerance of float64 in lensOK, tested at \w+\.go:\d+\), is below the unit roundoff`
+
+func lensOK(c lensCase, got float64) bool { return math.Abs(got-c.want) <= c.tol }
+
+// A variable last given a constant holds exactly that value at the test,
+// so the tolerance is judged there: 1e-14 at 1000.5 is below half the
+// spacing of float64 values (5.68e-14).
+func logSumChecks(small, large float64) bool {
+	want := 2.5
+	ok := math.Abs(small-want) < 1e-14
+	want = -1000.5
+	return ok && math.Abs(large-want) < 1e-14 // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 1000.5 \(5.68e-14\): the test passes only on exact equality`
+}
+
+// No finite float64 exceeds math.MaxFloat64, so the overflow test is
+// x == +Inf and a negative value scaled past the range (-Inf) slips by.
+func rescale(x, k float64) float64 {
+	y := x * k
+	if y > math.MaxFloat64 { // want `y > math.MaxFloat64 holds only for y = \+Inf: no finite float64 exceeds 1.8e\+308, so an overflow of a negative value \(-Inf\) passes unseen; test math.IsInf\(y, 0\)`
+		return x
+	}
+	return y / k
+}
+
+func rescale32(x, k float32) float32 {
+	if y := x * k; math.MaxFloat32 <= y { // want `math.MaxFloat32 <= y holds only for y = \+Inf: no finite float32 exceeds 3.4e\+38`
+		return x
+	}
+	return x * k
+}
+
+// The expected value of each case, computed from the case's own
+// constants, reaches 580 in the second case, where float64 values are
+// 1.14e-13 apart: 1e-14 there is exact equality.
+func conditionalMeans(mean func(mu, slope, x float64) float64) bool {
+	for _, tc := range []struct {
+		mu, slope float64
+		x         []float64
+	}{
+		{mu: 1, slope: 0.5, x: []float64{2, 4}},
+		{mu: 20, slope: -0.6, x: []float64{1000, 0}},
+	} {
+		slope := tc.slope
+		want := tc.mu + slope*(tc.x[0]-tc.x[1])
+		if math.Abs(mean(tc.mu, slope, tc.x[0])-want) > 1e-14 { // want `absolute tolerance 1e-14 is below half the spacing of float64 values at 580 \(5.68e-14\)`
+			return false
+		}
+	}
+	return true
+}
+
+// A tolerance variable set again to a constant before a test holds that
+// constant there.
+func tightened(a, b, c float64) bool {
+	tol := 1e-9
+	ok := math.Abs(a-b) < tol
+	tol = 1e-20
+	return ok && math.Abs(b-c) < tol // want `absolute tolerance tol \(1e-20\) is below float64 epsilon`
+}

@@ -178,3 +178,109 @@ func nearEnd(s span, x float64) bool { return math.Abs(s.hi-x) < 1e-15 }
 // 1 - p is exact for p in [0.5, 2] (Sterbenz), so at p = 1 the sum is
 // exactly 1e-16 and the tiny addend keeps the logarithm finite.
 func crossEntropy(p float64) float64 { return -math.Log(1 - p + 1e-16) }
+
+// A tolerance written as a coefficient times the value it is compared
+// with is relative: 1e-13 of an area of 2.5e-21 is 2.5e-34, far below eps,
+// yet it asks for 13 significant digits of the area, which float64 holds.
+const sliver = 2.5e-21
+
+type areaCase struct {
+	want   float64
+	within float64 // want within:"an absolute tolerance of float64 in areaOK"
+}
+
+var areaCases = []areaCase{{want: sliver, within: 1e-13 * sliver}, {1, 1e-12}}
+
+func areaOK(c areaCase, got float64) bool { return math.Abs(got-c.want) <= c.within }
+
+func areaNear(got, want, within float64) bool { // want areaNear:"parameter 2 is an absolute tolerance of float64 in areaNear"
+	return math.Abs(got-want) <= within
+}
+
+func sliverArea(got float64) bool { return areaNear(got, sliver, sliver*1e-13) }
+
+// The value a variable holds at a test is known only when nothing but a
+// constant assignment can have set it: a branch, a loop that updates it
+// after the test, or a closure may have moved it, so 1e-14 (above eps)
+// is not judged at 1000.5 in any of these.
+func branchSet(got float64, big bool) bool {
+	want := 0.5
+	if big {
+		want = 1000.5
+	}
+	return math.Abs(got-want) < 1e-14
+}
+
+func loopSet(xs []float64) bool {
+	ref := 1000.5
+	for _, x := range xs {
+		if math.Abs(x-ref) < 1e-14 {
+			return true
+		}
+		ref = x / 1e3
+	}
+	return false
+}
+
+func closureSet(got float64, rescale func(func())) bool {
+	want := 1000.5
+	shrink := func() { want /= 1e3 }
+	rescale(shrink)
+	return math.Abs(got-want) < 1e-14
+}
+
+// A non-negative value can overflow only to +Inf, and a test of both
+// sides catches both infinities: neither misses an overflow.
+func normOverflows(x, y float64) bool {
+	return math.Hypot(x, y) > math.MaxFloat64
+}
+
+func eitherOverflows(y float64) bool {
+	return y > math.MaxFloat64 || y < -math.MaxFloat64
+}
+
+// A float64 compared with the largest float32 is a range test with finite
+// values on both sides.
+func fitsFloat32(y float64) bool {
+	return y > math.MaxFloat32
+}
+
+// A case's expected value is known only when every case's can be worked
+// out from its constants: a call (a square root) or a loop that changes
+// the case leaves it unknown, and 1e-14, above eps, is not judged at the
+// size of the cases.
+func rootCases(root func(float64) float64) bool {
+	for _, tc := range []struct{ a float64 }{{2}, {1e6}} {
+		want := math.Sqrt(tc.a)
+		if math.Abs(root(tc.a)-want) > 1e-14 {
+			return false
+		}
+	}
+	return true
+}
+
+func shrunkCases(f func(float64) float64) bool {
+	for _, tc := range []struct{ x, want float64 }{{1, 2}, {1000, 2000}} {
+		tc.want /= 1e3
+		if math.Abs(f(tc.x)-(tc.want+1)) > 1e-14 {
+			return false
+		}
+	}
+	return true
+}
+
+// An infinity test written with comparisons, one side per sign.
+func isInf32(f float32, sign int) bool {
+	return sign >= 0 && f > math.MaxFloat32 || sign <= 0 && f < -math.MaxFloat32
+}
+
+// A pointer method may change the value it is called on.
+type level float64
+
+func (l *level) halve() { *l /= 2 }
+
+func halved(got float64) bool {
+	want := level(1000.5)
+	want.halve()
+	return math.Abs(got-float64(want)) < 1e-14
+}

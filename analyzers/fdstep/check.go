@@ -21,18 +21,20 @@ const adequate = 10
 
 // checkTolerance returns the tightest tolerance that result, a difference
 // quotient or a call returning one, is compared with in a tolerance test
-// (package tolerance), read at unit scale: tol for |a-b| < tol and for
-// |a-b| < tol·|b|, atol + rtol for the mixed |a-b| < atol + rtol·|b|. It
-// follows result through arithmetic, absolute values and conversions, and
-// into a helper of this package that does the comparison, whose tolerance
-// is then the constant the call passes.
-// It returns 0 when there is none.
+// that measures a difference result is an operand of (package tolerance),
+// read at unit scale: tol for |a-b| < tol and for |a-b| < tol·|b|,
+// atol + rtol for the mixed |a-b| < atol + rtol·|b|. A test of |result|
+// alone asks whether the derivative vanishes, and checks it against no
+// reference. It follows result through arithmetic, absolute values and
+// conversions, and into a helper of this package that does the
+// comparison, whose tolerance is then the constant the call passes. It
+// returns 0 when there is none.
 func (c *checker) checkTolerance(result ssa.Value) float64 {
 	if result == nil {
 		return 0
 	}
 	tol := 0.0
-	c.compared(result, nil, 0, func(t float64) {
+	c.compared(result, nil, 0, false, func(t float64) {
 		if tol == 0 || t < tol {
 			tol = t
 		}
@@ -41,9 +43,10 @@ func (c *checker) checkTolerance(result ssa.Value) float64 {
 }
 
 // compared calls visit with the tolerance of every tolerance test that v
-// reaches within a few operations. args are the arguments of the call
-// into the helper v belongs to, nil outside a helper.
-func (c *checker) compared(v ssa.Value, args []ssa.Value, depth int, visit func(float64)) {
+// reaches within a few operations, as an operand of the difference the
+// test measures (diff: a subtraction is on the way). args are the
+// arguments of the call into the helper v belongs to, nil outside a helper.
+func (c *checker) compared(v ssa.Value, args []ssa.Value, depth int, diff bool, visit func(float64)) {
 	refs := v.Referrers()
 	if refs == nil || depth > 4 {
 		return
@@ -53,36 +56,38 @@ func (c *checker) compared(v ssa.Value, args []ssa.Value, depth int, visit func(
 		case *ssa.BinOp:
 			switch r.Op {
 			case token.LSS, token.LEQ, token.GTR, token.GEQ:
-				c.tested(r, args, visit)
+				if diff {
+					c.tested(r, args, visit)
+				}
 			case token.ADD, token.SUB, token.MUL, token.QUO:
-				c.compared(r, args, depth+1, visit)
+				c.compared(r, args, depth+1, diff || r.Op == token.SUB, visit)
 			}
 		case *ssa.UnOp:
 			if r.Op == token.SUB {
-				c.compared(r, args, depth+1, visit)
+				c.compared(r, args, depth+1, diff, visit)
 			}
 		case *ssa.Convert:
-			c.compared(r, args, depth+1, visit)
+			c.compared(r, args, depth+1, diff, visit)
 		case *ssa.ChangeType:
-			c.compared(r, args, depth+1, visit)
+			c.compared(r, args, depth+1, diff, visit)
 		case *ssa.Call:
-			c.intoCall(r, v, args, depth, visit)
+			c.intoCall(r, v, args, depth, diff, visit)
 		}
 	}
 }
 
 // intoCall follows v into a call: through math.Abs, and into a helper of
 // this package (one level) that receives it as a parameter.
-func (c *checker) intoCall(call *ssa.Call, v ssa.Value, args []ssa.Value, depth int, visit func(float64)) {
+func (c *checker) intoCall(call *ssa.Call, v ssa.Value, args []ssa.Value, depth int, diff bool, visit func(float64)) {
 	fn := call.Call.StaticCallee()
 	switch {
 	case fn == nil:
 	case fn.Pkg != nil && fn.Pkg.Pkg.Path() == "math" && fn.Name() == "Abs":
-		c.compared(call, args, depth+1, visit)
+		c.compared(call, args, depth+1, diff, visit)
 	case args == nil && fn.Package() == call.Parent().Package() && len(fn.Params) == len(call.Call.Args):
 		for i, a := range call.Call.Args {
 			if a == v {
-				c.compared(fn.Params[i], call.Call.Args, depth+1, visit)
+				c.compared(fn.Params[i], call.Call.Args, depth+1, false, visit)
 			}
 		}
 	}
@@ -97,7 +102,7 @@ func (c *checker) tested(cmp *ssa.BinOp, args []ssa.Value, visit func(float64)) 
 		return
 	}
 	t, ok := tolerance.Reader{Info: c.pass.TypesInfo, Decls: c.decls, Mixed: true}.Recognize(be)
-	if !ok {
+	if !ok || t.Kind != tolerance.Absolute && t.Kind != tolerance.Relative {
 		return
 	}
 	tol, ok := c.tolValue(t.Tol, cmp.Parent(), args)

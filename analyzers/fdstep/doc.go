@@ -88,7 +88,9 @@
 // step of 1e-8 errs by ~2.2e-8, 45 times below a tolerance of 1e-6): the
 // step is adequate for the check, whatever it would cost elsewhere, and
 // the factor 10 leaves room for |f| up to 10 and for the constant factors
-// the error model drops; steps computed from x (c*math.Max(1, math.Abs(x)),
+// the error model drops; a guard on the quotient's size (|d| < 1e-12, does
+// the slope vanish?), which compares it with no reference and is no
+// derivative check; steps computed from x (c*math.Max(1, math.Abs(x)),
 // c*(1+math.Abs(x)), a helper's result, per-component steps from a slice);
 // steps above 1e-2 whose truncation error keeps three digits (a central
 // step of 0.05 errs by h²/6 ≈ 4e-4), which would be optimal only for a

@@ -106,8 +106,8 @@ func (c *checker) tested(cmp *ssa.BinOp, args []ssa.Value, visit func(float64)) 
 		return
 	}
 	tol, ok := c.tolValue(t.Tol, cmp.Parent(), args)
-	if !ok || !(tol > 0) {
-		return
+	if !ok || !(tol > tolerance.UnderflowGuard) {
+		return // no tolerance: an exact test, or an underflow guard (accept when |a-b| is below the smallest float)
 	}
 	floor := 0.0
 	if t.Floor != nil {

@@ -68,7 +68,9 @@
 // tests, read at unit scale (tol, atol + rtol), reached from the quotient
 // through arithmetic, absolute values and conversions, or inside a helper
 // of the same package that the quotient is passed to, whose tolerance is
-// then the constant the call passes.
+// then the constant the call passes. The tightest such tolerance counts;
+// constants at or below 2^-511 (an early accept when |a-b| is below the
+// smallest float) guard against underflow and are no tolerances.
 //
 // A step that reaches the quotient through a parameter, or through a
 // struct field, is judged where a constant is passed or stored: the call

@@ -155,3 +155,20 @@ func chordsOf(lo, hi, slack float64, k func(float64) float64) []float64 {
 func Chords(lo, hi, slack float64, k func(float64) float64) []float64 {
 	return chordsOf(lo, hi, slack, k)
 }
+
+// stripsOf cuts like chordsOf with the slack floored, but its only exit is
+// f >= 1, false for NaN: a NaN fraction (k returning NaN) cuts nothing off
+// and keeps the loop running, so it is no sweep.
+func stripsOf(lo, hi, slack float64, k func(float64) float64) []float64 {
+	slack = math.Max(slack, 1e-9)
+	xs := []float64{lo}
+	for {
+		f := math.Sqrt(8*slack/math.Abs(k(lo))) / (hi - lo)
+		if f >= 1 { // want `iteration may never end: its only exits are float tests \(f >= 1\) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running, and so does a NaN`
+			break
+		}
+		lo, hi = shave(lo, hi, f)
+		xs = append(xs, lo)
+	}
+	return append(xs, hi)
+}

@@ -54,7 +54,23 @@
 //     at the optimum (category badsize): forward h = 1e-12 gives ~4.4e-4
 //     against ~3.7e-8, central h = 1e-8 ~2.2e-8 against ~4.3e-11. The
 //     message gives both errors. A step above the optimum is not called
-//     badly sized: it is the right step for a function noisier than eps.
+//     badly sized: it is the right step for a function noisier than eps;
+//   - in a derivative check, where the quotient (or the call returning it)
+//     is compared with a tolerance, a step below the optimum whose
+//     expected error exceeds that tolerance (category badsize): the check
+//     then passes or fails on rounding, while the optimal step would meet
+//     it. A central step of 1e-7 errs by ~2.2e-9, above a tolerance of
+//     1e-10; at the optimum the error is ~4.3e-11. The message gives the
+//     error and the tolerance.
+//
+// The tolerance of a check is read by the shared tolerance recognition:
+// |a-b| < tol, relative |a-b| < tol·|b| and mixed |a-b| < atol + rtol·|b|
+// tests, read at unit scale (tol, atol + rtol), reached from the quotient
+// through arithmetic, absolute values and conversions, or inside a helper
+// of the same package that the quotient is passed to, whose tolerance is
+// then the constant the call passes. The tightest such tolerance counts;
+// constants at or below 2^-511 (an early accept when |a-b| is below the
+// smallest float) guard against underflow and are no tolerances.
 //
 // A step that reaches the quotient through a parameter, or through a
 // struct field, is judged where a constant is passed or stored: the call
@@ -69,7 +85,14 @@
 // can take and where that constant is written. Both only say that the step
 // does not scale with x, and offer no fix.
 //
-// It leaves alone: steps computed from x (c*math.Max(1, math.Abs(x)),
+// It leaves alone: a step far below the optimum in a derivative check
+// whose tolerance is at least 10 times the step's expected error (a central
+// step of 1e-8 errs by ~2.2e-8, 45 times below a tolerance of 1e-6): the
+// step is adequate for the check, whatever it would cost elsewhere, and
+// the factor 10 leaves room for |f| up to 10 and for the constant factors
+// the error model drops; a guard on the quotient's size (|d| < 1e-12, does
+// the slope vanish?), which compares it with no reference and is no
+// derivative check; steps computed from x (c*math.Max(1, math.Abs(x)),
 // c*(1+math.Abs(x)), a helper's result, per-component steps from a slice);
 // steps above 1e-2 whose truncation error keeps three digits (a central
 // step of 0.05 errs by h²/6 ≈ 4e-4), which would be optimal only for a

@@ -116,7 +116,7 @@ func (c *checker) argument(call *ssa.Call, i int, u use) {
 	}
 	switch {
 	case o.constant:
-		c.candidate(c.argSyntax(call, i), o.value, x, u)
+		c.candidate(c.argSyntax(call, i), o.value, x, call, u)
 	case o.param != nil:
 		fn := o.param.Parent()
 		u2 := u
@@ -155,8 +155,9 @@ type pending struct {
 }
 
 // candidate judges the constant h passed or stored at node as the step of
-// u, keeping the worst verdict per node.
-func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
+// u, keeping the worst verdict per node. result is the call that passes
+// it, whose result a check may compare with a tolerance; nil for a store.
+func (c *checker) candidate(node ast.Expr, h float64, x, result ssa.Value, u use) {
 	s := u.scheme()
 	if node == nil || s == nil || !inRange(h) {
 		return
@@ -166,7 +167,8 @@ func (c *checker) candidate(node ast.Expr, h float64, x ssa.Value, u use) {
 	if x != nil {
 		xv, xKnown = constval.Float(provenance.Strip(x), c.globals)
 	}
-	v, report := judge(s, h, u.format(), xv, xKnown)
+	tol := c.checkTolerance(result)
+	v, report := judge(s, h, u.format(), xv, xKnown, tol)
 	if !report || c.deliberate(node.Pos(), v) {
 		return
 	}
@@ -210,7 +212,7 @@ func (c *checker) propagate() {
 		for _, st := range c.stores[f] {
 			if o, ok := c.origin(st.Val); ok && o.constant {
 				for _, u := range uses {
-					c.candidate(c.values[st.Pos()], o.value, nil, u)
+					c.candidate(c.values[st.Pos()], o.value, nil, nil, u)
 				}
 			}
 		}

@@ -91,9 +91,10 @@ func run(pass *analysis.Pass) (any, error) {
 		names:    make(map[ast.Node]map[string]bool),
 		src:      make(map[*token.File][]byte),
 	}
-	if !c.indexSyntax() && !c.importsSteps() {
+	if !c.hasQuotients() && !c.importsSteps() {
 		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
 	}
+	c.indexSyntax()
 	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
 	c.globals = constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs)
 	c.indexSSA(ssainfo.Pkg, ssainfo.SrcFuncs)
@@ -179,28 +180,40 @@ func (c *checker) indexCall(fn *ssa.Function, call *ssa.Call) {
 	c.callers[callee] = append(c.callers[callee], call)
 }
 
-// indexSyntax records the syntax that SSA positions point at: binary
-// expressions by operator, op-assignments (x += h) and calls by their
-// start, and the value stored by each field store (composite literal
-// elements and assignments to selectors). It reports whether the package
-// has a float product or quotient, the operations that the candidate
-// quotients of SSA come from.
-func (c *checker) indexSyntax() (quotients bool) {
-	realExpr := func(e ast.Expr) bool {
-		t := c.pass.TypesInfo.TypeOf(e)
-		return t != nil && isReal(t)
+// hasQuotients reports whether the package has a float product or
+// quotient, the operations that the candidate quotients of SSA come from.
+func (c *checker) hasQuotients() bool {
+	for cur := range c.insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil)) {
+		switch n := cur.Node().(type) {
+		case *ast.BinaryExpr:
+			if (n.Op == token.QUO || n.Op == token.MUL) && c.realExpr(n) {
+				return true
+			}
+		case *ast.AssignStmt:
+			if (n.Tok == token.QUO_ASSIGN || n.Tok == token.MUL_ASSIGN) && c.realExpr(n.Lhs[0]) {
+				return true
+			}
+		}
 	}
+	return false
+}
+
+// indexSyntax records the syntax that SSA positions point at: float binary
+// expressions and comparisons by operator, float op-assignments (x += h)
+// and calls by their start, and the value stored by each field store
+// (composite literal elements and assignments to selectors).
+func (c *checker) indexSyntax() {
 	types := []ast.Node{(*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.CallExpr)(nil), (*ast.CompositeLit)(nil)}
 	for cur := range c.insp.Root().Preorder(types...) {
 		switch n := cur.Node().(type) {
 		case *ast.BinaryExpr:
-			c.syntax[n.OpPos] = n
-			quotients = quotients || (n.Op == token.QUO || n.Op == token.MUL) && realExpr(n)
+			if c.realExpr(n.X) {
+				c.syntax[n.OpPos] = n
+			}
 		case *ast.CallExpr:
 			c.syntax[n.Lparen] = n
 		case *ast.AssignStmt:
 			c.indexAssign(n)
-			quotients = quotients || (n.Tok == token.QUO_ASSIGN || n.Tok == token.MUL_ASSIGN) && realExpr(n.Lhs[0])
 		case *ast.CompositeLit:
 			for _, e := range n.Elts {
 				if kv, ok := e.(*ast.KeyValueExpr); ok {
@@ -211,12 +224,19 @@ func (c *checker) indexSyntax() (quotients bool) {
 			}
 		}
 	}
-	return quotients
+}
+
+// realExpr reports whether e has a real float type.
+func (c *checker) realExpr(e ast.Expr) bool {
+	t := c.pass.TypesInfo.TypeOf(e)
+	return t != nil && isReal(t)
 }
 
 func (c *checker) indexAssign(as *ast.AssignStmt) {
 	if as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
-		c.syntax[as.Pos()] = as // x op= y: SSA places the operation at the statement
+		if c.realExpr(as.Lhs[0]) {
+			c.syntax[as.Pos()] = as // x op= y: SSA places the operation at the statement
+		}
 		return
 	}
 	if len(as.Lhs) != len(as.Rhs) {

@@ -83,6 +83,14 @@ func message(subject string, v verdict) string {
 		return fmt.Sprintf("%s is too large for a derivative: truncation error ~%.2g at this step for f and its derivatives of unit size, against ~%.2g at %s (%s)",
 			subject, s.truncation(v.h), v.errOpt, advice, v.f.Name)
 	}
+	if v.bad && v.tol > 0 {
+		against := fmt.Sprintf("is within a factor %d of the tolerance %.2g it is checked against", adequate, v.tol)
+		if v.tol < v.errH {
+			against = fmt.Sprintf("exceeds the tolerance %.2g it is checked against", v.tol)
+		}
+		return fmt.Sprintf("%s is too small for its check: its expected error ~%.2g %s, where %s errs by ~%.2g (%s, f and its derivatives of unit size)",
+			subject, v.errH, against, advice, v.errOpt, v.f.Name)
+	}
 	if v.bad {
 		return fmt.Sprintf("%s is too small: expected error ~%.2g at this step against ~%.2g at %s (%s, f and its derivatives of unit size)",
 			subject, v.errH, v.errOpt, advice, v.f.Name)

@@ -147,12 +147,17 @@ type verdict struct {
 	scaled    bool           // h is relative: the step is h·max(1,|x|)
 	errH      float64        // expected error at the step
 	errOpt    float64        // expected error at the optimal step
+	tol       float64        // the tolerance of the check comparing the quotient, 0 when none
 }
 
 // judge assesses step h of scheme s in format f, and reports whether it
 // deserves a diagnostic: badly sized, or fixed where x is not known. A
-// known x sets the scale, max(1,|x|), against which h is sized.
-func judge(s *scheme, h float64, f numeric.Format, x float64, xKnown bool) (verdict, bool) {
+// known x sets the scale, max(1,|x|), against which h is sized. tol is the
+// tolerance of the check that compares the quotient (checkTolerance), 0
+// when there is none: a step below the optimum is then badly sized when
+// the tolerance is below adequate times its expected error and either the
+// step is far below the optimum or the tolerance is below the error.
+func judge(s *scheme, h float64, f numeric.Format, x float64, xKnown bool, tol float64) (verdict, bool) {
 	v := verdict{scheme: s, h: h, f: f, absorbed: f.AbsorbingMagnitude(h)}
 	scale := 1.0
 	if xKnown {
@@ -167,5 +172,9 @@ func judge(s *scheme, h float64, f numeric.Format, x float64, xKnown bool) (verd
 		return v, v.large
 	}
 	v.bad = hr < opt && v.errH >= badRatio*v.errOpt
+	if tol > 0 {
+		v.tol = tol
+		v.bad = hr < opt && tol < adequate*v.errH && (v.bad || tol < v.errH)
+	}
 	return v, v.bad || !xKnown
 }

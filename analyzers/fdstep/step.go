@@ -189,10 +189,11 @@ func (c *checker) judgeQuotient(q *quotient) {
 		return // x moves by h: h is a grid spacing, not a chosen step
 	}
 	f := c.format(q)
+	tol := c.checkTolerance(q.root)
 	if r, ok := c.scaledStep(q.h, q.x); ok {
 		// Scaled with x: only its size relative to max(1,|x|) can be wrong,
 		// as the machine-precision step is for a function declared noisy.
-		if v, _ := judge(q.scheme, r, f, 1, true); (v.bad || v.large) && inRange(r) {
+		if v, _ := judge(q.scheme, r, f, 1, true, tol); (v.bad || v.large) && inRange(r) {
 			v.scaled = true
 			c.reportQuotient(q, v)
 		}
@@ -208,7 +209,7 @@ func (c *checker) judgeQuotient(q *quotient) {
 	}
 	switch {
 	case o.constant:
-		if v, report := judge(q.scheme, o.value, f, xv, xKnown); report && inRange(o.value) {
+		if v, report := judge(q.scheme, o.value, f, xv, xKnown, tol); report && inRange(o.value) {
 			c.reportQuotient(q, v)
 		}
 	case xKnown:
@@ -224,7 +225,7 @@ func (c *checker) judgeQuotient(q *quotient) {
 // judgeDefault judges the fixed default of a chosen step at the quotient
 // that takes it, naming the default's site.
 func (c *checker) judgeDefault(q *quotient, f numeric.Format, o origin) {
-	if v, report := judge(q.scheme, o.fallback, f, 0, false); report && inRange(o.fallback) {
+	if v, report := judge(q.scheme, o.fallback, f, 0, false, 0); report && inRange(o.fallback) {
 		v.isDefault, v.fallback = true, c.defaultSite(o.phi, o.fallback)
 		c.reportQuotient(q, v)
 	}

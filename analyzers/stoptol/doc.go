@@ -63,6 +63,12 @@
 //   - a loop that advances x by a step computed by a formula that can round
 //     to zero (acos(r/(r+d)) once d/r < eps/2, a difference, a remainder)
 //     and ends only on float tests (category stall);
+//   - a loop that cuts its state at a fraction t computed afresh each
+//     pass (lo, hi = cut(lo, hi, t)) until t reaches a constant bound,
+//     when a parameter among t's factors can be 0 (t = 2·sqrt(tol·|k|)
+//     with a tolerance of 0, which neither the function nor, for an
+//     unexported one, its callers floor at a positive value): t is then 0
+//     and the loop never advances (category stall);
 //   - constants reaching such a tolerance as a call argument, a struct
 //     field, a default, the elements of a slice or a test table's field, in
 //     this package or another, through any number of wrappers (facts).
@@ -99,6 +105,14 @@
 //     not by convergence; tests read at a new integer each pass (an
 //     integer counter, or a value computed from one): no float stalls;
 //     loops that carry only integers or pointers (walking data);
+//   - sweeps by fractions: a loop that sets t afresh each pass, cuts the
+//     state t is computed from at t, and ends when t reaches a constant
+//     bound or is NaN (NaN < 1 is false), where t cannot be 0 (its
+//     factors are positive constants, roots and absolute values of values
+//     that cannot round to 0, and parameters floored at a positive value by
+//     math.Max(tol, c) in the function or by every caller): each pass
+//     consumes the fraction t of what is left, so the loop advances to its
+//     bound and is no convergence loop that could stall or oscillate;
 //   - scans by a constant step from a constant start, by a step the caller
 //     gives (a parameter, a field, data), by a span divided by a count
 //     ((hi-lo)/n, zero only when the span is, and then x < hi fails at

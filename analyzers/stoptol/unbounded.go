@@ -77,6 +77,9 @@ func (c *checker) unbounded(l *loop) {
 			return
 		}
 	}
+	if !nanRuns && c.sweep(d, tested) {
+		return // a sweep by fractions of what is left, reported where a fraction can be 0
+	}
 	nan := ""
 	if nanRuns {
 		nan = ", and so does a NaN, which fails every ordered comparison"
@@ -217,15 +220,5 @@ func abs(x float64) float64 {
 // pass or two.
 func (c *checker) exportedParam(l *loop, x *types.Var) bool {
 	fd := l.decl
-	if fd == nil || !fd.Name.IsExported() || slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") {
-		return false
-	}
-	for _, field := range fd.Type.Params.List {
-		for _, name := range field.Names {
-			if c.pass.TypesInfo.Defs[name] == x {
-				return true
-			}
-		}
-	}
-	return false
+	return fd != nil && fd.Name.IsExported() && !slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") && c.isParam(fd, x)
 }

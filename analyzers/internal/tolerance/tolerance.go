@@ -41,6 +41,7 @@ type Test struct {
 	A, B  ast.Expr // the operands of the difference; for Magnitude, A is x and B is nil
 	Tol   ast.Expr // the tolerance coefficient as written: a constant, a name or a field
 	Scale ast.Expr // the scale of a relative test, nil otherwise
+	Floor ast.Expr // the absolute part of a mixed test (Reader.Mixed), nil otherwise
 	// Factor is the constant the measure is multiplied by: 0.5 for
 	// (b-a)/2 < tol, which holds when |b-a| < tol/Factor. Recognize sets
 	// it, 1 when there is none.
@@ -58,6 +59,9 @@ type Reader struct {
 	// Ordered, when set, reports whether a bare difference hi-lo is known
 	// to be non-negative (see Ordered): it is then read as a width |hi-lo|.
 	Ordered func(hi, lo ast.Expr) bool
+	// Mixed, when set, reads a sum atol + rtol·scale as a relative test
+	// with Tol rtol and Floor atol.
+	Mixed bool
 }
 
 // Recognize reads cmp, an ordered comparison, as a tolerance test, with
@@ -89,7 +93,13 @@ func (r Reader) test(m, tol ast.Expr) (Test, bool) {
 	if !ok {
 		return Test{}, false
 	}
-	coef, scale := r.split(tol)
+	var coef, scale ast.Expr
+	if r.Mixed {
+		t.Floor, coef, scale = r.mixed(tol)
+	}
+	if coef == nil {
+		coef, scale = r.split(tol)
+	}
 	if coef == nil {
 		return Test{}, false
 	}
@@ -221,6 +231,23 @@ func (r Reader) split(e ast.Expr) (coef, scale ast.Expr) {
 		return ast.Unparen(m.X), m.Y
 	}
 	return nil, nil
+}
+
+// mixed reads a tolerance atol + rtol·scale (in either order) as its
+// parts; coef is nil when it is not one.
+func (r Reader) mixed(e ast.Expr) (floor, coef, scale ast.Expr) {
+	sum, ok := r.follow(e).(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return nil, nil, nil
+	}
+	for _, parts := range [][2]ast.Expr{{sum.X, sum.Y}, {sum.Y, sum.X}} {
+		if r.coefficient(parts[0]) {
+			if coef, scale := r.split(parts[1]); coef != nil && scale != nil {
+				return ast.Unparen(parts[0]), coef, scale
+			}
+		}
+	}
+	return nil, nil, nil
 }
 
 // coefficient reports whether e can carry a tolerance: a constant, a

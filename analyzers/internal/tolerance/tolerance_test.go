@@ -81,6 +81,26 @@ func TestRecognize(t *testing.T) {
 	assert.True(t, ok && got.Kind == tolerance.Absolute, "a bracket width, when the caller knows it is one")
 }
 
+// TestMixed checks the mixed test |a-b| <= atol + rtol·|b| read when the
+// caller asks for it: the relative part as Tol and Scale, the absolute
+// floor as Floor (the form of numpy-style closeness tests, common practice).
+func TestMixed(t *testing.T) {
+	for body, want := range map[string][3]string{
+		"return math.Abs(a-b) <= 1e-12+1e-9*math.Abs(b)":         {"1e-9", "math.Abs(b)", "1e-12"},
+		"return math.Abs(a-b) < tol*math.Abs(b)+1e-8":            {"tol", "math.Abs(b)", "1e-8"},
+		"s := 1e-6 + 1e-6*math.Abs(b)\nreturn math.Abs(a-b) > s": {"1e-6", "math.Abs(b)", "1e-6"},
+	} {
+		info, decls, fset, cmps := comparisons(t, body)
+		got, ok := tolerance.Reader{Info: info, Decls: decls, Mixed: true}.Recognize(cmps[0])
+		require.True(t, ok, body)
+		assert.Equal(t, tolerance.Relative, got.Kind, body)
+		assert.Equal(t, want, [3]string{fixes.Source(fset, got.Tol), fixes.Source(fset, got.Scale), fixes.Source(fset, got.Floor)}, body)
+	}
+	info, decls, _, cmps := comparisons(t, "return math.Abs(a-b) < tol+x")
+	_, ok := tolerance.Reader{Info: info, Decls: decls, Mixed: true}.Recognize(cmps[0])
+	assert.False(t, ok, "a sum of two tolerances, no scale: not a mixed test")
+}
+
 // TestMeasures checks the measures of progress beyond |a-b|: widths scaled
 // by constants, whose Factor turns the test into |a-b| < tol/Factor.
 func TestMeasures(t *testing.T) {

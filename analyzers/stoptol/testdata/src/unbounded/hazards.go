@@ -130,3 +130,45 @@ func relaxUntilSettled(g func(float64) float64, x float64) float64 {
 	}
 	return x
 }
+
+// shave returns what is left of [lo, hi] after its first fraction f.
+func shave(lo, hi, f float64) (float64, float64) { return lo + f*(hi-lo), hi }
+
+// chordsOf lays chords along a bending beam, each taking the fraction of
+// the span left whose sag stays within slack: f = sqrt(8·slack/|k|)/w is 0
+// when slack is 0, and with nothing to cap the passes the loop then cuts
+// nothing off forever.
+func chordsOf(lo, hi, slack float64, k func(float64) float64) []float64 {
+	xs := []float64{lo}
+	for f := 0.0; f < 1; { // want `loop cuts its state at f = math.Sqrt\(8\*slack/math.Abs\(k\(lo\)\)\) / \(hi - lo\) each pass and ends only when f reaches 1: f is 0 when slack is 0, which neither chordsOf nor its callers exclude, and the loop then never advances; floor slack at a positive value \(math.Max\(slack, c\)\) or add an iteration limit`
+		f = math.Sqrt(8*slack/math.Abs(k(lo))) / (hi - lo)
+		if f >= 1 {
+			break
+		}
+		lo, hi = shave(lo, hi, f)
+		xs = append(xs, lo)
+	}
+	return append(xs, hi)
+}
+
+// Chords is the public face of chordsOf; a slack of 0 reaches it as is.
+func Chords(lo, hi, slack float64, k func(float64) float64) []float64 {
+	return chordsOf(lo, hi, slack, k)
+}
+
+// stripsOf cuts like chordsOf with the slack floored, but its only exit is
+// f >= 1, false for NaN: a NaN fraction (k returning NaN) cuts nothing off
+// and keeps the loop running, so it is no sweep.
+func stripsOf(lo, hi, slack float64, k func(float64) float64) []float64 {
+	slack = math.Max(slack, 1e-9)
+	xs := []float64{lo}
+	for {
+		f := math.Sqrt(8*slack/math.Abs(k(lo))) / (hi - lo)
+		if f >= 1 { // want `iteration may never end: its only exits are float tests \(f >= 1\) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running, and so does a NaN`
+			break
+		}
+		lo, hi = shave(lo, hi, f)
+		xs = append(xs, lo)
+	}
+	return append(xs, hi)
+}

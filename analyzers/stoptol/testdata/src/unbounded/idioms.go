@@ -151,3 +151,42 @@ func Align(start, delta float64) float64 {
 	}
 	return end
 }
+
+// segments cuts a span into pieces whose sag stays within slack: each pass
+// takes the fraction f = sqrt(8·slack/|k|)/w > 0 of what is left (slack is
+// floored at 1e-12 by its only caller), and the loop ends when f reaches
+// 1 or is NaN (NaN < 1 is false): a sweep by positive fractions, not a
+// convergence loop.
+func segments(lo, hi, slack float64, k func(float64) float64) []float64 {
+	xs := []float64{lo}
+	f := 0.0
+	for f < 1 { // positive fractions of the rest: no iteration cap needed
+		f = math.Min(math.Sqrt(8*slack/math.Abs(k(lo)))/(hi-lo), 2)
+		if f >= 1 {
+			break
+		}
+		lo, hi = shave(lo, hi, f)
+		xs = append(xs, lo)
+	}
+	return append(xs, hi)
+}
+
+// Segments floors the slack before cutting.
+func Segments(lo, hi, slack float64, k func(float64) float64) []float64 {
+	slack = math.Max(slack, 1e-12)
+	return segments(lo, hi, slack, k)
+}
+
+// Pieces floors the slack itself: the fraction is positive on every pass.
+func Pieces(lo, hi, slack float64, k func(float64) float64) []float64 {
+	slack = math.Max(slack, 1e-12)
+	var xs []float64
+	for f := 0.0; f < 1; { // positive fractions of the rest
+		f = 0.5 * math.Cbrt(slack/math.Abs(k(lo)))
+		if f < 1 {
+			lo, hi = shave(lo, hi, f)
+		}
+		xs = append(xs, lo)
+	}
+	return xs
+}

@@ -114,7 +114,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.squares(n) || c.variance(n) {
+	if c.squares(cur, n) || c.variance(n) {
 		return
 	}
 	e, indirect := c.through(call)

@@ -1,6 +1,9 @@
 package idioms
 
-import "math"
+import (
+	"math"
+	"math/cmplx"
+)
 
 func smallWeight(mu, p float64) float64 {
 	return mu + 2*math.Log(1-p) // a modest coefficient in a sum: the sum's own rounding hides the loss
@@ -187,4 +190,54 @@ func (s *stepper) update(g float64) float64 {
 // large, so 1 minus it is near 1 and cancels nothing there.
 func upperDirect(z float64) float64 {
 	return 1 - 0.5*math.Erfc(z)
+}
+
+// A difference of squares used linearly is backward stable: its absolute
+// error u·(a²+b²) is what the inputs' own rounding would cause, and the
+// sums it joins carry roundings of that size already.
+func ridgeValley(p, q float64) float64 {
+	bend := 3.5 - p*(1-q*q) // scaled and added to a constant of the same size
+	return bend * bend
+}
+
+func slopeTerms(p, q float64) float64 {
+	g := 1 - q*q
+	return 2*p*g + g*q // every use of g is a term of a sum
+}
+
+func rippleObjective(p, q float64) float64 {
+	s := math.Sin(p*p - q*q) // the sine keeps the relative error, the sum below absorbs it
+	return 0.5 + (s*s-0.5)/(1+p*p+q*q)
+}
+
+func flatRipple(p, q float64) float64 {
+	return math.Cos(p*p - q*q) // cos is flat at 0: an absolute error passes on as one
+}
+
+func saddleHeight(p, q float64) float64 {
+	return p*p - q*q // returned: the caller's use is not seen, and the value is as good as its data
+}
+
+func lensCentre(r0, r1, dist float64) float64 {
+	k := r0*r0 - r1*r1 // the centre offset moves linearly with k
+	return 0.5 * (dist + k/dist)
+}
+
+func aboveLevel(p, q float64) bool {
+	return p*p-q*q > 4 // a threshold at the scale of the squares
+}
+
+// The sign of u is known from the value last assigned to it: a modulus,
+// or a sum and quotient of non-negative values, so u + sqrt(u²-1) adds.
+func growthRatio(re, im, step float64) float64 {
+	m := math.Hypot(re, im)
+	k := 0.0
+	k = (float64(len("ab")) + step*step) / m
+	return k + math.Sqrt(k*k-1)
+}
+
+func spread(re, im float64) float64 {
+	var k float64
+	k = cmplx.Abs(complex(re, im))
+	return k + math.Sqrt(k*k-1)
 }

@@ -69,6 +69,8 @@ type checker struct {
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
 	abs   *absval.Known             // absolute-value functions, by meaning
 	acc   *accumulation             // how variables are updated, scanned when first needed
+
+	wrappers map[*types.Func]string // the package's own wrappers of math functions, by mathName
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -104,6 +106,10 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		c.hypot(cur, call)
 	case "Acos":
 		c.acos(cur, call, name)
+	case "":
+		if c.mathName(call) == "Acos" {
+			c.acos(cur, call, "Acos") // a package's own wrapper: reported, with no fix
+		}
 	}
 }
 
@@ -151,6 +157,53 @@ func (c *checker) mathFunc(call *ast.CallExpr) string {
 		return "" // dot import: the fixes name the package
 	}
 	return fn.Name()
+}
+
+// mathName returns the name of the math package function of one float64
+// argument that call calls, directly or through a function of the
+// package whose body only returns that function of its parameter
+// (func acos(x float64) float64 { return math.Acos(x) }), or "".
+func (c *checker) mathName(call *ast.CallExpr) string {
+	if name := c.mathFunc(call); name != "" {
+		return name
+	}
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok || fn.Pkg() != c.pass.Pkg || len(call.Args) != 1 {
+		return ""
+	}
+	if c.wrappers == nil {
+		c.wrappers = wrappersOf(c.pass)
+	}
+	return c.wrappers[fn]
+}
+
+// wrappersOf maps each function of the package whose body is only
+// return math.F(x), x its one parameter, to F.
+func wrappersOf(pass *analysis.Pass) map[*types.Func]string {
+	m := make(map[*types.Func]string)
+	for _, f := range pass.Files {
+		for _, d := range f.Decls {
+			fd, ok := d.(*ast.FuncDecl)
+			if !ok || fd.Recv != nil || fd.Body == nil || len(fd.Body.List) != 1 || fd.Type.Params.NumFields() != 1 {
+				continue
+			}
+			ret, ok := fd.Body.List[0].(*ast.ReturnStmt)
+			if !ok || len(ret.Results) != 1 {
+				continue
+			}
+			call, ok := ret.Results[0].(*ast.CallExpr)
+			if !ok || len(call.Args) != 1 || len(fd.Type.Params.List[0].Names) != 1 {
+				continue
+			}
+			param := pass.TypesInfo.Defs[fd.Type.Params.List[0].Names[0]]
+			fn, isFunc := typeutil.Callee(pass.TypesInfo, call).(*types.Func)
+			if id, isIdent := ast.Unparen(call.Args[0]).(*ast.Ident); isIdent && pass.TypesInfo.Uses[id] == param &&
+				isFunc && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+				m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = fn.Name()
+			}
+		}
+	}
+	return m
 }
 
 // mathFunc2 returns the name of the math package function call calls

@@ -399,7 +399,7 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 	trig := func(x ast.Expr) bool {
 		found := false
 		ast.Inspect(x, func(n ast.Node) bool {
-			if call, ok := n.(*ast.CallExpr); ok && (c.mathFunc(call) == "Sin" || c.mathFunc(call) == "Cos") {
+			if call, ok := n.(*ast.CallExpr); ok && (c.mathName(call) == "Sin" || c.mathName(call) == "Cos") {
 				found = true
 			}
 			return !found
@@ -419,7 +419,7 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 // cosine parts is exact there. An angle only counted (math.Ceil of it, an
 // integer conversion) is left alone.
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
-	x := c.unclamped(call.Args[0])
+	x := c.unclamped(cur, call.Args[0])
 	if !c.normCosine(x) && !c.lawOfCosines(x) || c.counted(cur) {
 		return
 	}
@@ -431,11 +431,20 @@ func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	})
 }
 
-// unclamped returns the value e stands for, through variables and a clamp
-// to [-1, 1] written with math.Max and math.Min.
-func (c *checker) unclamped(e ast.Expr) ast.Expr {
-	for range 4 {
+// unclamped returns the value e at cur stands for, through variables (the
+// value last assigned before cur) and a clamp to [-1, 1] written with
+// math.Max and math.Min, also when the clamp reassigns the variable.
+func (c *checker) unclamped(cur inspector.Cursor, e ast.Expr) ast.Expr {
+	for range 6 {
 		e, _ = c.through(e)
+		if id, ok := e.(*ast.Ident); ok {
+			if v, ok := c.pass.TypesInfo.Uses[id].(*types.Var); ok {
+				if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
+					cur, e = rhs, rhs.Node().(ast.Expr)
+					continue
+				}
+			}
+		}
 		call, ok := e.(*ast.CallExpr)
 		if !ok || c.mathFunc2(call) != "Max" && c.mathFunc2(call) != "Min" {
 			return e

@@ -241,3 +241,11 @@ func spread(re, im float64) float64 {
 	k = cmplx.Abs(complex(re, im))
 	return k + math.Sqrt(k*k-1)
 }
+
+func arcCosine(x float64) float64 { return math.Acos(x) }
+
+// A wrapper of math.Acos of a value that is not a cosine from a dot
+// product or the law of cosines stays silent, as math.Acos does.
+func wrappedArc(r, h float64) float64 {
+	return arcCosine(h / r)
+}

@@ -46,6 +46,7 @@ const (
 	catSquares   = "squares"
 	catTail      = "tail"
 	catVariance  = "variance"
+	catDivided   = "divided"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -85,8 +86,11 @@ func run(pass *analysis.Pass) (any, error) {
 			case *ast.CallExpr:
 				c.call(cur, n)
 			case *ast.BinaryExpr:
-				if n.Op == token.SUB {
+				switch n.Op {
+				case token.SUB:
 					c.difference(cur, n)
+				case token.QUO:
+					c.dividedDifference(n)
 				}
 				c.radical(cur, n)
 			}

@@ -213,3 +213,55 @@ func (c *checker) overflowsFirst(cur inspector.Cursor) bool {
 		}
 	}
 }
+
+// dividedForms gives, per function, the divided difference (f(a)-f(b))/(a-b)
+// without the subtraction of nearly equal values: sum-to-product for the
+// sine and cosine, a factored exponential, and a logarithm of the ratio.
+var dividedForms = map[string]string{
+	"Cos": "-2*math.Sin((a+b)/2)*math.Sin((a-b)/2)/(a-b)",
+	"Sin": "2*math.Cos((a+b)/2)*math.Sin((a-b)/2)/(a-b)",
+	"Exp": "math.Exp(b)*math.Expm1(a-b)/(a-b)",
+	"Log": "math.Log1p((a-b)/b)/(a-b)",
+}
+
+// dividedDifference reports (f(a)-f(b))/(a-b) (or over b-a) for a math
+// function f with a closed form in dividedForms: as a approaches b the
+// numerator is f'(ξ)(a-b) while each value carries an absolute error of
+// u·|f|, so the quotient keeps only about log10(|f'|·|a-b|/(u·|f|))
+// digits and is 0/0 at a = b, where its limit f'(a) exists. The
+// difference a-b itself is exact there (Sterbenz), so the closed forms
+// keep every digit.
+func (c *checker) dividedDifference(n *ast.BinaryExpr) {
+	for _, pair := range [2][2]ast.Expr{{n.X, n.Y}, {n.Y, n.X}} {
+		if name, a, b, ok := c.divided(pair[0], pair[1]); ok {
+			fixes.Report(c.pass, analysis.Diagnostic{
+				Pos: n.Pos(), End: n.End(), Category: catDivided,
+				Message: fmt.Sprintf("(f(a)-f(b))/(a-b) for f = math.%s%s (or its reciprocal) is a divided difference: as a approaches b each value's rounding (u = %.3g of |f|) leaves about log10(|f'|·|a-b|/(u·|f|)) digits, and a = b gives 0/0 though the limit f'(a) exists; use %s, with f'(a) where a == b",
+					name, binding("ab", a, b), unitRoundoff, dividedForms[name]),
+			})
+			return
+		}
+	}
+}
+
+// divided reports whether num is f(a)-f(b) and den is a-b or b-a, for a
+// function f of dividedForms and arguments that are not constants.
+func (c *checker) divided(num, den ast.Expr) (name string, a, b ast.Expr, ok bool) {
+	fs, okn := ast.Unparen(num).(*ast.BinaryExpr)
+	d, okd := ast.Unparen(den).(*ast.BinaryExpr)
+	if !okn || !okd || fs.Op != token.SUB || d.Op != token.SUB {
+		return "", nil, nil, false
+	}
+	fa, oka := ast.Unparen(fs.X).(*ast.CallExpr)
+	fb, okb := ast.Unparen(fs.Y).(*ast.CallExpr)
+	if !oka || !okb {
+		return "", nil, nil, false
+	}
+	name = c.mathName(fa)
+	if _, known := dividedForms[name]; !known || c.mathName(fb) != name {
+		return "", nil, nil, false
+	}
+	a, b = fa.Args[0], fb.Args[0]
+	over := same(a, d.X) && same(b, d.Y) || same(a, d.Y) && same(b, d.X)
+	return name, a, b, over && !c.isConst(a) && !c.isConst(b)
+}

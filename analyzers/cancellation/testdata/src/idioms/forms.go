@@ -249,3 +249,9 @@ func arcCosine(x float64) float64 { return math.Acos(x) }
 func wrappedArc(r, h float64) float64 {
 	return arcCosine(h / r)
 }
+
+// Divided differences over other spans, or of constants, lose nothing to
+// this rule's concern.
+func chordSlope(p, q, h float64) float64 {
+	return (math.Cos(p)-math.Cos(q))/h + (math.Sin(1)-math.Sin(2))/(1-2)
+}

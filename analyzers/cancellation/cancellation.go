@@ -71,7 +71,8 @@ type checker struct {
 	abs   *absval.Known             // absolute-value functions, by meaning
 	acc   *accumulation             // how variables are updated, scanned when first needed
 
-	wrappers map[*types.Func]string // the package's own wrappers of math functions, by mathName
+	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
+	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
 }
 
 func run(pass *analysis.Pass) (any, error) {

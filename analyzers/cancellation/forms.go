@@ -169,14 +169,14 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 // value never negative (nonNegative), a whole number, or a value an
 // enclosing condition compares.
 func (c *checker) signKnown(cur inspector.Cursor, u ast.Expr) bool {
-	return c.wholeNumber(u) || c.guarded(cur, u, c.compares) || c.nonNegative(cur, u, 6)
+	return c.wholeNumber(u) || c.guarded(cur, u, c.compares) || c.nonNegative(cur, u, 5)
 }
 
 // nonNegative reports whether e cannot be negative where cur runs: a
 // constant of at least 0, an absolute value, modulus, root, exponential,
 // length or square, and sums, products and quotients of those, directly,
 // through conversions, or through the value last assigned to a variable
-// before cur (consume.Reaching).
+// before cur (consume.Reaching), depth variables deep.
 func (c *checker) nonNegative(cur inspector.Cursor, e ast.Expr, depth int) bool {
 	e = ast.Unparen(e)
 	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
@@ -188,7 +188,7 @@ func (c *checker) nonNegative(cur inspector.Cursor, e ast.Expr, depth int) bool 
 	switch e := e.(type) {
 	case *ast.CallExpr:
 		if tv := c.pass.TypesInfo.Types[e.Fun]; tv.IsType() && len(e.Args) == 1 {
-			return c.nonNegative(cur, e.Args[0], depth-1) // a conversion keeps the sign
+			return c.nonNegative(cur, e.Args[0], depth) // a conversion keeps the sign
 		}
 		return c.signedCall(e)
 	case *ast.BinaryExpr:
@@ -196,7 +196,7 @@ func (c *checker) nonNegative(cur inspector.Cursor, e ast.Expr, depth int) bool 
 			return true
 		}
 		return (e.Op == token.ADD || e.Op == token.MUL || e.Op == token.QUO) &&
-			c.nonNegative(cur, e.X, depth-1) && c.nonNegative(cur, e.Y, depth-1)
+			c.nonNegative(cur, e.X, depth) && c.nonNegative(cur, e.Y, depth)
 	case *ast.Ident:
 		v, ok := c.pass.TypesInfo.Uses[e].(*types.Var)
 		if !ok {
@@ -830,6 +830,13 @@ func (c *checker) ratioOfCounts(x ast.Expr, depth int) (ok, counts bool) {
 		okx, cx := c.ratioOfCounts(e.X, depth-1)
 		oky, cy := c.ratioOfCounts(e.Y, depth-1)
 		return okx && oky, cx || cy
+	case *ast.SelectorExpr:
+		vals, all := c.fieldValues(e) // a field every assignment of which is such a ratio
+		for _, v := range vals {
+			okv, cv := c.ratioOfCounts(v, depth-1)
+			all, counts = all && okv, counts || cv
+		}
+		return all, counts
 	}
 	return false, false
 }

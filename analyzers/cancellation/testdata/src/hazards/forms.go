@@ -149,3 +149,16 @@ func recurrenceRoot(p, q float64) float64 {
 	k = p - q
 	return k + math.Sqrt(k*k+1) // want `u ± math.Sqrt\(u\*u\+c\) with u = k, c = 1 cancels`
 }
+
+// The field also takes a value from the caller, which may be tiny.
+type bendGauge struct {
+	angle, sag float64
+}
+
+func (g *bendGauge) set(turns int, angle, radius float64) {
+	g.angle = math.Pi / float64(turns)
+	if angle > 0 {
+		g.angle = angle
+	}
+	g.sag = radius * (1 - math.Cos(g.angle)) // want `1-math.Cos\(x\) with x = g.angle returns 0`
+}

@@ -255,3 +255,17 @@ func wrappedArc(r, h float64) float64 {
 func chordSlope(p, q, h float64) float64 {
 	return (math.Cos(p)-math.Cos(q))/h + (math.Sin(1)-math.Sin(2))/(1-2)
 }
+
+// A field every assignment of which is a quarter turn over a count: the
+// angle is 0 or at least π/(2n), and cos rounds to 1 only past 10^8
+// segments.
+type arcMesher struct {
+	step, sag float64
+}
+
+func newArcMesher(segments int, radius float64) *arcMesher {
+	m := &arcMesher{}
+	m.step = math.Pi / 2 / float64(segments)
+	m.sag = radius * (1 - math.Cos(m.step/2))
+	return m
+}

@@ -35,9 +35,14 @@
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
 //     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
-//   - a*a - b*b, 1 - x*x and x*x - 1: each square carries a rounding
-//     error of about u·a², all of the difference where |a| and |b| are
-//     close; (a-b)*(a+b) forms the difference exactly first;
+//   - a*a - b*b, 1 - x*x and x*x - 1 where the difference is consumed
+//     to relative accuracy: under a square root (a radicand near
+//     tangency, where sqrt turns an absolute error d into sqrt(d)), in a
+//     logarithm, as a divisor, or in a test of its sign against 0, also
+//     through products, odd functions such as sin, and local variables:
+//     each square carries a rounding error of about u·a², all of the
+//     difference where |a| and |b| are close; (a-b)*(a+b) forms the
+//     difference exactly first;
 //   - 1 - math.Erf(x), 1 - 0.5*math.Erfc(-x) (the normal distribution
 //     function) and 1 - F(x) for a function or method F named CDF, also
 //     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
@@ -64,6 +69,14 @@
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));
+//   - (f(a)-f(b))/(a-b) and its reciprocal for f = math.Cos, Sin, Exp or
+//     Log (also through the package's own wrapper of f): a divided
+//     difference, whose numerator is f'(ξ)(a-b) while each value carries
+//     an absolute error of u·|f|, so about log10(|f'|·|a-b|/(u·|f|))
+//     digits remain as a approaches b and a = b gives 0/0 though the
+//     limit f'(a) exists; a-b is exact there (Sterbenz), so the closed
+//     forms (-2·sin((a+b)/2)·sin((a-b)/2)/(a-b), e^b·expm1(a-b)/(a-b),
+//     log1p((a-b)/b)/(a-b)) keep every digit;
 //   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
 //     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form
@@ -84,7 +97,8 @@
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
 // data. The cosine rule leaves alone an angle built from constants and
 // whole numbers by products and quotients (2πi/(n-1) of a window, a
-// quarter turn over a segment count): it is 0 or at least |c|/n, cos rounds
+// quarter turn over a segment count), also through a field of the
+// package every assignment of which is such an angle: it is 0 or at least |c|/n, cos rounds
 // to 1 there only for counts beyond 10^8, and the absolute error of 1-cos
 // stays one rounding of 1, the scale of such weights. The power rule also
 // leaves alone a constant exponent (1 -
@@ -95,14 +109,29 @@
 // the base's own rounding, and a computed base other
 // than 1±u ((x/λ)^k - 1: the base carries its own rounding, which
 // math.Expm1 would inherit). The radical rule is silent where the sign of
-// u is known: math.Abs, math.Sqrt, math.Exp, a square, or an enclosing
-// condition that compares u. The arc rule is silent for other arguments,
+// u is known: math.Abs, math/cmplx.Abs, math.Sqrt, math.Exp, math.Hypot,
+// a square, sums, products and quotients of such values, an enclosing
+// condition that compares u, or the value last assigned to u before the
+// expression in straight-line code (no loop or label between) being one
+// of those: then the terms add and nothing cancels. The arc rule reads the cosine through
+// the value last assigned to a variable (a clamp to [-1, 1] that
+// reassigns it included) and through the package's own wrappers of
+// math.Acos, Sin and Cos (no fix is offered there). It is silent for other arguments,
 // which reach ±1 only where the problem itself is ill-conditioned (a ratio
 // of sines near a pole) or feed a Newton iteration that refines them, for
 // math.Asin, and for an angle that is only counted (math.Ceil, an integer
 // conversion), where half the digits are plenty. An absolute value is recognised by meaning wherever these rules
 // look for one (guards, signs): math.Abs, a float32 library's Abs, or the
-// package's own helper (absval). The squares rule is silent for constants
+// package's own helper (absval). The squares rule is silent where the
+// difference is used linearly: fl(fl(a*a) - fl(b*b)) is the exact
+// a'² - b'² of inputs perturbed by about u/2 relative, so it is backward
+// stable, and its absolute error u·max(a², b²) only shows where the next
+// operation needs the difference to relative accuracy. A term of a sum,
+// a factor of such a term, a threshold compared at its own scale, the
+// argument of cos or exp (which pass an absolute error on as one) carry
+// that error at the size of the roundings the result already has; a
+// difference returned, stored or passed on is as accurate as its data,
+// and its consumer is not seen. The squares rule is also silent for constants
 // and whole numbers, whose squares are exact, and for operands computed in
 // the function (c := z/r; 1 - c*c, also when every value assigned to c is
 // computed): a computed c carries a rounding of its

@@ -47,6 +47,8 @@ const (
 	catTail      = "tail"
 	catVariance  = "variance"
 	catDivided   = "divided"
+	catShare     = "share"
+	catRoundTrip = "roundtrip"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -90,6 +92,9 @@ func run(pass *analysis.Pass) (any, error) {
 				switch n.Op {
 				case token.SUB:
 					c.difference(cur, n)
+					c.roundTrip(cur, n)
+				case token.ADD:
+					c.roundTrip(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)
 				}
@@ -125,7 +130,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.squares(cur, n) || c.variance(n) {
+	if c.squares(cur, n) || c.variance(n) || c.share(cur, n) {
 		return
 	}
 	e, indirect := c.through(call)

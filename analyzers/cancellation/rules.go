@@ -3,11 +3,15 @@ package cancellation
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
+	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
 )
 
@@ -264,4 +268,118 @@ func (c *checker) divided(num, den ast.Expr) (name string, a, b ast.Expr, ok boo
 	a, b = fa.Args[0], fb.Args[0]
 	over := same(a, d.X) && same(b, d.Y) || same(a, d.Y) && same(b, d.X)
 	return name, a, b, over && !c.isConst(a) && !c.isConst(b)
+}
+
+// share reports 1 - a/(a+b), the complement of a share of a sum, also
+// through never-reassigned variables, unless its consumer needs only its
+// absolute accuracy (consume.Absolute): where |b| is small against |a|
+// the quotient is within a rounding of 1, so the difference keeps only
+// about log10(|b|/(u·|a|)) digits and is 0 once |b| < u·|a|, while
+// b/(a+b) is the same value with two roundings. Unlike a difference of
+// squares the plain form is not backward stable: inputs perturbed by u
+// move b/(a+b) by about 2u relative. It reports whether n had the form.
+func (c *checker) share(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	if !c.isOne(n.X) {
+		return false
+	}
+	e, _ := c.through(n.Y)
+	q, ok := e.(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	d, _ := c.through(q.Y)
+	sum, ok := d.(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return false
+	}
+	rest := sum.Y
+	switch {
+	case same(sum.X, q.X):
+	case same(sum.Y, q.X):
+		rest = sum.X
+	default:
+		return false
+	}
+	if consume.Of(c.pass.TypesInfo, cur, 2) == consume.Absolute {
+		return true // the absolute error of a rounding of 1 is all its consumer can show
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catShare,
+		Message: fmt.Sprintf("1 - a/(a+b)%s loses about log10(|a|/|b|) digits where |b| is small against |a|, where the quotient is within u = %.3g of 1, and is 0 once |b| < u·|a|; use b/(a+b)",
+			binding("ab", q.X, rest), unitRoundoff),
+	})
+	return true
+}
+
+// roundTrip reports c1 ± k*(x - c2) and its mirror images whose constants
+// cancel (1 + 2*(p - 0.5) is 2*p), unless the consumer needs only its
+// absolute accuracy: x - c2 is rounded to the spacing of floats near c2,
+// an absolute error up to ulp(c2)/2 that adding c1 back does not undo,
+// so a small x keeps only about log10(|x|/ulp(c2)) digits while k*x
+// keeps them all.
+func (c *checker) roundTrip(cur inspector.Cursor, n *ast.BinaryExpr) {
+	x, d, k, c2, ok := c.cancelledOffset(n)
+	if !ok || consume.Of(c.pass.TypesInfo, cur, 2) == consume.Absolute {
+		return
+	}
+	f, _ := constant.Float64Val(constant.ToFloat(c2))
+	kf, _ := constant.Float64Val(constant.ToFloat(k))
+	grain := math.Nextafter(math.Abs(f), math.Inf(1)) - math.Abs(f)
+	fset := c.pass.Fset
+	product := fmt.Sprintf("%g*%s", kf, fixes.Operand(fset, x, token.MUL.Precedence()))
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catRoundTrip,
+		Message: fmt.Sprintf("%s is %s, but %s is rounded first, to within %.3g, which adding the constant back does not undo: where |%[5]s| is small against %[6]g it keeps only about log10(|%[5]s|/%.3[7]g) digits; use %[2]s",
+			fixes.Source(fset, n), product, fixes.Source(fset, d), grain/2, types.ExprString(ast.Unparen(x)), math.Abs(f), grain),
+	})
+}
+
+// cancelledOffset reads n as c1 ± k*(x - c2) (also (c2 - x), the constant
+// term on either side, k = 1 where there is no factor) with constants
+// that cancel, c1 ± k·(∓c2) = 0, and returns x, the difference, the
+// factor of x in the value, and c2.
+func (c *checker) cancelledOffset(n *ast.BinaryExpr) (x ast.Expr, d *ast.BinaryExpr, k, c2 constant.Value, ok bool) {
+	if n.Op != token.ADD && n.Op != token.SUB || !isFloat64(c.pass.TypesInfo.TypeOf(n)) {
+		return nil, nil, nil, nil, false
+	}
+	c1, term, sign := c.pass.TypesInfo.Types[n.X].Value, n.Y, 1
+	if n.Op == token.SUB {
+		sign = -1
+	}
+	if c1 == nil {
+		c1, term, sign = c.pass.TypesInfo.Types[n.Y].Value, n.X, 1
+		if c1 != nil && n.Op == token.SUB {
+			c1 = constant.UnaryOp(token.SUB, c1, 0)
+		}
+	}
+	if c1 == nil || c.isConst(term) {
+		return nil, nil, nil, nil, false
+	}
+	k = constant.MakeInt64(int64(sign))
+	inner := ast.Unparen(term)
+	if m, isMul := inner.(*ast.BinaryExpr); isMul && m.Op == token.MUL {
+		for _, pair := range [2][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+			if v := c.pass.TypesInfo.Types[pair[0]].Value; v != nil {
+				k, inner = constant.BinaryOp(k, token.MUL, v), ast.Unparen(pair[1])
+				break
+			}
+		}
+	}
+	d, isSub := inner.(*ast.BinaryExpr)
+	if !isSub || d.Op != token.SUB {
+		return nil, nil, nil, nil, false
+	}
+	if v := c.pass.TypesInfo.Types[d.Y].Value; v != nil && !c.isConst(d.X) {
+		x, c2 = d.X, v // c1 + k*(x - c2)
+	} else if v := c.pass.TypesInfo.Types[d.X].Value; v != nil && !c.isConst(d.Y) {
+		x, c2, k = d.Y, v, constant.UnaryOp(token.SUB, k, 0) // c1 + k*(c2 - x) = c1 - k*(x - c2)
+	} else {
+		return nil, nil, nil, nil, false
+	}
+	// The value is c1 + k*(x - c2) = k*x + (c1 - k*c2).
+	rest := constant.BinaryOp(c1, token.SUB, constant.BinaryOp(k, token.MUL, c2))
+	if constant.Sign(c2) == 0 || constant.Sign(rest) != 0 {
+		return nil, nil, nil, nil, false
+	}
+	return x, d, k, c2, true
 }

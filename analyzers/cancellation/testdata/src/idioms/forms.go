@@ -269,3 +269,19 @@ func newArcMesher(segments int, radius float64) *arcMesher {
 	m.sag = radius * (1 - math.Cos(m.step/2))
 	return m
 }
+
+// The complement of a share used as a blend weight in a sum: only its
+// absolute error, a rounding of 1, reaches the result.
+func blend(lo, hi, wLo, wHi float64) float64 {
+	f := wLo / (wLo + wHi)
+	return lo*f + hi*(1-f)
+}
+
+// Offsets that do not cancel, or whose absolute error a sum absorbs.
+func upperQuantile(mu, b, q float64) float64 {
+	return mu - b*math.Log(1-2*(q-0.5)) // 1 - 2(q - 0.5) is 2 - 2q: for q ≥ 0.5, q - 0.5 is exact (Sterbenz)
+}
+
+func recentre(q, s float64) float64 {
+	return s + (1 + 2*(q-0.5)) // a term of a sum of unit size: the rounding of q - 0.5 is one of the sum's
+}

@@ -49,6 +49,7 @@ const (
 	catDivided   = "divided"
 	catShare     = "share"
 	catRoundTrip = "roundtrip"
+	catSplit     = "split"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -93,6 +94,7 @@ func run(pass *analysis.Pass) (any, error) {
 				case token.SUB:
 					c.difference(cur, n)
 					c.roundTrip(cur, n)
+					c.splitReduction(n)
 				case token.ADD:
 					c.roundTrip(cur, n)
 				case token.QUO:

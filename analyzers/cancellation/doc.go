@@ -77,6 +77,25 @@
 //     limit f'(a) exists; a-b is exact there (Sterbenz), so the closed
 //     forms (-2·sin((a+b)/2)·sin((a-b)/2)/(a-b), e^b·expm1(a-b)/(a-b),
 //     log1p((a-b)/b)/(a-b)) keep every digit;
+//   - 1 - a/(a+b), the complement of a share of a sum (also through
+//     variables): where |b| is small against |a| the quotient is within
+//     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|
+//     gives 0; b/(a+b) is the same value with two roundings. The plain
+//     form is not backward stable (inputs perturbed by u move b/(a+b) by
+//     about 2u relative), so it is reported unless its consumer needs
+//     only absolute accuracy (a term of a sum, a factor of one);
+//   - c1 + k*(x - c2) whose constants cancel (1 + 2*(p - 0.5) is 2*p):
+//     x - c2 is rounded to the spacing near c2 (5.55e-17 for 0.5), which
+//     adding c1 back does not undo, so a small x keeps only about
+//     log10(|x|/ulp(c2)) digits; k*x keeps them all. Reported unless the
+//     consumer needs only absolute accuracy;
+//   - the first step (x - y*A) - y*B of an additive range reduction
+//     (Cody and Waite's split of a constant such as π/4 into a leading
+//     part A and corrections) where A has so many significant bits in the
+//     expression's type that y*A is exact only for |y| below 2^8: the
+//     reduction relies on y*A being exact, and past that its rounding, up
+//     to u·|y·A|, is all the reduced argument's error (a float64 split,
+//     23 bits in A, computed in float32: exact only for |y| < 2);
 //   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
 //     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form

@@ -285,3 +285,16 @@ func upperQuantile(mu, b, q float64) float64 {
 func recentre(q, s float64) float64 {
 	return s + (1 + 2*(q-0.5)) // a term of a sum of unit size: the rounding of q - 0.5 is one of the sum's
 }
+
+// Splits whose leading part leaves room for the multiplier: the same
+// constants in float64 (30 bits for y), and a float32 split with a short
+// leading part (0.78515625 has 8 significant bits, 16 left for y).
+func octant64(x float64) float64 {
+	y := math.Floor(x * (4 / math.Pi))
+	return ((x - y*7.85398125648498535156e-1) - y*3.77489470793079817668e-8) - y*2.69515142907905952645e-15
+}
+
+func octant32(x float32) float32 {
+	y := float32(int(x * (4 / math.Pi)))
+	return (x - y*0.78515625) - y*2.4187564849853515625e-4
+}

@@ -77,6 +77,13 @@
 //     limit f'(a) exists; a-b is exact there (Sterbenz), so the closed
 //     forms (-2·sin((a+b)/2)·sin((a-b)/2)/(a-b), e^b·expm1(a-b)/(a-b),
 //     log1p((a-b)/b)/(a-b)) keep every digit;
+//   - a*c - b*b where a and c are dot products of vectors u and v with
+//     themselves and b = u·v, calls of one dot-product function (a Gram
+//     determinant): by Lagrange's identity it is |u×v|² =
+//     |u|²|v|²·sin²θ, so for nearly parallel vectors it keeps about
+//     log10(sin²θ/u) digits and may turn negative, while the squared
+//     norm of the cross product keeps them all; reported unless the
+//     consumer needs only absolute accuracy;
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -298,3 +298,16 @@ func octant32(x float32) float32 {
 	y := float32(int(x * (4 / math.Pi)))
 	return (x - y*0.78515625) - y*2.4187564849853515625e-4
 }
+
+func pairDot(p0, p1, q0, q1 [2]float64) float64 {
+	return (p1[0]-p0[0])*(q1[0]-q0[0]) + (p1[1]-p0[1])*(q1[1]-q0[1])
+}
+
+// A Gram determinant that only joins a sum: its absolute error is of the
+// size of the sum's roundings.
+func spreadScore(a0, a1, b0, b1 [2]float64) float64 {
+	uu := pairDot(a0, a1, a0, a1)
+	vv := pairDot(b0, b1, b0, b1)
+	uv := pairDot(a0, a1, b0, b1)
+	return uu + vv + (uu*vv - uv*uv)
+}

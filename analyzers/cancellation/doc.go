@@ -87,10 +87,12 @@
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|
-//     gives 0; b/(a+b) is the same value with two roundings. The plain
-//     form is not backward stable (inputs perturbed by u move b/(a+b) by
-//     about 2u relative), so it is reported unless its consumer needs
-//     only absolute accuracy (a term of a sum, a factor of one);
+//     gives 0; b/(a+b) is the same value with two roundings. Reported
+//     where the consumer needs the value to relative accuracy (a root, a
+//     power, a logarithm, a divisor, a sign test), as for the squares:
+//     elsewhere its absolute error is one rounding of 1, and whether |b|
+//     can be that small against |a| (a count against a fraction below 2
+//     cannot) is seldom visible in the code;
 //   - c1 + k*(x - c2) whose constants cancel (1 + 2*(p - 0.5) is 2*p):
 //     x - c2 is rounded to the spacing near c2 (5.55e-17 for 0.5), which
 //     adding c1 back does not undo, so a small x keeps only about

@@ -271,13 +271,13 @@ func (c *checker) divided(num, den ast.Expr) (name string, a, b ast.Expr, ok boo
 }
 
 // share reports 1 - a/(a+b), the complement of a share of a sum, also
-// through never-reassigned variables, unless its consumer needs only its
-// absolute accuracy (consume.Absolute): where |b| is small against |a|
+// through never-reassigned variables, where its consumer needs it to
+// relative accuracy (consume.Relative: a root, power, logarithm, divisor
+// or sign test): where |b| is small against |a|
 // the quotient is within a rounding of 1, so the difference keeps only
 // about log10(|b|/(u·|a|)) digits and is 0 once |b| < u·|a|, while
-// b/(a+b) is the same value with two roundings. Unlike a difference of
-// squares the plain form is not backward stable: inputs perturbed by u
-// move b/(a+b) by about 2u relative. It reports whether n had the form.
+// b/(a+b) is the same value with two roundings. It reports whether n had
+// the form.
 func (c *checker) share(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	if !c.isOne(n.X) {
 		return false
@@ -300,8 +300,8 @@ func (c *checker) share(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	default:
 		return false
 	}
-	if consume.Of(c.pass.TypesInfo, cur, 2) == consume.Absolute {
-		return true // the absolute error of a rounding of 1 is all its consumer can show
+	if consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
+		return true // the absolute error of a rounding of 1 shows only where relative accuracy is needed
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catShare,

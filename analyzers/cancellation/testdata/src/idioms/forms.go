@@ -311,3 +311,11 @@ func spreadScore(a0, a1, b0, b1 [2]float64) float64 {
 	uv := pairDot(a0, a1, b0, b1)
 	return uu + vv + (uu*vv - uv*uv)
 }
+
+// The complement of a share used in a recurrence of weights: the code
+// does not show whether |b| can be small against |a| (here a count
+// against a fraction), and the consumer is a product, not a root.
+func weightStep(frac, count, w float64) float64 {
+	ak := 1 - 2*frac/(count+2*frac)
+	return w * ak
+}

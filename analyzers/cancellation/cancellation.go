@@ -94,7 +94,7 @@ func run(pass *analysis.Pass) (any, error) {
 				case token.SUB:
 					c.difference(cur, n)
 					c.roundTrip(cur, n)
-					c.splitReduction(n)
+					c.splitReduction(cur, n)
 				case token.ADD:
 					c.roundTrip(cur, n)
 				case token.QUO:

@@ -104,7 +104,12 @@
 //     expression's type that y*A is exact only for |y| below 2^8: the
 //     reduction relies on y*A being exact, and past that its rounding, up
 //     to u·|y·A|, is all the reduced argument's error (a float64 split,
-//     23 bits in A, computed in float32: exact only for |y| < 2);
+//     23 bits in A, computed in float32: exact only for |y| < 2). Where
+//     an enclosing condition sends only x below a constant T to the
+//     reduction (x >= T in the if, the reduction in the else), T decides
+//     instead: silent when T is within the exact range 2^(p-s)·|A| (p
+//     the type's precision, s the significant bits of A), and otherwise
+//     the condition is reported too;
 //   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
 //     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form

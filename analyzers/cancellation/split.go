@@ -10,6 +10,8 @@ import (
 	"math/bits"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/edge"
+	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/fixes"
 )
@@ -28,7 +30,7 @@ const minExactBits = 8
 // cancels without error; past that bound y*A rounds by up to u·|y·A|,
 // which the cancellation leaves as the whole error of the reduced
 // argument (a float64 split computed in float32 is the usual cause).
-func (c *checker) splitReduction(n *ast.BinaryExpr) {
+func (c *checker) splitReduction(cur inspector.Cursor, n *ast.BinaryExpr) {
 	lead, ok := ast.Unparen(n.X).(*ast.BinaryExpr)
 	if n.Op != token.SUB || !ok || lead.Op != token.SUB {
 		return
@@ -51,14 +53,55 @@ func (c *checker) splitReduction(n *ast.BinaryExpr) {
 	if b.Kind() == types.Float32 {
 		prec, sig = 24, significantBits32(float32(a))
 	}
-	if prec-sig >= minExactBits {
+	reach := math.Ldexp(math.Abs(a), prec-sig) // y*A is exact for x below about this
+	cond, bound, guarded := c.reductionGuard(cur, lead.X)
+	switch {
+	case guarded && bound <= reach:
+		return // the guard keeps y within the exact range
+	case !guarded && prec-sig >= minExactBits:
 		return
+	case guarded:
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: cond.Pos(), End: cond.End(), Category: catSplit,
+			Message: fmt.Sprintf("%s sends arguments up to %.3g to the range reduction x - y*A - y*B below, which is exact in %s only for x below about %.3g (A = %.9g has %d significant bits); lower the bound or split A shorter",
+				fixes.Source(c.pass.Fset, cond), bound, b.Name(), reach, a, sig),
+		})
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: lead.Pos(), End: lead.End(), Category: catSplit,
 		Message: fmt.Sprintf("range reduction x - y*A - y*B%s in %s: A = %.9g has %d significant bits there, so y*A is exact only for |y| < %d and beyond its rounding (up to u·|y·A|) survives the cancellation; split A so that its leading part has at most %d - bits(y) significant bits",
 			binding("y", y), b.Name(), a, sig, 1<<(prec-sig), prec),
 	})
+}
+
+// reductionGuard returns the comparison of an enclosing if statement that
+// lets only x below a constant bound reach cur (x < T in the body, x >= T
+// in the else branch), and the bound.
+func (c *checker) reductionGuard(cur inspector.Cursor, x ast.Expr) (*ast.BinaryExpr, float64, bool) {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case nil, *ast.FuncDecl, *ast.FuncLit:
+			return nil, 0, false
+		case *ast.IfStmt:
+			cond, ok := ast.Unparen(p.Cond).(*ast.BinaryExpr)
+			if !ok || !same(cond.X, x) || c.pass.TypesInfo.Types[cond.Y].Value == nil {
+				continue
+			}
+			v := c.pass.TypesInfo.Types[cond.Y].Value
+			op := cond.Op
+			switch cur.ParentEdgeKind() {
+			case edge.IfStmt_Else:
+				op = invert(op)
+			case edge.IfStmt_Body:
+			default:
+				continue
+			}
+			if op == token.LSS || op == token.LEQ {
+				t, _ := constant.Float64Val(constant.ToFloat(v))
+				return cond, t, true
+			}
+		}
+	}
 }
 
 // scaledBy reads e as y*A or A*y with A a constant, and returns y and A.

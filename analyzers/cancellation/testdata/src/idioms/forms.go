@@ -319,3 +319,13 @@ func weightStep(frac, count, w float64) float64 {
 	ak := 1 - 2*frac/(count+2*frac)
 	return w * ak
 }
+
+// A long float32 split under a guard that keeps y within its exact range
+// (y < 2 for x below 1.5).
+func nearOctant(x float32) float32 {
+	if x < 1.5 {
+		y := float32(int(x * (4 / math.Pi)))
+		return (x - y*7.85398125648498535156e-1) - y*3.77489470793079817668e-8
+	}
+	return x
+}

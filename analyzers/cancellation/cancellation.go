@@ -50,6 +50,7 @@ const (
 	catShare     = "share"
 	catRoundTrip = "roundtrip"
 	catSplit     = "split"
+	catBigFloat  = "bigfloat"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -107,8 +108,9 @@ func run(pass *analysis.Pass) (any, error) {
 	return nil, nil
 }
 
-// call examines math.Log and math.Sqrt calls.
+// call examines math.Log and math.Sqrt calls, and big.Float differences.
 func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
+	c.bigProducts(cur, call)
 	switch name := c.mathFunc(call); name {
 	case "Log", "Log10", "Log2":
 		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {

@@ -110,6 +110,12 @@
 //     instead: silent when T is within the exact range 2^(p-s)·|A| (p
 //     the type's precision, s the significant bits of A), and otherwise
 //     the condition is reported too;
+//   - z.Sub(x, y) and z.Add(x, y) on math/big Floats whose operands were
+//     last set by Mul, in a function that starts its values from float64
+//     (SetFloat64, big.NewFloat) and never calls SetPrec: a zero Float
+//     takes its operands' precision, 53 bits there, so the products round
+//     as float64 products do and the difference cancels as in float64,
+//     though an exact product of two float64 values needs only 106 bits;
 //   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
 //     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form

@@ -17,6 +17,13 @@
 //     is 0, and loses about log10(1/|x|) digits for larger small x;
 //     math.Log1p(x) keeps them all (divided by math.Ln10 or math.Ln2);
 //     math.Log((1+x)/(1-x)) likewise, where 2*math.Atanh(x) keeps them;
+//   - math.Log(a) - math.Log(b) (also Log10, Log2, through variables)
+//     consumed to relative accuracy (a divisor, a root, a logarithm, a
+//     sign test): each logarithm carries a rounding of its own size,
+//     u·|log a|, so where a and b are close the difference, about
+//     (a-b)/b, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits;
+//     math.Log1p((a-b)/b) keeps them all where a-b is exact (Sterbenz).
+//     In a sum, as a log-likelihood ratio, only the absolute error shows;
 //   - math.Exp(x)-1 and 1-math.Exp(x), also with the exponential stored
 //     in a variable first: the same loss; math.Expm1(x);
 //   - math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent that is not a

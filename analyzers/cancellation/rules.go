@@ -383,3 +383,71 @@ func (c *checker) cancelledOffset(n *ast.BinaryExpr) (x ast.Expr, d *ast.BinaryE
 	}
 	return x, d, k, c2, true
 }
+
+// logRatio reports math.Log(a) - math.Log(b) (also through variables, and
+// in base 10 or 2) where the consumer needs the difference to relative
+// accuracy (a divisor, a root, a logarithm, a sign test): each logarithm
+// carries a rounding of its own size, u·|log a|, so where a and b are
+// close the difference log(a/b) ≈ (a-b)/b keeps only about
+// log10(|a-b|/(u·|b|·|log a|)) digits, while math.Log1p((a-b)/b) keeps
+// them all where a-b is exact (within a factor 2, Sterbenz). It reports
+// whether n had the form.
+func (c *checker) logRatio(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	la, oka := c.logOf(n.X)
+	lb, okb := c.logOf(n.Y)
+	if !oka || !okb || la.name != lb.name {
+		return false
+	}
+	if c.isConst(la.arg) || c.isConst(lb.arg) || c.inDivided(cur, n) || consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
+		return true // constants, a divided difference reported as one, or only absolute accuracy used
+	}
+	use := "math.Log1p((a-b)/b)"
+	if la.name != "Log" {
+		use += "/math." + map[string]string{"Log10": "Ln10", "Log2": "Ln2"}[la.name]
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catLog1p,
+		Message: fmt.Sprintf("math.%s(a) - math.%[1]s(b)%s, consumed where its relative accuracy matters, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits where a and b are close (u = %.3g): each logarithm carries a rounding of its own size; use %s",
+			la.name, binding("ab", la.arg, lb.arg), unitRoundoff, use),
+	})
+	return true
+}
+
+// logCall is a call of math.Log, Log10 or Log2 and its argument.
+type logCall struct {
+	name string
+	arg  ast.Expr
+}
+
+// logOf reads e, through never-reassigned variables, as a logarithm.
+func (c *checker) logOf(e ast.Expr) (logCall, bool) {
+	e, _ = c.through(e)
+	call, ok := e.(*ast.CallExpr)
+	if !ok {
+		return logCall{}, false
+	}
+	switch name := c.mathFunc(call); name {
+	case "Log", "Log10", "Log2":
+		return logCall{name, call.Args[0]}, true
+	}
+	return logCall{}, false
+}
+
+// inDivided reports whether the difference n at cur is the numerator or
+// denominator of a divided difference (dividedDifference).
+func (c *checker) inDivided(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			if p.Op != token.QUO {
+				return false
+			}
+			_, _, _, num := c.divided(n, p.Y)
+			_, _, _, den := c.divided(n, p.X)
+			return num || den
+		}
+		return false
+	}
+}

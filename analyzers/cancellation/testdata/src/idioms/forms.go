@@ -329,3 +329,9 @@ func nearOctant(x float32) float32 {
 	}
 	return x
 }
+
+// A log-likelihood ratio joins a sum: only the absolute error of its
+// logarithms, a rounding each, reaches the result.
+func logLikelihoodRatio(p, q, prior float64) float64 {
+	return prior + (math.Log(p) - math.Log(q))
+}

@@ -121,6 +121,9 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 	case "Acos":
 		c.acos(cur, call, name)
 	case "":
+		if c.mathFunc2(call) == "Pow" {
+			c.pnorm(cur, call)
+		}
 		if c.mathName(call) == "Acos" {
 			c.acos(cur, call, "Acos") // a package's own wrapper: reported, with no fix
 		}

@@ -73,6 +73,12 @@
 //     squares overflow to +Inf once |x| or |y| exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
 //     math.Hypot(x, y) scales instead;
+//   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
+//     function and p is not a constant (a p-norm): the powers overflow
+//     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30
+//     for p = 10, and vanish for tiny x, though the norm is representable;
+//     dividing by the largest |x| first keeps every power at most 1, and
+//     a base so divided is left alone;
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));

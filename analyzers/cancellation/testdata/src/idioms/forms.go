@@ -335,3 +335,19 @@ func nearOctant(x float32) float32 {
 func logLikelihoodRatio(p, q, prior float64) float64 {
 	return prior + (math.Log(p) - math.Log(q))
 }
+
+// A p-norm scaled by the largest magnitude: every power is at most 1.
+func scaledNorm(v []float64, p float64) float64 {
+	big := 0.0
+	for _, x := range v {
+		big = math.Max(big, math.Abs(x))
+	}
+	if big == 0 {
+		return 0
+	}
+	var s float64
+	for _, x := range v {
+		s += math.Pow(math.Abs(x)/big, p)
+	}
+	return big * math.Pow(s, 1/p)
+}

@@ -452,8 +452,8 @@ func (c *checker) inDivided(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	}
 }
 
-// pnorm reports math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the
-// same function (s += math.Pow(math.Abs(v), p)) and p is not a constant:
+// pnorm reports math.Pow(x, p) accumulated into s (s += math.Pow(x, p))
+// of which the same function takes math.Pow(s, 1/p) (s += math.Pow(math.Abs(v), p)) and p is not a constant:
 // the p-th powers overflow to +Inf once |x| exceeds MaxFloat64^(1/p)
 // (1.8e308^(1/p): 5.6e102 for p = 3, 6.7e30 for p = 10) and vanish below
 // 2^-1074^(1/p), though the norm itself is representable; dividing every
@@ -482,8 +482,8 @@ func (c *checker) pnorm(cur inspector.Cursor, call *ast.CallExpr) {
 		}
 		if p, isCall := ast.Unparen(as.Rhs[0]).(*ast.CallExpr); isCall && c.mathFunc2(p) == "Pow" && same(p.Args[1], q.Y) && !c.scaledBase(p.Args[0]) {
 			fixes.Report(c.pass, analysis.Diagnostic{
-				Pos: call.Pos(), End: call.End(), Category: catHypot,
-				Message: fmt.Sprintf("math.Pow(s, 1/p) of a sum of p-th powers%s overflows to +Inf once a term's base exceeds MaxFloat64^(1/p) (%.3g for p = 3, %.3g for p = 10) and loses tiny vectors, though the norm is representable; divide each value by the largest magnitude first and multiply the root by it",
+				Pos: p.Pos(), End: p.End(), Category: catHypot,
+				Message: fmt.Sprintf("math.Pow(x, p) summed for the root math.Pow(s, 1/p)%s overflows to +Inf once a term's base exceeds MaxFloat64^(1/p) (%.3g for p = 3, %.3g for p = 10) and loses tiny vectors, though the norm is representable; divide each value by the largest magnitude first and multiply the root by it",
 					binding("p", q.Y), math.Pow(math.MaxFloat64, 1.0/3), math.Pow(math.MaxFloat64, 0.1)),
 			})
 			return

@@ -7,7 +7,7 @@ import "math"
 func pNorm(v []float64, p float64) float64 {
 	var s float64
 	for _, x := range v {
-		s += math.Pow(math.Abs(x), p)
+		s += math.Pow(math.Abs(x), p) // want `math.Pow\(x, p\) summed for the root math.Pow\(s, 1/p\) overflows to \+Inf once a term's base exceeds MaxFloat64\^\(1/p\) \(5.64e\+102 for p = 3, 6.69e\+30 for p = 10\)`
 	}
-	return math.Pow(s, 1/p) // want `math.Pow\(s, 1/p\) of a sum of p-th powers overflows to \+Inf once a term's base exceeds MaxFloat64\^\(1/p\) \(5.64e\+102 for p = 3, 6.69e\+30 for p = 10\)`
+	return math.Pow(s, 1/p)
 }

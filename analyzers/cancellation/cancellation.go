@@ -100,6 +100,7 @@ func run(pass *analysis.Pass) (any, error) {
 					c.roundTrip(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)
+					c.expRatio(cur, n)
 				}
 				c.radical(cur, n)
 			}

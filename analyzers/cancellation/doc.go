@@ -79,6 +79,12 @@
 //     for p = 10, and vanish for tiny x, though the norm is representable;
 //     dividing by the largest |x| first keeps every power at most 1, and
 //     a base so divided is left alone;
+//   - e/(…(1+e)…) with e = math.Exp(y) (directly or through a variable),
+//     the sigmoid e/(1+e) and the logistic density e/(s·(1+e)²): once y
+//     exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN,
+//     though it tends to a finite limit; dividing through by e (the
+//     exponential of -y) keeps every value finite. An exponent known not
+//     to be positive (-|z|) is left alone;
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));

@@ -502,3 +502,36 @@ func (c *checker) scaledBase(e ast.Expr) bool {
 	q, ok := ast.Unparen(e).(*ast.BinaryExpr)
 	return ok && q.Op == token.QUO && !c.isConst(q.Y)
 }
+
+// expRatio reports e/(…(c+e)…) where e is math.Exp(y) (directly or
+// through a never-reassigned variable) and the denominator holds c+e, as
+// the logistic density e/(s·(1+e)²) and the sigmoid e/(1+e) do: once y
+// exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN, though
+// it tends to a finite limit (e^-y·… ); for y > 0, dividing through by e,
+// i.e. using math.Exp(-y), keeps every value finite. An exponent known
+// not to be positive (-|z|) is left alone.
+func (c *checker) expRatio(cur inspector.Cursor, n *ast.BinaryExpr) {
+	e, _ := c.through(n.X)
+	call, ok := e.(*ast.CallExpr)
+	if n.Op != token.QUO || !ok || c.mathFunc(call) != "Exp" || c.isConst(call.Args[0]) {
+		return
+	}
+	if neg, ok := ast.Unparen(call.Args[0]).(*ast.UnaryExpr); ok && neg.Op == token.SUB && c.nonNegative(cur, neg.X, 3) {
+		return // e^-|z| is at most 1
+	}
+	found := false
+	ast.Inspect(n.Y, func(m ast.Node) bool {
+		if s, ok := m.(*ast.BinaryExpr); ok && s.Op == token.ADD {
+			found = found || c.isConst(s.X) && same(s.Y, n.X) || c.isConst(s.Y) && same(s.X, n.X)
+		}
+		return !found
+	})
+	if !found {
+		return
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catLogSumExp,
+		Message: fmt.Sprintf("e/(…(1+e)…) with e = %s is +Inf/+Inf = NaN once the exponent exceeds %.6g, though the quotient tends to a finite limit; for a positive exponent divide through by e, using math.Exp of the negated exponent",
+			types.ExprString(call), expOverflow),
+	})
+}

@@ -351,3 +351,9 @@ func scaledNorm(v []float64, p float64) float64 {
 	}
 	return big * math.Pow(s, 1/p)
 }
+
+// The symmetric form: the exponential of -|z| never overflows.
+func stableDensity(x, mu, s float64) float64 {
+	e := math.Exp(-math.Abs((x - mu) / s))
+	return e / (s * (1 + e) * (1 + e))
+}

@@ -45,7 +45,11 @@ func (c *checker) splitReduction(cur inspector.Cursor, n *ast.BinaryExpr) {
 			return // a later step of the same reduction: reported at its first
 		}
 	}
-	b, ok := c.pass.TypesInfo.TypeOf(n).Underlying().(*types.Basic)
+	t := c.pass.TypesInfo.TypeOf(n)
+	if t == nil {
+		return // ill-typed
+	}
+	b, ok := t.Underlying().(*types.Basic)
 	if !ok || b.Kind() != types.Float32 && b.Kind() != types.Float64 {
 		return
 	}

@@ -103,6 +103,14 @@
 //     log10(sin²θ/u) digits and may turn negative, while the squared
 //     norm of the cross product keeps them all; reported unless the
 //     consumer needs only absolute accuracy;
+//   - s += (x1+x0)*(y1-y0) and s += x0*y1 - x1*y0 in a loop, with x0, x1
+//     (y0, y1) the same coordinate of two points taken as they are (p0.X
+//     and p1.X, r[i][0] and r[i+1][0]): the shoelace area of a ring. Each
+//     term is about |x|·|Δy| (|x|·|y| for the cross form) with a rounding
+//     of that size, while the sum is twice the area, about L² for a ring
+//     of size L, so a ring at distance X from the origin keeps only about
+//     log10(L/(u·X)) digits; coordinates relative to the first vertex
+//     (q.X - o.X) keep them all and are left alone;
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -357,3 +357,17 @@ func stableDensity(x, mu, s float64) float64 {
 	e := math.Exp(-math.Abs((x - mu) / s))
 	return e / (s * (1 + e) * (1 + e))
 }
+
+type corner struct{ X, Y float64 }
+
+// The shoelace relative to the first vertex: the terms are of the ring's
+// own size, and their roundings of the area's.
+func localArea(ring []corner) float64 {
+	s := 0.0
+	o := ring[0]
+	for i := 1; i < len(ring); i++ {
+		p, q := ring[i-1], ring[i]
+		s += (q.X - o.X + p.X - o.X) * (q.Y - p.Y)
+	}
+	return s / 2
+}

@@ -86,8 +86,10 @@ func run(pass *analysis.Pass) (any, error) {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
 			continue // a test's arguments come from its own table of cases
 		}
-		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil)) {
+		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.BlockStmt)(nil)) {
 			switch n := cur.Node().(type) {
+			case *ast.BlockStmt:
+				c.slidingSum(n)
 			case *ast.AssignStmt:
 				c.shoelace(cur, n)
 			case *ast.CallExpr:

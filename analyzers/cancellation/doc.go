@@ -111,6 +111,15 @@
 //     of size L, so a ring at distance X from the origin keeps only about
 //     log10(L/(u·X)) digits; coordinates relative to the first vertex
 //     (q.X - o.X) keep them all and are left alone;
+//   - a float field updated in one block both by x.f -= old and by
+//     x.f += new: a running sum over a sliding window kept in a value's
+//     state across an unbounded number of calls. Each update rounds at
+//     the size of the sum at that time (Higham 2002, §4.2), so a large
+//     value that passes leaves its rounding, up to u·|value|, behind for
+//     good, and the sum of the small values that follow carries an error
+//     that never decays; recompute it from the window from time to time or
+//     keep a compensated sum. A sum in a local variable lasts one call,
+//     and a field reset before it is accumulated again, and are left alone;
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

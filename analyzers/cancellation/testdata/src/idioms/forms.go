@@ -371,3 +371,27 @@ func localArea(ring []corner) float64 {
 	}
 	return s / 2
 }
+
+// A window sum in a local variable lives for one call, and a field reset
+// before it is accumulated again holds no old roundings.
+func windowSums(xs []float64, k int) []float64 {
+	out := make([]float64, 0, len(xs))
+	s := 0.0
+	for i, x := range xs {
+		s += x
+		if i >= k {
+			s -= xs[i-k]
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+type tally struct{ total float64 }
+
+func (t *tally) redo(xs []float64) {
+	t.total = 0
+	for _, x := range xs {
+		t.total += x
+	}
+}

@@ -118,8 +118,8 @@
 //     value that passes leaves its rounding, up to u·|value|, behind for
 //     good, and the sum of the small values that follow carries an error
 //     that never decays; recompute it from the window from time to time or
-//     keep a compensated sum. A sum in a local variable lasts one call,
-//     and a field reset before it is accumulated again, and are left alone;
+//     keep a compensated sum. Sums in local variables last one call and
+//     are left alone, as are fields only ever added to;
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

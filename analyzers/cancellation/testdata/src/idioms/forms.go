@@ -372,8 +372,8 @@ func localArea(ring []corner) float64 {
 	return s / 2
 }
 
-// A window sum in a local variable lives for one call, and a field reset
-// before it is accumulated again holds no old roundings.
+// A window sum in a local variable lives for one call, and a field only
+// ever added to removes nothing.
 func windowSums(xs []float64, k int) []float64 {
 	out := make([]float64, 0, len(xs))
 	s := 0.0

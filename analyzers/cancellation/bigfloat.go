@@ -28,12 +28,8 @@ func (c *checker) bigProducts(cur inspector.Cursor, call *ast.CallExpr) {
 	if _, plain := ast.Unparen(sel.X).(*ast.Ident); !plain {
 		return // inside a chain: its operands are the chain's intermediate values
 	}
-	var fn inspector.Cursor
-	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
-		fn = f
-		break
-	}
-	if !fn.Valid() || !c.product(fn, call.Args[0], call.Pos()) || !c.product(fn, call.Args[1], call.Pos()) {
+	fn, ok := enclosingFunc(cur)
+	if !ok || !c.product(fn, call.Args[0], call.Pos()) || !c.product(fn, call.Args[1], call.Pos()) {
 		return
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{

@@ -469,3 +469,12 @@ func binding(names string, es ...ast.Expr) string {
 	}
 	return " with " + strings.Join(parts, ", ")
 }
+
+// enclosingFunc returns the innermost function declaration or literal
+// around cur.
+func enclosingFunc(cur inspector.Cursor) (inspector.Cursor, bool) {
+	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		return f, true
+	}
+	return inspector.Cursor{}, false
+}

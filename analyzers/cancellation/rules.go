@@ -466,12 +466,8 @@ func (c *checker) pnorm(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	s := c.pass.TypesInfo.Uses[id]
-	var fn inspector.Cursor
-	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
-		fn = f
-		break
-	}
-	if s == nil || !fn.Valid() {
+	fn, ok := enclosingFunc(cur)
+	if s == nil || !ok {
 		return
 	}
 	for a := range fn.Preorder((*ast.AssignStmt)(nil)) {

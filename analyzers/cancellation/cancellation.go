@@ -46,6 +46,11 @@ const (
 	catSquares   = "squares"
 	catTail      = "tail"
 	catVariance  = "variance"
+	catDivided   = "divided"
+	catShare     = "share"
+	catRoundTrip = "roundtrip"
+	catSplit     = "split"
+	catBigFloat  = "bigfloat"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -69,6 +74,9 @@ type checker struct {
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
 	abs   *absval.Known             // absolute-value functions, by meaning
 	acc   *accumulation             // how variables are updated, scanned when first needed
+
+	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
+	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -78,13 +86,25 @@ func run(pass *analysis.Pass) (any, error) {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
 			continue // a test's arguments come from its own table of cases
 		}
-		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil)) {
+		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.BlockStmt)(nil)) {
 			switch n := cur.Node().(type) {
+			case *ast.BlockStmt:
+				c.slidingSum(n)
+			case *ast.AssignStmt:
+				c.shoelace(cur, n)
 			case *ast.CallExpr:
 				c.call(cur, n)
 			case *ast.BinaryExpr:
-				if n.Op == token.SUB {
+				switch n.Op {
+				case token.SUB:
 					c.difference(cur, n)
+					c.roundTrip(cur, n)
+					c.splitReduction(cur, n)
+				case token.ADD:
+					c.roundTrip(cur, n)
+				case token.QUO:
+					c.dividedDifference(n)
+					c.expRatio(cur, n)
 				}
 				c.radical(cur, n)
 			}
@@ -93,8 +113,9 @@ func run(pass *analysis.Pass) (any, error) {
 	return nil, nil
 }
 
-// call examines math.Log and math.Sqrt calls.
+// call examines math.Log and math.Sqrt calls, and big.Float differences.
 func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
+	c.bigProducts(cur, call)
 	switch name := c.mathFunc(call); name {
 	case "Log", "Log10", "Log2":
 		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {
@@ -104,6 +125,13 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		c.hypot(cur, call)
 	case "Acos":
 		c.acos(cur, call, name)
+	case "":
+		if c.mathFunc2(call) == "Pow" {
+			c.pnorm(cur, call)
+		}
+		if c.mathName(call) == "Acos" {
+			c.acos(cur, call, "Acos") // a package's own wrapper: reported, with no fix
+		}
 	}
 }
 
@@ -114,7 +142,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.squares(n) || c.variance(n) {
+	if c.gram(cur, n) || c.squares(cur, n) || c.variance(n) || c.share(cur, n) || c.logRatio(cur, n) {
 		return
 	}
 	e, indirect := c.through(call)
@@ -151,6 +179,53 @@ func (c *checker) mathFunc(call *ast.CallExpr) string {
 		return "" // dot import: the fixes name the package
 	}
 	return fn.Name()
+}
+
+// mathName returns the name of the math package function of one float64
+// argument that call calls, directly or through a function of the
+// package whose body only returns that function of its parameter
+// (func acos(x float64) float64 { return math.Acos(x) }), or "".
+func (c *checker) mathName(call *ast.CallExpr) string {
+	if name := c.mathFunc(call); name != "" {
+		return name
+	}
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if !ok || fn.Pkg() != c.pass.Pkg || len(call.Args) != 1 {
+		return ""
+	}
+	if c.wrappers == nil {
+		c.wrappers = wrappersOf(c.pass)
+	}
+	return c.wrappers[fn]
+}
+
+// wrappersOf maps each function of the package whose body is only
+// return math.F(x), x its one parameter, to F.
+func wrappersOf(pass *analysis.Pass) map[*types.Func]string {
+	m := make(map[*types.Func]string)
+	for _, f := range pass.Files {
+		for _, d := range f.Decls {
+			fd, ok := d.(*ast.FuncDecl)
+			if !ok || fd.Recv != nil || fd.Body == nil || len(fd.Body.List) != 1 || fd.Type.Params.NumFields() != 1 {
+				continue
+			}
+			ret, ok := fd.Body.List[0].(*ast.ReturnStmt)
+			if !ok || len(ret.Results) != 1 {
+				continue
+			}
+			call, ok := ret.Results[0].(*ast.CallExpr)
+			if !ok || len(call.Args) != 1 || len(fd.Type.Params.List[0].Names) != 1 {
+				continue
+			}
+			param := pass.TypesInfo.Defs[fd.Type.Params.List[0].Names[0]]
+			fn, isFunc := typeutil.Callee(pass.TypesInfo, call).(*types.Func)
+			if id, isIdent := ast.Unparen(call.Args[0]).(*ast.Ident); isIdent && pass.TypesInfo.Uses[id] == param &&
+				isFunc && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+				m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = fn.Name()
+			}
+		}
+	}
+	return m
 }
 
 // mathFunc2 returns the name of the math package function call calls
@@ -393,4 +468,13 @@ func binding(names string, es ...ast.Expr) string {
 		return ""
 	}
 	return " with " + strings.Join(parts, ", ")
+}
+
+// enclosingFunc returns the innermost function declaration or literal
+// around cur.
+func enclosingFunc(cur inspector.Cursor) (inspector.Cursor, bool) {
+	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		return f, true
+	}
+	return inspector.Cursor{}, false
 }

@@ -17,6 +17,13 @@
 //     is 0, and loses about log10(1/|x|) digits for larger small x;
 //     math.Log1p(x) keeps them all (divided by math.Ln10 or math.Ln2);
 //     math.Log((1+x)/(1-x)) likewise, where 2*math.Atanh(x) keeps them;
+//   - math.Log(a) - math.Log(b) (also Log10, Log2, through variables)
+//     consumed to relative accuracy (a divisor, a root, a logarithm, a
+//     sign test): each logarithm carries a rounding of its own size,
+//     u·|log a|, so where a and b are close the difference, about
+//     (a-b)/b, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits;
+//     math.Log1p((a-b)/b) keeps them all where a-b is exact (Sterbenz).
+//     In a sum, as a log-likelihood ratio, only the absolute error shows;
 //   - math.Exp(x)-1 and 1-math.Exp(x), also with the exponential stored
 //     in a variable first: the same loss; math.Expm1(x);
 //   - math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent that is not a
@@ -35,9 +42,14 @@
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
 //     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
-//   - a*a - b*b, 1 - x*x and x*x - 1: each square carries a rounding
-//     error of about u·a², all of the difference where |a| and |b| are
-//     close; (a-b)*(a+b) forms the difference exactly first;
+//   - a*a - b*b, 1 - x*x and x*x - 1 where the difference is consumed
+//     to relative accuracy: under a square root (a radicand near
+//     tangency, where sqrt turns an absolute error d into sqrt(d)), in a
+//     logarithm, as a divisor, or in a test of its sign against 0, also
+//     through products, odd functions such as sin, and local variables:
+//     each square carries a rounding error of about u·a², all of the
+//     difference where |a| and |b| are close; (a-b)*(a+b) forms the
+//     difference exactly first;
 //   - 1 - math.Erf(x), 1 - 0.5*math.Erfc(-x) (the normal distribution
 //     function) and 1 - F(x) for a function or method F named CDF, also
 //     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
@@ -61,9 +73,85 @@
 //     squares overflow to +Inf once |x| or |y| exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
 //     math.Hypot(x, y) scales instead;
+//   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
+//     function and p is not a constant (a p-norm): the powers overflow
+//     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30
+//     for p = 10, and vanish for tiny x, though the norm is representable;
+//     dividing by the largest |x| first keeps every power at most 1, and
+//     a base so divided is left alone;
+//   - e/(…(1+e)…) with e = math.Exp(y) (directly or through a variable),
+//     the sigmoid e/(1+e) and the logistic density e/(s·(1+e)²): once y
+//     exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN,
+//     though it tends to a finite limit; dividing through by e (the
+//     exponential of -y) keeps every value finite. An exponent known not
+//     to be positive (-|z|) is left alone;
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));
+//   - (f(a)-f(b))/(a-b) and its reciprocal for f = math.Cos, Sin, Exp or
+//     Log (also through the package's own wrapper of f): a divided
+//     difference, whose numerator is f'(ξ)(a-b) while each value carries
+//     an absolute error of u·|f|, so about log10(|f'|·|a-b|/(u·|f|))
+//     digits remain as a approaches b and a = b gives 0/0 though the
+//     limit f'(a) exists; a-b is exact there (Sterbenz), so the closed
+//     forms (-2·sin((a+b)/2)·sin((a-b)/2)/(a-b), e^b·expm1(a-b)/(a-b),
+//     log1p((a-b)/b)/(a-b)) keep every digit;
+//   - a*c - b*b where a and c are dot products of vectors u and v with
+//     themselves and b = u·v, calls of one dot-product function (a Gram
+//     determinant): by Lagrange's identity it is |u×v|² =
+//     |u|²|v|²·sin²θ, so for nearly parallel vectors it keeps about
+//     log10(sin²θ/u) digits and may turn negative, while the squared
+//     norm of the cross product keeps them all; reported unless the
+//     consumer needs only absolute accuracy;
+//   - s += (x1+x0)*(y1-y0) and s += x0*y1 - x1*y0 in a loop, with x0, x1
+//     (y0, y1) the same coordinate of two points taken as they are (p0.X
+//     and p1.X, r[i][0] and r[i+1][0]): the shoelace area of a ring. Each
+//     term is about |x|·|Δy| (|x|·|y| for the cross form) with a rounding
+//     of that size, while the sum is twice the area, about L² for a ring
+//     of size L, so a ring at distance X from the origin keeps only about
+//     log10(L/(u·X)) digits; coordinates relative to the first vertex
+//     (q.X - o.X) keep them all and are left alone;
+//   - a float field updated in one block both by x.f -= old and by
+//     x.f += new: a running sum over a sliding window kept in a value's
+//     state across an unbounded number of calls. Each update rounds at
+//     the size of the sum at that time (Higham 2002, §4.2), so a large
+//     value that passes leaves its rounding, up to u·|value|, behind for
+//     good, and the sum of the small values that follow carries an error
+//     that never decays; recompute it from the window from time to time or
+//     keep a compensated sum. Sums in local variables last one call and
+//     are left alone, as are fields only ever added to;
+//   - 1 - a/(a+b), the complement of a share of a sum (also through
+//     variables): where |b| is small against |a| the quotient is within
+//     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|
+//     gives 0; b/(a+b) is the same value with two roundings. Reported
+//     where the consumer needs the value to relative accuracy (a root, a
+//     power, a logarithm, a divisor, a sign test), as for the squares:
+//     elsewhere its absolute error is one rounding of 1, and whether |b|
+//     can be that small against |a| (a count against a fraction below 2
+//     cannot) is seldom visible in the code;
+//   - c1 + k*(x - c2) whose constants cancel (1 + 2*(p - 0.5) is 2*p):
+//     x - c2 is rounded to the spacing near c2 (5.55e-17 for 0.5), which
+//     adding c1 back does not undo, so a small x keeps only about
+//     log10(|x|/ulp(c2)) digits; k*x keeps them all. Reported unless the
+//     consumer needs only absolute accuracy;
+//   - the first step (x - y*A) - y*B of an additive range reduction
+//     (Cody and Waite's split of a constant such as π/4 into a leading
+//     part A and corrections) where A has so many significant bits in the
+//     expression's type that y*A is exact only for |y| below 2^8: the
+//     reduction relies on y*A being exact, and past that its rounding, up
+//     to u·|y·A|, is all the reduced argument's error (a float64 split,
+//     23 bits in A, computed in float32: exact only for |y| < 2). Where
+//     an enclosing condition sends only x below a constant T to the
+//     reduction (x >= T in the if, the reduction in the else), T decides
+//     instead: silent when T is within the exact range 2^(p-s)·|A| (p
+//     the type's precision, s the significant bits of A), and otherwise
+//     the condition is reported too;
+//   - z.Sub(x, y) and z.Add(x, y) on math/big Floats whose operands were
+//     last set by Mul, in a function that starts its values from float64
+//     (SetFloat64, big.NewFloat) and never calls SetPrec: a zero Float
+//     takes its operands' precision, 53 bits there, so the products round
+//     as float64 products do and the difference cancels as in float64,
+//     though an exact product of two float64 values needs only 106 bits;
 //   - math.Log(math.Exp(a)+math.Exp(b)), unless both are already shifted
 //     by a common value (l1-m, l2-m): +Inf once an argument exceeds
 //     709.78 and -Inf once both are below -745.13; the shifted form
@@ -84,7 +172,8 @@
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
 // data. The cosine rule leaves alone an angle built from constants and
 // whole numbers by products and quotients (2πi/(n-1) of a window, a
-// quarter turn over a segment count): it is 0 or at least |c|/n, cos rounds
+// quarter turn over a segment count), also through a field of the
+// package every assignment of which is such an angle: it is 0 or at least |c|/n, cos rounds
 // to 1 there only for counts beyond 10^8, and the absolute error of 1-cos
 // stays one rounding of 1, the scale of such weights. The power rule also
 // leaves alone a constant exponent (1 -
@@ -95,18 +184,33 @@
 // the base's own rounding, and a computed base other
 // than 1±u ((x/λ)^k - 1: the base carries its own rounding, which
 // math.Expm1 would inherit). The radical rule is silent where the sign of
-// u is known: math.Abs, math.Sqrt, math.Exp, a square, or an enclosing
-// condition that compares u. The arc rule is silent for other arguments,
+// u is known: math.Abs, math/cmplx.Abs, math.Sqrt, math.Exp, math.Hypot,
+// a square, sums, products and quotients of such values, an enclosing
+// condition that compares u, or the value last assigned to u before the
+// expression in straight-line code (no loop or label between) being one
+// of those: then the terms add and nothing cancels. The arc rule reads the cosine through
+// the value last assigned to a variable (a clamp to [-1, 1] that
+// reassigns it included) and through the package's own wrappers of
+// math.Acos, Sin and Cos (no fix is offered there). It is silent for other arguments,
 // which reach ±1 only where the problem itself is ill-conditioned (a ratio
 // of sines near a pole) or feed a Newton iteration that refines them, for
 // math.Asin, and for an angle that is only counted (math.Ceil, an integer
 // conversion), where half the digits are plenty. An absolute value is recognised by meaning wherever these rules
 // look for one (guards, signs): math.Abs, a float32 library's Abs, or the
-// package's own helper (absval). The squares rule is silent for constants
+// package's own helper (absval). The squares rule is silent where the
+// difference is used linearly: fl(fl(a*a) - fl(b*b)) is the exact
+// a'² - b'² of inputs perturbed by about u/2 relative, so it is backward
+// stable, and its absolute error u·max(a², b²) only shows where the next
+// operation needs the difference to relative accuracy. A term of a sum,
+// a factor of such a term, a threshold compared at its own scale, the
+// argument of cos or exp (which pass an absolute error on as one) carry
+// that error at the size of the roundings the result already has; a
+// difference returned, stored or passed on is as accurate as its data,
+// and its consumer is not seen. The squares rule is also silent for constants
 // and whole numbers, whose squares are exact, and for operands computed in
-// the function (c := z/r; 1 - c*c, also when every value assigned to c is
-// computed): a computed c carries a rounding of its
-// own, so 1 - c² has an absolute error of about 2u near |c| = 1 however it
+// the function (c := z/r; 1 - c*c, also when the value last assigned to
+// c, or every value assigned to it, is computed): a computed c carries a
+// rounding of its own, so 1 - c² has an absolute error of about 2u near |c| = 1 however it
 // is formed, and the factorisation gains only for exact inputs. Code in
 // _test.go files is not checked: a test's arguments come from its own
 // table. The overflow rule is silent when an

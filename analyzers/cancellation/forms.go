@@ -13,6 +13,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
 )
 
@@ -44,7 +45,7 @@ func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 	if c.isConst(b) || !c.lossShows(cur, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
-	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(a) || c.counts(b)) {
+	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(cur, a) || c.counts(b)) {
 		// A computed base carries its own rounding, which Expm1 would
 		// inherit; a whole exponent n >= 1 keeps |1-a^n| >= |1-a|, so the
 		// power loses no more than 1-a does from the base's own rounding.
@@ -164,27 +165,72 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 	return nil, nil, false
 }
 
-// signKnown reports whether u cannot take both signs where cur runs: an
-// absolute value, a square root, an exponential or a square, or a value
-// an enclosing condition compares.
+// signKnown reports whether u cannot take both signs where cur runs: a
+// value never negative (nonNegative), a whole number, or a value an
+// enclosing condition compares.
 func (c *checker) signKnown(cur inspector.Cursor, u ast.Expr) bool {
-	e, _ := c.through(u)
-	if call, ok := e.(*ast.CallExpr); ok {
-		if _, isAbs := c.absArg(call); isAbs {
-			return true
-		}
-		switch c.mathFunc(call) {
-		case "Sqrt", "Exp", "Cosh":
-			return true
-		}
-		if c.mathFunc2(call) == "Hypot" {
-			return true
-		}
+	return c.wholeNumber(u) || c.guarded(cur, u, c.compares) || c.nonNegative(cur, u, 5)
+}
+
+// nonNegative reports whether e cannot be negative where cur runs: a
+// constant of at least 0, an absolute value, modulus, root, exponential,
+// length or square, and sums, products and quotients of those, directly,
+// through conversions, or through the value last assigned to a variable
+// before cur (consume.Reaching), depth variables deep.
+func (c *checker) nonNegative(cur inspector.Cursor, e ast.Expr, depth int) bool {
+	e = ast.Unparen(e)
+	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
+		return v.Kind() != constant.Unknown && constant.Sign(v) >= 0
 	}
-	if _, ok := c.square(e); ok {
+	if depth == 0 {
+		return false
+	}
+	switch e := e.(type) {
+	case *ast.CallExpr:
+		if tv := c.pass.TypesInfo.Types[e.Fun]; tv.IsType() && len(e.Args) == 1 {
+			return c.nonNegative(cur, e.Args[0], depth) // a conversion keeps the sign
+		}
+		return c.signedCall(e)
+	case *ast.BinaryExpr:
+		if _, sq := c.square(e); sq {
+			return true
+		}
+		return (e.Op == token.ADD || e.Op == token.MUL || e.Op == token.QUO) &&
+			c.nonNegative(cur, e.X, depth) && c.nonNegative(cur, e.Y, depth)
+	case *ast.Ident:
+		v, ok := c.pass.TypesInfo.Uses[e].(*types.Var)
+		if !ok {
+			return false
+		}
+		if init := c.decls[v]; init != nil {
+			return c.nonNegative(cur, init, depth-1)
+		}
+		rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v)
+		return ok && c.nonNegative(rhs, rhs.Node().(ast.Expr), depth-1)
+	}
+	return false
+}
+
+// signedCall reports whether call returns a value that is never
+// negative: an absolute value or modulus, a root, an exponential, a
+// hyperbolic cosine, a length.
+func (c *checker) signedCall(call *ast.CallExpr) bool {
+	if _, isAbs := c.absArg(call); isAbs {
 		return true
 	}
-	return c.wholeNumber(u) || c.guarded(cur, u, c.compares)
+	switch c.mathFunc(call) {
+	case "Sqrt", "Exp", "Exp2", "Cosh":
+		return true
+	}
+	if c.mathFunc2(call) == "Hypot" {
+		return true
+	}
+	if id, ok := ast.Unparen(call.Fun).(*ast.Ident); ok && (id.Name == "len" || id.Name == "cap") {
+		_, builtin := c.pass.TypesInfo.Uses[id].(*types.Builtin)
+		return builtin
+	}
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math/cmplx" && fn.Name() == "Abs"
 }
 
 // asinh reports math.Log(u + math.Sqrt(u*u+1)), the textbook inverse
@@ -353,7 +399,7 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 	trig := func(x ast.Expr) bool {
 		found := false
 		ast.Inspect(x, func(n ast.Node) bool {
-			if call, ok := n.(*ast.CallExpr); ok && (c.mathFunc(call) == "Sin" || c.mathFunc(call) == "Cos") {
+			if call, ok := n.(*ast.CallExpr); ok && (c.mathName(call) == "Sin" || c.mathName(call) == "Cos") {
 				found = true
 			}
 			return !found
@@ -373,7 +419,7 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 // cosine parts is exact there. An angle only counted (math.Ceil of it, an
 // integer conversion) is left alone.
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
-	x := c.unclamped(call.Args[0])
+	x := c.unclamped(cur, call.Args[0])
 	if !c.normCosine(x) && !c.lawOfCosines(x) || c.counted(cur) {
 		return
 	}
@@ -385,11 +431,20 @@ func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	})
 }
 
-// unclamped returns the value e stands for, through variables and a clamp
-// to [-1, 1] written with math.Max and math.Min.
-func (c *checker) unclamped(e ast.Expr) ast.Expr {
-	for range 4 {
+// unclamped returns the value e at cur stands for, through variables (the
+// value last assigned before cur) and a clamp to [-1, 1] written with
+// math.Max and math.Min, also when the clamp reassigns the variable.
+func (c *checker) unclamped(cur inspector.Cursor, e ast.Expr) ast.Expr {
+	for range 6 {
 		e, _ = c.through(e)
+		if id, ok := e.(*ast.Ident); ok {
+			if v, ok := c.pass.TypesInfo.Uses[id].(*types.Var); ok {
+				if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
+					cur, e = rhs, rhs.Node().(ast.Expr)
+					continue
+				}
+			}
+		}
 		call, ok := e.(*ast.CallExpr)
 		if !ok || c.mathFunc2(call) != "Max" && c.mathFunc2(call) != "Min" {
 			return e
@@ -451,7 +506,7 @@ func (c *checker) isZero(e ast.Expr) bool {
 // difference when |a| and |b| are close (|x| near 1); (a-b)*(a+b) forms
 // the difference exactly (Sterbenz) before one rounded product. It reports
 // whether n had that form.
-func (c *checker) squares(n *ast.BinaryExpr) bool {
+func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	a, oka := c.square(n.X)
 	b, okb := c.square(n.Y)
 	switch {
@@ -466,8 +521,11 @@ func (c *checker) squares(n *ast.BinaryExpr) bool {
 	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) {
 		return true // known, or whole numbers whose squares are exact
 	}
-	if c.computed(a) || c.computed(b) {
+	if c.computed(cur, a) || c.computed(cur, b) {
 		return true // the operand's own rounding error already costs what the factorisation would save
+	}
+	if consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
+		return true // backward stable: an absolute error of u·a² shows only where relative accuracy is needed
 	}
 	fset := c.pass.Fset
 	text := "(" + fixes.Operand(fset, a, token.ADD.Precedence()) + " - " + fixes.Operand(fset, b, token.ADD.Precedence()+1) +
@@ -678,22 +736,27 @@ func (c *checker) farReaching(e ast.Expr, depth int) bool {
 	return false
 }
 
-// computed reports whether e, directly or through never-reassigned
-// variables, is the result of arithmetic or of a call rather than an input
+// computed reports whether e, at cur, directly or through variables (the
+// value last assigned before cur, or else every value assigned), is the result of arithmetic or of a call rather than an input
 // (a parameter, a field, an element, a constant). A computed c carries a
 // relative error of a rounding, so 1 - c*c has an absolute error of about
 // 2u near |c| = 1 however it is formed: (1-c)*(1+c) gains only for exact
 // inputs.
-func (c *checker) computed(e ast.Expr) bool { return c.computedDepth(e, 3) }
+func (c *checker) computed(cur inspector.Cursor, e ast.Expr) bool { return c.computedDepth(cur, e, 3) }
 
-func (c *checker) computedDepth(e ast.Expr, depth int) bool {
+func (c *checker) computedDepth(cur inspector.Cursor, e ast.Expr, depth int) bool {
 	e, _ = c.through(e)
 	switch e := e.(type) {
 	case *ast.BinaryExpr, *ast.CallExpr:
 		return !c.isConst(e)
 	case *ast.UnaryExpr:
-		return depth > 0 && c.computedDepth(e.X, depth-1)
+		return depth > 0 && c.computedDepth(cur, e.X, depth-1)
 	case *ast.Ident:
+		if v, ok := c.pass.TypesInfo.Uses[e].(*types.Var); ok && depth > 0 {
+			if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
+				return c.computedDepth(rhs, rhs.Node().(ast.Expr), depth-1)
+			}
+		}
 		return depth > 0 && c.assignedComputed(e, depth-1)
 	}
 	return false
@@ -722,7 +785,7 @@ func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
 				if len(as.Rhs) != len(as.Lhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
 					return false
 				}
-				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computedDepth(as.Rhs[i], depth) {
+				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computedDepth(a, as.Rhs[i], depth) {
 					return false
 				}
 				n++
@@ -767,6 +830,13 @@ func (c *checker) ratioOfCounts(x ast.Expr, depth int) (ok, counts bool) {
 		okx, cx := c.ratioOfCounts(e.X, depth-1)
 		oky, cy := c.ratioOfCounts(e.Y, depth-1)
 		return okx && oky, cx || cy
+	case *ast.SelectorExpr:
+		vals, all := c.fieldValues(e) // a field every assignment of which is such a ratio
+		for _, v := range vals {
+			okv, cv := c.ratioOfCounts(v, depth-1)
+			all, counts = all && okv, counts || cv
+		}
+		return all, counts
 	}
 	return false, false
 }

@@ -3,11 +3,15 @@ package cancellation
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
+	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
 )
 
@@ -212,4 +216,318 @@ func (c *checker) overflowsFirst(cur inspector.Cursor) bool {
 			return false
 		}
 	}
+}
+
+// dividedForms gives, per function, the divided difference (f(a)-f(b))/(a-b)
+// without the subtraction of nearly equal values: sum-to-product for the
+// sine and cosine, a factored exponential, and a logarithm of the ratio.
+var dividedForms = map[string]string{
+	"Cos": "-2*math.Sin((a+b)/2)*math.Sin((a-b)/2)/(a-b)",
+	"Sin": "2*math.Cos((a+b)/2)*math.Sin((a-b)/2)/(a-b)",
+	"Exp": "math.Exp(b)*math.Expm1(a-b)/(a-b)",
+	"Log": "math.Log1p((a-b)/b)/(a-b)",
+}
+
+// dividedDifference reports (f(a)-f(b))/(a-b) (or over b-a) for a math
+// function f with a closed form in dividedForms: as a approaches b the
+// numerator is f'(ξ)(a-b) while each value carries an absolute error of
+// u·|f|, so the quotient keeps only about log10(|f'|·|a-b|/(u·|f|))
+// digits and is 0/0 at a = b, where its limit f'(a) exists. The
+// difference a-b itself is exact there (Sterbenz), so the closed forms
+// keep every digit.
+func (c *checker) dividedDifference(n *ast.BinaryExpr) {
+	for _, pair := range [2][2]ast.Expr{{n.X, n.Y}, {n.Y, n.X}} {
+		if name, a, b, ok := c.divided(pair[0], pair[1]); ok {
+			fixes.Report(c.pass, analysis.Diagnostic{
+				Pos: n.Pos(), End: n.End(), Category: catDivided,
+				Message: fmt.Sprintf("(f(a)-f(b))/(a-b) for f = math.%s%s (or its reciprocal) is a divided difference: as a approaches b each value's rounding (u = %.3g of |f|) leaves about log10(|f'|·|a-b|/(u·|f|)) digits, and a = b gives 0/0 though the limit f'(a) exists; use %s, with f'(a) where a == b",
+					name, binding("ab", a, b), unitRoundoff, dividedForms[name]),
+			})
+			return
+		}
+	}
+}
+
+// divided reports whether num is f(a)-f(b) and den is a-b or b-a, for a
+// function f of dividedForms and arguments that are not constants.
+func (c *checker) divided(num, den ast.Expr) (name string, a, b ast.Expr, ok bool) {
+	fs, okn := ast.Unparen(num).(*ast.BinaryExpr)
+	d, okd := ast.Unparen(den).(*ast.BinaryExpr)
+	if !okn || !okd || fs.Op != token.SUB || d.Op != token.SUB {
+		return "", nil, nil, false
+	}
+	fa, oka := ast.Unparen(fs.X).(*ast.CallExpr)
+	fb, okb := ast.Unparen(fs.Y).(*ast.CallExpr)
+	if !oka || !okb {
+		return "", nil, nil, false
+	}
+	name = c.mathName(fa)
+	if _, known := dividedForms[name]; !known || c.mathName(fb) != name {
+		return "", nil, nil, false
+	}
+	a, b = fa.Args[0], fb.Args[0]
+	over := same(a, d.X) && same(b, d.Y) || same(a, d.Y) && same(b, d.X)
+	return name, a, b, over && !c.isConst(a) && !c.isConst(b)
+}
+
+// share reports 1 - a/(a+b), the complement of a share of a sum, also
+// through never-reassigned variables, where its consumer needs it to
+// relative accuracy (consume.Relative: a root, power, logarithm, divisor
+// or sign test): where |b| is small against |a|
+// the quotient is within a rounding of 1, so the difference keeps only
+// about log10(|b|/(u·|a|)) digits and is 0 once |b| < u·|a|, while
+// b/(a+b) is the same value with two roundings. It reports whether n had
+// the form.
+func (c *checker) share(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	if !c.isOne(n.X) {
+		return false
+	}
+	e, _ := c.through(n.Y)
+	q, ok := e.(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	d, _ := c.through(q.Y)
+	sum, ok := d.(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return false
+	}
+	rest := sum.Y
+	switch {
+	case same(sum.X, q.X):
+	case same(sum.Y, q.X):
+		rest = sum.X
+	default:
+		return false
+	}
+	if consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
+		return true // the absolute error of a rounding of 1 shows only where relative accuracy is needed
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catShare,
+		Message: fmt.Sprintf("1 - a/(a+b)%s loses about log10(|a|/|b|) digits where |b| is small against |a|, where the quotient is within u = %.3g of 1, and is 0 once |b| < u·|a|; use b/(a+b)",
+			binding("ab", q.X, rest), unitRoundoff),
+	})
+	return true
+}
+
+// roundTrip reports c1 ± k*(x - c2) and its mirror images whose constants
+// cancel (1 + 2*(p - 0.5) is 2*p), unless the consumer needs only its
+// absolute accuracy: x - c2 is rounded to the spacing of floats near c2,
+// an absolute error up to ulp(c2)/2 that adding c1 back does not undo,
+// so a small x keeps only about log10(|x|/ulp(c2)) digits while k*x
+// keeps them all.
+func (c *checker) roundTrip(cur inspector.Cursor, n *ast.BinaryExpr) {
+	x, d, k, c2, ok := c.cancelledOffset(n)
+	if !ok || consume.Of(c.pass.TypesInfo, cur, 2) == consume.Absolute {
+		return
+	}
+	f, _ := constant.Float64Val(constant.ToFloat(c2))
+	kf, _ := constant.Float64Val(constant.ToFloat(k))
+	grain := math.Nextafter(math.Abs(f), math.Inf(1)) - math.Abs(f)
+	fset := c.pass.Fset
+	product := fmt.Sprintf("%g*%s", kf, fixes.Operand(fset, x, token.MUL.Precedence()))
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catRoundTrip,
+		Message: fmt.Sprintf("%s is %s, but %s is rounded first, to within %.3g, which adding the constant back does not undo: where |%[5]s| is small against %[6]g it keeps only about log10(|%[5]s|/%.3[7]g) digits; use %[2]s",
+			fixes.Source(fset, n), product, fixes.Source(fset, d), grain/2, types.ExprString(ast.Unparen(x)), math.Abs(f), grain),
+	})
+}
+
+// cancelledOffset reads n as c1 ± k*(x - c2) (also (c2 - x), the constant
+// term on either side, k = 1 where there is no factor) with constants
+// that cancel, c1 ± k·(∓c2) = 0, and returns x, the difference, the
+// factor of x in the value, and c2.
+func (c *checker) cancelledOffset(n *ast.BinaryExpr) (x ast.Expr, d *ast.BinaryExpr, k, c2 constant.Value, ok bool) {
+	if n.Op != token.ADD && n.Op != token.SUB || !isFloat64(c.pass.TypesInfo.TypeOf(n)) {
+		return nil, nil, nil, nil, false
+	}
+	c1, term, sign := c.pass.TypesInfo.Types[n.X].Value, n.Y, 1
+	if n.Op == token.SUB {
+		sign = -1
+	}
+	if c1 == nil {
+		c1, term, sign = c.pass.TypesInfo.Types[n.Y].Value, n.X, 1
+		if c1 != nil && n.Op == token.SUB {
+			c1 = constant.UnaryOp(token.SUB, c1, 0)
+		}
+	}
+	if c1 == nil || c.isConst(term) {
+		return nil, nil, nil, nil, false
+	}
+	k = constant.MakeInt64(int64(sign))
+	inner := ast.Unparen(term)
+	if m, isMul := inner.(*ast.BinaryExpr); isMul && m.Op == token.MUL {
+		for _, pair := range [2][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+			if v := c.pass.TypesInfo.Types[pair[0]].Value; v != nil {
+				k, inner = constant.BinaryOp(k, token.MUL, v), ast.Unparen(pair[1])
+				break
+			}
+		}
+	}
+	d, isSub := inner.(*ast.BinaryExpr)
+	if !isSub || d.Op != token.SUB {
+		return nil, nil, nil, nil, false
+	}
+	if v := c.pass.TypesInfo.Types[d.Y].Value; v != nil && !c.isConst(d.X) {
+		x, c2 = d.X, v // c1 + k*(x - c2)
+	} else if v := c.pass.TypesInfo.Types[d.X].Value; v != nil && !c.isConst(d.Y) {
+		x, c2, k = d.Y, v, constant.UnaryOp(token.SUB, k, 0) // c1 + k*(c2 - x) = c1 - k*(x - c2)
+	} else {
+		return nil, nil, nil, nil, false
+	}
+	// The value is c1 + k*(x - c2) = k*x + (c1 - k*c2).
+	rest := constant.BinaryOp(c1, token.SUB, constant.BinaryOp(k, token.MUL, c2))
+	if constant.Sign(c2) == 0 || constant.Sign(rest) != 0 {
+		return nil, nil, nil, nil, false
+	}
+	return x, d, k, c2, true
+}
+
+// logRatio reports math.Log(a) - math.Log(b) (also through variables, and
+// in base 10 or 2) where the consumer needs the difference to relative
+// accuracy (a divisor, a root, a logarithm, a sign test): each logarithm
+// carries a rounding of its own size, u·|log a|, so where a and b are
+// close the difference log(a/b) ≈ (a-b)/b keeps only about
+// log10(|a-b|/(u·|b|·|log a|)) digits, while math.Log1p((a-b)/b) keeps
+// them all where a-b is exact (within a factor 2, Sterbenz). It reports
+// whether n had the form.
+func (c *checker) logRatio(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	la, oka := c.logOf(n.X)
+	lb, okb := c.logOf(n.Y)
+	if !oka || !okb || la.name != lb.name {
+		return false
+	}
+	if c.isConst(la.arg) || c.isConst(lb.arg) || c.inDivided(cur, n) || consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
+		return true // constants, a divided difference reported as one, or only absolute accuracy used
+	}
+	use := "math.Log1p((a-b)/b)"
+	if la.name != "Log" {
+		use += "/math." + map[string]string{"Log10": "Ln10", "Log2": "Ln2"}[la.name]
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catLog1p,
+		Message: fmt.Sprintf("math.%s(a) - math.%[1]s(b)%s, consumed where its relative accuracy matters, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits where a and b are close (u = %.3g): each logarithm carries a rounding of its own size; use %s",
+			la.name, binding("ab", la.arg, lb.arg), unitRoundoff, use),
+	})
+	return true
+}
+
+// logCall is a call of math.Log, Log10 or Log2 and its argument.
+type logCall struct {
+	name string
+	arg  ast.Expr
+}
+
+// logOf reads e, through never-reassigned variables, as a logarithm.
+func (c *checker) logOf(e ast.Expr) (logCall, bool) {
+	e, _ = c.through(e)
+	call, ok := e.(*ast.CallExpr)
+	if !ok {
+		return logCall{}, false
+	}
+	switch name := c.mathFunc(call); name {
+	case "Log", "Log10", "Log2":
+		return logCall{name, call.Args[0]}, true
+	}
+	return logCall{}, false
+}
+
+// inDivided reports whether the difference n at cur is the numerator or
+// denominator of a divided difference (dividedDifference).
+func (c *checker) inDivided(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			if p.Op != token.QUO {
+				return false
+			}
+			_, _, _, num := c.divided(n, p.Y)
+			_, _, _, den := c.divided(n, p.X)
+			return num || den
+		}
+		return false
+	}
+}
+
+// pnorm reports math.Pow(x, p) accumulated into s (s += math.Pow(x, p))
+// of which the same function takes math.Pow(s, 1/p) (s += math.Pow(math.Abs(v), p)) and p is not a constant:
+// the p-th powers overflow to +Inf once |x| exceeds MaxFloat64^(1/p)
+// (1.8e308^(1/p): 5.6e102 for p = 3, 6.7e30 for p = 10) and vanish below
+// 2^-1074^(1/p), though the norm itself is representable; dividing every
+// x by the largest |x| first, as math.Hypot does for p = 2, keeps the
+// powers at most 1, and a base so divided is left alone.
+func (c *checker) pnorm(cur inspector.Cursor, call *ast.CallExpr) {
+	q, ok := ast.Unparen(call.Args[1]).(*ast.BinaryExpr)
+	id, isIdent := ast.Unparen(call.Args[0]).(*ast.Ident)
+	if !ok || !isIdent || q.Op != token.QUO || !c.isOne(q.X) || c.isConst(q.Y) {
+		return
+	}
+	s := c.pass.TypesInfo.Uses[id]
+	fn, ok := enclosingFunc(cur)
+	if s == nil || !ok {
+		return
+	}
+	for a := range fn.Preorder((*ast.AssignStmt)(nil)) {
+		as := a.Node().(*ast.AssignStmt)
+		lhs, ok := as.Lhs[0].(*ast.Ident)
+		if !ok || as.Tok != token.ADD_ASSIGN || c.pass.TypesInfo.Uses[lhs] != s {
+			continue
+		}
+		if p, isCall := ast.Unparen(as.Rhs[0]).(*ast.CallExpr); isCall && c.mathFunc2(p) == "Pow" && same(p.Args[1], q.Y) && !c.scaledBase(p.Args[0]) {
+			fixes.Report(c.pass, analysis.Diagnostic{
+				Pos: p.Pos(), End: p.End(), Category: catHypot,
+				Message: fmt.Sprintf("math.Pow(x, p) summed for the root math.Pow(s, 1/p)%s overflows to +Inf once a term's base exceeds MaxFloat64^(1/p) (%.3g for p = 3, %.3g for p = 10) and loses tiny vectors, though the norm is representable; divide each value by the largest magnitude first and multiply the root by it",
+					binding("p", q.Y), math.Pow(math.MaxFloat64, 1.0/3), math.Pow(math.MaxFloat64, 0.1)),
+			})
+			return
+		}
+	}
+}
+
+// scaledBase reports whether e, or the argument of an absolute value e, is
+// a quotient by a value that is not a constant: a scaled magnitude.
+func (c *checker) scaledBase(e ast.Expr) bool {
+	if call, ok := ast.Unparen(e).(*ast.CallExpr); ok {
+		if arg, isAbs := c.absArg(call); isAbs {
+			e = arg
+		}
+	}
+	q, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	return ok && q.Op == token.QUO && !c.isConst(q.Y)
+}
+
+// expRatio reports e/(…(c+e)…) where e is math.Exp(y) (directly or
+// through a never-reassigned variable) and the denominator holds c+e, as
+// the logistic density e/(s·(1+e)²) and the sigmoid e/(1+e) do: once y
+// exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN, though
+// it tends to a finite limit (e^-y·… ); for y > 0, dividing through by e,
+// i.e. using math.Exp(-y), keeps every value finite. An exponent known
+// not to be positive (-|z|) is left alone.
+func (c *checker) expRatio(cur inspector.Cursor, n *ast.BinaryExpr) {
+	e, _ := c.through(n.X)
+	call, ok := e.(*ast.CallExpr)
+	if n.Op != token.QUO || !ok || c.mathFunc(call) != "Exp" || c.isConst(call.Args[0]) {
+		return
+	}
+	if neg, ok := ast.Unparen(call.Args[0]).(*ast.UnaryExpr); ok && neg.Op == token.SUB && c.nonNegative(cur, neg.X, 3) {
+		return // e^-|z| is at most 1
+	}
+	found := false
+	ast.Inspect(n.Y, func(m ast.Node) bool {
+		if s, ok := m.(*ast.BinaryExpr); ok && s.Op == token.ADD {
+			found = found || c.isConst(s.X) && same(s.Y, n.X) || c.isConst(s.Y) && same(s.X, n.X)
+		}
+		return !found
+	})
+	if !found {
+		return
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catLogSumExp,
+		Message: fmt.Sprintf("e/(…(1+e)…) with e = %s is +Inf/+Inf = NaN once the exponent exceeds %.6g, though the quotient tends to a finite limit; for a positive exponent divide through by e, using math.Exp of the negated exponent",
+			types.ExprString(call), expOverflow),
+	})
 }

@@ -72,8 +72,14 @@ func sineFromCosine(c float64) float64 {
 	return math.Sqrt(1 - c*c) // want `a\*a - b\*b with a = 1, b = c loses about log10\(a²/\|a²-b²\|\) digits where \|a\| and \|b\| are close.*use \(a-b\)\*\(a\+b\)`
 }
 
-func powerGap(r, d float64) float64 {
-	return r*r - d*d // want `a\*a - b\*b with a = r, b = d loses`
+// A radicand near tangency: the root turns the absolute error u·r² into
+// sqrt(u)·r, half the digits of the offset.
+func chordHalf(r, d float64) float64 {
+	off := r*r - d*d // want `a\*a - b\*b with a = r, b = d loses`
+	if off < 0 {
+		return 0
+	}
+	return math.Sqrt(off)
 }
 
 func lorentz(v float64) float64 {
@@ -104,7 +110,7 @@ func logisticLogDensity(z float64) float64 {
 // not send the analysis round in circles).
 func flipped(x float64) float64 {
 	x = -x
-	return 1 - x*x // want `a\*a - b\*b with a = 1, b = x loses`
+	return 1 / (1 - x*x) // want `a\*a - b\*b with a = 1, b = x loses`
 }
 
 func exceedance(level, mu, sd float64) float64 {
@@ -121,3 +127,38 @@ func twoSided(z float64) float64 {
 }
 
 func cdf(z float64) float64 { return 0.5 * math.Erfc(-z/math.Sqrt2) }
+
+// A difference of squares whose variable is reused: the use the
+// assignment reaches is a divisor.
+func reusedSlot(p, q, w float64) float64 {
+	t := p + q
+	t = p*p - q*q // want `a\*a - b\*b with a = p, b = q loses`
+	w /= t
+	t = w * w
+	return math.Sqrt(t)
+}
+
+// A sign decided on the difference: near |p| = |q| the rounding picks it.
+func outside(p, q float64) bool {
+	return p*p-q*q < 0 // want `a\*a - b\*b with a = p, b = q loses`
+}
+
+// The value last assigned may be negative: the terms subtract for it.
+func recurrenceRoot(p, q float64) float64 {
+	k := math.Abs(p)
+	k = p - q
+	return k + math.Sqrt(k*k+1) // want `u ± math.Sqrt\(u\*u\+c\) with u = k, c = 1 cancels`
+}
+
+// The field also takes a value from the caller, which may be tiny.
+type bendGauge struct {
+	angle, sag float64
+}
+
+func (g *bendGauge) set(turns int, angle, radius float64) {
+	g.angle = math.Pi / float64(turns)
+	if angle > 0 {
+		g.angle = angle
+	}
+	g.sag = radius * (1 - math.Cos(g.angle)) // want `1-math.Cos\(x\) with x = g.angle returns 0`
+}

@@ -1,6 +1,9 @@
 package idioms
 
-import "math"
+import (
+	"math"
+	"math/cmplx"
+)
 
 func smallWeight(mu, p float64) float64 {
 	return mu + 2*math.Log(1-p) // a modest coefficient in a sum: the sum's own rounding hides the loss
@@ -187,4 +190,208 @@ func (s *stepper) update(g float64) float64 {
 // large, so 1 minus it is near 1 and cancels nothing there.
 func upperDirect(z float64) float64 {
 	return 1 - 0.5*math.Erfc(z)
+}
+
+// A difference of squares used linearly is backward stable: its absolute
+// error u·(a²+b²) is what the inputs' own rounding would cause, and the
+// sums it joins carry roundings of that size already.
+func ridgeValley(p, q float64) float64 {
+	bend := 3.5 - p*(1-q*q) // scaled and added to a constant of the same size
+	return bend * bend
+}
+
+func slopeTerms(p, q float64) float64 {
+	g := 1 - q*q
+	return 2*p*g + g*q // every use of g is a term of a sum
+}
+
+func rippleObjective(p, q float64) float64 {
+	s := math.Sin(p*p - q*q) // the sine keeps the relative error, the sum below absorbs it
+	return 0.5 + (s*s-0.5)/(1+p*p+q*q)
+}
+
+func flatRipple(p, q float64) float64 {
+	return math.Cos(p*p - q*q) // cos is flat at 0: an absolute error passes on as one
+}
+
+func saddleHeight(p, q float64) float64 {
+	return p*p - q*q // returned: the caller's use is not seen, and the value is as good as its data
+}
+
+func lensCentre(r0, r1, dist float64) float64 {
+	k := r0*r0 - r1*r1 // the centre offset moves linearly with k
+	return 0.5 * (dist + k/dist)
+}
+
+func aboveLevel(p, q float64) bool {
+	return p*p-q*q > 4 // a threshold at the scale of the squares
+}
+
+// The sign of u is known from the value last assigned to it: a modulus,
+// or a sum and quotient of non-negative values, so u + sqrt(u²-1) adds.
+func growthRatio(re, im, step float64) float64 {
+	m := math.Hypot(re, im)
+	k := 0.0
+	k = (float64(len("ab")) + step*step) / m
+	return k + math.Sqrt(k*k-1)
+}
+
+func spread(re, im float64) float64 {
+	var k float64
+	k = cmplx.Abs(complex(re, im))
+	return k + math.Sqrt(k*k-1)
+}
+
+func arcCosine(x float64) float64 { return math.Acos(x) }
+
+// A wrapper of math.Acos of a value that is not a cosine from a dot
+// product or the law of cosines stays silent, as math.Acos does.
+func wrappedArc(r, h float64) float64 {
+	return arcCosine(h / r)
+}
+
+// Divided differences over other spans, or of constants, lose nothing to
+// this rule's concern.
+func chordSlope(p, q, h float64) float64 {
+	return (math.Cos(p)-math.Cos(q))/h + (math.Sin(1)-math.Sin(2))/(1-2)
+}
+
+// A field every assignment of which is a quarter turn over a count: the
+// angle is 0 or at least π/(2n), and cos rounds to 1 only past 10^8
+// segments.
+type arcMesher struct {
+	step, sag float64
+}
+
+func newArcMesher(segments int, radius float64) *arcMesher {
+	m := &arcMesher{}
+	m.step = math.Pi / 2 / float64(segments)
+	m.sag = radius * (1 - math.Cos(m.step/2))
+	return m
+}
+
+// The complement of a share used as a blend weight in a sum: only its
+// absolute error, a rounding of 1, reaches the result.
+func blend(lo, hi, wLo, wHi float64) float64 {
+	f := wLo / (wLo + wHi)
+	return lo*f + hi*(1-f)
+}
+
+// Offsets that do not cancel, or whose absolute error a sum absorbs.
+func upperQuantile(mu, b, q float64) float64 {
+	return mu - b*math.Log(1-2*(q-0.5)) // 1 - 2(q - 0.5) is 2 - 2q: for q ≥ 0.5, q - 0.5 is exact (Sterbenz)
+}
+
+func recentre(q, s float64) float64 {
+	return s + (1 + 2*(q-0.5)) // a term of a sum of unit size: the rounding of q - 0.5 is one of the sum's
+}
+
+// Splits whose leading part leaves room for the multiplier: the same
+// constants in float64 (30 bits for y), and a float32 split with a short
+// leading part (0.78515625 has 8 significant bits, 16 left for y).
+func octant64(x float64) float64 {
+	y := math.Floor(x * (4 / math.Pi))
+	return ((x - y*7.85398125648498535156e-1) - y*3.77489470793079817668e-8) - y*2.69515142907905952645e-15
+}
+
+func octant32(x float32) float32 {
+	y := float32(int(x * (4 / math.Pi)))
+	return (x - y*0.78515625) - y*2.4187564849853515625e-4
+}
+
+func pairDot(p0, p1, q0, q1 [2]float64) float64 {
+	return (p1[0]-p0[0])*(q1[0]-q0[0]) + (p1[1]-p0[1])*(q1[1]-q0[1])
+}
+
+// A Gram determinant that only joins a sum: its absolute error is of the
+// size of the sum's roundings.
+func spreadScore(a0, a1, b0, b1 [2]float64) float64 {
+	uu := pairDot(a0, a1, a0, a1)
+	vv := pairDot(b0, b1, b0, b1)
+	uv := pairDot(a0, a1, b0, b1)
+	return uu + vv + (uu*vv - uv*uv)
+}
+
+// The complement of a share used in a recurrence of weights: the code
+// does not show whether |b| can be small against |a| (here a count
+// against a fraction), and the consumer is a product, not a root.
+func weightStep(frac, count, w float64) float64 {
+	ak := 1 - 2*frac/(count+2*frac)
+	return w * ak
+}
+
+// A long float32 split under a guard that keeps y within its exact range
+// (y < 2 for x below 1.5).
+func nearOctant(x float32) float32 {
+	if x < 1.5 {
+		y := float32(int(x * (4 / math.Pi)))
+		return (x - y*7.85398125648498535156e-1) - y*3.77489470793079817668e-8
+	}
+	return x
+}
+
+// A log-likelihood ratio joins a sum: only the absolute error of its
+// logarithms, a rounding each, reaches the result.
+func logLikelihoodRatio(p, q, prior float64) float64 {
+	return prior + (math.Log(p) - math.Log(q))
+}
+
+// A p-norm scaled by the largest magnitude: every power is at most 1.
+func scaledNorm(v []float64, p float64) float64 {
+	big := 0.0
+	for _, x := range v {
+		big = math.Max(big, math.Abs(x))
+	}
+	if big == 0 {
+		return 0
+	}
+	var s float64
+	for _, x := range v {
+		s += math.Pow(math.Abs(x)/big, p)
+	}
+	return big * math.Pow(s, 1/p)
+}
+
+// The symmetric form: the exponential of -|z| never overflows.
+func stableDensity(x, mu, s float64) float64 {
+	e := math.Exp(-math.Abs((x - mu) / s))
+	return e / (s * (1 + e) * (1 + e))
+}
+
+type corner struct{ X, Y float64 }
+
+// The shoelace relative to the first vertex: the terms are of the ring's
+// own size, and their roundings of the area's.
+func localArea(ring []corner) float64 {
+	s := 0.0
+	o := ring[0]
+	for i := 1; i < len(ring); i++ {
+		p, q := ring[i-1], ring[i]
+		s += (q.X - o.X + p.X - o.X) * (q.Y - p.Y)
+	}
+	return s / 2
+}
+
+// A window sum in a local variable lives for one call, and a field only
+// ever added to removes nothing.
+func windowSums(xs []float64, k int) []float64 {
+	out := make([]float64, 0, len(xs))
+	s := 0.0
+	for i, x := range xs {
+		s += x
+		if i >= k {
+			s -= xs[i-k]
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+type tally struct{ total float64 }
+
+func (t *tally) redo(xs []float64) {
+	t.total = 0
+	for _, x := range xs {
+		t.total += x
+	}
 }

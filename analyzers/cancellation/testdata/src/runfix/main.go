@@ -18,6 +18,6 @@ func main() {
 	fmt.Printf("log10p %.17g\n", math.Log10(1+x))                      // want `math.Log10\(1\+x\) returns 0`
 	fmt.Printf("powm1 %.17g\n", 1-math.Pow(1-r, n))                    // want `1-math.Pow\(a, b\) with a = 1 - r, b = n returns 0`
 	fmt.Printf("asinh %.17g\n", math.Log(s+math.Sqrt(s*s+1)))          // want `math.Log\(x \+ math.Sqrt\(x\*x\+1\)\) with x = s cancels`
-	fmt.Printf("squares %.17g\n", 1-c*c)                               // want `a\*a - b\*b with a = 1, b = c loses`
+	fmt.Printf("squares %.17g\n", math.Sqrt(1-c*c))                    // want `a\*a - b\*b with a = 1, b = c loses`
 	fmt.Printf("softplus %.17g\n", math.Log(1+math.Exp(a)))            // want `math.Log\(1\+math.Exp\(y\)\) with y = a overflows`
 }

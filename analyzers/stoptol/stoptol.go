@@ -96,19 +96,20 @@ func run(pass *analysis.Pass) (any, error) {
 		tests: make(map[use]ast.Node),
 	}
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
-	var floatCmps []token.Pos
-	for cur := range root.Preorder((*ast.BinaryExpr)(nil)) {
-		n := cur.Node().(*ast.BinaryExpr)
-		if isFloatComparison(pass.TypesInfo, n) {
-			floatCmps = append(floatCmps, n.OpPos)
+	var floatTests []token.Pos
+	for cur := range root.Preorder((*ast.BinaryExpr)(nil), (*ast.CallExpr)(nil)) {
+		if n, ok := cur.Node().(*ast.BinaryExpr); ok && isFloatComparison(pass.TypesInfo, n) {
+			floatTests = append(floatTests, n.OpPos)
 			c.gradient(cur, n)
+		} else if n, ok := cur.Node().(*ast.CallExpr); ok && isFloatPredicate(pass.TypesInfo, n) {
+			floatTests = append(floatTests, n.Lparen)
 		}
 	}
-	slices.Sort(floatCmps)                // files need not come in the order of their positions
+	slices.Sort(floatTests)               // files need not come in the order of their positions
 	funcs := make(map[ast.Node]*function) // per function body
 	for cur := range root.Preorder((*ast.ForStmt)(nil)) {
 		n := cur.Node().(*ast.ForStmt)
-		if !holdsAny(floatCmps, n) {
+		if !holdsAny(floatTests, n) {
 			continue // every rule is about a loop ended by a float test
 		}
 		body := enclosingBody(cur)
@@ -130,6 +131,19 @@ func isFloatComparison(info *types.Info, n *ast.BinaryExpr) bool {
 		return provenance.IsFloat(info.TypeOf(n.X)) || provenance.IsFloat(info.TypeOf(n.Y))
 	}
 	return false
+}
+
+// isFloatPredicate reports whether call returns a bool from a float
+// argument, as a helper that compares angles or tests nearness does.
+func isFloatPredicate(info *types.Info, call *ast.CallExpr) bool {
+	t := info.TypeOf(call)
+	if t == nil {
+		return false // not type-checked
+	}
+	if b, ok := t.Underlying().(*types.Basic); !ok || b.Info()&types.IsBoolean == 0 {
+		return false
+	}
+	return slices.ContainsFunc(call.Args, func(a ast.Expr) bool { return provenance.IsFloat(info.TypeOf(a)) })
 }
 
 // holdsAny reports whether one of the sorted positions lies within n.

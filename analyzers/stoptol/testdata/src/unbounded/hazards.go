@@ -172,3 +172,17 @@ func stripsOf(lo, hi, slack float64, k func(float64) float64) []float64 {
 	}
 	return append(xs, hi)
 }
+
+// sameBearing tells whether two bearings agree to a millionth of a radian.
+func sameBearing(a, b float64) bool { return math.Abs(a-b) < 1e-6 }
+
+// sweepBearing turns from a to b by steps that shrink with the remaining
+// turn; its only exit is the helper's float test, and a step that rounds
+// to 0 leaves it spinning.
+func sweepBearing(a, b float64, mark func(float64)) {
+	for t := a; !sameBearing(t, b); { // want `loop advances t by the computed step dt and ends only on float tests`
+		dt := math.Acos(math.Cos(b - t))
+		mark(t)
+		t += dt
+	}
+}

@@ -155,7 +155,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	t := c.pass.TypesInfo.TypeOf(n.X)
 	switch {
 	case provenance.IsFloat(t):
-		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) {
+		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) || c.zeroPartner(cur, n) || c.tieBreak(cur, n) {
 			return
 		}
 		fix := func() []fixes.Fix { return c.toleranceFix(cur, n, x, y, t) }

@@ -76,3 +76,10 @@ func TestPinnedRelated(t *testing.T) {
 	}
 	assert.True(t, found, "a pinned finding names the table's value")
 }
+
+// TestTies checks the exact tests that ask whether values are zero
+// together or break ties in an ordering, and their neighbours that stay
+// hazards.
+func TestTies(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "ties")
+}

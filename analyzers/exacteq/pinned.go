@@ -164,7 +164,10 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 	case *ast.CompositeLit:
 		vals = []ast.Expr{e}
 	case *ast.Ident:
-		if init, ok := c.decls[c.pass.TypesInfo.Uses[e]]; ok {
+		init, ok := c.decls[c.pass.TypesInfo.Uses[e]]
+		if sel, isSel := ast.Unparen(init).(*ast.SelectorExpr); ok && isSel {
+			return c.printed(sel) // want := tc.want: the table's value
+		} else if ok {
 			vals = []ast.Expr{init}
 		}
 	case *ast.SelectorExpr:

@@ -96,6 +96,14 @@ func TestPinnedTable(t *testing.T) {
 	}
 }
 
+func TestPinnedNamedFromTable(t *testing.T) {
+	for _, tc := range []struct{ load, want float64 }{{0.5, 0.35416666666666663}} {
+		if got, want := Droop(tc.load), tc.want; got != want { // want `exact != pins a computed result to 0.35416666666666663`
+			t.Errorf("Droop(%v) = %v", tc.load, got)
+		}
+	}
+}
+
 func TestPinnedStruct(t *testing.T) {
 	want := Pair{Value: 0.23, Spread: 0.023333333333333334}
 	if got := Read(0.3); got != want { // want `!= on Pair values pins a computed result to 0.023333333333333334`

@@ -17,6 +17,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/lazyssa"
+	"roundoff/analyzers/internal/portable"
 	"roundoff/analyzers/internal/provenance"
 )
 
@@ -29,7 +30,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "exacteq",
 	Doc:      analyzerdoc.Extract(doc, "exacteq"),
 	URL:      "docs/exacteq.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer},
 	Run:      run,
 }
 
@@ -55,9 +56,7 @@ type checker struct {
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
 	fields  map[types.Object][]ast.Expr
-	// converted holds the products written inside float64(...) or
-	// float32(...), by operator position, found on first use.
-	converted map[token.Pos]bool
+	judge   *portable.Judge
 	// fills holds, for each struct field, the functions whose results
 	// the package stores into it directly.
 	fills map[*types.Var]map[*ssa.Function]bool
@@ -73,6 +72,7 @@ func run(pass *analysis.Pass) (any, error) {
 		cmps:    make(map[token.Pos]*ssa.BinOp),
 		calls:   make(map[token.Pos]*ssa.Call),
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
+		judge:   portable.Of(pass),
 	}
 	c.index(ssainfo.SrcFuncs)
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)

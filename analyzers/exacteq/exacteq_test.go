@@ -83,3 +83,9 @@ func TestPinnedRelated(t *testing.T) {
 func TestTies(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "ties")
 }
+
+// TestPortableAcrossPackages checks that pinned results of another
+// package's functions are judged by that package's portability facts.
+func TestPortableAcrossPackages(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "blade")
+}

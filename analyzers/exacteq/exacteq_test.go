@@ -89,3 +89,9 @@ func TestTies(t *testing.T) {
 func TestPortableAcrossPackages(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "blade")
 }
+
+// TestHelperAssertions checks equality assertions of a test suite's own
+// helpers against short decimals.
+func TestHelperAssertions(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/turbine")
+}

@@ -41,6 +41,9 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	if !isTestify(fn.Pkg().Path()) {
+		if !inStd(fn.Pkg().Path()) {
+			c.helperAssertion(cur, call, fn)
+		}
 		return
 	}
 	replacement, ok := testifyEqual[fn.Name()]
@@ -84,6 +87,9 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 // deepEqual lists the functions outside testify that compare values, floats
 // included, exactly.
 var deepEqual = map[string]bool{"reflect.DeepEqual": true, "github.com/google/go-cmp/cmp.Equal": true}
+
+// inStd reports whether path is a standard-library package.
+func inStd(path string) bool { return !strings.Contains(strings.Split(path, "/")[0], ".") }
 
 func isTestify(path string) bool {
 	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")

@@ -1,0 +1,24 @@
+package turbine
+
+import (
+	"testing"
+
+	"example.com/turbine/check"
+)
+
+// Results of several rounded steps asserted equal to short decimals:
+// reported.
+func TestRounded(t *testing.T) {
+	check.AssertEqual(t, 0.3, Mean([]float64{0.1, 0.2, 0.6}))       // want `AssertEqual compares the result of Mean, computed in several rounded steps, exactly with 0.3`
+	check.So(Shares([]float64{1, 2, 7})[0], check.ShouldEqual, 0.1) // want `ShouldEqual compares the result of Shares, computed in several rounded steps, exactly with 0.1`
+}
+
+// Left alone: one correctly rounded division of exact operands lands on
+// the double nearest 0.1; a value passed through unrounded; a value the
+// type holds exactly; an assertion with a tolerance.
+func TestExactEnough(t *testing.T) {
+	check.AssertEqual(t, 0.1, Efficiency(1, 10))
+	check.AssertEqual(t, 0.7, Label(0.7))
+	check.AssertEqual(t, 0.25, Mean([]float64{0.125, 0.375}))
+	check.AssertEqualWithin(t, 0.3, Mean([]float64{0.1, 0.2, 0.6}), 1e-12)
+}

@@ -60,6 +60,9 @@ type checker struct {
 	// fills holds, for each struct field, the functions whose results
 	// the package stores into it directly.
 	fills map[*types.Var]map[*ssa.Function]bool
+	// storedVals holds the float values the package stores into each
+	// struct field.
+	storedVals map[*types.Var][]ssa.Value
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -73,6 +76,8 @@ func run(pass *analysis.Pass) (any, error) {
 		calls:   make(map[token.Pos]*ssa.Call),
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 		judge:   portable.Of(pass),
+
+		storedVals: make(map[*types.Var][]ssa.Value),
 	}
 	c.index(ssainfo.SrcFuncs)
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
@@ -111,6 +116,7 @@ func (c *checker) index(funcs []*ssa.Function) {
 					}
 				case *ssa.Store:
 					c.recordFill(v)
+					c.recordStore(v)
 				}
 			}
 		}
@@ -219,7 +225,7 @@ func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 	if field == nil {
 		return false
 	}
-	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) && !c.sameFill(x.val, field) {
+	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) && !c.sameFill(x.val, field) && !c.sameForm(x.val, field) {
 		c.reportComputed(cur, n, op, x, y, field)
 	}
 	return true

@@ -67,3 +67,27 @@ func overlap(a, b turbine, k float64) int {
 	}
 	return 0
 }
+
+type node struct {
+	cost, dist float64
+	prev       *node
+}
+
+func pipe(a, b *node) float64 { return a.cost + b.cost }
+
+// relax keeps the least route cost of n; the later test asks whether the
+// cost came from p: the same sum of the same operands gives the same bits.
+func relax(n, p *node) {
+	n.dist = math.Min(n.dist, pipe(n, p)+p.dist)
+	old := p.dist
+	if n.dist == pipe(n, p)+old {
+		n.prev = p
+	}
+}
+
+// scaled stores a product-free sum but tests a scaled one: different
+// operations, a real comparison of rounded values.
+func scaled(n, p *node, k float64) bool {
+	n.dist = n.cost + p.dist
+	return n.dist == n.cost*k+p.cost // want `exact == between a computed float64 value and field dist`
+}

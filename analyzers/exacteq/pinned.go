@@ -60,7 +60,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 	fn := enclosingFunc(cur)
 	for _, pair := range [][2]operand{{x, y}, {y, x}} {
 		exp, got := pair[0].expr, pair[1]
-		if c.isConst(got.expr) || c.uncomputed(got.val) || decoded(got.val) || c.judge.Value(got.val) {
+		if c.isConst(got.expr) || c.exempt(pair[0]) || c.uncomputed(got.val) || decoded(got.val) || c.judge.Value(got.val) {
 			continue
 		}
 		p, ok := c.printed(exp)

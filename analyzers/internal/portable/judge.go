@@ -131,8 +131,12 @@ func (j *Judge) call(call *ssa.CallCommon, seen map[ssa.Value]bool, depth int) b
 	return true
 }
 
-// callee reports whether the function a call names is portable.
+// callee reports whether the function a call names is portable. The
+// builtins (len, min, max, real, complex...) do not round.
 func (j *Judge) callee(call *ssa.CallCommon) bool {
+	if _, ok := call.Value.(*ssa.Builtin); ok {
+		return true
+	}
 	switch provenance.MathRounding(call) {
 	case provenance.Exact:
 		return true

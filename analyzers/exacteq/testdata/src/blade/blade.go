@@ -35,3 +35,13 @@ type Shaper interface{ Shape(float64) float64 }
 
 // Shaped calls through an interface: unknown, not portable.
 func Shaped(s Shaper, x float64) float64 { return s.Shape(x) / 3 }
+
+// Mean adds and divides by the count: len is a builtin, which does not
+// round.
+func Mean(xs []float64) float64 {
+	s := 0.0
+	for _, x := range xs {
+		s += x
+	}
+	return s / float64(len(xs))
+}

@@ -18,6 +18,9 @@ func TestPortable(t *testing.T) {
 	if got := blade.Share(3, 2, 7); got != 8.428571428571429 { // the product is divided or rounded before the additions
 		t.Fail()
 	}
+	if got := blade.Mean([]float64{1, 2, 4.5}); got != 2.5 || blade.Mean([]float64{1, 3, 0}) != 4.0/3.0 { // sums and a division by a length
+		t.Fail()
+	}
 }
 
 // Results that may differ between platforms: reported.

@@ -1,6 +1,7 @@
 package turbine
 
 import (
+	"math"
 	"testing"
 
 	"example.com/turbine/check"
@@ -21,4 +22,10 @@ func TestExactEnough(t *testing.T) {
 	check.AssertEqual(t, 0.7, Label(0.7))
 	check.AssertEqual(t, 0.25, Mean([]float64{0.125, 0.375}))
 	check.AssertEqualWithin(t, 0.3, Mean([]float64{0.1, 0.2, 0.6}), 1e-12)
+}
+
+// The largest float is a sentinel, not a printed result.
+func TestSentinel(t *testing.T) {
+	check.AssertEqual(t, math.MaxFloat64, Gust(709.78))
+	check.AssertEqual(t, 0.10517091807564771, Gust(0.1)) // want `AssertEqual pins a computed result to 0.10517091807564771`
 }

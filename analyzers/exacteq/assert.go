@@ -6,6 +6,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -139,6 +140,10 @@ func (c *checker) roundingSource(v ssa.Value) *ssa.Function {
 			v = x.X
 		case *ssa.Extract:
 			v = x.Tuple
+		case *ssa.FreeVar:
+			v = binding(x) // a variable captured by a closure, as test frameworks nest them
+		case *ssa.Alloc:
+			v = onlyStore(x)
 		case *ssa.Call:
 			fn := x.Common().StaticCallee()
 			if fn == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg || !roundsRepeatedly(fn, 3) {
@@ -150,6 +155,38 @@ func (c *checker) roundingSource(v ssa.Value) *ssa.Function {
 		}
 	}
 	return nil
+}
+
+// binding returns the value the enclosing function binds to a closure's
+// free variable, or nil.
+func binding(fv *ssa.FreeVar) ssa.Value {
+	fn := fv.Parent()
+	i := slices.Index(fn.FreeVars, fv)
+	if fn.Parent() == nil || i < 0 {
+		return nil
+	}
+	for _, b := range fn.Parent().Blocks {
+		for _, instr := range b.Instrs {
+			if mc, ok := instr.(*ssa.MakeClosure); ok && mc.Fn == fn {
+				return mc.Bindings[i]
+			}
+		}
+	}
+	return nil
+}
+
+// onlyStore returns the one value stored into a local variable, or nil.
+func onlyStore(a *ssa.Alloc) ssa.Value {
+	var val ssa.Value
+	for _, r := range *a.Referrers() {
+		if st, ok := r.(*ssa.Store); ok && st.Addr == a {
+			if val != nil {
+				return nil // assigned more than once
+			}
+			val = st.Val
+		}
+	}
+	return val
 }
 
 // roundsRepeatedly reports whether fn does float arithmetic that rounds

@@ -29,3 +29,14 @@ func TestSentinel(t *testing.T) {
 	check.AssertEqual(t, math.MaxFloat64, Gust(709.78))
 	check.AssertEqual(t, 0.10517091807564771, Gust(0.1)) // want `AssertEqual pins a computed result to 0.10517091807564771`
 }
+
+// A result captured by the closures a test framework nests.
+func TestNested(t *testing.T) {
+	run := func(f func()) { f() }
+	run(func() {
+		m := Mean([]float64{0.1, 0.2, 0.6})
+		run(func() {
+			check.So(m, check.ShouldEqual, 0.3) // want `ShouldEqual compares the result of Mean`
+		})
+	})
+}

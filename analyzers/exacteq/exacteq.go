@@ -347,8 +347,12 @@ func (c *checker) exempt(o operand) bool {
 		f, ok := constval.Float(provenance.Strip(o.val), c.globals)
 		return ok && f == 0
 	}
-	if v.Kind() == constant.Complex {
+	switch v.Kind() {
+	case constant.Int, constant.Float:
+	case constant.Complex:
 		return constant.Sign(constant.Real(v)) == 0 && constant.Sign(constant.Imag(v)) == 0
+	default:
+		return false // a boolean or string: no number to judge
 	}
 	if constant.Sign(v) == 0 {
 		return true

@@ -73,6 +73,7 @@ func TestRoutes(t *testing.T) {
 	assert.Equal(t, Scale(x), Scale(x)) // the same call twice
 	y := 3.0 * 2
 	assert.Equal(t, 6.0, y) // representable
+	assert.Equal(t, true, Droop(0.3) > 0) // a boolean: no number to judge
 }
 
 // Printed results pinned bit for bit: reported.

@@ -127,17 +127,11 @@ func (c *checker) funcName(e ast.Expr) string {
 // function computes with rounding in more than one step; nil otherwise.
 func (c *checker) roundingSource(v ssa.Value) *ssa.Function {
 	for range 8 {
+		if h, ok := holder(v); ok {
+			v = h
+			continue
+		}
 		switch x := provenance.Strip(v).(type) {
-		case *ssa.UnOp:
-			v = x.X
-		case *ssa.Field:
-			v = x.X
-		case *ssa.FieldAddr:
-			v = x.X
-		case *ssa.Index:
-			v = x.X
-		case *ssa.IndexAddr:
-			v = x.X
 		case *ssa.Extract:
 			v = x.Tuple
 		case *ssa.FreeVar:

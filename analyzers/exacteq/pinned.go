@@ -110,26 +110,33 @@ func (c *checker) uncomputed(v ssa.Value) bool {
 // (IEEE 754-2019 §5.12), and compares exactly with them.
 func decoded(v ssa.Value) bool {
 	for range 8 {
-		switch x := provenance.Strip(v).(type) {
-		case *ssa.MakeInterface:
-			v = x.X
-		case *ssa.UnOp:
-			v = x.X
-		case *ssa.Field:
-			v = x.X
-		case *ssa.FieldAddr:
-			v = x.X
-		case *ssa.Index:
-			v = x.X
-		case *ssa.IndexAddr:
-			v = x.X
-		case *ssa.Alloc:
-			return filledByStd(x)
-		default:
+		if a, ok := provenance.Strip(v).(*ssa.Alloc); ok {
+			return filledByStd(a)
+		}
+		var ok bool
+		if v, ok = holder(v); !ok {
 			return false
 		}
 	}
 	return false
+}
+
+// holder returns the value v is read from: the address a load reads, the
+// struct or array a field or element belongs to.
+func holder(v ssa.Value) (ssa.Value, bool) {
+	switch x := provenance.Strip(v).(type) {
+	case *ssa.UnOp:
+		return x.X, x.Op == token.MUL
+	case *ssa.Field:
+		return x.X, true
+	case *ssa.FieldAddr:
+		return x.X, true
+	case *ssa.Index:
+		return x.X, true
+	case *ssa.IndexAddr:
+		return x.X, true
+	}
+	return nil, false
 }
 
 // filledByStd reports whether the address a is passed to a function of

@@ -72,7 +72,7 @@ func TestRoutes(t *testing.T) {
 	x := 0.1
 	assert.Equal(t, Scale(x), Scale(x)) // the same call twice
 	y := 3.0 * 2
-	assert.Equal(t, 6.0, y) // representable
+	assert.Equal(t, 6.0, y)               // representable
 	assert.Equal(t, true, Droop(0.3) > 0) // a boolean: no number to judge
 }
 

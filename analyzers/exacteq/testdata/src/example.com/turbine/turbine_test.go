@@ -27,7 +27,7 @@ func TestExactEnough(t *testing.T) {
 // The largest float is a sentinel, not a printed result.
 func TestSentinel(t *testing.T) {
 	check.AssertEqual(t, math.MaxFloat64, Gust(709.78))
-	check.AssertEqual(t, true, Gust(0.5) > 0) // no number: nothing to judge
+	check.AssertEqual(t, true, Gust(0.5) > 0)            // no number: nothing to judge
 	check.AssertEqual(t, 0.10517091807564771, Gust(0.1)) // want `AssertEqual pins a computed result to 0.10517091807564771`
 }
 

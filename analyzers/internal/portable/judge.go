@@ -52,8 +52,10 @@ func (j *Judge) value(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 // step judges v by its operation and operands.
 func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	switch v := v.(type) {
-	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global, *ssa.Alloc:
+	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global:
 		return true
+	case *ssa.Alloc:
+		return j.filled(v, seen, depth-1)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
 		for _, op := range v.(ssa.Instruction).Operands(nil) {
 			if *op != nil && !j.value(*op, seen, depth-1) {
@@ -77,6 +79,31 @@ func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 		return j.call(v.Common(), seen, depth-1)
 	}
 	return false
+}
+
+// filled reports whether everything stored into a local variable, its
+// fields and elements, is portable, and whatever call it is handed to.
+func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool {
+	if depth <= 0 {
+		return false
+	}
+	for _, r := range *addr.Referrers() {
+		switch r := r.(type) {
+		case *ssa.Store:
+			if r.Addr == addr && !j.value(r.Val, seen, depth-1) {
+				return false
+			}
+		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
+			if !j.filled(r.(ssa.Value), seen, depth-1) {
+				return false
+			}
+		case ssa.CallInstruction:
+			if !j.callee(r.Common()) {
+				return false // handed to a function that may fill it
+			}
+		}
+	}
+	return true
 }
 
 func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {

@@ -30,3 +30,23 @@ func Spokes(ws []float64) float64 { // want Spokes:"portable"
 
 // Count has no float result, so no fact.
 func Count(ws []float64) int { return len(ws) }
+
+// Halves appends quotients: the builtin does not round, and what it
+// appends is portable.
+func Halves(x float64) []float64 { // want Halves:"portable"
+	return append([]float64{}, x/2, x/4)
+}
+
+// Bearings fills an array with values from Sin: not portable.
+func Bearings(x float64) []float64 {
+	var b [2]float64
+	b[0] = math.Sin(x)
+	b[1] = x / 2
+	return b[:]
+}
+
+// Levels appends a struct holding a value from Atan2: not portable.
+func Levels(x, y float64) []struct{ q float64 } {
+	var out []struct{ q float64 }
+	return append(out, struct{ q float64 }{Tilt(x, y)})
+}

@@ -87,7 +87,7 @@ func TestTies(t *testing.T) {
 // TestPortableAcrossPackages checks that pinned results of another
 // package's functions are judged by that package's portability facts.
 func TestPortableAcrossPackages(t *testing.T) {
-	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "blade")
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/blade")
 }
 
 // TestHelperAssertions checks equality assertions of a test suite's own

@@ -1,13 +1,14 @@
 package blade_test
 
 import (
+	"reflect"
 	"testing"
 
-	"blade"
+	"example.com/blade"
 )
 
-// Results of portable functions of another package pinned bit for bit:
-// reproducible everywhere, left alone.
+// Results of portable functions of another package pinned to printed values:
+// the same on every platform, left alone.
 func TestPortable(t *testing.T) {
 	if got := blade.Wrap(7.5); got != 1.2168146928204138 { // subtractions of a constant: portable
 		t.Fail()
@@ -32,6 +33,19 @@ func TestPlatformDependent(t *testing.T) {
 		t.Fail()
 	}
 	if got := blade.Shaped(nil, 1); got != 0.3333333333333333 { // want `exact != pins a computed result to 0.3333333333333333`
+		t.Fail()
+	}
+}
+
+// Results gathered into a slice are judged by what is appended.
+func TestGathered(t *testing.T) {
+	var got, halves []float64
+	got = append(got, blade.Pitch(1, 3))
+	if !reflect.DeepEqual(got, []float64{0.3217505543966422}) { // want `reflect.DeepEqual pins a computed result to 0.3217505543966422`
+		t.Fail()
+	}
+	halves = append(halves, blade.Wrap(7.5))
+	if !reflect.DeepEqual(halves, []float64{1.2168146928204138}) { // portable: left alone
 		t.Fail()
 	}
 }

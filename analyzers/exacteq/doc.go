@@ -57,7 +57,8 @@
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
 //     such a function, as So(x, ShouldEqual, 2.9)) of a result that a
-//     function of this package computes in several rounded steps against
+//     function of this package computes in several rounded steps (also
+//     through variables captured by nested closures) against
 //     a shorter decimal the type stores inexactly (0.2127): the decimal is
 //     the exact answer, and the result lands on the double nearest to it
 //     only while every rounding happens to; one correctly rounded operation

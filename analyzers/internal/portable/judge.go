@@ -3,6 +3,7 @@ package portable
 import (
 	"go/ast"
 	"go/token"
+	"go/types"
 
 	"golang.org/x/tools/go/ssa"
 
@@ -10,7 +11,7 @@ import (
 )
 
 // maxDepth bounds the operands followed from one value.
-const maxDepth = 24
+const maxDepth = 32
 
 // correctlyRounded lists the rounding math functions whose results IEEE
 // 754-2019 fixes bit for bit (§5.4 squareRoot, §5.4.1 fusedMultiplyAdd);
@@ -55,7 +56,7 @@ func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global:
 		return true
 	case *ssa.Alloc:
-		return j.filled(v, seen, depth-1)
+		return j.filled(v, seen, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
 		for _, op := range v.(ssa.Instruction).Operands(nil) {
 			if *op != nil && !j.value(*op, seen, depth-1) {
@@ -81,8 +82,11 @@ func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	return false
 }
 
-// filled reports whether everything stored into a local variable, its
-// fields and elements, is portable, and whatever call it is handed to.
+// filled reports whether every float stored into a local variable, its
+// fields and elements, is portable. References stored there (pointers,
+// slices, interfaces) lead to data made elsewhere, and what calls given
+// its address do is not followed: both are judged as inputs are, like
+// parameters.
 func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	if depth <= 0 {
 		return false
@@ -90,20 +94,37 @@ func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool 
 	for _, r := range *addr.Referrers() {
 		switch r := r.(type) {
 		case *ssa.Store:
-			if r.Addr == addr && !j.value(r.Val, seen, depth-1) {
+			if r.Addr == addr && floatByValue(r.Val.Type(), 4) && !j.value(r.Val, seen, depth) {
 				return false
 			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
-			if !j.filled(r.(ssa.Value), seen, depth-1) {
+			if !j.filled(r.(ssa.Value), seen, depth) {
 				return false
-			}
-		case ssa.CallInstruction:
-			if !j.callee(r.Common()) {
-				return false // handed to a function that may fill it
 			}
 		}
 	}
 	return true
+}
+
+// floatByValue reports whether t holds a float by value: a float, or a
+// struct or array of such.
+func floatByValue(t types.Type, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return provenance.IsFloat(u)
+	case *types.Array:
+		return floatByValue(u.Elem(), depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if floatByValue(f.Type(), depth-1) {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {

@@ -75,7 +75,7 @@ func run(pass *analysis.Pass) (any, error) {
 	}
 	for _, fn := range pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().SrcFuncs {
 		obj, ok := fn.Object().(*types.Func)
-		if ok && fn.Blocks != nil && fn.TypeParams().Len() == 0 && holdsFloat(fn.Signature.Results()) && j.Body(fn) {
+		if ok && fn.Blocks != nil && fn.TypeParams().Len() == 0 && j.Body(fn) {
 			pass.ExportObjectFact(obj, new(Fact))
 		}
 	}

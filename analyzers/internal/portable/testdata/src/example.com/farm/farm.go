@@ -18,3 +18,9 @@ func Sweep(x, y float64) float64 {
 func Pitch(f func(float64) float64, x float64) float64 {
 	return f(x) / 2
 }
+
+// Tip scales the longest spoke: portable through an int-valued helper of
+// another package.
+func Tip(ws []float64) float64 { // want Tip:"portable"
+	return ws[hub.Longest(ws)] / 2
+}

@@ -28,8 +28,17 @@ func Spokes(ws []float64) float64 { // want Spokes:"portable"
 	return s / float64(len(ws))
 }
 
-// Count has no float result, so no fact.
-func Count(ws []float64) int { return len(ws) }
+// Longest returns an index: no float result, but its comparisons read
+// portable values, so callers that compute floats around it stay portable.
+func Longest(ws []float64) int { // want Longest:"portable"
+	best := 0
+	for i, w := range ws {
+		if w*w > ws[best]*ws[best] {
+			best = i
+		}
+	}
+	return best
+}
 
 // Halves appends quotients: the builtin does not round, and what it
 // appends is portable.

@@ -53,10 +53,31 @@
 //     that its type stores inexactly, written in the comparison, named, or
 //     read from a table of cases (tc.want). Such a test pins the last bits
 //     of a computation, which change with the order of operations and with
-//     fused multiply-add, so it fails on other platforms.
+//     fused multiply-add, so it fails on other platforms;
+//   - in tests, an equality assertion of the suite's own helpers (a
+//     function whose name says Equal without a tolerance, or one given
+//     such a function, as So(x, ShouldEqual, 2.9)) of a result that a
+//     function of this package computes in several rounded steps (also
+//     through variables captured by nested closures) against
+//     a shorter decimal the type stores inexactly (0.2127): the decimal is
+//     the exact answer, and the result lands on the double nearest to it
+//     only while every rounding happens to; one correctly rounded operation
+//     of its parameters does land there (IEEE 754-2019 §4.3) and is left
+//     alone.
 //
 // It leaves alone the idioms that compare exactly on purpose: the NaN test
-// x != x; comparisons with exact zero, with infinities and with
+// x != x; an equality joined to an exact zero test of one of its operands
+// (x == y && y == 0 holds exactly when both are 0, as b != a || a != 0
+// before math.Atan2(b, a) asks); the tie test of an ordering (x < y ||
+// x == y && k, or a three-way comparator's branch that returns 0 on
+// x == y): a tie missed by an ulp orders the two by the primary key, whose
+// values differ by that ulp, a consistent order that departs from exact
+// arithmetic only between values that agree to rounding; a computed
+// value against a field into which the package stores the same
+// expression (rhs = math.Min(rhs, w + n.g), later rhs == w + n.g) built by
+// + - / without products, which could fuse at one site and not the other:
+// the same operations on the same operands give the same bits, so the
+// test asks whether the field was set from these operands; comparisons with exact zero, with infinities and with
 // ±math.MaxFloat64; parameters, fields, loads and copies compared with
 // anything (sentinels such as alpha == 1, sorting and deduplication, knot
 // hits in interpolation); computed values compared with a constant the type
@@ -110,7 +131,8 @@
 // another value, which Go may fuse into one rounding, unless an explicit
 // conversion float64(x*y) rounds the product first, and by correctly
 // rounded or exact math functions such as Sqrt, Abs and Floor, through
-// package functions built the same way; Sin, Exp, Pow and the like may
+// functions built the same way, of this package or, known by a fact that
+// crosses packages, of another; Sin, Exp, Pow and the like may
 // differ in the last bits between platforms), and printed values that also appear among the test's inputs
 // (passed through without arithmetic, as the vertices a hull keeps).
 //

@@ -18,6 +18,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/lazyssa"
+	"roundoff/analyzers/internal/portable"
 	"roundoff/analyzers/internal/provenance"
 )
 
@@ -30,7 +31,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "exacteq",
 	Doc:      analyzerdoc.Extract(doc, "exacteq"),
 	URL:      "docs/exacteq.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer},
 	Run:      run,
 }
 
@@ -56,19 +57,20 @@ type checker struct {
 	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
 	fields  map[types.Object][]ast.Expr
-	// converted holds the products written inside float64(...) or
-	// float32(...), by operator position, found on first use.
-	converted map[token.Pos]bool
+	judge   *portable.Judge
 	// fills holds, for each struct field, the functions whose results
 	// the package stores into it directly.
 	fills map[*types.Var]map[*ssa.Function]bool
+	// storedVals holds the float values the package stores into each
+	// struct field.
+	storedVals map[*types.Var][]ssa.Value
 }
 
 func run(pass *analysis.Pass) (any, error) {
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
 	var work []inspector.Cursor
 	for cur := range insp.Root().Preorder((*ast.BinaryExpr)(nil), (*ast.CaseClause)(nil), (*ast.CallExpr)(nil)) {
-		if mayConcern(pass.TypesInfo, cur) {
+		if mayConcern(pass, cur) {
 			work = append(work, cur)
 		}
 	}
@@ -84,6 +86,9 @@ func run(pass *analysis.Pass) (any, error) {
 		cmps:    make(map[token.Pos]*ssa.BinOp),
 		calls:   make(map[token.Pos]*ssa.Call),
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
+		judge:   portable.Of(pass),
+
+		storedVals: make(map[*types.Var][]ssa.Value),
 	}
 	c.index(ssainfo.SrcFuncs)
 	for _, cur := range work {
@@ -106,9 +111,11 @@ func run(pass *analysis.Pass) (any, error) {
 
 // mayConcern reports, from syntax and types alone, whether cur is a node
 // some rule may examine: a comparison of values holding floats, a case of
-// a switch, or a call to a comparing function. A package with none needs
-// no SSA.
-func mayConcern(info *types.Info, cur inspector.Cursor) bool {
+// a switch on a float, a call to a comparing function, or, in a test
+// file, a call outside the standard library (a helper assertion). A
+// package with none needs no SSA.
+func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
+	info := pass.TypesInfo
 	switch n := cur.Node().(type) {
 	case *ast.BinaryExpr:
 		t := info.TypeOf(n.X)
@@ -119,7 +126,11 @@ func mayConcern(info *types.Info, cur inspector.Cursor) bool {
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
 	case *ast.CallExpr:
 		fn, ok := typeutil.Callee(info, n).(*types.Func)
-		return ok && fn.Pkg() != nil && (deepEqual[fn.Pkg().Path()+"."+fn.Name()] || isTestify(fn.Pkg().Path()))
+		if !ok || fn.Pkg() == nil {
+			return false
+		}
+		path := fn.Pkg().Path()
+		return deepEqual[path+"."+fn.Name()] || isTestify(path) || !inStd(path) && provenance.InTestFile(pass.Fset, n.Pos())
 	}
 	return false
 }
@@ -141,6 +152,7 @@ func (c *checker) index(funcs []*ssa.Function) {
 					}
 				case *ssa.Store:
 					c.recordFill(v)
+					c.recordStore(v)
 				}
 			}
 		}
@@ -185,7 +197,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	t := c.pass.TypesInfo.TypeOf(n.X)
 	switch {
 	case provenance.IsFloat(t):
-		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) {
+		if c.nan(cur, n, x, y) || c.loopCondition(cur, n, x, y) || c.deliberate(cur) || c.zeroPartner(cur, n) || c.tieBreak(cur, n) {
 			return
 		}
 		fix := func() []fixes.Fix { return c.toleranceFix(cur, n, x, y, t) }
@@ -249,7 +261,7 @@ func (c *checker) stored(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 	if field == nil {
 		return false
 	}
-	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) && !c.sameFill(x.val, field) {
+	if !derived(x.val, y.val) && !provenance.StoredInto(x.val, field) && !c.sameFill(x.val, field) && !c.sameForm(x.val, field) {
 		c.reportComputed(cur, n, op, x, y, field)
 	}
 	return true
@@ -371,8 +383,12 @@ func (c *checker) exempt(o operand) bool {
 		f, ok := constval.Float(provenance.Strip(o.val), c.globals)
 		return ok && f == 0
 	}
-	if v.Kind() == constant.Complex {
+	switch v.Kind() {
+	case constant.Int, constant.Float:
+	case constant.Complex:
 		return constant.Sign(constant.Real(v)) == 0 && constant.Sign(constant.Imag(v)) == 0
+	default:
+		return false // a boolean or string: no number to judge
 	}
 	if constant.Sign(v) == 0 {
 		return true

@@ -76,3 +76,22 @@ func TestPinnedRelated(t *testing.T) {
 	}
 	assert.True(t, found, "a pinned finding names the table's value")
 }
+
+// TestTies checks the exact tests that ask whether values are zero
+// together or break ties in an ordering, and their neighbours that stay
+// hazards.
+func TestTies(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "ties")
+}
+
+// TestPortableAcrossPackages checks that pinned results of another
+// package's functions are judged by that package's portability facts.
+func TestPortableAcrossPackages(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/blade")
+}
+
+// TestHelperAssertions checks equality assertions of a test suite's own
+// helpers against short decimals.
+func TestHelperAssertions(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/turbine")
+}

@@ -60,7 +60,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 	fn := enclosingFunc(cur)
 	for _, pair := range [][2]operand{{x, y}, {y, x}} {
 		exp, got := pair[0].expr, pair[1]
-		if c.isConst(got.expr) || c.uncomputed(got.val) || decoded(got.val) || c.portable(got.val) {
+		if c.isConst(got.expr) || c.exempt(pair[0]) || c.uncomputed(got.val) || decoded(got.val) || c.judge.Value(got.val) {
 			continue
 		}
 		p, ok := c.printed(exp)
@@ -110,26 +110,33 @@ func (c *checker) uncomputed(v ssa.Value) bool {
 // (IEEE 754-2019 §5.12), and compares exactly with them.
 func decoded(v ssa.Value) bool {
 	for range 8 {
-		switch x := provenance.Strip(v).(type) {
-		case *ssa.MakeInterface:
-			v = x.X
-		case *ssa.UnOp:
-			v = x.X
-		case *ssa.Field:
-			v = x.X
-		case *ssa.FieldAddr:
-			v = x.X
-		case *ssa.Index:
-			v = x.X
-		case *ssa.IndexAddr:
-			v = x.X
-		case *ssa.Alloc:
-			return filledByStd(x)
-		default:
+		if a, ok := provenance.Strip(v).(*ssa.Alloc); ok {
+			return filledByStd(a)
+		}
+		var ok bool
+		if v, ok = holder(v); !ok {
 			return false
 		}
 	}
 	return false
+}
+
+// holder returns the value v is read from: the address a load reads, the
+// struct or array a field or element belongs to.
+func holder(v ssa.Value) (ssa.Value, bool) {
+	switch x := provenance.Strip(v).(type) {
+	case *ssa.UnOp:
+		return x.X, x.Op == token.MUL
+	case *ssa.Field:
+		return x.X, true
+	case *ssa.FieldAddr:
+		return x.X, true
+	case *ssa.Index:
+		return x.X, true
+	case *ssa.IndexAddr:
+		return x.X, true
+	}
+	return nil, false
 }
 
 // filledByStd reports whether the address a is passed to a function of
@@ -164,7 +171,10 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 	case *ast.CompositeLit:
 		vals = []ast.Expr{e}
 	case *ast.Ident:
-		if init, ok := c.decls[c.pass.TypesInfo.Uses[e]]; ok {
+		init, ok := c.decls[c.pass.TypesInfo.Uses[e]]
+		if sel, isSel := ast.Unparen(init).(*ast.SelectorExpr); ok && isSel {
+			return c.printed(sel) // want := tc.want: the table's value
+		} else if ok {
 			vals = []ast.Expr{init}
 		}
 	case *ast.SelectorExpr:

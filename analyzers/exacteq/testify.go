@@ -34,7 +34,13 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	deep := deepEqual[fn.Pkg().Path()+"."+fn.Name()]
-	if !deep && !isTestify(fn.Pkg().Path()) || c.deliberate(cur) {
+	if !deep && !isTestify(fn.Pkg().Path()) {
+		if !inStd(fn.Pkg().Path()) {
+			c.helperAssertion(cur, call, fn)
+		}
+		return
+	}
+	if c.deliberate(cur) {
 		return
 	}
 	if deep && len(call.Args) >= 2 {
@@ -85,6 +91,9 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 // deepEqual lists the functions outside testify that compare values, floats
 // included, exactly.
 var deepEqual = map[string]bool{"reflect.DeepEqual": true, "github.com/google/go-cmp/cmp.Equal": true}
+
+// inStd reports whether path is a standard-library package.
+func inStd(path string) bool { return !strings.Contains(strings.Split(path, "/")[0], ".") }
 
 func isTestify(path string) bool {
 	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")

@@ -72,7 +72,8 @@ func TestRoutes(t *testing.T) {
 	x := 0.1
 	assert.Equal(t, Scale(x), Scale(x)) // the same call twice
 	y := 3.0 * 2
-	assert.Equal(t, 6.0, y) // representable
+	assert.Equal(t, 6.0, y)               // representable
+	assert.Equal(t, true, Droop(0.3) > 0) // a boolean: no number to judge
 }
 
 // Printed results pinned bit for bit: reported.
@@ -91,6 +92,14 @@ func TestPinnedTable(t *testing.T) {
 	}
 	for _, tc := range cases {
 		if got := Droop(tc.load); got != tc.want { // want `exact != pins a computed result to 0.16749999999999998`
+			t.Errorf("Droop(%v) = %v", tc.load, got)
+		}
+	}
+}
+
+func TestPinnedNamedFromTable(t *testing.T) {
+	for _, tc := range []struct{ load, want float64 }{{0.5, 0.35416666666666663}} {
+		if got, want := Droop(tc.load), tc.want; got != want { // want `exact != pins a computed result to 0.35416666666666663`
 			t.Errorf("Droop(%v) = %v", tc.load, got)
 		}
 	}

@@ -179,12 +179,13 @@ func ratioWhole(a, b float64) bool {
 	return math.Trunc(r) == r // want `tests whether the computed value r is a whole number`
 }
 
-// cheapest breaks ties between path costs summed in different orders.
+// cheapest breaks ties between path costs summed in different orders by
+// the lower index; a tie missed by an ulp picks the cheaper by that ulp.
 func cheapest(costs [][2]float64) int {
 	best, min := -1, math.Inf(1)
 	for i, c := range costs {
 		w := c[0] + c[1]
-		if w < min || w == min && i < best { // want `exact == between two computed float64 values`
+		if w < min || w == min && i < best { // a tie of the argmin's secondary key: a missed tie picks a cost within an ulp of the minimum
 			best, min = i, w
 		}
 	}

@@ -1,0 +1,31 @@
+// Package check is a small assertion helper of a test suite.
+package check
+
+import "testing"
+
+// AssertEqual fails t unless want and got are equal.
+func AssertEqual(t testing.TB, want, got any) {
+	if want != got {
+		t.Errorf("want %v, got %v", want, got)
+	}
+}
+
+// AssertEqualWithin fails t unless want and got differ by at most tol.
+func AssertEqualWithin(t testing.TB, want, got, tol float64) {
+	if d := want - got; d > tol || -d > tol {
+		t.Errorf("want %v, got %v", want, got)
+	}
+}
+
+// ShouldEqual says why actual differs from the expected value, or "".
+var ShouldEqual = func(actual any, expected ...any) string {
+	if actual != expected[0] {
+		return "differs"
+	}
+	return ""
+}
+
+// So applies an assertion.
+func So(actual any, assert func(any, ...any) string, expected ...any) string {
+	return assert(actual, expected...)
+}

@@ -1,0 +1,43 @@
+package turbine
+
+import (
+	"math"
+	"testing"
+
+	"example.com/turbine/check"
+)
+
+// Results of several rounded steps asserted equal to short decimals:
+// reported.
+func TestRounded(t *testing.T) {
+	check.AssertEqual(t, 0.3, Mean([]float64{0.1, 0.2, 0.6}))       // want `AssertEqual compares the result of Mean, computed in several rounded steps, exactly with 0.3`
+	check.So(Shares([]float64{1, 2, 7})[0], check.ShouldEqual, 0.1) // want `ShouldEqual compares the result of Shares, computed in several rounded steps, exactly with 0.1`
+}
+
+// Left alone: one correctly rounded division of exact operands lands on
+// the double nearest 0.1; a value passed through unrounded; a value the
+// type holds exactly; an assertion with a tolerance.
+func TestExactEnough(t *testing.T) {
+	check.AssertEqual(t, 0.1, Efficiency(1, 10))
+	check.AssertEqual(t, 0.7, Label(0.7))
+	check.AssertEqual(t, 0.25, Mean([]float64{0.125, 0.375}))
+	check.AssertEqualWithin(t, 0.3, Mean([]float64{0.1, 0.2, 0.6}), 1e-12)
+}
+
+// The largest float is a sentinel, not a printed result.
+func TestSentinel(t *testing.T) {
+	check.AssertEqual(t, math.MaxFloat64, Gust(709.78))
+	check.AssertEqual(t, true, Gust(0.5) > 0)            // no number: nothing to judge
+	check.AssertEqual(t, 0.10517091807564771, Gust(0.1)) // want `AssertEqual pins a computed result to 0.10517091807564771`
+}
+
+// A result captured by the closures a test framework nests.
+func TestNested(t *testing.T) {
+	run := func(f func()) { f() }
+	run(func() {
+		m := Mean([]float64{0.1, 0.2, 0.6})
+		run(func() {
+			check.So(m, check.ShouldEqual, 0.3) // want `ShouldEqual compares the result of Mean`
+		})
+	})
+}

@@ -1,0 +1,137 @@
+// Package portable defines an infrastructure Analyzer that learns which
+// functions compute their floating-point results the same way, bit for
+// bit, on every platform, and carries that knowledge across packages as a
+// fact.
+//
+// IEEE 754-2019 §4.3 and §5.4 fix the results of +, -, *, / and square
+// root: each is the exact result correctly rounded, the same everywhere.
+// Two things make a result differ between platforms. The Go specification
+// ("Arithmetic operators") lets an implementation fuse x*y + z into one
+// rounding, even across statements, unless an explicit conversion
+// float64(x*y) rounds the product first; arm64, ppc64le, s390x, riscv64
+// and amd64 at GOAMD64=v3 do fuse. And the math library's other functions
+// (Sin, Exp, Log, Pow, Hypot...) are not correctly rounded: assembly
+// kernels on some architectures and fused operations in the pure-Go ones
+// may change their last bits. A value is portable when it is built from
+// constants, parameters and loads by + - * / on operands none of which is
+// a product added to or subtracted from another value (a product divided
+// before it is added cannot fuse), by math.Sqrt and the exact math
+// functions (Abs, Floor, Trunc, Mod, Copysign...), and by calls of
+// functions that are themselves portable; a call through an interface or
+// a function value is unknown, hence not portable.
+//
+// The per-package work is done only where a package declares a function
+// with float results, and never for the standard library, whose math
+// functions are judged from a table.
+package portable
+
+import (
+	"go/ast"
+	"go/token"
+	"go/types"
+	"reflect"
+	"strings"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/lazyssa"
+	"roundoff/analyzers/internal/provenance"
+)
+
+// Analyzer learns the portable functions of a package.
+var Analyzer = &analysis.Analyzer{
+	Name:       "portable",
+	Doc:        "portable: learn which functions compute their float results the same way on every platform",
+	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
+	Run:        run,
+	ResultType: reflect.TypeFor[*Judge](),
+	FactTypes:  []analysis.Fact{new(Fact)},
+}
+
+// Fact marks a function whose float results are portable.
+type Fact struct{}
+
+// AFact marks Fact as an analysis fact.
+func (*Fact) AFact() {}
+
+func (*Fact) String() string { return "portable" }
+
+// Judge decides whether values of one package are portable.
+type Judge struct {
+	pass      *analysis.Pass
+	converted map[token.Pos]bool // products written inside float64(...), by operator position
+	bodies    map[*ssa.Function]bool
+}
+
+// Of returns the Judge of pass's package; the pass's analyzer must require
+// Analyzer.
+func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
+
+func run(pass *analysis.Pass) (any, error) {
+	j := &Judge{pass: pass, bodies: make(map[*ssa.Function]bool)}
+	if inStd(pass.Pkg.Path()) || !declaresFloatFunc(pass) {
+		return j, nil // nothing to learn: no fact to export
+	}
+	for _, fn := range pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().SrcFuncs {
+		obj, ok := fn.Object().(*types.Func)
+		if ok && fn.Blocks != nil && fn.TypeParams().Len() == 0 && j.Body(fn) {
+			pass.ExportObjectFact(obj, new(Fact))
+		}
+	}
+	return j, nil
+}
+
+// inStd reports whether path is a standard-library package.
+func inStd(path string) bool { return !strings.Contains(strings.Split(path, "/")[0], ".") }
+
+// declaresFloatFunc reports whether the package declares a function or
+// method with a float among its results.
+func declaresFloatFunc(pass *analysis.Pass) bool {
+	for _, f := range pass.Files {
+		for _, d := range f.Decls {
+			fd, ok := d.(*ast.FuncDecl)
+			if !ok || fd.Body == nil {
+				continue
+			}
+			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && holdsFloat(fn.Signature().Results()) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// holdsFloat reports whether a tuple has a float, or a struct, array or
+// slice of floats, among its members.
+func holdsFloat(t *types.Tuple) bool {
+	for v := range t.Variables() {
+		if floatIn(v.Type(), 4) {
+			return true
+		}
+	}
+	return false
+}
+
+func floatIn(t types.Type, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return provenance.IsFloat(u)
+	case *types.Array:
+		return floatIn(u.Elem(), depth-1)
+	case *types.Slice:
+		return floatIn(u.Elem(), depth-1)
+	case *types.Pointer:
+		return floatIn(u.Elem(), depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if floatIn(f.Type(), depth-1) {
+				return true
+			}
+		}
+	}
+	return false
+}

@@ -1,0 +1,61 @@
+// Package hub computes rotor hub quantities.
+package hub
+
+import "math"
+
+// Radius is a square root of a sum of squares whose products are each
+// rounded by an explicit conversion first: nothing can fuse.
+func Radius(x, y float64) float64 { // want Radius:"portable"
+	return math.Sqrt(float64(x*x) + float64(y*y))
+}
+
+// Reach adds a product: it may fuse into one rounding.
+func Reach(x, y, r float64) float64 {
+	return x*y + r
+}
+
+// Tilt goes through Atan2, which is not correctly rounded.
+func Tilt(x, y float64) float64 {
+	return math.Atan2(y, x)
+}
+
+// Spokes divides before adding, and counts with a builtin.
+func Spokes(ws []float64) float64 { // want Spokes:"portable"
+	s := 0.0
+	for _, w := range ws {
+		s += w * 2 / 3
+	}
+	return s / float64(len(ws))
+}
+
+// Longest returns an index: no float result, but its comparisons read
+// portable values, so callers that compute floats around it stay portable.
+func Longest(ws []float64) int { // want Longest:"portable"
+	best := 0
+	for i, w := range ws {
+		if w*w > ws[best]*ws[best] {
+			best = i
+		}
+	}
+	return best
+}
+
+// Halves appends quotients: the builtin does not round, and what it
+// appends is portable.
+func Halves(x float64) []float64 { // want Halves:"portable"
+	return append([]float64{}, x/2, x/4)
+}
+
+// Bearings fills an array with values from Sin: not portable.
+func Bearings(x float64) []float64 {
+	var b [2]float64
+	b[0] = math.Sin(x)
+	b[1] = x / 2
+	return b[:]
+}
+
+// Levels appends a struct holding a value from Atan2: not portable.
+func Levels(x, y float64) []struct{ q float64 } {
+	var out []struct{ q float64 }
+	return append(out, struct{ q float64 }{Tilt(x, y)})
+}

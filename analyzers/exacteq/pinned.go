@@ -73,8 +73,8 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 		}
 		d := analysis.Diagnostic{
 			Pos: node.Pos(), End: node.End(), Category: catPinned,
-			Message: fmt.Sprintf("%s pins a computed result to %s, a printed value of %d significant digits: its last bits can depend on the order of operations, on the math library and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
-				what, c.describe(p), len(p.digits), rtol(p.f)),
+			Message: fmt.Sprintf("%s pins a computed result to %s, %s of %d significant digits: its last bits can depend on the order of operations, on the math library and on whether the platform fuses multiply-add (arm64, ppc64le, s390x, riscv64, amd64 at GOAMD64=v3), so the test can fail elsewhere; compare within a relative tolerance such as %s",
+				what, c.describe(p), c.form(p), len(p.digits), rtol(p.f)),
 		}
 		if p.expr.Pos() < node.Pos() || p.expr.End() > node.End() {
 			d.Related = []analysis.RelatedInformation{{Pos: p.expr.Pos(), End: p.expr.End(), Message: "the printed value"}}
@@ -229,6 +229,25 @@ func fullBits(x float64, f numeric.Format) bool {
 	frac, _ := math.Frexp(math.Abs(x))
 	mant := uint64(math.Ldexp(frac, 53))
 	return 53-bits.TrailingZeros64(mant) > f.Bits/2
+}
+
+// form names what the pinned constant is: a printed value where it is
+// written as a literal (directly or in its declaration), a value where it
+// is an expression such as 8.0 / 3.0 or a constant of another package.
+func (c *checker) form(p pin) string {
+	e := ast.Unparen(p.expr)
+	if id, ok := e.(*ast.Ident); ok {
+		if init, ok := c.decls[c.pass.TypesInfo.Uses[id]]; ok {
+			e = ast.Unparen(init)
+		}
+	}
+	if u, ok := e.(*ast.UnaryExpr); ok {
+		e = ast.Unparen(u.X)
+	}
+	if _, ok := e.(*ast.BasicLit); ok {
+		return "a printed value"
+	}
+	return "a value"
 }
 
 // describe writes the pinned constant as the message shows it: a literal

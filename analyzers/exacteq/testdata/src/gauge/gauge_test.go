@@ -148,7 +148,7 @@ func TestPassedThrough(t *testing.T) {
 }
 
 func TestPinnedConstant(t *testing.T) {
-	if got := Log32(3); got != Ln3 { // want `exact != pins a computed result to Ln3 \(1.0986123\), a printed value of 8 significant digits`
+	if got := Log32(3); got != Ln3 { // want `exact != pins a computed result to Ln3 \(1.0986123\), a value of 8 significant digits`
 		t.Fail()
 	}
 }

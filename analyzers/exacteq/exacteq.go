@@ -120,7 +120,7 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	case *ast.BinaryExpr:
 		t := info.TypeOf(n.X)
 		return n.Op.IsOperator() && n.Op.Precedence() == token.EQL.Precedence() &&
-			(provenance.IsFloat(t) || holdsFloat(t, 0) || provenance.IsFloat(info.TypeOf(n.Y)))
+			(provenance.HoldsFloat(t, false) || provenance.IsFloat(info.TypeOf(n.Y)))
 	case *ast.CaseClause:
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
@@ -204,7 +204,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		if !c.pinned(cur, n, "exact "+n.Op.String(), x, y, fix) {
 			c.scalar(cur, n, n.Op, x, y)
 		}
-	case holdsFloat(t, 0):
+	case provenance.HoldsFloat(t, false):
 		if !c.deliberate(cur) && !c.pinned(cur, n, n.Op.String()+" on "+typeName(t)+" values", x, y, nil) {
 			c.aggregate(n, x, y)
 		}
@@ -403,25 +403,6 @@ func (c *checker) exempt(o operand) bool {
 // check exactly that, so a tolerance would defeat them.
 func (c *checker) deliberate(cur inspector.Cursor) bool {
 	return c.inTest(cur) && fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
-}
-
-// holdsFloat reports whether t is an array or struct with a float element
-// at some depth.
-func holdsFloat(t types.Type, depth int) bool {
-	if depth > 8 {
-		return false
-	}
-	switch u := t.Underlying().(type) {
-	case *types.Array:
-		return provenance.IsFloat(u.Elem()) || holdsFloat(u.Elem(), depth+1)
-	case *types.Struct:
-		for f := range u.Fields() {
-			if provenance.IsFloat(f.Type()) || holdsFloat(f.Type(), depth+1) {
-				return true
-			}
-		}
-	}
-	return false
 }
 
 // inForCond reports whether cur lies in the condition of a for statement,

@@ -3,7 +3,6 @@ package portable
 import (
 	"go/ast"
 	"go/token"
-	"go/types"
 
 	"golang.org/x/tools/go/ssa"
 
@@ -94,7 +93,7 @@ func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool 
 	for _, r := range *addr.Referrers() {
 		switch r := r.(type) {
 		case *ssa.Store:
-			if r.Addr == addr && floatByValue(r.Val.Type(), 4) && !j.value(r.Val, seen, depth) {
+			if r.Addr == addr && provenance.HoldsFloat(r.Val.Type(), false) && !j.value(r.Val, seen, depth) {
 				return false
 			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
@@ -104,27 +103,6 @@ func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool 
 		}
 	}
 	return true
-}
-
-// floatByValue reports whether t holds a float by value: a float, or a
-// struct or array of such.
-func floatByValue(t types.Type, depth int) bool {
-	if depth == 0 {
-		return false
-	}
-	switch u := t.Underlying().(type) {
-	case *types.Basic:
-		return provenance.IsFloat(u)
-	case *types.Array:
-		return floatByValue(u.Elem(), depth-1)
-	case *types.Struct:
-		for f := range u.Fields() {
-			if floatByValue(f.Type(), depth-1) {
-				return true
-			}
-		}
-	}
-	return false
 }
 
 func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {

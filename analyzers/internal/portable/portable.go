@@ -106,31 +106,8 @@ func declaresFloatFunc(pass *analysis.Pass) bool {
 // slice of floats, among its members.
 func holdsFloat(t *types.Tuple) bool {
 	for v := range t.Variables() {
-		if floatIn(v.Type(), 4) {
+		if provenance.HoldsFloat(v.Type(), true) {
 			return true
-		}
-	}
-	return false
-}
-
-func floatIn(t types.Type, depth int) bool {
-	if depth == 0 {
-		return false
-	}
-	switch u := t.Underlying().(type) {
-	case *types.Basic:
-		return provenance.IsFloat(u)
-	case *types.Array:
-		return floatIn(u.Elem(), depth-1)
-	case *types.Slice:
-		return floatIn(u.Elem(), depth-1)
-	case *types.Pointer:
-		return floatIn(u.Elem(), depth-1)
-	case *types.Struct:
-		for f := range u.Fields() {
-			if floatIn(f.Type(), depth-1) {
-				return true
-			}
 		}
 	}
 	return false

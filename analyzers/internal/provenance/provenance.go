@@ -392,6 +392,40 @@ func IsFloat(t types.Type) bool {
 	})
 }
 
+// HoldsFloat reports whether t is a float (IsFloat) or holds one in an
+// array or struct element at some depth; with viaRefs, also through the
+// elements of slices and the targets of pointers.
+func HoldsFloat(t types.Type, viaRefs bool) bool {
+	if viaRefs {
+		return holdsFloat(t, true, 4) // references may lead far: look less deep
+	}
+	return holdsFloat(t, false, 8)
+}
+
+func holdsFloat(t types.Type, viaRefs bool, depth int) bool {
+	if IsFloat(t) {
+		return true
+	}
+	if depth == 0 {
+		return false
+	}
+	switch u := t.Underlying().(type) {
+	case *types.Array:
+		return holdsFloat(u.Elem(), viaRefs, depth-1)
+	case *types.Slice:
+		return viaRefs && holdsFloat(u.Elem(), viaRefs, depth-1)
+	case *types.Pointer:
+		return viaRefs && holdsFloat(u.Elem(), viaRefs, depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if holdsFloat(f.Type(), viaRefs, depth-1) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
 // FormatOf returns the format that judges values of type t: float32 when t
 // admits float32 (a type parameter may), else float64.
 func FormatOf(t types.Type) numeric.Format { return numeric.Select(Admits32(t)) }

@@ -71,9 +71,11 @@ func TestOf(t *testing.T) {
 	}
 }
 
-// TestReaching checks the value last assigned before a use, and that a
-// loop or a label stops the search (common practice: reaching definitions
-// over straight-line code).
+// TestReaching checks the value last assigned before a use; that a loop
+// which assigns the variable, an if's init statement that does, or a
+// closure that does, stops the search; and that a loop which leaves it
+// alone does not (common practice: reaching definitions over
+// straight-line code).
 func TestReaching(t *testing.T) {
 	const code = `package p
 
@@ -88,6 +90,22 @@ func f(a, b float64, n int) float64 {
 	return k
 }
 
+func g(a float64, n int) {
+	w := a + 1
+	for i := 0; i < n; i++ {
+		use(w)
+	}
+	if w = a; n > 0 {
+		use(w)
+	}
+}
+
+func h(a float64, do func(func())) {
+	m := a * 3
+	do(func() { m = 0 })
+	use(m)
+}
+
 func use(float64) {}
 `
 	fset := token.NewFileSet()
@@ -98,7 +116,10 @@ func use(float64) {}
 	require.NoError(t, err)
 	var got []string
 	for call := range inspector.New([]*ast.File{f}).Root().Preorder((*ast.CallExpr)(nil)) {
-		arg := call.Node().(*ast.CallExpr).Args[0].(*ast.Ident)
+		arg, isIdent := call.Node().(*ast.CallExpr).Args[0].(*ast.Ident)
+		if !isIdent {
+			continue // do(func() {...})
+		}
 		rhs, ok := consume.Reaching(info, call, info.Uses[arg].(*types.Var))
 		if ok {
 			got = append(got, types.ExprString(rhs.Node().(ast.Expr)))
@@ -106,5 +127,5 @@ func use(float64) {}
 			got = append(got, "-")
 		}
 	}
-	assert.Equal(t, []string{"b * 2", "-"}, got)
+	assert.Equal(t, []string{"b * 2", "-", "a + 1", "-", "-"}, got)
 }

@@ -8,6 +8,8 @@ import (
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/constval"
 )
 
 // Reached returns the uses of the local variable v that the assignment
@@ -67,14 +69,35 @@ func usesIn(info *types.Info, cur inspector.Cursor, v *types.Var, yield func(ins
 // Reaching returns the value last assigned to the local variable v before
 // the code at cur in straight-line code: the nearest statement before it,
 // in its block or an enclosing one, that assigns v, when that is a single
-// assignment (v = e, v := e, var v = e). It gives up at a loop, where the
-// previous iteration may have assigned v last, at a label, where a jump may
-// arrive, and at a statement that assigns v in a nested block.
+// assignment (v = e, v := e, var v = e). It gives up where something else
+// may have set v last: a loop around cur that assigns v (its previous
+// pass), the init statement of an if or switch around cur that assigns
+// it, a label (a jump may arrive), a statement that assigns v in a nested
+// block, and a v whose address is taken or that a closure assigns.
 func Reaching(info *types.Info, cur inspector.Cursor, v *types.Var) (inspector.Cursor, bool) {
+	if escapes(info, cur, v) {
+		return inspector.Cursor{}, false
+	}
 	for ; ; cur = cur.Parent() {
-		switch cur.Parent().Node().(type) {
-		case nil, *ast.FuncDecl, *ast.FuncLit, *ast.ForStmt, *ast.RangeStmt, *ast.LabeledStmt:
+		switch p := cur.Parent().Node().(type) {
+		case nil, *ast.FuncDecl, *ast.FuncLit, *ast.LabeledStmt:
 			return inspector.Cursor{}, false
+		case *ast.ForStmt, *ast.RangeStmt:
+			if assignsWithin(info, p, v) {
+				return inspector.Cursor{}, false
+			}
+		case *ast.IfStmt:
+			if p.Init != nil && assignsWithin(info, p.Init, v) {
+				return inspector.Cursor{}, false
+			}
+		case *ast.SwitchStmt:
+			if p.Init != nil && assignsWithin(info, p.Init, v) {
+				return inspector.Cursor{}, false
+			}
+		case *ast.TypeSwitchStmt:
+			if p.Init != nil && assignsWithin(info, p.Init, v) {
+				return inspector.Cursor{}, false
+			}
 		}
 		if !isStmtList(cur.ParentEdgeKind()) {
 			continue
@@ -88,6 +111,38 @@ func Reaching(info *types.Info, cur inspector.Cursor, v *types.Var) (inspector.C
 			}
 		}
 	}
+}
+
+// escapes reports whether the function around cur takes v's address
+// (explicitly, or by calling a pointer method on it) or assigns v inside a
+// function literal, any of which can change v between statements that do
+// not assign it.
+func escapes(info *types.Info, cur inspector.Cursor, v *types.Var) bool {
+	var body ast.Node
+	for f := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		body = f.Node()
+		break
+	}
+	if body == nil {
+		return true
+	}
+	is := func(e ast.Expr) bool {
+		id, ok := ast.Unparen(e).(*ast.Ident)
+		return ok && info.ObjectOf(id) == v
+	}
+	found := false
+	ast.Inspect(body, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.FuncLit:
+			found = found || n != body && assignsWithin(info, n.Body, v)
+		case *ast.UnaryExpr:
+			found = found || n.Op == token.AND && is(n.X)
+		case *ast.SelectorExpr:
+			found = found || is(n.X) && constval.PointerMethod(info, n) // v.Grow() takes &v
+		}
+		return !found
+	})
+	return found
 }
 
 // assignment reports whether the statement at s assigns v, and returns

@@ -130,7 +130,7 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 			return false
 		}
 		path := fn.Pkg().Path()
-		return deepEqual[path+"."+fn.Name()] || isTestify(path) || !inStd(path) && provenance.InTestFile(pass.Fset, n.Pos())
+		return deepEqual[path+"."+fn.Name()] || isTestify(path) || !provenance.InStd(pass.Fset, fn.Pos(), fn.Pkg()) && provenance.InTestFile(pass.Fset, n.Pos())
 	}
 	return false
 }

@@ -35,7 +35,7 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	}
 	deep := deepEqual[fn.Pkg().Path()+"."+fn.Name()]
 	if !deep && !isTestify(fn.Pkg().Path()) {
-		if !inStd(fn.Pkg().Path()) {
+		if !provenance.InStd(c.pass.Fset, fn.Pos(), fn.Pkg()) {
 			c.helperAssertion(cur, call, fn)
 		}
 		return
@@ -93,7 +93,6 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 var deepEqual = map[string]bool{"reflect.DeepEqual": true, "github.com/google/go-cmp/cmp.Equal": true}
 
 // inStd reports whether path is a standard-library package.
-func inStd(path string) bool { return !strings.Contains(strings.Split(path, "/")[0], ".") }
 
 func isTestify(path string) bool {
 	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")

@@ -30,7 +30,6 @@ import (
 	"go/token"
 	"go/types"
 	"reflect"
-	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ssa"
@@ -70,7 +69,7 @@ func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
 	j := &Judge{pass: pass, bodies: make(map[*ssa.Function]bool)}
-	if inStd(pass.Pkg.Path()) || !declaresFloatFunc(pass) {
+	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
 	for _, fn := range pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().SrcFuncs {
@@ -81,9 +80,6 @@ func run(pass *analysis.Pass) (any, error) {
 	}
 	return j, nil
 }
-
-// inStd reports whether path is a standard-library package.
-func inStd(path string) bool { return !strings.Contains(strings.Split(path, "/")[0], ".") }
 
 // declaresFloatFunc reports whether the package declares a function or
 // method with a float among its results.

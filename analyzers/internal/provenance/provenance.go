@@ -6,10 +6,12 @@
 package provenance
 
 import (
+	"go/build"
 	"go/constant"
 	"go/token"
 	"go/types"
 	"math"
+	"path/filepath"
 	"strings"
 
 	"golang.org/x/tools/go/ssa"
@@ -231,6 +233,19 @@ func (t *Tracker) callComputed(caller *ssa.Function, c *ssa.CallCommon, index in
 
 // inTestFile reports whether fn is declared in a _test.go file.
 func inTestFile(fn *ssa.Function) bool { return InTestFile(fn.Prog.Fset, fn.Pos()) }
+
+// InStd reports whether the object declared at pos (pkg its package)
+// belongs to the standard library: its file lies under GOROOT/src, or
+// under "$GOROOT/src", the form a build with -trimpath records (from
+// memory), or, where the position is unknown, its import path has no dot
+// in its first element.
+func InStd(fset *token.FileSet, pos token.Pos, pkg *types.Package) bool {
+	if f := fset.File(pos); f != nil && f.Name() != "" {
+		name := filepath.ToSlash(f.Name())
+		return strings.HasPrefix(name, "$GOROOT/src/") || strings.HasPrefix(name, filepath.ToSlash(build.Default.GOROOT)+"/src/")
+	}
+	return !strings.Contains(strings.Split(pkg.Path(), "/")[0], ".")
+}
 
 // InTestFile reports whether pos lies in a _test.go file.
 func InTestFile(fset *token.FileSet, pos token.Pos) bool {

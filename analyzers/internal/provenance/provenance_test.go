@@ -2,11 +2,13 @@ package provenance_test
 
 import (
 	"go/ast"
+	"go/build"
 	"go/constant"
 	"go/importer"
 	"go/parser"
 	"go/token"
 	"go/types"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -378,4 +380,20 @@ func TestIsFloatAdmits32(t *testing.T) {
 		assert.False(t, provenance.Admits32(tparam("g7"))) // got true
 		assert.True(t, provenance.IsFloat(tparam("g8")))   // type set {~float64, ~float32}; got false
 	})
+}
+
+// TestInStd checks that the standard library is told by where its files
+// lie, under GOROOT/src or "$GOROOT/src" (a -trimpath build's form, from
+// memory), so that a module whose path has no dot ("go mod init
+// sim") is not taken for it (common practice: go/build's layout of GOROOT).
+func TestInStd(t *testing.T) {
+	fset := token.NewFileSet()
+	file := func(name string) token.Pos { return token.Pos(fset.AddFile(name, -1, 10).Base()) }
+	std := types.NewPackage("math", "math")
+	user := types.NewPackage("sim/orbit", "orbit")
+	assert.True(t, provenance.InStd(fset, file(filepath.Join(build.Default.GOROOT, "src", "math", "abs.go")), std))
+	assert.True(t, provenance.InStd(fset, file("$GOROOT/src/math/abs.go"), std))
+	assert.False(t, provenance.InStd(fset, file("/home/ana/sim/orbit/step.go"), user))
+	assert.True(t, provenance.InStd(fset, token.NoPos, std), "no position: the import path decides")
+	assert.False(t, provenance.InStd(fset, token.NoPos, types.NewPackage("example.com/sim", "sim")))
 }

@@ -186,3 +186,50 @@ func sweepBearing(a, b float64, mark func(float64)) {
 		t += dt
 	}
 }
+
+// countedFrom starts its float counter at a caller's value: a NaN start
+// fails k > 60 on every pass, so the counter caps nothing.
+func countedFrom(x, k float64) float64 {
+	sum, term := 0.0, 1.0
+	for {
+		k += 1
+		term *= x / k
+		sum += term
+		if k > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// skippedCount steps its counter after a continue that can skip it: a
+// pass that continues leaves n where it was, so n > 60 need never hold.
+func skippedCount(x float64) float64 {
+	sum, term, k, n := 0.0, 1.0, 0.0, 0.0
+	for {
+		k++
+		term *= x / k
+		if term == 0 {
+			continue
+		}
+		n++
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// tinyStepCount steps its counter by 1e-20 towards 1: from n = 0.5 on,
+// n + 1e-20 rounds back to n (half the spacing there is 5.55e-17), so
+// n > 1 never holds.
+func tinyStepCount(x float64) float64 {
+	n := 0.0
+	sum, term := x, x
+	for k := 1.0; ; k += 2 {
+		n += 1e-20
+		term = -term * x * x / ((k + 1) * (k + 2))
+		if sum += term; n > 1 || math.Abs(term) <= 1e-16*math.Abs(sum) { // want `series may never end`
+			return sum
+		}
+	}
+}

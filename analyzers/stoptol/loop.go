@@ -6,6 +6,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/types/typeutil"
@@ -302,9 +303,9 @@ func (l *loop) hasCounterComparison(info *types.Info, e ast.Expr) bool {
 }
 
 // countsTo reports whether x is a float variable declared in the function
-// body, set only to constants outside the loop and stepped only by
-// constants (x += c, x -= c, x++, x--), at least once by a statement the
-// loop runs every pass, and bound is a constant below 2^52 times the
+// body outside the loop's body, set only to constants outside the loop and
+// stepped only by constants of one sign in the loop (x += c, x -= c, x++,
+// x--), at least once by a statement the loop runs every pass, and bound is a constant below 2^52 times the
 // smallest such step: x then moves by that step each pass, since half the
 // spacing of floats below 2^52·|c| is below |c|, and never holds NaN or
 // ±Inf, so it reaches the bound like an integer counter.
@@ -314,6 +315,9 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 	if v == nil || b == nil || v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() || !provenance.IsFloat(v.Type()) {
 		return false
 	}
+	if v.Pos() >= l.stmt.Body.Pos() && v.Pos() < l.stmt.Body.End() {
+		return false // declared afresh each pass
+	}
 	every := map[ast.Stmt]bool{l.stmt.Post: true}
 	if !hasContinue(l.stmt.Body) {
 		for _, st := range l.stmt.Body.List {
@@ -321,9 +325,13 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 		}
 	}
 	minStep, ok := math.Inf(1), true
+	signs := map[bool]bool{}
 	step := func(st ast.Stmt, c float64) {
 		if every[st] {
 			minStep = min(minStep, math.Abs(c))
+		}
+		if within(st, l.stmt) {
+			signs[c > 0] = true
 		}
 	}
 	ast.Inspect(l.body, func(n ast.Node) bool {
@@ -331,13 +339,16 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 			return false // settled: not a counter
 		}
 		switch n := n.(type) {
+		case *ast.FuncLit:
+			ok = !assigns(info, n, v) // a closure the loop calls could reset it
+			return false
 		case *ast.UnaryExpr:
 			ok = n.Op != token.AND || tolerance.VarOf(info, n.X) != v
 		case *ast.RangeStmt:
 			ok = tolerance.VarOf(info, n.Key) != v && tolerance.VarOf(info, n.Value) != v
 		case *ast.IncDecStmt:
 			if tolerance.VarOf(info, n.X) == v {
-				step(n, 1)
+				step(n, map[token.Token]float64{token.INC: 1, token.DEC: -1}[n.Tok])
 			}
 		case *ast.ValueSpec:
 			for i, name := range n.Names {
@@ -349,7 +360,7 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 		return ok
 	})
 	limit, _ := constant.Float64Val(constant.ToFloat(b))
-	return ok && !math.IsInf(minStep, 1) && math.Abs(limit) < 0x1p52*minStep
+	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && math.Abs(limit) < 0x1p52*minStep
 }
 
 // constAssign reports whether as assigns v, if at all, a constant outside
@@ -364,13 +375,30 @@ func (l *loop) constAssign(info *types.Info, as *ast.AssignStmt, v *types.Var, s
 		}
 		c, _ := constant.Float64Val(constant.ToFloat(info.Types[as.Rhs[i]].Value))
 		switch {
-		case (as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN) && c != 0:
+		case as.Tok == token.ADD_ASSIGN && c != 0:
 			step(as, c)
+		case as.Tok == token.SUB_ASSIGN && c != 0:
+			step(as, -c)
 		case as.Tok != token.ASSIGN && as.Tok != token.DEFINE, within(as, l.stmt.Body) || l.stmt.Post != nil && within(as, l.stmt.Post):
 			return false // a zero step, a scaling, or a reset in the loop
 		}
 	}
 	return true
+}
+
+// assigns reports whether n assigns or steps v.
+func assigns(info *types.Info, n ast.Node, v *types.Var) bool {
+	found := false
+	ast.Inspect(n, func(m ast.Node) bool {
+		switch m := m.(type) {
+		case *ast.AssignStmt:
+			found = found || slices.ContainsFunc(m.Lhs, func(e ast.Expr) bool { return tolerance.VarOf(info, e) == v })
+		case *ast.IncDecStmt:
+			found = found || tolerance.VarOf(info, m.X) == v
+		}
+		return !found
+	})
+	return found
 }
 
 // hasContinue reports whether body holds a continue statement, which can

@@ -233,3 +233,54 @@ func tinyStepCount(x float64) float64 {
 		}
 	}
 }
+
+// resetByClosure keeps a float counter that a closure called every pass
+// sets back to 0, so n > 60 never holds.
+func resetByClosure(x float64) float64 {
+	n := 0.0
+	restart := func() { n = 0 }
+	sum, term := 0.0, 1.0
+	for k := 1.0; ; k++ {
+		n++
+		restart()
+		term *= x / k
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// backAndForth steps its float counter up every pass and down on some:
+// when g keeps x above 1 the two steps cancel and n never reaches 60.
+func backAndForth(g func(float64) float64, x float64) float64 {
+	n := 0.0
+	sum := 0.0
+	for {
+		n += 1
+		t := g(x) / (n + 1)
+		if x > 1 {
+			n -= 1
+		}
+		sum += t
+		if n > 60 || math.Abs(t) < 1e-15 { // want `series may never end`
+			return sum
+		}
+		x *= 0.5
+	}
+}
+
+// declaredInside declares its float counter in the loop body, so every
+// pass starts it again at 0 and n > 60 never holds.
+func declaredInside(x float64) float64 {
+	sum, term := 0.0, 1.0
+	for k := 1.0; ; k++ {
+		var n = 0.0
+		n += 1
+		term *= x / k
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}

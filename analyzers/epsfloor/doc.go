@@ -99,6 +99,11 @@
 // the product against eps, since 1e-14 of an area of 5e-21 asks for 14
 // digits of it however small the product is.
 //
+// A difference multiplied or divided by a constant before the test
+// (|(x-c)/c| < tol, |b-a|/2 < tol, |k·(a-b)| < tol) holds when
+// |a-b| < tol/k, so tol/k is what the float spacing is held to: 1e-15 on
+// (x-2.4e6)/2.4e6 is 2.4e-9 on x-2.4e6, about five spacings there.
+//
 // It leaves alone: zero tolerances (exact on purpose), negative and NaN
 // sentinels; tiny floors whose reciprocal is finite (1e-300), and floors
 // that never divide; running maxima of values non-negative by construction

@@ -26,17 +26,28 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		return
 	}
 	mag := c.magnitude(cur, t, f)
+	desc := describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol)
+	scaled := t.Factor > 0 && t.Factor != 1
+	if scaled {
+		// |a-b|·k < tol holds when |a-b| < tol/k: judge what the difference meets.
+		tol /= t.Factor
+		desc += fmt.Sprintf(" on the difference times %.3g, %.3g on the difference itself,", t.Factor, tol)
+	}
 	res := judge(t.Kind, tol, f, mag)
 	if res == tolerance.Resolvable {
 		return
 	}
+	var fix []fixes.Fix
+	if !scaled {
+		fix = c.tolFix(cur, t, res, f) // a new tolerance would have to undo the factor
+	}
 	d := analysis.Diagnostic{
 		Pos: t.Cmp.Pos(), End: t.Cmp.End(),
 		Category: category(res),
-		Message:  describe(t.Kind, fixes.Source(c.pass.Fset, t.Tol), tol) + " " + explain(res, tol, f, mag),
+		Message:  desc + " " + explain(res, tol, f, mag),
 		Related:  c.declaredAt(t.Tol),
 	}
-	fixes.Report(c.pass, d, c.tolFix(cur, t, res, f)...)
+	fixes.Report(c.pass, d, fix...)
 }
 
 // judge is tolerance.Judge with an absolute tolerance at a known magnitude

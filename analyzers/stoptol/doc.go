@@ -87,7 +87,13 @@
 //   - bisection with a tolerance of a few eps relative to |x|, tolerances
 //     already scaled (tol*(1+math.Abs(x)), sqrt(eps)·|x| + abstol, Brent's
 //     mixed forms), loops with an iteration cap (a counter, or a panic past
-//     a count) and a sane tolerance: they can be met;
+//     a count) and a sane tolerance: they can be met; a float counter
+//     caps like an integer one when it is declared in the function
+//     outside the loop's body, set only to constants outside the loop,
+//     stepped in it only by constants of one sign and by a constant c on
+//     every pass, against a constant bound below 2^52·|c|: it can never
+//     be NaN or ±Inf, and half the spacing of floats below 2^52·|c| is
+//     below |c|, so each step moves it (z := 1.; z += 1; z > 50);
 //   - tolerances on quantities that are not x (residual norms), a signed
 //     difference x1-x0 of successive iterates (not a width), a value
 //     passed through a helper that is not an absolute value (a ramp

@@ -5,6 +5,8 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/types/typeutil"
@@ -70,7 +72,7 @@ func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
 		}
 	}
 	for _, e := range l.exits {
-		if hasIntComparison(info, e) {
+		if hasIntComparison(info, e) || l.hasCounterComparison(info, e) {
 			l.capped = true
 		}
 	}
@@ -282,6 +284,130 @@ func hasIntComparison(info *types.Info, e ast.Expr) bool {
 				found = true
 			}
 		}
+		return !found
+	})
+	return found
+}
+
+// hasCounterComparison reports whether e compares a float counter with a
+// constant: an iteration cap written in floats (z := 1.; z += 1; z > 50).
+func (l *loop) hasCounterComparison(info *types.Info, e ast.Expr) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && isOrdered(b.Op) {
+			found = found || l.countsTo(info, b.X, b.Y) || l.countsTo(info, b.Y, b.X)
+		}
+		return !found
+	})
+	return found
+}
+
+// countsTo reports whether x is a float variable declared in the function
+// body outside the loop's body, set only to constants outside the loop and
+// stepped only by constants of one sign in the loop (x += c, x -= c, x++,
+// x--), at least once by a statement the loop runs every pass, and bound is a constant below 2^52 times the
+// smallest such step: x then moves by that step each pass, since half the
+// spacing of floats below 2^52·|c| is below |c|, and never holds NaN or
+// ±Inf, so it reaches the bound like an integer counter.
+func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
+	v := tolerance.VarOf(info, x)
+	b := info.Types[bound].Value
+	if v == nil || b == nil || v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() || !provenance.IsFloat(v.Type()) {
+		return false
+	}
+	if v.Pos() >= l.stmt.Body.Pos() && v.Pos() < l.stmt.Body.End() {
+		return false // declared afresh each pass
+	}
+	every := map[ast.Stmt]bool{l.stmt.Post: true}
+	if !hasContinue(l.stmt.Body) {
+		for _, st := range l.stmt.Body.List {
+			every[st] = true
+		}
+	}
+	minStep, ok := math.Inf(1), true
+	signs := map[bool]bool{}
+	step := func(st ast.Stmt, c float64) {
+		if every[st] {
+			minStep = min(minStep, math.Abs(c))
+		}
+		if within(st, l.stmt) {
+			signs[c > 0] = true
+		}
+	}
+	ast.Inspect(l.body, func(n ast.Node) bool {
+		if !ok {
+			return false // settled: not a counter
+		}
+		switch n := n.(type) {
+		case *ast.FuncLit:
+			ok = !assigns(info, n, v) // a closure the loop calls could reset it
+			return false
+		case *ast.UnaryExpr:
+			ok = n.Op != token.AND || tolerance.VarOf(info, n.X) != v
+		case *ast.RangeStmt:
+			ok = tolerance.VarOf(info, n.Key) != v && tolerance.VarOf(info, n.Value) != v
+		case *ast.IncDecStmt:
+			if tolerance.VarOf(info, n.X) == v {
+				step(n, map[token.Token]float64{token.INC: 1, token.DEC: -1}[n.Tok])
+			}
+		case *ast.ValueSpec:
+			for i, name := range n.Names {
+				ok = ok && (info.Defs[name] != v || i >= len(n.Values) || info.Types[n.Values[i]].Value != nil)
+			}
+		case *ast.AssignStmt:
+			ok = l.constAssign(info, n, v, step)
+		}
+		return ok
+	})
+	limit, _ := constant.Float64Val(constant.ToFloat(b))
+	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && math.Abs(limit) < 0x1p52*minStep
+}
+
+// constAssign reports whether as assigns v, if at all, a constant outside
+// the loop or steps it by a nonzero constant; it passes each step to step.
+func (l *loop) constAssign(info *types.Info, as *ast.AssignStmt, v *types.Var, step func(ast.Stmt, float64)) bool {
+	for i, lhs := range as.Lhs {
+		if tolerance.VarOf(info, lhs) != v {
+			continue
+		}
+		if len(as.Lhs) != len(as.Rhs) || info.Types[as.Rhs[i]].Value == nil {
+			return false
+		}
+		c, _ := constant.Float64Val(constant.ToFloat(info.Types[as.Rhs[i]].Value))
+		switch {
+		case as.Tok == token.ADD_ASSIGN && c != 0:
+			step(as, c)
+		case as.Tok == token.SUB_ASSIGN && c != 0:
+			step(as, -c)
+		case as.Tok != token.ASSIGN && as.Tok != token.DEFINE, within(as, l.stmt.Body) || l.stmt.Post != nil && within(as, l.stmt.Post):
+			return false // a zero step, a scaling, or a reset in the loop
+		}
+	}
+	return true
+}
+
+// assigns reports whether n assigns or steps v.
+func assigns(info *types.Info, n ast.Node, v *types.Var) bool {
+	found := false
+	ast.Inspect(n, func(m ast.Node) bool {
+		switch m := m.(type) {
+		case *ast.AssignStmt:
+			found = found || slices.ContainsFunc(m.Lhs, func(e ast.Expr) bool { return tolerance.VarOf(info, e) == v })
+		case *ast.IncDecStmt:
+			found = found || tolerance.VarOf(info, m.X) == v
+		}
+		return !found
+	})
+	return found
+}
+
+// hasContinue reports whether body holds a continue statement, which can
+// skip the statements after it.
+func hasContinue(body ast.Node) bool {
+	found := false
+	ast.Inspect(body, func(n ast.Node) bool {
+		b, ok := n.(*ast.BranchStmt)
+		found = found || ok && b.Tok == token.CONTINUE
 		return !found
 	})
 	return found

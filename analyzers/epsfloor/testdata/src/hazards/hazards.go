@@ -306,3 +306,10 @@ func tightened(a, b, c float64) bool {
 	tol = 1e-20
 	return ok && math.Abs(b-c) < tol // want `absolute tolerance tol \(1e-20\) is below float64 epsilon`
 }
+
+// scaledStillTight multiplies the difference by a constant and still asks
+// for less than the spacing: |4(x-1e6)| < 1e-12 holds when
+// |x-1e6| < 2.5e-13, below half the spacing at 1e6 (5.82e-11).
+func scaledStillTight(x float64) bool {
+	return math.Abs(4*(x-1e6)) < 1e-12 // want `absolute tolerance 1e-12 on the difference times 4, 2.5e-13 on the difference itself, is below half the spacing of float64 values at 1e\+06 \(5.82e-11\): the test passes only on exact equality`
+}

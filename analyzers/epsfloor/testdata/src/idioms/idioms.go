@@ -284,3 +284,18 @@ func halved(got float64) bool {
 	want.halve()
 	return math.Abs(got-float64(want)) < 1e-14
 }
+
+// scaledByLiteral divides the difference by the expected value written as
+// a literal: |x - 3.6e6|/3.6e6 < 1e-15 holds when |x - 3.6e6| < 3.6e-9,
+// about 7 spacings of float64 there (4.66e-10), so it can pass for
+// neighbouring values.
+func scaledByLiteral(x float64) bool {
+	return math.Abs((x-3.6e6)/3.6e6) < 1e-15
+}
+
+// halvedWidth tests half a distance: |a-0.9|/2 < 1e-16 holds when
+// |a-0.9| < 2e-16, above the spacing of float64 values around 0.9
+// (1.11e-16), so the neighbours of 0.9 pass.
+func halvedWidth(a float64) bool {
+	return math.Abs((a-0.9)/2) < 1e-16
+}

@@ -186,3 +186,101 @@ func sweepBearing(a, b float64, mark func(float64)) {
 		t += dt
 	}
 }
+
+// countedFrom starts its float counter at a caller's value: a NaN start
+// fails k > 60 on every pass, so the counter caps nothing.
+func countedFrom(x, k float64) float64 {
+	sum, term := 0.0, 1.0
+	for {
+		k += 1
+		term *= x / k
+		sum += term
+		if k > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// skippedCount steps its counter after a continue that can skip it: a
+// pass that continues leaves n where it was, so n > 60 need never hold.
+func skippedCount(x float64) float64 {
+	sum, term, k, n := 0.0, 1.0, 0.0, 0.0
+	for {
+		k++
+		term *= x / k
+		if term == 0 {
+			continue
+		}
+		n++
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// tinyStepCount steps its counter by 1e-20 towards 1: from n = 0.5 on,
+// n + 1e-20 rounds back to n (half the spacing there is 5.55e-17), so
+// n > 1 never holds.
+func tinyStepCount(x float64) float64 {
+	n := 0.0
+	sum, term := x, x
+	for k := 1.0; ; k += 2 {
+		n += 1e-20
+		term = -term * x * x / ((k + 1) * (k + 2))
+		if sum += term; n > 1 || math.Abs(term) <= 1e-16*math.Abs(sum) { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// resetByClosure keeps a float counter that a closure called every pass
+// sets back to 0, so n > 60 never holds.
+func resetByClosure(x float64) float64 {
+	n := 0.0
+	restart := func() { n = 0 }
+	sum, term := 0.0, 1.0
+	for k := 1.0; ; k++ {
+		n++
+		restart()
+		term *= x / k
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}
+
+// backAndForth steps its float counter up every pass and down on some:
+// when g keeps x above 1 the two steps cancel and n never reaches 60.
+func backAndForth(g func(float64) float64, x float64) float64 {
+	n := 0.0
+	sum := 0.0
+	for {
+		n += 1
+		t := g(x) / (n + 1)
+		if x > 1 {
+			n -= 1
+		}
+		sum += t
+		if n > 60 || math.Abs(t) < 1e-15 { // want `series may never end`
+			return sum
+		}
+		x *= 0.5
+	}
+}
+
+// declaredInside declares its float counter in the loop body, so every
+// pass starts it again at 0 and n > 60 never holds.
+func declaredInside(x float64) float64 {
+	sum, term := 0.0, 1.0
+	for k := 1.0; ; k++ {
+		var n = 0.0
+		n += 1
+		term *= x / k
+		sum += term
+		if n > 60 || math.Abs(term) < 1e-15 { // want `series may never end`
+			return sum
+		}
+	}
+}

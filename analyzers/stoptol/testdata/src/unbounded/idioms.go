@@ -190,3 +190,34 @@ func Pieces(lo, hi, slack float64, k func(float64) float64) []float64 {
 	}
 	return xs
 }
+
+// floatCounted caps a series with a float counter: k starts at the
+// constant 1 and moves by exactly 1 each pass (integers below 2^53 are
+// exact in float64), so k > 60 ends the loop after 59 passes, NaN terms
+// included.
+func floatCounted(x float64) (float64, bool) {
+	sum, term := 0.0, 1.0
+	k := 1.0
+	for {
+		k += 1
+		term *= x / k
+		sum += term
+		if k > 60 || math.Abs(term) > 1e300 {
+			return sum, false
+		}
+		if math.Abs(term) < 1e-15 {
+			return sum, true
+		}
+	}
+}
+
+// halfStepCounted counts in steps of 0.5 in the loop's post statement:
+// 0.5 is exact and the bound 40 lies far below 2^52·0.5.
+func halfStepCounted(g func(float64) float64, x float64) float64 {
+	for t := 0.0; ; t += 0.5 {
+		if t >= 40 || math.Abs(g(x)) < 1e-12 {
+			return x
+		}
+		x = g(x)
+	}
+}

@@ -118,9 +118,7 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	info := pass.TypesInfo
 	switch n := cur.Node().(type) {
 	case *ast.BinaryExpr:
-		t := info.TypeOf(n.X)
-		return n.Op.IsOperator() && n.Op.Precedence() == token.EQL.Precedence() &&
-			(provenance.HoldsFloat(t, false) || provenance.IsFloat(info.TypeOf(n.Y)))
+		return provenance.IsFloatComparison(info, n, true)
 	case *ast.CaseClause:
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))

@@ -98,7 +98,7 @@ func run(pass *analysis.Pass) (any, error) {
 	root := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	var floatTests []token.Pos
 	for cur := range root.Preorder((*ast.BinaryExpr)(nil), (*ast.CallExpr)(nil)) {
-		if n, ok := cur.Node().(*ast.BinaryExpr); ok && isFloatComparison(pass.TypesInfo, n) {
+		if n, ok := cur.Node().(*ast.BinaryExpr); ok && provenance.IsFloatComparison(pass.TypesInfo, n, false) {
 			floatTests = append(floatTests, n.OpPos)
 			c.gradient(cur, n)
 		} else if n, ok := cur.Node().(*ast.CallExpr); ok && isFloatPredicate(pass.TypesInfo, n) {
@@ -122,15 +122,6 @@ func run(pass *analysis.Pass) (any, error) {
 	}
 	c.sites(root)
 	return nil, nil
-}
-
-// isFloatComparison reports whether n orders or equates float operands.
-func isFloatComparison(info *types.Info, n *ast.BinaryExpr) bool {
-	switch n.Op {
-	case token.LSS, token.LEQ, token.GTR, token.GEQ, token.EQL, token.NEQ:
-		return provenance.IsFloat(info.TypeOf(n.X)) || provenance.IsFloat(info.TypeOf(n.Y))
-	}
-	return false
 }
 
 // isFloatPredicate reports whether call returns a bool from a float

@@ -6,6 +6,7 @@
 package provenance
 
 import (
+	"go/ast"
 	"go/build"
 	"go/constant"
 	"go/token"
@@ -405,6 +406,18 @@ func IsFloat(t types.Type) bool {
 	return allTerms(t, func(b *types.Basic) bool {
 		return b.Info()&(types.IsFloat|types.IsComplex) != 0
 	})
+}
+
+// IsFloatComparison reports whether n orders or equates operands of
+// which one is a float, or, with aggregates, holds a float by value (an
+// array or struct compared with == or !=).
+func IsFloatComparison(info *types.Info, n *ast.BinaryExpr, aggregates bool) bool {
+	switch n.Op {
+	case token.LSS, token.LEQ, token.GTR, token.GEQ, token.EQL, token.NEQ:
+		x := info.TypeOf(n.X)
+		return IsFloat(x) || IsFloat(info.TypeOf(n.Y)) || aggregates && HoldsFloat(x, false)
+	}
+	return false
 }
 
 // HoldsFloat reports whether t is a float (IsFloat) or holds one in an

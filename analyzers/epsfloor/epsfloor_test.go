@@ -53,6 +53,7 @@ func TestFormats(t *testing.T) {
 // with values 0 to 3 ulps apart near 1 and near 1e6, stepped with
 // math.Nextafter (IEEE 754-2019 nextUp). Before, the tests pass only for
 // bit-identical values; after, 4 ulps of relative tolerance accept all.
+// It also checks that the overflow test's fix sees both infinities.
 func TestFixedProgramRuns(t *testing.T) {
 	src := filepath.Join("testdata", "src", "runfix")
 	before := testrun.Output(t, filepath.Join(src, "main.go"))
@@ -64,6 +65,11 @@ func TestFixedProgramRuns(t *testing.T) {
 			fmt.Fprintf(&wantAfter, "%s %d true true\n", b, k)
 		}
 	}
+	// 2e10·1e300 overflows to +Inf and -2e10·1e300 to -Inf (IEEE 754-2019
+	// §7.4: overflow gives ∞ with the sign of the result); before the fix
+	// only the positive overflow is seen.
+	wantBefore.WriteString("overflow 1 false\noverflow 2e+10 true\noverflow -2e+10 false\n")
+	wantAfter.WriteString("overflow 1 false\noverflow 2e+10 true\noverflow -2e+10 true\n")
 	assert.Equal(t, wantBefore.String(), before)
 	assert.Equal(t, wantAfter.String(), after)
 }

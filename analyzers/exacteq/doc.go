@@ -18,7 +18,9 @@
 //     function f of this package, accumulated sums), or one is computed and
 //     the other is loaded from a struct field (or a slice or array held in
 //     one) into which the package stores computed floats, such as a table
-//     of path lengths;
+//     of path lengths; a field of a struct that a package function builds
+//     from computed values and returns (an interpolated point's y) is
+//     computed;
 //   - a computed operand is compared with a decimal constant the type cannot
 //     represent (0.1, 0.3); the message shows the value actually stored;
 //   - an operand is math.NaN(): such a comparison is always false (==) or
@@ -39,7 +41,14 @@
 //     difference, also through a package function): the difference is 0
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few
-//     ulps;
+//     ulps; the same when a three-way split by sign (v > 0, v < 0, then
+//     the rest, as an orientation test leaves collinear to its default)
+//     leaves the exact zero to the rest;
+//   - a tie test chained by else to an ordered test of the same pair (if
+//     c < best {...} else if c == best {...}, or best-c == 0) where one is
+//     a sum of two variable terms, the cost of a path: sums equal in exact
+//     arithmetic but added in another order differ by an ulp, so an
+//     equally good alternative is taken as better or lost;
 //   - a product or quotient tested against its own whole part
 //     (pos == math.Floor(pos), pos == float64(int(pos)) with pos := p*n): a
 //     value whole in exact arithmetic can come out an ulp below
@@ -77,7 +86,10 @@
 // expression (rhs = math.Min(rhs, w + n.g), later rhs == w + n.g) built by
 // + - / without products, which could fuse at one site and not the other:
 // the same operations on the same operands give the same bits, so the
-// test asks whether the field was set from these operands; comparisons with exact zero, with infinities and with
+// test asks whether the field was set from these operands; a two-way
+// sign split with no rest (a residue only picks one of two outcomes that
+// meet at zero); a tie of a counter stepped by a constant (k+1 is exact
+// for whole numbers below 2^53); comparisons with exact zero, with infinities and with
 // ±math.MaxFloat64; parameters, fields, loads and copies compared with
 // anything (sentinels such as alpha == 1, sorting and deduplication, knot
 // hits in interpolation); computed values compared with a constant the type

@@ -46,6 +46,7 @@ const (
 	catPinned   = "pinned"
 	catResidue  = "residue"
 	catWhole    = "whole"
+	catTie      = "tie"
 )
 
 // checker holds what one run needs.
@@ -54,7 +55,7 @@ type checker struct {
 	track   *provenance.Tracker
 	decls   map[types.Object]ast.Expr
 	globals constval.Globals
-	cmps    map[token.Pos]*ssa.BinOp // == and != by operator (or case) position
+	cmps    map[token.Pos]*ssa.BinOp // comparisons by operator (or case) position
 	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
 	fields  map[types.Object][]ast.Expr
 	judge   *portable.Judge
@@ -99,6 +100,7 @@ func run(pass *analysis.Pass) (any, error) {
 				c.comparison(cur, n)
 			case token.LSS, token.LEQ, token.GTR, token.GEQ:
 				c.orderedLoop(cur, n)
+				c.signSplit(cur, n)
 			}
 		case *ast.CaseClause:
 			c.caseClause(cur, n)
@@ -133,7 +135,7 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	return false
 }
 
-// index records, in one walk of the package's SSA, every equality test and
+// index records, in one walk of the package's SSA, every comparison and
 // every call by source position.
 func (c *checker) index(funcs []*ssa.Function) {
 	for _, fn := range funcs {
@@ -141,7 +143,7 @@ func (c *checker) index(funcs []*ssa.Function) {
 			for _, instr := range b.Instrs {
 				switch v := instr.(type) {
 				case *ssa.BinOp:
-					if (v.Op == token.EQL || v.Op == token.NEQ) && v.Pos().IsValid() {
+					if v.Op.Precedence() == token.EQL.Precedence() && v.Pos().IsValid() {
 						c.cmps[v.Pos()] = v
 					}
 				case *ssa.Call:
@@ -225,7 +227,7 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 // scalar applies the computed-value rules to a float comparison; n is nil
 // for a switch case, which gets no fix.
 func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
-	if c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
+	if n != nil && c.sumTie(cur, n, op, x, y) || c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)

@@ -95,3 +95,10 @@ func TestPortableAcrossPackages(t *testing.T) {
 func TestHelperAssertions(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/turbine")
 }
+
+// TestRecall checks the exact comparisons known from their context: ties
+// of summed costs beside an ordered test, three-way sign splits of
+// cancelling differences, and fields of structs the package computes.
+func TestRecall(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "recall")
+}

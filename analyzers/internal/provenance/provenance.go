@@ -183,6 +183,49 @@ func (t *Tracker) compute(v ssa.Value) bool {
 		if c, ok := v.Tuple.(*ssa.Call); ok {
 			return t.callComputed(c.Parent(), c.Common(), v.Index)
 		}
+	case *ssa.Field:
+		if c, ok := v.X.(*ssa.Call); ok && IsFloat(v.Type()) {
+			return t.fieldComputed(c, v.Field)
+		}
+	}
+	return false
+}
+
+// fieldComputed reports whether field i of the struct a package function
+// returns (p.Lerp(q, s).Y) holds a computed float on some path: the
+// function builds the struct from computed values (return Point{x, y}).
+// A test reading a field of what the code under test returns makes no
+// claim, as for callComputed.
+func (t *Tracker) fieldComputed(c *ssa.Call, i int) bool {
+	fn := c.Common().StaticCallee()
+	if fn == nil || fn.Blocks == nil || fn.Package() != t.pkg || inTestFile(c.Parent()) && !inTestFile(fn) || fn.Signature.Results().Len() != 1 {
+		return false
+	}
+	for _, b := range fn.Blocks {
+		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
+		if !ok {
+			continue
+		}
+		load, ok := ret.Results[0].(*ssa.UnOp)
+		if !ok || load.Op != token.MUL || load.X.Referrers() == nil {
+			continue
+		}
+		for _, r := range *load.X.Referrers() {
+			fa, ok := r.(*ssa.FieldAddr)
+			if ok && fa.Field == i && storesComputed(t, fa) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// storesComputed reports whether a computed value is stored at addr.
+func storesComputed(t *Tracker, addr ssa.Value) bool {
+	for _, r := range *addr.Referrers() {
+		if st, ok := r.(*ssa.Store); ok && st.Addr == addr && t.Computed(st.Val) {
+			return true
+		}
 	}
 	return false
 }

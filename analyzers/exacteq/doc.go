@@ -55,6 +55,16 @@
 //     (0.29*100 is 28.999999999999996), and the test misses it;
 //   - in tests, testify's assert or require Equal (and its variants) compares
 //     floats under the same rules;
+//   - in tests, an exact comparison of a result the code under test
+//     computes with a value only exact arithmetic makes equal to it: exact
+//     zero where the function returns a difference one of whose terms
+//     passes through a math function that is not correctly rounded (lat =
+//     2*atan(exp(y))*(180/π) - 90 at y = 0: Atan and Exp may differ in the
+//     last bit between platforms and Go versions, so one ulp of 90,
+//     1.42e-14, can remain), or a value the test computes with rounding by
+//     another formula (math.Sqrt(2)*c against the function's
+//     math.Sqrt(2*c*c): equal at c = 1, an ulp apart at c = 3); the same
+//     formula on both sides gives the same bits and is left alone;
 //   - in tests, an exact comparison (==, !=, testify's Equal,
 //     reflect.DeepEqual, cmp.Equal, on floats or on structs and arrays of
 //     them) of a result with a printed value: a constant whose shortest

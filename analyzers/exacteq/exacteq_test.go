@@ -102,3 +102,9 @@ func TestHelperAssertions(t *testing.T) {
 func TestRecall(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "recall")
 }
+
+// TestSecondRoute checks tests that compare a result of the code under
+// test exactly with a value only exact arithmetic makes equal to it.
+func TestSecondRoute(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "route")
+}

@@ -18,6 +18,12 @@ const maxDepth = 32
 // differ in the last bits between platforms and Go versions.
 var correctlyRounded = map[string]bool{"Sqrt": true, "FMA": true}
 
+// Libm reports whether c calls a rounding math function whose result is
+// not fixed bit for bit (Sin, Exp, Atan...).
+func Libm(c *ssa.CallCommon) bool {
+	return provenance.MathRounding(c) == provenance.Rounds && !correctlyRounded[c.StaticCallee().Name()]
+}
+
 // Value reports whether v is computed the same way, bit for bit, on every
 // platform (see the package documentation).
 func (j *Judge) Value(v ssa.Value) bool {

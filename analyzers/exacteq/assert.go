@@ -68,10 +68,69 @@ func (c *checker) helperAssertion(cur inspector.Cursor, call *ast.CallExpr, fn *
 			got = o
 		}
 	}
+	if lit == nil && got == nil && fn.Signature().Recv() != nil && len(call.Args) == 1 {
+		c.equalMethod(call, name, sc.Common().Args)
+		return
+	}
 	if lit == nil || got == nil || c.pinned(cur, call, name, *lit, *got, nil) {
 		return
 	}
 	c.shortDecimal(call, name, *lit, *got)
+}
+
+// equalMethod applies shortDecimal to an Equal method of a type holding
+// floats by value (a point, an array of coordinates), p.Equal(q), when
+// one side is written as a composite literal (or a variable set once
+// from one) with an element that is such a decimal: the method compares
+// the elements exactly.
+func (c *checker) equalMethod(call *ast.CallExpr, name string, args []ssa.Value) {
+	sel, ok := ast.Unparen(call.Fun).(*ast.SelectorExpr)
+	if !ok || len(args) != 2 || !provenance.HoldsFloat(c.pass.TypesInfo.TypeOf(call.Args[0]), false) {
+		return
+	}
+	sides := []operand{{sel.X, args[0]}, {call.Args[0], args[1]}}
+	for i, side := range sides {
+		for _, e := range c.literalElems(side.expr) {
+			if c.inexactConst(e) {
+				c.shortDecimal(call, name, operand{expr: e}, sides[1-i])
+				return
+			}
+		}
+	}
+}
+
+// inexactConst reports whether e is a float constant that its type
+// stores inexactly.
+func (c *checker) inexactConst(e ast.Expr) bool {
+	t := c.pass.TypesInfo.TypeOf(e)
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, e)
+	if !ok || !provenance.IsFloat(t) || v.Kind() == constant.Complex {
+		return false
+	}
+	_, exact := storedValue(v, provenance.FormatOf(t))
+	return !exact
+}
+
+// literalElems returns the elements of the composite literal e is, or
+// that the variable e names was set to once.
+func (c *checker) literalElems(e ast.Expr) []ast.Expr {
+	if id, ok := ast.Unparen(e).(*ast.Ident); ok {
+		if d := c.decls[c.pass.TypesInfo.Uses[id]]; d != nil {
+			e = d
+		}
+	}
+	lit, ok := ast.Unparen(e).(*ast.CompositeLit)
+	if !ok {
+		return nil
+	}
+	var out []ast.Expr
+	for _, el := range lit.Elts {
+		if kv, ok := el.(*ast.KeyValueExpr); ok {
+			el = kv.Value
+		}
+		out = append(out, el)
+	}
+	return out
 }
 
 // shortDecimal reports the exact comparison of a value that a function of

@@ -75,7 +75,9 @@
 //     fused multiply-add, so it fails on other platforms;
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
-//     such a function, as So(x, ShouldEqual, 2.9)) of a result that a
+//     such a function, as So(x, ShouldEqual, 2.9), or an Equal method
+//     of a type holding floats by value, as c.Equal(Point{1.5, 0.45}), with
+//     the decimal among a literal's elements) of a result that a
 //     function of this package computes in several rounded steps (also
 //     through variables captured by nested closures) against
 //     a shorter decimal the type stores inexactly (0.2127): the decimal is

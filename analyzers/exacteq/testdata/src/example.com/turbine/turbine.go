@@ -1,7 +1,11 @@
 // Package turbine summarises turbine readings.
 package turbine
 
-import "math"
+import (
+	"math"
+
+	"example.com/turbine/check"
+)
 
 // Mean is the average of xs: a sum of roundings, then a division.
 func Mean(xs []float64) float64 {
@@ -33,3 +37,14 @@ func Label(x float64) float64 { return x }
 
 // Gust goes through Exp, which is not correctly rounded.
 func Gust(x float64) float64 { return math.Exp(x) - 1 }
+
+// Centre is the mean position of blade tips: sums, then divisions.
+func Centre(tips []check.Hub) check.Hub {
+	var c check.Hub
+	for _, p := range tips {
+		c[0] += p[0]
+		c[1] += p[1]
+	}
+	n := float64(len(tips))
+	return check.Hub{c[0] / n, c[1] / n}
+}

@@ -41,3 +41,20 @@ func TestNested(t *testing.T) {
 		})
 	})
 }
+
+// Points compared by their own Equal method hold the same hazard per
+// coordinate; a literal the type can hold, or one whose decimal is a
+// printed result, is left to the other rules.
+func TestHubs(t *testing.T) {
+	tips := []check.Hub{{0.1, 0}, {0.2, 1}, {0.6, 2}}
+	want := check.Hub{0.3, 1}
+	if !Centre(tips).Equal(want) { // want `Equal compares the result of Centre, computed in several rounded steps, exactly with 0.3`
+		t.Fail()
+	}
+	if !(check.Hub{1, 0.3}).Equal(Centre(tips)) { // want `Equal compares the result of Centre, computed in several rounded steps, exactly with 0.3`
+		t.Fail()
+	}
+	if !Centre(tips).Equal(check.Hub{0.5, 1}) {
+		t.Fail()
+	}
+}

@@ -29,3 +29,9 @@ var ShouldEqual = func(actual any, expected ...any) string {
 func So(actual any, assert func(any, ...any) string, expected ...any) string {
 	return assert(actual, expected...)
 }
+
+// Hub is a point on the rotor plane.
+type Hub [2]float64
+
+// Equal reports whether two hubs coincide, comparing coordinates exactly.
+func (h Hub) Equal(o Hub) bool { return h[0] == o[0] && h[1] == o[1] }

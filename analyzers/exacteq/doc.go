@@ -53,6 +53,12 @@
 //     (pos == math.Floor(pos), pos == float64(int(pos)) with pos := p*n): a
 //     value whole in exact arithmetic can come out an ulp below
 //     (0.29*100 is 28.999999999999996), and the test misses it;
+//   - a computed value (or a parameter some call in the package fills with
+//     one, as degrees of freedom from a ratio of sums) compared with a
+//     nonzero whole constant (df == 1) in a function that also truncates
+//     it (int(df), math.Floor): the function treats it as a count, and a
+//     value an ulp above 1 (1+2.22e-16) is 1 to the truncation and not to
+//     the equality, so the special case and the counting branches part;
 //   - in tests, testify's assert or require Equal (and its variants) compares
 //     floats under the same rules;
 //   - in tests, an exact comparison of a result the code under test

@@ -154,3 +154,35 @@ func onProfile(g *gauge, p, q point) bool {
 
 // place stores a computed mark into a gauge.
 func place(g *gauge, p, q point) { g.at = p.along(q, 0.5) }
+
+// tail is a series whose shape depends on the parity of a count of
+// degrees of freedom, with a special case for one.
+func tail(t, dof float64) float64 {
+	odd := int(dof)%2 == 1
+	if dof == 1 { // want `exact == 1 on dof, which this function also truncates to a whole number: a value whole in exact arithmetic can come out an ulp above \(1\+2.22e-16\)`
+		return t / 2
+	}
+	if odd {
+		return t
+	}
+	return 2 * t
+}
+
+// welchTail passes a ratio of sums as the count.
+func welchTail(t, a, b, c float64) float64 {
+	return tail(t, (a+b)*(a+b)/(a*a/c+b*b/c))
+}
+
+// pooledTail passes whole counts only: float64 of an integer.
+func pooledTail(t float64, n, m int) float64 {
+	return wholeTail(t, float64(n+m-2))
+}
+
+// wholeTail is tail for counts that arrive whole: int(dof) and dof == 1
+// agree on every value it is given.
+func wholeTail(t, dof float64) float64 {
+	if dof == 1 {
+		return t / 2
+	}
+	return t * float64(int(dof)%2)
+}

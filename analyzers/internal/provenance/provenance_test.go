@@ -63,6 +63,10 @@ func recSum(x float64, n int) float64 {
 
 func mkS() S { return S{} }
 
+type P struct{ X, Y float64 }
+
+func lerp(p, q P, s float64) P { return P{p.X, p.Y + s*(q.Y-p.Y)} }
+
 func mkArr() [2]float64 { return [2]float64{} }
 
 func closure(a float64) { func() { use("free", a) }() }
@@ -77,6 +81,8 @@ func f(a, b float64, f32 float32, p *float64, m map[string]float64, n int, c boo
 	use("load ptr", *p)
 	use("load global", G)
 	use("field", mkS().F)
+	use("lerp.Y", lerp(P{}, P{}, a).Y)
+	use("lerp.X", lerp(P{}, P{}, a).X)
 	use("index", mkArr()[n])
 	use("lookup", m["k"])
 	use("arith", a+b)
@@ -275,6 +281,8 @@ func TestComputed(t *testing.T) {
 		"load ptr":      false,
 		"load global":   false,
 		"field":         false,
+		"lerp.Y":        true,  // a field the function fills with a computed value
+		"lerp.X":        false, // a field it copies from a parameter
 		"index":         false,
 		"lookup":        false,
 		"abs":           false,

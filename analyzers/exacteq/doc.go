@@ -42,8 +42,8 @@
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few
 //     ulps; the same when a three-way split by sign (v > 0, v < 0, then
-//     the rest, as an orientation test leaves collinear to its default)
-//     leaves the exact zero to the rest;
+//     whatever follows, as an orientation test leaves collinear to its
+//     default) leaves the exact zero to the rest;
 //   - a tie test chained by else to an ordered test of the same pair (if
 //     c < best {...} else if c == best {...}, or best-c == 0) where one is
 //     a sum of two variable terms, the cost of a path: sums equal in exact
@@ -104,9 +104,9 @@
 // expression (rhs = math.Min(rhs, w + n.g), later rhs == w + n.g) built by
 // + - / without products, which could fuse at one site and not the other:
 // the same operations on the same operands give the same bits, so the
-// test asks whether the field was set from these operands; a two-way
-// sign split with no rest (a residue only picks one of two outcomes that
-// meet at zero); a tie of a counter stepped by a constant (k+1 is exact
+// test asks whether the field was set from these operands; a single
+// sign test of a difference (d > 0 alone draws a boundary, not a class
+// for 0, and a residue moves only points at rounding distance from it); a tie of a counter stepped by a constant (k+1 is exact
 // for whole numbers below 2^53); comparisons with exact zero, with infinities and with
 // ±math.MaxFloat64; parameters, fields, loads and copies compared with
 // anything (sentinels such as alpha == 1, sorting and deduplication, knot

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"go/ast"
 	"go/token"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
@@ -14,7 +15,8 @@ import (
 )
 
 // signSplit reports a three-way sign classification (v > 0, then v < 0,
-// then the rest) of a difference of computed values, such as the cross
+// then the rest, which may be to do nothing) of a difference of computed
+// values, such as the cross
 // product that tells a left turn from a right turn and leaves collinear
 // to the rest. The rest is an exact zero test of v, with the same hazard
 // as v == 0 (see residue): inputs that make v zero in exact arithmetic
@@ -58,9 +60,9 @@ func (c *checker) signTest(n *ast.BinaryExpr) (ast.Expr, bool, bool) {
 }
 
 // oppositeFollows reports whether the sign test at cur is followed by the
-// opposite test of e with a rest left over: a later case of the same
-// tagless switch that has a default, the next else if of an if chain
-// that ends in else, or, when both branches return, the next statement.
+// opposite test of e: in a later case of the same tagless switch, in the
+// next else if of an if chain, or, when both branches return, in the next
+// statement. Whatever follows them is the zero case.
 func (c *checker) oppositeFollows(cur inspector.Cursor, e ast.Expr, positive bool) bool {
 	opposite := func(x ast.Expr) bool {
 		b, ok := ast.Unparen(x).(*ast.BinaryExpr)
@@ -76,7 +78,7 @@ func (c *checker) oppositeFollows(cur inspector.Cursor, e ast.Expr, positive boo
 	case edge.IfStmt_Cond:
 		ifs := cur.Parent().Node().(*ast.IfStmt)
 		if next, ok := ifs.Else.(*ast.IfStmt); ok {
-			return opposite(next.Cond) && next.Else != nil
+			return opposite(next.Cond)
 		}
 		next, ok := nextStmt(cur.Parent()).(*ast.IfStmt)
 		return ok && ifs.Else == nil && next.Else == nil && opposite(next.Cond) && returns(ifs.Body) && returns(next.Body)
@@ -85,19 +87,17 @@ func (c *checker) oppositeFollows(cur inspector.Cursor, e ast.Expr, positive boo
 }
 
 // laterCase reports whether a case clause after cc in its switch has a
-// test satisfying match, and the switch has a default clause.
+// test satisfying match.
 func (c *checker) laterCase(cc inspector.Cursor, match func(ast.Expr) bool) bool {
-	body := cc.Parent().Node().(*ast.BlockStmt)
-	found, hasDefault, after := false, false, false
-	for _, s := range body.List {
+	after := false
+	for _, s := range cc.Parent().Node().(*ast.BlockStmt).List {
 		clause := s.(*ast.CaseClause)
-		hasDefault = hasDefault || clause.List == nil
-		for _, x := range clause.List {
-			found = found || after && match(x)
+		if after && slices.ContainsFunc(clause.List, match) {
+			return true
 		}
 		after = after || clause == cc.Node()
 	}
-	return found && hasDefault
+	return false
 }
 
 // nextStmt returns the statement after the one at cur in its block, or nil.

@@ -122,16 +122,25 @@ func flowSign(q float64) int {
 	}
 }
 
-// twoWay has no rest: a residue only picks one of two outcomes that
-// meet at zero, the same as >= would.
-func twoWay(a, b, c point) int {
-	d := b.sub(a).cross(c.sub(a))
-	if d > 0 {
-		return 1
+// windingStep counts a crossing up or down and nothing on the line: the
+// zero case is to do nothing, still decided by the exact zero.
+func windingStep(a, b, c point, n int) int {
+	if d := b.sub(a).cross(c.sub(a)); d > 0 { // want `the tests d > 0 and d < 0 leave exact 0`
+		n++
 	} else if d < 0 {
-		return -1
+		n--
 	}
-	return 0
+	return n
+}
+
+// oneSided tests one sign only: it draws a boundary, not a class of its
+// own for 0, and a residue moves a point at rounding distance from the
+// boundary to its other side, as any ordered test of nearby values does.
+func oneSided(a, b, c point) bool {
+	if d := b.sub(a).cross(c.sub(a)); d > 0 {
+		return true
+	}
+	return false
 }
 
 // along returns the mark a fraction s of the way from p to q.

@@ -100,7 +100,7 @@ func TestHelperAssertions(t *testing.T) {
 // of summed costs beside an ordered test, three-way sign splits of
 // cancelling differences, and fields of structs the package computes.
 func TestRecall(t *testing.T) {
-	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "recall")
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "recall")
 }
 
 // TestSecondRoute checks tests that compare a result of the code under

@@ -95,3 +95,10 @@ func TestPortableAcrossPackages(t *testing.T) {
 func TestHelperAssertions(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/turbine")
 }
+
+// TestExactInputs checks pinned results computed from the inputs a test
+// gives: exact products cannot change under fusion (IEEE 754-2019
+// §5.4.1), so such pins are left alone, and the others stay.
+func TestExactInputs(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "survey")
+}

@@ -2,15 +2,79 @@ package survey
 
 import "testing"
 
+// Whole coordinates: every product is an exact integer below 2^53, so
+// fused or not, the sum rounds the same and Sqrt is correctly rounded.
 func TestPaceWhole(t *testing.T) {
 	for _, tc := range []struct {
 		from, to []float64
 		want     float64
 	}{
 		{[]float64{-40, 7}, []float64{3, 12}, 43.289721643826724},
+		{[]float64{0, 0}, []float64{1, 1}, 1.4142135623730951},
 	} {
 		if got := Pace(tc.from, tc.to); got != tc.want {
 			t.Errorf("got %v", got)
 		}
+	}
+}
+
+// Decimal coordinates: dx*dx is inexact, and fusing it with the addition
+// gives 1.0770329614269007 instead.
+func TestPaceDecimal(t *testing.T) {
+	for _, tc := range []struct {
+		from, to []float64
+		want     float64
+	}{
+		{[]float64{0.4, 1}, []float64{0, 0}, 1.077032961426901},
+	} {
+		if got := Pace(tc.from, tc.to); got != tc.want { // want `exact != pins a computed result to 1.077032961426901`
+			t.Errorf("got %v", got)
+		}
+	}
+}
+
+// Whole, but dx*dx = 10000001400000049 needs 54 bits: it rounds.
+func TestPaceWide(t *testing.T) {
+	got := Pace([]float64{100000007, 12345}, []float64{0, 0})
+	if got != 1.0000000776199506e+08 { // want `exact != pins a computed result to 1.0000000776199506e\+08`
+		t.Errorf("got %v", got)
+	}
+}
+
+// The table's coordinates are scaled by 1.1 before the call: what the
+// call gets is no longer what the table says.
+func TestPaceStretched(t *testing.T) {
+	from := []float64{-40, 7}
+	Stretch(from, 1.1)
+	if got := Pace(from, []float64{3, 12}); got != 47.196292227250225 { // want `exact != pins a computed result to 47.196292227250225`
+		t.Errorf("got %v", got)
+	}
+}
+
+func TestPace32(t *testing.T) {
+	if got := Pace32([2]float32{-40, 7}, [2]float32{3, 12}); got != 43.289722 {
+		t.Errorf("got %v", got)
+	}
+	// 5001*5001 = 25010001 needs 25 bits: float32 rounds it.
+	if got := Pace32([2]float32{5001, 13}, [2]float32{0, 0}); got != 5001.0166 { // want `exact != pins a computed result to 5001.0166`
+		t.Errorf("got %v", got)
+	}
+}
+
+func TestShare(t *testing.T) {
+	if got := Share(Lot{West: 3, East: 4, Depth: 20}); got != 0.6785714285714286 {
+		t.Errorf("got %v", got)
+	}
+	if got := Share(Lot{West: 0.3, East: 0.4}); got != 0.04535714285714286 { // want `exact != pins a computed result to 0.04535714285714286`
+		t.Errorf("got %v", got)
+	}
+}
+
+func TestSpoil(t *testing.T) {
+	if got := Spoil(6); got != 30.857142857142858 {
+		t.Errorf("got %v", got)
+	}
+	if got := Spoil(0.3); got != 0.003857142857142857 { // want `exact != pins a computed result to 0.003857142857142857`
+		t.Errorf("got %v", got)
 	}
 }

@@ -123,8 +123,12 @@ func (s *site) pow(call *ssa.CallCommon) span {
 	return r
 }
 
-// of returns what is known of the float v.
+// of returns what is known of the float v; nothing of a complex value,
+// whose products Go may also fuse.
 func (s *site) of(v ssa.Value) span {
+	if b, ok := v.Type().Underlying().(*types.Basic); !ok || b.Info()&types.IsComplex != 0 {
+		return span{}
+	}
 	if s.busy == nil {
 		s.busy = map[ssa.Value]bool{}
 	}
@@ -138,7 +142,11 @@ func (s *site) of(v ssa.Value) span {
 		if v.Value == nil {
 			return spanOf(0)
 		}
-		f, _ := constant.Float64Val(constant.ToFloat(v.Value))
+		fv := constant.ToFloat(v.Value)
+		if fv.Kind() != constant.Float {
+			return span{} // a complex constant
+		}
+		f, _ := constant.Float64Val(fv)
 		return fit(spanOf(f), v.Type())
 	case *ssa.Convert:
 		if provenance.IsFloat(v.X.Type()) {
@@ -216,11 +224,7 @@ func (s *site) content(v ssa.Value, path []int) span {
 		if !ok {
 			return span{} // an input of the function read first
 		}
-		r := s.outer.content(arg, path)
-		if holdsReference(v.Type()) {
-			r = join(r, s.refs(v, path)) // what the function stores through it
-		}
-		return r
+		return join(s.outer.content(arg, path), s.refs(v, path)) // and what the function stores through it
 	case *ssa.UnOp:
 		if v.Op == token.MUL {
 			return s.content(v.X, path)
@@ -244,9 +248,13 @@ func (s *site) content(v ssa.Value, path []int) span {
 
 // refs returns what is known of the floats stored through addr along
 // path, or nothing when addr escapes to a call not entered, where it may
-// be written.
+// be written. A value that holds no reference has nothing stored through
+// it.
 func (s *site) refs(addr ssa.Value, path []int) span {
 	r := spanOf(0)
+	if !holdsReference(addr.Type(), 4) {
+		return r
+	}
 	for _, ref := range *addr.Referrers() {
 		var got span
 		switch ref := ref.(type) {
@@ -258,28 +266,24 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 				continue // into a local composite literal that nothing writes through
 			}
 			got = s.content(ref.Val, path)
-		case *ssa.FieldAddr:
+		case *ssa.FieldAddr, *ssa.Field:
+			f := fieldIndex(ref)
 			switch {
 			case len(path) == 0:
-				got = s.refs(ref, nil)
-			case path[0] == ref.Field:
-				got = s.refs(ref, path[1:])
+				got = s.refs(ref.(ssa.Value), nil)
+			case path[0] == f:
+				got = s.refs(ref.(ssa.Value), path[1:])
 			default:
 				continue
 			}
-		case *ssa.IndexAddr, *ssa.Slice, *ssa.MakeInterface:
+		case *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.UnOp:
 			got = s.refs(ref.(ssa.Value), path)
-		case *ssa.UnOp:
-			if !holdsReference(ref.Type()) {
-				continue // a copy
-			}
-			got = s.refs(ref, path)
 		case *ssa.Call:
 			if !s.shared.entered[ref] && !readOnly(ref) {
 				return span{}
 			}
 			continue
-		case *ssa.DebugRef, *ssa.BinOp, *ssa.Field, *ssa.Index:
+		case *ssa.DebugRef, *ssa.BinOp:
 			continue
 		default:
 			return span{}
@@ -289,6 +293,14 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 		}
 	}
 	return r
+}
+
+// fieldIndex returns the field a FieldAddr or Field selects.
+func fieldIndex(ref ssa.Instruction) int {
+	if fa, ok := ref.(*ssa.FieldAddr); ok {
+		return fa.Field
+	}
+	return ref.(*ssa.Field).Field
 }
 
 // literalOf returns the local variable or composite literal whose field or
@@ -315,14 +327,17 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 	if s.shared.steps++; s.shared.steps > maxSteps {
 		return true
 	}
+	if !holdsReference(v.Type(), 4) {
+		return false
+	}
 	for _, ref := range *v.Referrers() {
 		switch ref := ref.(type) {
-		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.MakeInterface:
+		case *ssa.FieldAddr, *ssa.Field, *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface:
 			if s.writesThrough(ref.(ssa.Value), loaded) {
 				return true
 			}
 		case *ssa.UnOp:
-			if holdsReference(ref.Type()) && s.writesThrough(ref, true) {
+			if s.writesThrough(ref, true) {
 				return true
 			}
 		case *ssa.Store:
@@ -347,13 +362,23 @@ func readOnly(call *ssa.Call) bool {
 }
 
 // holdsReference reports whether a value of type t can reach memory that
-// others share: a pointer, slice, map or interface.
-func holdsReference(t types.Type) bool {
-	switch t.Underlying().(type) {
-	case *types.Pointer, *types.Slice, *types.Map, *types.Interface:
-		return true
+// others share: a pointer, slice, map, channel, function or interface,
+// alone or in a struct or array.
+func holdsReference(t types.Type, depth int) bool {
+	switch u := t.Underlying().(type) {
+	case *types.Basic:
+		return false
+	case *types.Array:
+		return depth == 0 || holdsReference(u.Elem(), depth-1)
+	case *types.Struct:
+		for f := range u.Fields() {
+			if depth == 0 || holdsReference(f.Type(), depth-1) {
+				return true
+			}
+		}
+		return false
 	}
-	return false
+	return true
 }
 
 // spanOf returns the span of the float f alone.

@@ -51,6 +51,24 @@ func TestPaceStretched(t *testing.T) {
 	}
 }
 
+// The table's slices are scaled through the copy of each case: the table
+// no longer holds what its literal says.
+func TestPaceScaledCases(t *testing.T) {
+	cases := []struct {
+		from, to []float64
+		want     float64
+	}{
+		{[]float64{-40, 7}, []float64{3, 12}, 47.196292227250225},
+	}
+	for _, tc := range cases {
+		tc.from[0] *= 1.1
+		tc.from[1] *= 1.1
+		if got := Pace(tc.from, tc.to); got != tc.want { // want `exact != pins a computed result to 47.196292227250225`
+			t.Errorf("got %v", got)
+		}
+	}
+}
+
 func TestPace32(t *testing.T) {
 	if got := Pace32([2]float32{-40, 7}, [2]float32{3, 12}); got != 43.289722 {
 		t.Errorf("got %v", got)

@@ -95,10 +95,13 @@ func (s *site) exact(b *ssa.BinOp) bool {
 }
 
 // exactPow reports whether call is math.Pow(x, n) with a whole constant
-// n >= 0 and an x that makes x^n exact: Go's Pow multiplies successive
-// squarings of x's significand for a whole exponent (math/pow.go), each
-// product exact when x^n is representable; any implementation whose error
-// is below one ulp returns a representable result exactly.
+// n >= 0 and an x that makes x^n exact. Go's Pow is pure Go on every
+// architecture (haveArchPow is false in math/stubs.go and
+// math/arith_s390x.go, Go 1.26) and, for a whole exponent, multiplies
+// successive squarings of x's significand (math/pow.go): for x = k·2^e,
+// each product is a power k^m with m <= n, exact while k^n is below 2^p.
+// Any implementation faithful to within one ulp returns a representable
+// result exactly, so the result does not depend on the Go version either.
 func (s *site) exactPow(call *ssa.CallCommon) bool {
 	if s == nil || call.StaticCallee().Name() != "Pow" || len(call.Args) != 2 {
 		return false

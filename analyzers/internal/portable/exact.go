@@ -420,8 +420,8 @@ func join(x, y span) span {
 // than p significant bits, no bit below the smallest subnormal, no
 // overflow; otherwise nothing is known of the rounded result.
 func fit(x span, t types.Type) span {
-	if !x.known || x.max == 0 {
-		return x
+	if !x.known || x.low == zeroLow {
+		return x // unknown, or exactly 0
 	}
 	f := provenance.FormatOf(t)
 	lowest := math.Ilogb(f.Smallest)

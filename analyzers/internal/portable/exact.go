@@ -54,10 +54,11 @@ type site struct {
 }
 
 // reading is what the sites of one value share: the calls entered, whose
-// stores through their arguments are read in the callee, and the steps
-// taken.
+// stores through their arguments are read in the callee, the literals
+// known to be written through or not, and the steps taken.
 type reading struct {
 	entered map[ssa.Instruction]bool
+	written map[*ssa.Alloc]bool // literals read by literalWritten
 	steps   int
 }
 
@@ -263,7 +264,7 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 		switch ref := ref.(type) {
 		case *ssa.Store:
 			if ref.Addr != addr {
-				if root := literalOf(ref.Addr); root == nil || s.writesThrough(root, false) {
+				if root := literalOf(ref.Addr); root == nil || s.literalWritten(root) {
 					return span{} // the reference is stored away
 				}
 				continue // into a local composite literal that nothing writes through
@@ -323,6 +324,17 @@ func literalOf(addr ssa.Value) *ssa.Alloc {
 	}
 }
 
+// literalWritten reports whether a reference held in the literal root may
+// be written through, read once per literal.
+func (s *site) literalWritten(root *ssa.Alloc) bool {
+	w, ok := s.shared.written[root]
+	if !ok {
+		w = s.writesThrough(root, false)
+		s.shared.written[root] = w
+	}
+	return w
+}
+
 // writesThrough reports whether a reference loaded from v's memory may be
 // written through: a store through it, or a call not entered that is
 // given it.
@@ -358,10 +370,23 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 	return false
 }
 
-// readOnly reports whether call is a builtin that only reads (len, cap).
+// readOnly reports whether call only reads what it is given: the
+// builtins len and cap, and the functions and methods of fmt, log and
+// testing, which format their arguments to print or report them (a
+// String or Error method of an argument's type, which formatting calls,
+// is taken not to write what it formats).
 func readOnly(call *ssa.Call) bool {
-	b, ok := call.Common().Value.(*ssa.Builtin)
-	return ok && slices.Contains([]string{"len", "cap"}, b.Name())
+	c := call.Common()
+	if b, ok := c.Value.(*ssa.Builtin); ok {
+		return b.Name() == "len" || b.Name() == "cap"
+	}
+	var pkg *types.Package
+	if fn := c.StaticCallee(); fn != nil && fn.Object() != nil {
+		pkg = fn.Object().Pkg()
+	} else if c.IsInvoke() {
+		pkg = c.Method.Pkg()
+	}
+	return pkg != nil && slices.Contains([]string{"fmt", "log", "testing"}, pkg.Path())
 }
 
 // holdsReference reports whether a value of type t can reach memory that

@@ -106,3 +106,23 @@ func TestSpoil(t *testing.T) {
 		t.Errorf("got %v", got)
 	}
 }
+
+// Stake is a stake's coordinates.
+type Stake []float64
+
+// A case printed on failure is only read by t.Errorf.
+func TestPaceNamed(t *testing.T) {
+	const unit = 1.4142135623730951
+	for i, tc := range []struct {
+		from, to Stake
+		want     float64
+	}{
+		{from: Stake{0, 0}, to: Stake{1, 1}, want: unit},
+		{from: Stake{-40, 7}, to: Stake{3, 12}, want: 43.289721643826724},
+	} {
+		got := Pace(tc.from, tc.to)
+		if got != tc.want {
+			t.Errorf("case %d: want %v, got %v (%v)", i+1, tc.want, got, tc)
+		}
+	}
+}

@@ -280,7 +280,7 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 			default:
 				continue
 			}
-		case *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.UnOp:
+		case *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.ChangeType, *ssa.UnOp:
 			got = s.refs(ref.(ssa.Value), path)
 		case *ssa.Call:
 			if !s.shared.entered[ref] && !readOnly(ref) {
@@ -347,7 +347,7 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 	}
 	for _, ref := range *v.Referrers() {
 		switch ref := ref.(type) {
-		case *ssa.FieldAddr, *ssa.Field, *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface:
+		case *ssa.FieldAddr, *ssa.Field, *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.ChangeType:
 			if s.writesThrough(ref.(ssa.Value), loaded) {
 				return true
 			}

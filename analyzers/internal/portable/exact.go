@@ -329,6 +329,7 @@ func literalOf(addr ssa.Value) *ssa.Alloc {
 func (s *site) literalWritten(root *ssa.Alloc) bool {
 	w, ok := s.shared.written[root]
 	if !ok {
+		s.shared.written[root] = true // around a cycle of copies: written
 		w = s.writesThrough(root, false)
 		s.shared.written[root] = w
 	}
@@ -336,8 +337,9 @@ func (s *site) literalWritten(root *ssa.Alloc) bool {
 }
 
 // writesThrough reports whether a reference loaded from v's memory may be
-// written through: a store through it, or a call not entered that is
-// given it.
+// written through: a store through it, a copy of it kept where that may
+// happen, a call not entered or a closure not read that is given it, or
+// any use the reading does not know.
 func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 	if s.shared.steps++; s.shared.steps > maxSteps {
 		return true
@@ -346,24 +348,28 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 		return false
 	}
 	for _, ref := range *v.Referrers() {
+		var w bool
 		switch ref := ref.(type) {
 		case *ssa.FieldAddr, *ssa.Field, *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.ChangeType:
-			if s.writesThrough(ref.(ssa.Value), loaded) {
-				return true
-			}
+			w = s.writesThrough(ref.(ssa.Value), loaded)
 		case *ssa.UnOp:
-			if s.writesThrough(ref, true) {
-				return true
-			}
+			w = s.writesThrough(ref, true)
 		case *ssa.Store:
-			if ref.Addr == v && loaded {
-				return true
+			if ref.Addr == v {
+				w = loaded
+			} else {
+				root := literalOf(ref.Addr)
+				w = root == nil || s.literalWritten(root) // a copy kept elsewhere
 			}
 		case *ssa.Call:
-			if !s.shared.entered[ref] && !readOnly(ref) {
-				return true
-			}
-		case *ssa.Phi, ssa.CallInstruction:
+			w = !s.shared.entered[ref] && !readOnly(ref)
+		case *ssa.MakeClosure:
+			w = !s.shared.entered[ref]
+		case *ssa.DebugRef, *ssa.BinOp:
+		default:
+			w = true
+		}
+		if w {
 			return true
 		}
 	}

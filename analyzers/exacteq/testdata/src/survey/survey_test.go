@@ -79,6 +79,24 @@ func TestPaceScaledCases(t *testing.T) {
 	}
 }
 
+// A copy of the first case shares its slices, and Stretch writes through
+// them.
+func TestPaceAliased(t *testing.T) {
+	cases := []struct {
+		from, to []float64
+		want     float64
+	}{
+		{[]float64{-40, 7}, []float64{3, 12}, 47.196292227250225},
+	}
+	kept := cases[0]
+	Stretch(kept.from, 1.1)
+	for _, tc := range cases {
+		if got := Pace(tc.from, tc.to); got != tc.want { // want `exact != pins a computed result to 47.196292227250225`
+			t.Errorf("got %v", got)
+		}
+	}
+}
+
 func TestPace32(t *testing.T) {
 	if got := Pace32([2]float32{-40, 7}, [2]float32{3, 12}); got != 43.289722 {
 		t.Errorf("got %v", got)

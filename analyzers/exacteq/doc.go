@@ -136,7 +136,7 @@
 // differ in the last bits between platforms), results computed the same
 // way on every platform from the inputs the test gives them (constants,
 // composite literals of constants, the fields of a table of cases that
-// lead to them): a product whose operands make it exact there cannot
+// lead to them, also as a subtest's closure captures them): a product whose operands make it exact there cannot
 // change under fusion, since fusedMultiplyAdd rounds x*y + z once (IEEE
 // 754-2019 §5.4.1) and for an exact x*y that is the rounding of the
 // addition; products and sums of whole multiples of 2^e stay exact while

@@ -46,11 +46,12 @@ const zeroLow = 1 << 20
 
 // site is the reading of one function on the inputs one call gives it.
 type site struct {
-	outer  *site                        // the caller's reading; nil at the function read first
-	args   map[*ssa.Parameter]ssa.Value // the arguments of the call entered
-	shared *reading
-	busy   map[ssa.Value]bool // values in progress (a loop is unknown)
-	depth  int
+	outer     *site                        // the caller's reading; nil at the function read first
+	args      map[*ssa.Parameter]ssa.Value // the arguments of the call entered
+	enclosing *site                        // the reading of the function that makes this closure
+	shared    *reading
+	busy      map[ssa.Value]bool // values in progress (a loop is unknown)
+	depth     int
 }
 
 // reading is what the sites of one value share: the calls entered, whose
@@ -229,6 +230,12 @@ func (s *site) content(v ssa.Value, path []int) span {
 			return span{} // an input of the function read first
 		}
 		return join(s.outer.content(arg, path), s.refs(v, path)) // and what the function stores through it
+	case *ssa.FreeVar:
+		outer, bound := s.captured(v)
+		if outer == nil {
+			return span{}
+		}
+		return join(outer.content(bound, path), s.refs(v, path)) // and what the closure stores through it
 	case *ssa.UnOp:
 		if v.Op == token.MUL {
 			return s.content(v.X, path)
@@ -248,6 +255,37 @@ func (s *site) content(v ssa.Value, path []int) span {
 		return s.of(v)
 	}
 	return span{}
+}
+
+// captured returns the reading of the function that makes the closure
+// fv belongs to, and the value bound to fv there, when the closure is read
+// first (a subtest's body, t.Run(name, func...)) and made once; the
+// closure is then taken as entered, its stores through fv read here.
+func (s *site) captured(fv *ssa.FreeVar) (*site, ssa.Value) {
+	fn := fv.Parent()
+	if s.args != nil || fn.Parent() == nil {
+		return nil, nil
+	}
+	var made *ssa.MakeClosure
+	for _, b := range fn.Parent().Blocks {
+		for _, instr := range b.Instrs {
+			if mc, ok := instr.(*ssa.MakeClosure); ok && mc.Fn == fn {
+				if made != nil {
+					return nil, nil // made twice
+				}
+				made = mc
+			}
+		}
+	}
+	i := slices.Index(fn.FreeVars, fv)
+	if made == nil || i < 0 {
+		return nil, nil
+	}
+	if s.enclosing == nil {
+		s.enclosing = &site{shared: s.shared, depth: s.depth}
+	}
+	s.shared.entered[made] = true
+	return s.enclosing, made.Bindings[i]
 }
 
 // refs returns what is known of the floats stored through addr along
@@ -285,6 +323,11 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 		case *ssa.Call:
 			if !s.shared.entered[ref] && !readOnly(ref) {
 				return span{}
+			}
+			continue
+		case *ssa.MakeClosure:
+			if !s.shared.entered[ref] {
+				return span{} // captured by a closure not read
 			}
 			continue
 		case *ssa.DebugRef, *ssa.BinOp:

@@ -144,3 +144,51 @@ func TestPaceNamed(t *testing.T) {
 		}
 	}
 }
+
+// Subtests read the case through the closure's captured variable.
+func TestPaceSubtests(t *testing.T) {
+	for _, tc := range []struct {
+		name     string
+		from, to []float64
+		want     float64
+	}{
+		{"whole", []float64{-40, 7}, []float64{3, 12}, 43.289721643826724},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := Pace(tc.from, tc.to); got != tc.want {
+				t.Errorf("got %v", got)
+			}
+		})
+	}
+	for _, tc := range []struct {
+		name     string
+		from, to []float64
+		want     float64
+	}{
+		{"decimal", []float64{0.4, 1}, []float64{0, 0}, 1.077032961426901},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := Pace(tc.from, tc.to); got != tc.want { // want `exact != pins a computed result to 1.077032961426901`
+				t.Errorf("got %v", got)
+			}
+		})
+	}
+}
+
+// A second closure over the same case may write through its slices.
+func TestPaceTwoClosures(t *testing.T) {
+	for _, tc := range []struct {
+		from, to []float64
+		want     float64
+	}{
+		{[]float64{-40, 7}, []float64{3, 12}, 47.196292227250225},
+	} {
+		stretch := func() { Stretch(tc.from, 1.1) }
+		stretch()
+		t.Run("stretched", func(t *testing.T) {
+			if got := Pace(tc.from, tc.to); got != tc.want { // want `exact != pins a computed result to 47.196292227250225`
+				t.Errorf("got %v", got)
+			}
+		})
+	}
+}

@@ -54,11 +54,12 @@ type site struct {
 	depth     int
 }
 
-// reading is what the sites of one value share: the calls entered, whose
-// stores through their arguments are read in the callee, the literals
-// known to be written through or not, and the steps taken.
+// reading is what the sites of one value share: the calls and closures
+// entered, with the readings of their bodies, where their stores through
+// what they are given are found; the literals known to be written through
+// or not; and the steps taken.
 type reading struct {
-	entered map[ssa.Instruction]bool
+	entered map[ssa.Instruction]*site
 	written map[*ssa.Alloc]bool // literals read by literalWritten
 	steps   int
 }
@@ -72,20 +73,20 @@ func (s *site) enter(j *Judge, call *ssa.CallCommon, fn *ssa.Function, depth int
 	for i, p := range fn.Params {
 		inner.args[p] = call.Args[i]
 	}
-	s.markEntered(call)
+	s.markEntered(call, inner)
 	return j.walk(inner).body(fn, depth)
 }
 
-// markEntered records the call instruction whose common part is call: its
-// arguments' contents are read in the callee, where its stores are seen.
-func (s *site) markEntered(call *ssa.CallCommon) {
+// markEntered records the call instruction whose common part is call, and
+// the reading of its callee.
+func (s *site) markEntered(call *ssa.CallCommon, inner *site) {
 	for _, a := range call.Args {
 		if a == nil || a.Referrers() == nil {
 			continue
 		}
 		for _, r := range *a.Referrers() {
 			if c, ok := r.(ssa.CallInstruction); ok && c.Common() == call {
-				s.shared.entered[r] = true
+				s.shared.entered[r] = inner
 			}
 		}
 	}
@@ -284,7 +285,7 @@ func (s *site) captured(fv *ssa.FreeVar) (*site, ssa.Value) {
 	if s.enclosing == nil {
 		s.enclosing = &site{shared: s.shared, depth: s.depth}
 	}
-	s.shared.entered[made] = true
+	s.shared.entered[made] = s
 	return s.enclosing, made.Bindings[i]
 }
 
@@ -320,16 +321,18 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 			}
 		case *ssa.IndexAddr, *ssa.Index, *ssa.Slice, *ssa.MakeInterface, *ssa.ChangeType, *ssa.UnOp:
 			got = s.refs(ref.(ssa.Value), path)
-		case *ssa.Call:
-			if !s.shared.entered[ref] && !readOnly(ref) {
-				return span{}
+		case *ssa.Call, *ssa.MakeClosure:
+			in := s.shared.entered[ref]
+			if in == nil {
+				if call, ok := ref.(*ssa.Call); ok && readOnly(call) {
+					continue
+				}
+				return span{} // given to a call or closure not read
 			}
-			continue
-		case *ssa.MakeClosure:
-			if !s.shared.entered[ref] {
-				return span{} // captured by a closure not read
+			got = spanOf(0)
+			for _, p := range inside(ref, addr) {
+				got = join(got, in.refs(p, path)) // what the callee stores through it
 			}
-			continue
 		case *ssa.DebugRef, *ssa.BinOp:
 			continue
 		default:
@@ -404,10 +407,13 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 				root := literalOf(ref.Addr)
 				w = root == nil || s.literalWritten(root) // a copy kept elsewhere
 			}
-		case *ssa.Call:
-			w = !s.shared.entered[ref] && !readOnly(ref)
-		case *ssa.MakeClosure:
-			w = !s.shared.entered[ref]
+		case *ssa.Call, *ssa.MakeClosure:
+			in := s.shared.entered[ref]
+			call, isCall := ref.(*ssa.Call)
+			w = in == nil && !(isCall && readOnly(call))
+			for _, p := range inside(ref, v) {
+				w = w || in.writesThrough(p, true)
+			}
 		case *ssa.DebugRef, *ssa.BinOp:
 		default:
 			w = true
@@ -417,6 +423,30 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 		}
 	}
 	return false
+}
+
+// inside returns what stands for v inside an entered call or closure: the
+// callee's parameters given v, the closure's free variables bound to it.
+func inside(ref ssa.Instruction, v ssa.Value) []ssa.Value {
+	var in []ssa.Value
+	switch r := ref.(type) {
+	case *ssa.Call:
+		if fn := r.Common().StaticCallee(); fn != nil && len(fn.Params) == len(r.Common().Args) {
+			for i, a := range r.Common().Args {
+				if a == v {
+					in = append(in, fn.Params[i])
+				}
+			}
+		}
+	case *ssa.MakeClosure:
+		fn := r.Fn.(*ssa.Function)
+		for i, b := range r.Bindings {
+			if b == v {
+				in = append(in, fn.FreeVars[i])
+			}
+		}
+	}
+	return in
 }
 
 // readOnly reports whether call only reads what it is given: the

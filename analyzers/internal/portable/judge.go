@@ -31,7 +31,7 @@ func (j *Judge) Value(v ssa.Value) bool {
 // passed to them. It costs a reading per call, so callers ask it only
 // where Value says no.
 func (j *Judge) OnInputs(v ssa.Value) bool {
-	return j.walk(&site{shared: &reading{entered: map[ssa.Instruction]bool{}, written: map[*ssa.Alloc]bool{}}}).value(v, maxDepth)
+	return j.walk(&site{shared: &reading{entered: map[ssa.Instruction]*site{}, written: map[*ssa.Alloc]bool{}}}).value(v, maxDepth)
 }
 
 // walk is one reading of values: seen holds the values judged or in

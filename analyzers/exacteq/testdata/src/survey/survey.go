@@ -42,3 +42,12 @@ func Stretch(xs []float64, k float64) {
 		xs[i] *= k
 	}
 }
+
+// Settle lowers each coordinate of a stake to a third of itself, lifts it
+// by k*k + 1, and returns the lift.
+func Settle(xs []float64, k float64) float64 {
+	for i := range xs {
+		xs[i] = xs[i]/3 + k*k + 1
+	}
+	return k*k + 1
+}

@@ -2,7 +2,7 @@ package survey
 
 import "testing"
 
-// Whole coordinates: every product is an exact integer below 2^53, so
+// Whole coordinates: every product is an integer below 2^53, held in full, so
 // fused or not, the sum rounds the same and Sqrt is correctly rounded.
 func TestPaceWhole(t *testing.T) {
 	for _, tc := range []struct {
@@ -190,5 +190,16 @@ func TestPaceTwoClosures(t *testing.T) {
 				t.Errorf("got %v", got)
 			}
 		})
+	}
+}
+
+// Settle is read for its lift (k*k + 1 is whole at k = 2), and what it
+// stores through the stake, thirds, is read with it: the stake is no
+// longer whole.
+func TestPaceSettled(t *testing.T) {
+	from := []float64{-40, 7}
+	lift := Settle(from, 2)
+	if got := lift + Pace(from, []float64{3, 12}); got != 17.256517540566826 { // want `exact != pins a computed result to 17.256517540566826`
+		t.Errorf("got %v", got)
 	}
 }

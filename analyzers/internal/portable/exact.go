@@ -22,9 +22,11 @@ import (
 // values stay exact under the same bound, and a quotient by a power of two
 // shifts the exponent. The inputs are what the call site gives: constants,
 // composite literals of constants (a table of test cases), read through
-// the fields that lead to them; anything a call may have changed, and
-// every other value (a parameter of the function being read, an integer
-// of unknown size, a quotient), is unknown.
+// the fields that lead to them and through the variables a subtest's
+// closure captures, with what the calls read on the way store through
+// them. Anything a call or closure not read may have changed, and every
+// other value (a parameter of the function read first, an integer of
+// unknown size, a quotient, a value carried around a loop), is unknown.
 
 // maxSites bounds the calls entered from one value, maxSteps the values
 // and memory read for it.

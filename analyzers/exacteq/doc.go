@@ -163,7 +163,16 @@
 // rounded or exact math functions such as Sqrt, Abs and Floor, through
 // functions built the same way, of this package or, known by a fact that
 // crosses packages, of another; Sin, Exp, Pow and the like may
-// differ in the last bits between platforms), and printed values that also appear among the test's inputs
+// differ in the last bits between platforms), results computed the same
+// way on every platform from the inputs the test gives them (constants,
+// composite literals of constants, the fields of a table of cases that
+// lead to them, also as a subtest's closure captures them): a product whose operands make it exact there cannot
+// change under fusion, since fusedMultiplyAdd rounds x*y + z once (IEEE
+// 754-2019 §5.4.1) and for an exact x*y that is the rounding of the
+// addition; products and sums of whole multiples of 2^e stay exact while
+// their significands fit the format, and math.Pow of such a value to a
+// whole constant power is exact when its result is representable; and
+// printed values that also appear among the test's inputs
 // (passed through without arithmetic, as the vertices a hull keeps).
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop

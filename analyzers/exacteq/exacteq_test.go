@@ -1,6 +1,7 @@
 package exacteq_test
 
 import (
+	"math"
 	"math/big"
 	"path/filepath"
 	"testing"
@@ -107,4 +108,37 @@ func TestRecall(t *testing.T) {
 // test exactly with a value only exact arithmetic makes equal to it.
 func TestSecondRoute(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "route")
+}
+
+// TestExactInputs checks pinned results computed from the inputs a test
+// gives: exact products cannot change under fusion (IEEE 754-2019
+// §5.4.1), so such pins are left alone, and the others stay.
+func TestExactInputs(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "survey")
+
+	// The cases' claims, checked outside the analyzer. math.FMA is IEEE
+	// 754-2019 fusedMultiplyAdd (one rounding); float64(x*y) forces the
+	// product's own rounding (Go specification, "Arithmetic operators").
+	pace := func(dx, dy float64, fused bool) float64 {
+		if fused {
+			return math.Sqrt(math.FMA(dx, dx, float64(dy*dy)))
+		}
+		return math.Sqrt(float64(dx*dx) + float64(dy*dy))
+	}
+	for _, d := range [][2]float64{{-43, -5}, {-1, -1}} {
+		assert.Equal(t, pace(d[0], d[1], false), pace(d[0], d[1], true), "whole stakes %v: fusion changes nothing", d)
+	}
+	assert.Equal(t, 1.077032961426901, pace(0.4, 1, false))
+	assert.Equal(t, 1.0770329614269007, pace(0.4, 1, true), "decimal stakes: the fused result differs")
+
+	// math/big: 100000007^2 needs 54 bits, 5001^2 needs 25 (float32 holds
+	// 24), 6^3 = 216 needs 5.
+	wide := new(big.Int).Exp(big.NewInt(100000007), big.NewInt(2), nil)
+	assert.Equal(t, 54, wide.BitLen()-int(wide.TrailingZeroBits()))
+	side := 100000007.0
+	assert.NotEqual(t, wide.String(), new(big.Float).SetFloat64(side*side).Text('f', 0), "the float64 product rounds")
+	narrow := new(big.Int).Exp(big.NewInt(5001), big.NewInt(2), nil)
+	assert.Equal(t, 25, narrow.BitLen()-int(narrow.TrailingZeroBits()))
+	cube := new(big.Int).Exp(big.NewInt(6), big.NewInt(3), nil)
+	assert.Equal(t, cube.String(), new(big.Float).SetFloat64(math.Pow(6, 3)).Text('f', 0))
 }

@@ -27,8 +27,28 @@ func Libm(c *ssa.CallCommon) bool {
 // Value reports whether v is computed the same way, bit for bit, on every
 // platform (see the package documentation).
 func (j *Judge) Value(v ssa.Value) bool {
-	return j.value(v, map[ssa.Value]bool{}, maxDepth)
+	return j.walk(nil).value(v, maxDepth)
 }
+
+// OnInputs reports whether v, a value of the function being read, is
+// computed the same way on every platform from the inputs it is given
+// there (see exact.go): a product whose operands make it exact cannot
+// change under fusion, and the functions v calls are read on the values
+// passed to them. It costs a reading per call, so callers ask it only
+// where Value says no.
+func (j *Judge) OnInputs(v ssa.Value) bool {
+	return j.walk(&site{shared: &reading{entered: map[ssa.Instruction]*site{}, written: map[*ssa.Alloc]bool{}}}).value(v, maxDepth)
+}
+
+// walk is one reading of values: seen holds the values judged or in
+// progress, at the inputs known (nil: none).
+type walk struct {
+	j    *Judge
+	seen map[ssa.Value]bool
+	at   *site
+}
+
+func (j *Judge) walk(at *site) *walk { return &walk{j, map[ssa.Value]bool{}, at} }
 
 // Body reports whether a function of this package computes its results
 // portably: its float results traced back, or, when a result is not a
@@ -38,51 +58,51 @@ func (j *Judge) Body(fn *ssa.Function) bool {
 	ok, done := j.bodies[fn]
 	if !done {
 		j.bodies[fn] = true // a recursive call is judged by the rest of the body
-		ok = j.body(fn, map[ssa.Value]bool{}, maxDepth)
+		ok = j.walk(nil).body(fn, maxDepth)
 		j.bodies[fn] = ok
 	}
 	return ok
 }
 
-func (j *Judge) value(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
+func (w *walk) value(v ssa.Value, depth int) bool {
 	v = provenance.Strip(v)
-	if ok, done := seen[v]; done {
+	if ok, done := w.seen[v]; done {
 		return ok // known, or in progress around a loop (assumed portable until shown otherwise)
 	}
-	seen[v] = true
-	ok := depth > 0 && j.step(v, seen, depth)
-	seen[v] = ok
+	w.seen[v] = true
+	ok := depth > 0 && w.step(v, depth)
+	w.seen[v] = ok
 	return ok
 }
 
 // step judges v by its operation and operands.
-func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
+func (w *walk) step(v ssa.Value, depth int) bool {
 	switch v := v.(type) {
 	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global:
 		return true
 	case *ssa.Alloc:
-		return j.filled(v, seen, depth)
+		return w.filled(v, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
 		for _, op := range v.(ssa.Instruction).Operands(nil) {
-			if *op != nil && !j.value(*op, seen, depth-1) {
+			if *op != nil && !w.value(*op, depth-1) {
 				return false
 			}
 		}
 		return true
 	case *ssa.BinOp:
-		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (j.fusable(v.X) || j.fusable(v.Y)) {
+		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (w.fusable(v.X) || w.fusable(v.Y)) {
 			return false // x*y ± z may be fused
 		}
-		return j.value(v.X, seen, depth-1) && j.value(v.Y, seen, depth-1)
+		return w.value(v.X, depth-1) && w.value(v.Y, depth-1)
 	case *ssa.Phi:
 		for _, e := range v.Edges {
-			if !j.value(e, seen, depth-1) {
+			if !w.value(e, depth-1) {
 				return false
 			}
 		}
 		return true
 	case *ssa.Call:
-		return j.call(v.Common(), seen, depth-1)
+		return w.call(v.Common(), depth-1)
 	}
 	return false
 }
@@ -92,18 +112,18 @@ func (j *Judge) step(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 // slices, interfaces) lead to data made elsewhere, and what calls given
 // its address do is not followed: both are judged as inputs are, like
 // parameters.
-func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool {
+func (w *walk) filled(addr ssa.Value, depth int) bool {
 	if depth <= 0 {
 		return false
 	}
 	for _, r := range *addr.Referrers() {
 		switch r := r.(type) {
 		case *ssa.Store:
-			if r.Addr == addr && provenance.HoldsFloat(r.Val.Type(), false) && !j.value(r.Val, seen, depth) {
+			if r.Addr == addr && provenance.HoldsFloat(r.Val.Type(), false) && !w.value(r.Val, depth) {
 				return false
 			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
-			if !j.filled(r.(ssa.Value), seen, depth) {
+			if !w.filled(r.(ssa.Value), depth) {
 				return false
 			}
 		}
@@ -111,7 +131,7 @@ func (j *Judge) filled(addr ssa.Value, seen map[ssa.Value]bool, depth int) bool 
 	return true
 }
 
-func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {
+func (w *walk) body(fn *ssa.Function, depth int) bool {
 	for _, b := range fn.Blocks {
 		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
 		if !ok {
@@ -119,9 +139,9 @@ func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool 
 		}
 		for _, r := range ret.Results {
 			if !provenance.IsFloat(r.Type()) {
-				return j.everyFloat(fn, seen, depth)
+				return w.everyFloat(fn, depth)
 			}
-			if !j.value(r, seen, depth) {
+			if !w.value(r, depth) {
 				return false
 			}
 		}
@@ -131,15 +151,15 @@ func (j *Judge) body(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool 
 
 // everyFloat reports whether every float fn computes, and every call it
 // makes (builtins aside), is portable.
-func (j *Judge) everyFloat(fn *ssa.Function, seen map[ssa.Value]bool, depth int) bool {
+func (w *walk) everyFloat(fn *ssa.Function, depth int) bool {
 	for _, b := range fn.Blocks {
 		for _, instr := range b.Instrs {
 			if call, ok := instr.(ssa.CallInstruction); ok {
-				if _, builtin := call.Common().Value.(*ssa.Builtin); !builtin && !j.call(call.Common(), seen, depth-1) {
+				if _, builtin := call.Common().Value.(*ssa.Builtin); !builtin && !w.call(call.Common(), depth-1) {
 					return false
 				}
 			}
-			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && !j.value(v, seen, depth) {
+			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && !w.value(v, depth) {
 				return false
 			}
 		}
@@ -151,12 +171,12 @@ func (j *Judge) everyFloat(fn *ssa.Function, seen map[ssa.Value]bool, depth int)
 // or correctly rounded math function, a function of this package whose
 // body is portable, or one of another package with the fact; and its
 // arguments are portable.
-func (j *Judge) call(call *ssa.CallCommon, seen map[ssa.Value]bool, depth int) bool {
-	if depth <= 0 || !j.callee(call) {
+func (w *walk) call(call *ssa.CallCommon, depth int) bool {
+	if depth <= 0 || !w.callee(call, depth) {
 		return false
 	}
 	for _, a := range call.Args {
-		if !j.value(a, seen, depth) {
+		if !w.value(a, depth) {
 			return false
 		}
 	}
@@ -165,7 +185,7 @@ func (j *Judge) call(call *ssa.CallCommon, seen map[ssa.Value]bool, depth int) b
 
 // callee reports whether the function a call names is portable. The
 // builtins (len, min, max, real, complex...) do not round.
-func (j *Judge) callee(call *ssa.CallCommon) bool {
+func (w *walk) callee(call *ssa.CallCommon, depth int) bool {
 	if _, ok := call.Value.(*ssa.Builtin); ok {
 		return true
 	}
@@ -173,7 +193,7 @@ func (j *Judge) callee(call *ssa.CallCommon) bool {
 	case provenance.Exact:
 		return true
 	case provenance.Rounds:
-		return correctlyRounded[call.StaticCallee().Name()]
+		return correctlyRounded[call.StaticCallee().Name()] || w.at.exactPow(call)
 	}
 	fn := call.StaticCallee()
 	if fn == nil {
@@ -182,20 +202,22 @@ func (j *Judge) callee(call *ssa.CallCommon) bool {
 	if fn.Origin() != nil {
 		fn = fn.Origin()
 	}
-	if fn.Package() != nil && fn.Package().Pkg == j.pass.Pkg {
-		return fn.Blocks != nil && j.Body(fn)
+	if fn.Package() != nil && fn.Package().Pkg == w.j.pass.Pkg {
+		return fn.Blocks != nil && (w.j.Body(fn) || w.at.enter(w.j, call, fn, depth))
 	}
 	obj := fn.Object()
-	return obj != nil && j.pass.ImportObjectFact(obj, new(Fact))
+	return obj != nil && w.j.pass.ImportObjectFact(obj, new(Fact))
 }
 
 // fusable reports whether v is a float product not wrapped in an explicit
 // float conversion, which the Go spec says rounds it ("Arithmetic
 // operators": an explicit floating-point type conversion rounds to the
-// precision of the target type, preventing fusion).
-func (j *Judge) fusable(v ssa.Value) bool {
+// precision of the target type, preventing fusion), and not exact on the
+// inputs known: fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019
+// §5.4.1), which for an exact product is the rounding of the separate add.
+func (w *walk) fusable(v ssa.Value) bool {
 	b, ok := provenance.Strip(v).(*ssa.BinOp)
-	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !j.convertedProducts()[b.Pos()]
+	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !w.j.convertedProducts()[b.Pos()] && !w.at.exact(b)
 }
 
 // convertedProducts returns, by operator position, the products of the

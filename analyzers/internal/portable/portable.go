@@ -20,6 +20,14 @@
 // functions that are themselves portable; a call through an interface or
 // a function value is unknown, hence not portable.
 //
+// Judge.OnInputs reads a value further, on the inputs its function gives
+// the calls it makes (exact.go): a product added to another value is
+// portable when its operands, as the call site gives them, make it exact,
+// since fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019 §5.4.1) and
+// for an exact x*y that is the rounding of the separate addition; and
+// math.Pow of such a value to a whole constant power is portable when its
+// result is representable.
+//
 // The per-package work is done only where a package declares a function
 // with float results, and never for the standard library, whose math
 // functions are judged from a table.

@@ -51,6 +51,7 @@ const (
 	catRoundTrip = "roundtrip"
 	catSplit     = "split"
 	catBigFloat  = "bigfloat"
+	catMoments   = "moments"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -77,6 +78,8 @@ type checker struct {
 
 	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
 	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
+	bodies   map[*types.Func]ast.Expr    // the package's one-line functions and what they return, by oneLiner
+	used     map[string]bool             // math functions the package calls, by uses
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -97,10 +100,12 @@ func run(pass *analysis.Pass) (any, error) {
 			case *ast.BinaryExpr:
 				switch n.Op {
 				case token.SUB:
+					c.gammaMoments(cur, n)
 					c.difference(cur, n)
 					c.roundTrip(cur, n)
 					c.splitReduction(cur, n)
 				case token.ADD:
+					c.gammaMoments(cur, n)
 					c.roundTrip(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)

@@ -62,6 +62,17 @@
 //     negative; accumulate squared deviations from the mean (two passes
 //     or Welford's update). An accumulator of squared deviations
 //     ((x-m)*(x-m)) is the accurate two-pass form and is left alone;
+//   - a sum of terms of both signs, each a constant times a product of
+//     powers of math.Gamma(1 + c/v) with one and the same v (also through
+//     the package's own one-line functions): the central moments of a
+//     distribution of shape v from its raw moments, such as the variance
+//     Γ(1+2/v) - Γ(1+1/v)². Every factor tends to Γ(1) = 1 as v grows, so
+//     each term is about its coefficient and rounded at that size, while
+//     the sum shrinks like a power of 1/v ((π²/6)/v² for the variance):
+//     about 2·log10(v) digits go and from v ≈ 1e8 none are left; the
+//     series ln Γ(1+z) = -γz + Σ (-1)^k ζ(k) z^k/k in z = 1/v has no
+//     cancellation. Terms that only add, and Gamma values of two
+//     different shapes, are left alone;
 //   - 1-math.Cos(x) and math.Cos(x)-1: cos(x) rounds to 1 for |x| below
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a

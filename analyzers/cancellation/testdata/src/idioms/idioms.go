@@ -162,3 +162,13 @@ func constantLogSumExp() float64 {
 func impureSquares(next func() float64) float64 {
 	return math.Sqrt(next()*next() + 1) // next() may differ between calls: not one value squared
 }
+
+// Raw-moment terms that only add, or Gamma values of unrelated arguments,
+// cancel nothing: the sum is at least as large as its terms.
+func secondRawMoment(shape, scale float64) float64 {
+	return scale * scale * (math.Gamma(1+2/shape) + math.Gamma(1+1/shape)*math.Gamma(1+1/shape))
+}
+
+func gammaGap(a, b float64) float64 {
+	return math.Gamma(1+1/a) - math.Gamma(1+1/b) // two shapes: not the moments of one distribution
+}

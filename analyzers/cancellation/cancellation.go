@@ -36,22 +36,23 @@ var Analyzer = &analysis.Analyzer{
 
 // Categories of diagnostics, one per rewrite.
 const (
-	catLog1p     = "log1p"
-	catExpm1     = "expm1"
-	catCosine    = "cosine"
-	catHypot     = "hypot"
-	catLogSumExp = "logsumexp"
-	catRadical   = "radical"
-	catArc       = "arc"
-	catSquares   = "squares"
-	catTail      = "tail"
-	catVariance  = "variance"
-	catDivided   = "divided"
-	catShare     = "share"
-	catRoundTrip = "roundtrip"
-	catSplit     = "split"
-	catBigFloat  = "bigfloat"
-	catMoments   = "moments"
+	catLog1p      = "log1p"
+	catExpm1      = "expm1"
+	catCosine     = "cosine"
+	catHypot      = "hypot"
+	catLogSumExp  = "logsumexp"
+	catRadical    = "radical"
+	catArc        = "arc"
+	catSquares    = "squares"
+	catTail       = "tail"
+	catVariance   = "variance"
+	catDivided    = "divided"
+	catShare      = "share"
+	catRoundTrip  = "roundtrip"
+	catSplit      = "split"
+	catBigFloat   = "bigfloat"
+	catMoments    = "moments"
+	catGammaRatio = "gammaratio"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -79,6 +80,7 @@ type checker struct {
 	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
 	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
 	bodies   map[*types.Func]ast.Expr    // the package's one-line functions and what they return, by oneLiner
+	lgammas  map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
 	used     map[string]bool             // math functions the package calls, by uses
 }
 
@@ -100,12 +102,12 @@ func run(pass *analysis.Pass) (any, error) {
 			case *ast.BinaryExpr:
 				switch n.Op {
 				case token.SUB:
-					c.gammaMoments(cur, n)
+					c.sums(cur, n)
 					c.difference(cur, n)
 					c.roundTrip(cur, n)
 					c.splitReduction(cur, n)
 				case token.ADD:
-					c.gammaMoments(cur, n)
+					c.sums(cur, n)
 					c.roundTrip(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)

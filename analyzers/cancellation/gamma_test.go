@@ -32,3 +32,20 @@ func TestGammaMomentsLoss(t *testing.T) {
 		}
 	}
 }
+
+// TestLgammaRatioLoss checks the absolute error the gammaratio rule quotes,
+// about u·x·ln x: log Γ(n+1) - log Γ(n-2) against log n + log(n-1) +
+// log(n-2), the same value by Γ(x+1) = x·Γ(x) (Abramowitz and Stegun
+// 6.1.15), whose three logarithms are each within an ulp.
+func TestLgammaRatioLoss(t *testing.T) {
+	const u = 0x1p-53
+	for _, n := range []float64{1e9, 1e12} {
+		a, _ := math.Lgamma(n + 1)
+		c, _ := math.Lgamma(n - 2)
+		ref := math.Log(n) + math.Log(n-1) + math.Log(n-2)
+		want := u * n * math.Log(n)
+		if e := math.Abs(a - c - ref); e < want/10 || e > 10*want {
+			t.Errorf("n = %g: absolute error %g, want within a factor 10 of u·n·ln n = %g", n, e, want)
+		}
+	}
+}

@@ -77,11 +77,13 @@ type checker struct {
 	abs   *absval.Known             // absolute-value functions, by meaning
 	acc   *accumulation             // how variables are updated, scanned when first needed
 
-	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
-	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
-	bodies   map[*types.Func]ast.Expr    // the package's one-line functions and what they return, by oneLiner
-	lgammas  map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
-	used     map[string]bool             // math functions the package calls, by uses
+	wrappers  map[*types.Func]string      // the package's own wrappers of math functions, by mathName
+	fields    map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
+	bodies    map[*types.Func]ast.Expr    // the package's one-line functions and what they return, by oneLiner
+	lgammas   map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
+	unbounded map[types.Object]bool       // fields the package takes as unbounded, by unboundedData
+	selectors map[*types.Func]bool        // the package's functions that return one of their parameters
+	used      map[string]bool             // math functions the package calls, by uses
 }
 
 func run(pass *analysis.Pass) (any, error) {

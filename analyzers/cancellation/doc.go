@@ -90,13 +90,19 @@
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
 //     subtraction;
-//   - math.Sqrt(x*x+y*y), the same x and y squared, where an operand is
-//     computed by an operation that reaches such magnitudes from ordinary
-//     inputs (a quotient by a variable, an exponential, power, gamma,
-//     tangent or hyperbolic function, a constant beyond 1e100): the
-//     squares overflow to +Inf once |x| or |y| exceeds 1.34e154 and become
+//   - math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z), the same operands
+//     squared, where an operand is computed by an operation that reaches
+//     such magnitudes from ordinary inputs (a quotient by a variable, an
+//     exponential, power, gamma, tangent or hyperbolic function, a
+//     constant beyond 1e100), or is made of fields the package itself
+//     takes as unbounded: fields it tests with math.IsInf (a validation
+//     that rejects only non-finite values, so every finite value is an
+//     input) or passes to math.Hypot elsewhere, also through differences,
+//     variables and maxima (math.Max, a max of the package's own). The
+//     squares overflow to +Inf once an operand exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
-//     math.Hypot(x, y) scales instead;
+//     math.Hypot(x, y) scales instead (for three operands, divide by the
+//     largest magnitude first);
 //   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
 //     function and p is not a constant (a p-norm): the powers overflow
 //     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30
@@ -243,14 +249,16 @@
 // it or its absolute value, as scaled rotations do, and when the result
 // feeds math.Exp, Cosh, Sinh or Gamma, which overflow long before the
 // squares; for squares of data (parameters, fields, coordinates and their
-// differences), which reach 1e154 only if the data do, and physical and
-// geometric data do not; and where both operands are bounded by
-// construction (sines,
+// differences) that the package does not declare unbounded, which reach
+// 1e154 only if the data do, and physical and geometric data do not; for
+// a quotient whose variable an enclosing condition compares (the
+// parameter of a projection after if t <= 0 { return }); and where all
+// operands are bounded by construction (sines,
 // cosines, components of a unit vector a/math.Hypot(a, b), sums and
 // products of those): there nothing overflows, and math.Hypot is less
 // accurate on average (0.35 against 0.17 ulp over a million random pairs).
 // Look-alikes that lose nothing are left alone: math.Log(2+x),
-// math.Log(x-1), math.Exp(x)-2, x*x+y*y+z*z, and code already in the
+// math.Log(x-1), math.Exp(x)-2, and code already in the
 // accurate form. math.Pow(x, 0.5) and math.Pow(x, 2) are not reported: the
 // math package computes the first as math.Sqrt(x) and the second, in the
 // normal range, with the same single rounding as x*x, so they cost time

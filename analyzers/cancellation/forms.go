@@ -705,11 +705,16 @@ func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr)
 // by a variable (which may be small), an exponential, power, gamma,
 // tangent or hyperbolic function, or a constant already out there;
 // directly, through sums, products and signs, or through never-reassigned
-// variables. Squares of data (coordinates, differences, fields) reach
+// variables, unless an enclosing condition at cur compares a variable on
+// the way (if r <= 0 { return }; if r >= 1 { return }). Squares of data
+// (coordinates, differences, fields) reach
 // those magnitudes only if the data do, which physical and geometric data
 // do not; there math.Hypot would only cost accuracy (0.35 against 0.17 ulp
 // on average).
-func (c *checker) farReaching(e ast.Expr, depth int) bool {
+func (c *checker) farReaching(cur inspector.Cursor, e ast.Expr, depth int) bool {
+	if _, isIdent := ast.Unparen(e).(*ast.Ident); isIdent && c.guarded(cur, e, c.compares) {
+		return false // a variable whose range an enclosing condition checked
+	}
 	e, _ = c.through(e)
 	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
 		f, _ := constant.Float64Val(constant.ToFloat(v))
@@ -726,12 +731,12 @@ func (c *checker) farReaching(e ast.Expr, depth int) bool {
 		}
 		return c.mathFunc2(e) == "Pow" || c.mathFunc2(e) == "Ldexp"
 	case *ast.UnaryExpr:
-		return c.farReaching(e.X, depth-1)
+		return c.farReaching(cur, e.X, depth-1)
 	case *ast.BinaryExpr:
 		if e.Op == token.QUO && !c.isConst(e.Y) {
 			return true
 		}
-		return c.farReaching(e.X, depth-1) || c.farReaching(e.Y, depth-1)
+		return c.farReaching(cur, e.X, depth-1) || c.farReaching(cur, e.Y, depth-1)
 	}
 	return false
 }

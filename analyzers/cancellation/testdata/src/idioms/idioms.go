@@ -192,3 +192,27 @@ func reassignedLogGamma(n, k float64) float64 {
 	}
 	return hi - lo // lo is assigned twice: not read as a log-gamma value
 }
+
+// plot is a sample position the package never validates or passes to
+// math.Hypot: data of a physical range, squared far from overflow.
+type plot struct{ x, y, z float64 }
+
+func spacing(a, b plot) float64 {
+	dx, dy, dz := b.x-a.x, b.y-a.y, b.z-a.z
+	return math.Sqrt(dx*dx + dy*dy + dz*dz)
+}
+
+// nearestOnSegment projects p on the segment a-b: the parameter t is a
+// quotient, but the early returns keep it in (0, 1).
+func nearestOnSegment(p, a, b plot, den float64) float64 {
+	t := ((p.x-a.x)*(b.x-a.x) + (p.y-a.y)*(b.y-a.y)) / den
+	if t <= 0 {
+		return spacing(p, a)
+	}
+	if t >= 1 {
+		return spacing(p, b)
+	}
+	qx, qy, qz := a.x+t*(b.x-a.x), a.y+t*(b.y-a.y), a.z+t*(b.z-a.z)
+	ex, ey, ez := p.x-qx, p.y-qy, p.z-qz
+	return math.Sqrt(ex*ex + ey*ey + ez*ez)
+}

@@ -292,10 +292,12 @@ func (c *checker) wholeNumber(e ast.Expr) bool {
 // when its argument x is small can reach a result: x may be small (it is
 // not a constant, a whole number or a uniform random draw, and no
 // enclosing condition keeps it away from zero), and the value is not added
-// to another term, which hides a relative error in a small value.
+// to another term, which hides a relative error in a small value, nor only
+// the slope of a Newton update of x (newtonSlope), which the root does not
+// depend on.
 func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
-		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero)
+		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x)
 }
 
 // addend reports whether the value at cur, carried through products,

@@ -200,7 +200,11 @@
 // sum too: a constant of at least 100 in magnitude (two digits of the
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
-// data. The cosine rule leaves alone an angle built from constants and
+// data. Nor is the slope of a Newton update of a variable the argument
+// mentions (slope := 1 - math.Cos(t); t -= resid/slope, the step perhaps
+// also compared in a stopping test): the iteration stops where the
+// residual vanishes, a point the slope does not move, so a relative
+// error in it only lengthens or shortens the steps. The cosine rule leaves alone an angle built from constants and
 // whole numbers by products and quotients (2πi/(n-1) of a window, a
 // quarter turn over a segment count), also through a field of the
 // package every assignment of which is such an angle: it is 0 or at least |c|/n, cos rounds

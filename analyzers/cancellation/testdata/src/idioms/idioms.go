@@ -216,3 +216,20 @@ func nearestOnSegment(p, a, b plot, den float64) float64 {
 	ex, ey, ez := p.x-qx, p.y-qy, p.z-qz
 	return math.Sqrt(ex*ex + ey*ey + ez*ez)
 }
+
+// excessGrowth solves e^t - 1 - t = a by Newton's method. The slope
+// e^t - 1 loses digits for small t, but it only sets the length of each
+// step: the root is where the residual vanishes.
+func excessGrowth(a float64) float64 {
+	t := math.Sqrt(2 * a)
+	for range 30 {
+		resid := math.Expm1(t) - t - a
+		slope := math.Exp(t) - 1
+		step := resid / slope
+		t -= step
+		if math.Abs(step) < 1e-15*t {
+			break
+		}
+	}
+	return t
+}

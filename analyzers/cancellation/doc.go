@@ -82,8 +82,9 @@
 //     about (x-y)·ln x, so about log10(x/|x-y|) digits go, and the
 //     absolute error u·x·ln x, which exponentiating turns into a relative
 //     one, is 1.5e-9 at x = 1e6 and 3e-3 at 1e12. It is left alone where
-//     another term of the sum has a coefficient (a factor other than a
-//     call) containing the shared term, ((v+1)/2)·log(1+z²/v) in a
+//     another term of the sum, or of a sum its value joins through a
+//     variable, has a coefficient (a factor other than a call) containing
+//     the shared term, ((v+1)/2)·log(1+z²/v) in a
 //     log-density: that term already carries an absolute error of about
 //     u·|v|, and the difference adds only a factor ln v to it;
 //   - 1-math.Cos(x) and math.Cos(x)-1: cos(x) rounds to 1 for |x| below

@@ -34,7 +34,7 @@ func (c *checker) sums(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.gammaMoments(n, terms)
 	}
 	if lgamma {
-		c.lgammaRatio(n, terms)
+		c.lgammaRatio(n, terms, c.laterTerms(cur))
 	}
 }
 
@@ -75,7 +75,7 @@ func (c *checker) gammaMoments(n *ast.BinaryExpr, terms []signedTerm) {
 // so about log10(x/|x-y|) digits are lost, and the absolute error
 // u·x·ln x, which the exponential of the log-ratio turns into a relative
 // one, is 1.5e-9 at x = 1e6 and 3e-3 at 1e12.
-func (c *checker) lgammaRatio(n *ast.BinaryExpr, terms []signedTerm) {
+func (c *checker) lgammaRatio(n *ast.BinaryExpr, terms, later []signedTerm) {
 	for _, p := range terms {
 		x, ok := c.lgammaArg(p.e)
 		if !ok || p.sign < 0 {
@@ -86,7 +86,7 @@ func (c *checker) lgammaRatio(n *ast.BinaryExpr, terms []signedTerm) {
 			if !ok || q.sign > 0 {
 				continue
 			}
-			if common := c.sharedTerm(x, y); common != nil && !c.termScaledBy(terms, common) {
+			if common := c.sharedTerm(x, y); common != nil && !c.termScaledBy(terms, common) && !c.termScaledBy(later, common) {
 				fixes.Report(c.pass, analysis.Diagnostic{
 					Pos: n.Pos(), End: n.End(), Category: catGammaRatio,
 					Message: fmt.Sprintf("math.Lgamma(x) - math.Lgamma(y)%s, arguments with a common part: each value is about x·ln x and rounded at that size (u = %.3g), while the difference, the log of Γ(x)/Γ(y), is about (x-y)·ln x, so about log10(x/|x-y|) digits go and the absolute error reaches %.2g at x = 1e6 and %.2g at 1e12; for large x sum the log terms of the ratio or use Stirling's series for the difference",
@@ -159,7 +159,9 @@ func (c *checker) sharedTerm(x, y ast.Expr) ast.Expr {
 	}
 	for _, a := range c.addTerms(x, 1, nil) {
 		for _, b := range c.addTerms(y, 1, nil) {
-			if a.sign == b.sign && !c.isConst(a.e) && same(a.e, b.e) {
+			ta, _ := c.through(a.e)
+			tb, _ := c.through(b.e)
+			if a.sign == b.sign && !c.isConst(ta) && same(ta, tb) {
 				return a.e
 			}
 		}
@@ -220,6 +222,32 @@ func (c *checker) uses(path, name string) bool {
 	}
 	c.used[key] = false
 	return false
+}
+
+// laterTerms returns the terms of the sums that the value of the sum at
+// cur joins through the variable it is assigned to (t1 := a - b; return
+// t1 - k*c gives t1 and k*c), or nil.
+func (c *checker) laterTerms(cur inspector.Cursor) []signedTerm {
+	fn, ok := enclosingFunc(cur)
+	if _, isAssign := cur.Parent().Node().(*ast.AssignStmt); !ok || !isAssign {
+		return nil
+	}
+	var terms []signedTerm
+	for _, use := range c.valueSites(fn, cur) {
+		top := use
+		for {
+			p, isSum := top.Parent().Node().(*ast.BinaryExpr)
+			_, isParen := top.Parent().Node().(*ast.ParenExpr)
+			if !isParen && (!isSum || p.Op != token.ADD && p.Op != token.SUB) {
+				break
+			}
+			top = top.Parent()
+		}
+		if top != use {
+			terms = c.addTerms(top.Node().(ast.Expr), 1, terms)
+		}
+	}
+	return terms
 }
 
 // signedTerm is a term of a sum and the sign it enters with.

@@ -233,3 +233,10 @@ func excessGrowth(a float64) float64 {
 	}
 	return t
 }
+
+func logDensityParts(v, q float64) float64 {
+	h1, _ := math.Lgamma((v + 3) / 2)
+	h0, _ := math.Lgamma(v / 2)
+	norm := h1 - h0 - 1.5*math.Log(v)
+	return norm - ((v+3)/2)*math.Log1p(q/v) // the term's coefficient grows with v as well
+}

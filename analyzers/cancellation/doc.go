@@ -30,8 +30,9 @@
 //     constant: a^b is near 1 when b·ln a is small (a short time step, a
 //     small probability over n trials); math.Expm1(b*math.Log(a));
 //   - u + math.Sqrt(u*u+c) and its mirror images (the quadratic formula's
-//     -b + math.Sqrt(b*b-4*a*c), math.Sqrt(r*r+k) - r) when the sign of u
-//     is not known: for the sign that makes the terms subtract the result
+//     -b + math.Sqrt(b*b-4*a*c), math.Sqrt(r*r+k) - r, and a radicand
+//     formed by the package's own dot product with u·u among its terms,
+//     dot3(b, a, 0, b, -c, 0)) when the sign of u is not known: for the sign that makes the terms subtract the result
 //     is about |c|/(2|u|) with relative error about 2u·u²/|c|;
 //     math.Log(x + math.Sqrt(x*x+1)) is -Inf from x ≈ -1.34e8, where
 //     math.Asinh(x) is exact to an ulp;

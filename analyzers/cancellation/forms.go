@@ -133,7 +133,8 @@ func (c *checker) parentCall(cur inspector.Cursor) (*ast.CallExpr, bool) {
 }
 
 // rootSum reads n as ±u ± math.Sqrt(u*u ± c), directly or through
-// never-reassigned variables, and returns u and c.
+// never-reassigned variables, the radicand perhaps a call of the package's
+// own dot product with u·u among its terms, and returns u and c.
 func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 	if n.Op != token.ADD && n.Op != token.SUB {
 		return nil, nil, false
@@ -148,13 +149,18 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 			continue
 		}
 		arg, _ := c.through(call.Args[0])
-		sum, ok := arg.(*ast.BinaryExpr)
-		if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
-			continue
-		}
 		other := pair[0]
 		if neg, ok := ast.Unparen(other).(*ast.UnaryExpr); ok && neg.Op == token.SUB {
 			other = neg.X
+		}
+		if dot, isCall := arg.(*ast.CallExpr); isCall && fixes.Pure(c.pass.TypesInfo, other) {
+			if rest, ok := c.dotSquare(dot, other); ok {
+				return other, rest, true // the package's dot product with u·u among its terms
+			}
+		}
+		sum, ok := arg.(*ast.BinaryExpr)
+		if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
+			continue
 		}
 		for _, sq := range [][2]ast.Expr{{sum.X, sum.Y}, {sum.Y, sum.X}} {
 			if x, isSquare := c.square(sq[0]); isSquare && same(x, other) && (sum.Op == token.ADD || sq[0] == sum.X) {

@@ -395,3 +395,13 @@ func (t *tally) redo(xs []float64) {
 		t.total += x
 	}
 }
+
+func pairSum(a1, a2, b1, b2 float64) float64 {
+	return a1*b1 + a2*b2
+}
+
+// farRoot adds the root to |h|: the terms never subtract.
+func farRoot(h, a, k float64) float64 {
+	m := math.Abs(h)
+	return (m + math.Sqrt(pairSum(m, a, m, -k))) / a
+}

@@ -79,7 +79,7 @@ type checker struct {
 
 	wrappers  map[*types.Func]string      // the package's own wrappers of math functions, by mathName
 	fields    map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
-	bodies    map[*types.Func]ast.Expr    // the package's one-line functions and what they return, by oneLiner
+	bodies    map[*types.Func]ast.Expr    // what the package's functions return, by returned
 	lgammas   map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
 	unbounded map[types.Object]bool       // fields the package takes as unbounded, by unboundedData
 	selectors map[*types.Func]bool        // the package's functions that return one of their parameters

@@ -65,7 +65,7 @@
 //     ((x-m)*(x-m)) is the accurate two-pass form and is left alone;
 //   - a sum of terms of both signs, each a constant times a product of
 //     powers of math.Gamma(1 + c/v) with one and the same v (also through
-//     the package's own one-line functions): the central moments of a
+//     what the package's own functions return): the central moments of a
 //     distribution of shape v from its raw moments, such as the variance
 //     Γ(1+2/v) - Γ(1+1/v)². Every factor tends to Γ(1) = 1 as v grows, so
 //     each term is about its coefficient and rounded at that size, while
@@ -104,7 +104,10 @@
 //     squares overflow to +Inf once an operand exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
 //     math.Hypot(x, y) scales instead (for three operands, divide by the
-//     largest magnitude first);
+//     largest magnitude first). The same holds for math.Sqrt(v.Dot(v)),
+//     also through what the package's functions return
+//     (math.Sqrt(w.lengthSq())), where Dot sums products of the same such
+//     fields of its receiver and parameter;
 //   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
 //     function and p is not a constant (a p-norm): the powers overflow
 //     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30

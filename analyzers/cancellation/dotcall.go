@@ -9,11 +9,10 @@ import (
 )
 
 // dotPairs reads call as a call of the package's own dot-product
-// function, one whose body only returns a sum of products of its
-// parameters (func dot3(x0, y0, z0, x1, y1, z1 float64) float64 { return
+// function, one that returns a sum of products of its parameters (func dot3(x0, y0, z0, x1, y1, z1 float64) float64 { return
 // x0*x1 + y0*y1 + z0*z1 }), and returns the pairs of arguments multiplied.
 func (c *checker) dotPairs(call *ast.CallExpr) ([][2]ast.Expr, bool) {
-	body := c.oneLiner(call)
+	body := c.returned(call)
 	if body == nil {
 		return nil, false
 	}

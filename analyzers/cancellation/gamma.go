@@ -40,7 +40,7 @@ func (c *checker) sums(cur inspector.Cursor, n *ast.BinaryExpr) {
 
 // gammaMoments reports a sum of at least two terms, of both signs, each a
 // constant times a product of powers of math.Gamma(1 + c/v) with one and
-// the same v (directly or through the package's own one-line functions):
+// the same v (directly or through what the package's own functions return):
 // the raw moments of a distribution with shape v, such as the variance
 // Γ(1+2/v) - Γ(1+1/v)². Every factor tends to Γ(1) = 1 as v grows, so
 // every term is about its coefficient and carries a rounding of that
@@ -279,7 +279,7 @@ func (c *checker) addTerms(e ast.Expr, sign int, acc []signedTerm) []signedTerm 
 // gammaTerm reads e as a constant times a product of powers of
 // math.Gamma(1 + c/v), and returns the object of v (nil where there is no
 // Gamma factor) and the sign of the constant. It reads through the
-// package's own functions whose body only returns such a product, depth
+// package's own functions that return such a product (returned), depth
 // calls deep.
 func (c *checker) gammaTerm(e ast.Expr, depth int) (key types.Object, sign int, ok bool) {
 	e = ast.Unparen(e)
@@ -312,7 +312,7 @@ func (c *checker) gammaTerm(e ast.Expr, depth int) (key types.Object, sign int, 
 			k := c.nearOne(e.Args[0])
 			return k, 1, k != nil
 		}
-		if body := c.oneLiner(e); body != nil && depth > 0 {
+		if body := c.returned(e); body != nil && depth > 0 {
 			return c.gammaTerm(body, depth-1)
 		}
 	}
@@ -348,33 +348,53 @@ func (c *checker) nearOne(arg ast.Expr) types.Object {
 	return nil
 }
 
-// oneLiner returns the expression that the package's own function or
-// method that call calls only returns, or nil.
-func (c *checker) oneLiner(call *ast.CallExpr) ast.Expr {
+// returned returns the value that the package's own function or method
+// that call calls returns, where its one return statement ends its body
+// (a one-line function, or a few assignments and a return), or nil.
+func (c *checker) returned(call *ast.CallExpr) ast.Expr {
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
 	if !ok || fn.Pkg() != c.pass.Pkg {
 		return nil
 	}
 	if c.bodies == nil {
-		c.bodies = oneLinersOf(c.pass)
+		c.bodies = returnsOf(c.pass)
 	}
 	return c.bodies[fn]
 }
 
-// oneLinersOf maps each function and method of the package whose body is
-// a single return of one value to that value.
-func oneLinersOf(pass *analysis.Pass) map[*types.Func]ast.Expr {
+// returnsOf maps each function and method of the package whose body
+// holds one return statement, of one value, as its last statement to that
+// value.
+func returnsOf(pass *analysis.Pass) map[*types.Func]ast.Expr {
 	m := make(map[*types.Func]ast.Expr)
 	for _, f := range pass.Files {
 		for _, d := range f.Decls {
 			fd, ok := d.(*ast.FuncDecl)
-			if !ok || fd.Body == nil || len(fd.Body.List) != 1 {
+			if !ok || fd.Body == nil || len(fd.Body.List) == 0 {
 				continue
 			}
-			if ret, ok := fd.Body.List[0].(*ast.ReturnStmt); ok && len(ret.Results) == 1 {
-				m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = ret.Results[0]
+			ret, ok := fd.Body.List[len(fd.Body.List)-1].(*ast.ReturnStmt)
+			if !ok || len(ret.Results) != 1 || countReturns(fd.Body) != 1 {
+				continue
 			}
+			m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = ret.Results[0]
 		}
 	}
 	return m
+}
+
+// countReturns counts the return statements of body, those of function
+// literals aside.
+func countReturns(body *ast.BlockStmt) int {
+	n := 0
+	ast.Inspect(body, func(node ast.Node) bool {
+		switch node.(type) {
+		case *ast.FuncLit:
+			return false
+		case *ast.ReturnStmt:
+			n++
+		}
+		return true
+	})
+	return n
 }

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -122,6 +123,7 @@ func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.Call
 func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 	ops, ok := c.squaresOf(call.Args[0])
 	if !ok {
+		c.selfDotLength(call)
 		return // not a sum of two or three squares
 	}
 	reach, bounded := false, true
@@ -156,6 +158,32 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 		Message: fmt.Sprintf("math.Sqrt(x*x+y*y)%s overflows to +Inf once |x| or |y| exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot(x, y)",
 			binding("xy", x, y), squareMax, squareNormal),
 	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+}
+
+// selfDotLength reports math.Sqrt(v.Dot(v)), also through what the
+// package's functions return (math.Sqrt(w.lengthSq())), where Dot sums
+// products of fields the package takes as unbounded (unboundedData): the
+// squares overflow as in math.Sqrt(x*x+y*y).
+func (c *checker) selfDotLength(call *ast.CallExpr) {
+	fields, ok := c.selfDotFields(call.Args[0], 3)
+	if !ok {
+		return
+	}
+	if c.unbounded == nil {
+		c.unbounded = c.unboundedFields()
+	}
+	var names []string
+	for _, f := range fields {
+		if !c.unbounded[f] {
+			return
+		}
+		names = append(names, f.Name())
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catHypot,
+		Message: fmt.Sprintf("math.Sqrt of a vector's dot product with itself (fields %s, which the package takes as unbounded) overflows to +Inf once a component exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot of the components",
+			strings.Join(names, ", "), squareMax, squareNormal),
+	})
 }
 
 // squaresOf returns the operands of e when it is a sum of two or three

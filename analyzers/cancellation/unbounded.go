@@ -143,3 +143,66 @@ func (c *checker) unboundedFields() map[types.Object]bool {
 	}
 	return m
 }
+
+// selfDotFields reads e, through never-reassigned variables and what the
+// package's functions return (returned), as v.Dot(v) for a method whose
+// value is a sum of products of the same fields of its receiver and its
+// parameter (w.X*o.X + w.Y*o.Y), and returns those fields.
+func (c *checker) selfDotFields(e ast.Expr, depth int) ([]types.Object, bool) {
+	e, _ = c.through(e)
+	call, ok := e.(*ast.CallExpr)
+	if !ok || depth == 0 {
+		return nil, false
+	}
+	if sel, isSel := ast.Unparen(call.Fun).(*ast.SelectorExpr); isSel && len(call.Args) == 1 && same(sel.X, call.Args[0]) {
+		if fields, ok := c.fieldProducts(call); ok {
+			return fields, true
+		}
+	}
+	body := c.returned(call)
+	if body == nil {
+		return nil, false
+	}
+	return c.selfDotFields(body, depth-1)
+}
+
+// fieldProducts reads the method that call calls as one returning a sum
+// of products r.F*p.F of the same field F of its receiver r and its one
+// parameter p, and returns the fields.
+func (c *checker) fieldProducts(call *ast.CallExpr) ([]types.Object, bool) {
+	body := c.returned(call)
+	fn, _ := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	if body == nil || fn == nil {
+		return nil, false
+	}
+	sig := fn.Type().(*types.Signature)
+	if sig.Recv() == nil || sig.Params().Len() != 1 {
+		return nil, false
+	}
+	recv, param := sig.Recv(), sig.Params().At(0)
+	field := func(e ast.Expr, v *types.Var) types.Object {
+		sel, ok := ast.Unparen(e).(*ast.SelectorExpr)
+		if !ok {
+			return nil
+		}
+		id, ok := ast.Unparen(sel.X).(*ast.Ident)
+		s := c.pass.TypesInfo.Selections[sel]
+		if !ok || c.pass.TypesInfo.Uses[id] != v || s == nil || s.Kind() != types.FieldVal {
+			return nil
+		}
+		return s.Obj()
+	}
+	var fields []types.Object
+	for _, t := range c.addTerms(body, 1, nil) {
+		m, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
+		if !ok || m.Op != token.MUL || t.sign < 0 {
+			return nil, false
+		}
+		f := field(m.X, recv)
+		if f == nil || f != field(m.Y, param) {
+			return nil, false
+		}
+		fields = append(fields, f)
+	}
+	return fields, len(fields) > 1
+}

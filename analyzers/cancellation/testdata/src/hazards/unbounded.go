@@ -43,3 +43,15 @@ func slant(a, b station) (float64, float64) {
 	_ = math.Hypot(flat, du)
 	return flat, math.Sqrt(de*de + dn*dn + du*du) // want `math.Sqrt\(x\*x\+y\*y\+z\*z\) with x = de, y = dn, z = du overflows to \+Inf once \|x\|, \|y\| or \|z\| exceeds 1.34e\+154`
 }
+
+func (s station) dot(o station) float64 {
+	return s.east*o.east + s.north*o.north
+}
+
+func (s station) normSq() float64 {
+	return s.dot(s)
+}
+
+func (s station) norm() float64 {
+	return math.Sqrt(s.normSq()) // want `math.Sqrt of a vector's dot product with itself \(fields east, north, which the package takes as unbounded\) overflows`
+}

@@ -240,3 +240,13 @@ func logDensityParts(v, q float64) float64 {
 	norm := h1 - h0 - 1.5*math.Log(v)
 	return norm - ((v+3)/2)*math.Log1p(q/v) // the term's coefficient grows with v as well
 }
+
+func (p plot) inner(o plot) float64 {
+	return p.x*o.x + p.y*o.y + p.z*o.z
+}
+
+// size squares fields the package neither validates nor passes to
+// math.Hypot: data of a physical range.
+func (p plot) size() float64 {
+	return math.Sqrt(p.inner(p))
+}

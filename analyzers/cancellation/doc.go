@@ -227,7 +227,12 @@
 // a square, sums, products and quotients of such values, an enclosing
 // condition that compares u, or the value last assigned to u before the
 // expression in straight-line code (no loop or label between) being one
-// of those: then the terms add and nothing cancels. The arc rule reads the cosine through
+// of those: then the terms add and nothing cancels. It is silent too where
+// u and c are bounded by construction (constants, a fractional part
+// x - math.Floor(x), sines and cosines, and arithmetic on those) so that
+// u²/|c| stays within 100: the loss, about log10(u²/|c|) digits, is then
+// at most two, as in Cardano's formula on the fractional part of a
+// logarithm. The arc rule reads the cosine through
 // the value last assigned to a variable (a clamp to [-1, 1] that
 // reassigns it included) and through the package's own wrappers of
 // math.Acos, Sin and Cos (no fix is offered there). It is silent for other arguments,

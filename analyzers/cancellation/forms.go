@@ -103,7 +103,7 @@ func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
 // the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
 func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 	u, root, ok := c.rootSum(n)
-	if !ok || c.isConst(u) || c.signKnown(cur, u) {
+	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) {
 		return
 	}
 	if call, isLog := c.parentCall(cur); isLog && c.mathFunc(call) == "Log" && c.isOne(root) {
@@ -115,6 +115,26 @@ func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 		Message: fmt.Sprintf("u ± math.Sqrt(u*u+c)%s cancels for the sign of u that makes the terms subtract: the result is about |c|/(2|u|) with relative error about 2u·u²/|c| (u = %.3g), every digit lost once u² ≥ |c|/u; rationalise as c/(math.Sqrt(u*u+c) ∓ u), or take the root of larger magnitude with math.Copysign and the other from the product of the roots",
 			binding("uc", u, root), unitRoundoff),
 	})
+}
+
+// boundedLoss is the most digits the radical rule lets pass where the
+// ranges of u and c bound the loss: two, the size of error that
+// largeCoefficient also lets pass (common practice).
+const boundedLoss = 100
+
+// smallLoss reports whether the ranges of u and c, bounded by construction
+// (rangeOf), keep u²/|c|, and with it the digits u ± math.Sqrt(u*u+c)
+// loses (about log10(u²/|c|)), within two digits: c away from 0 and u
+// bounded, as in Cardano's formula on a fractional part.
+func (c *checker) smallLoss(u, root ast.Expr) bool {
+	ru, oku := c.rangeOf(u, 6)
+	rc, okc := c.rangeOf(root, 6)
+	if !oku || !okc {
+		return false
+	}
+	_, uMax := ru.magnitude()
+	cMin, _ := rc.magnitude()
+	return cMin > 0 && uMax*uMax <= boundedLoss*cMin
 }
 
 // parentCall returns the call whose only argument is the expression at

@@ -173,3 +173,10 @@ func nearRoot(h, a, k float64) float64 {
 	disc := inner3(h, a, 0, h, -k, 0)
 	return (h - math.Sqrt(disc)) / a // want `u ± math.Sqrt\(u\*u\+c\) with u = h, c = a \* -k cancels`
 }
+
+// tinyGap has a bounded u but a radicand offset far below u²: u²/c
+// reaches 1e12.
+func tinyGap(t float64) float64 {
+	u := math.Cos(t)
+	return u - math.Sqrt(u*u+1e-12) // want `u ± math.Sqrt\(u\*u\+c\) with c = 1e-12 cancels`
+}

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -213,6 +214,10 @@ func (c *checker) uses(path, name string) bool {
 	}
 	if c.used == nil {
 		c.used = make(map[string]bool)
+	}
+	if !slices.ContainsFunc(c.pass.Pkg.Imports(), func(p *types.Package) bool { return p.Path() == path }) {
+		c.used[key] = false
+		return false // the package does not import it
 	}
 	for _, obj := range c.pass.TypesInfo.Uses {
 		if fn, ok := obj.(*types.Func); ok && fn.Name() == name && fn.Pkg() != nil && fn.Pkg().Path() == path {

@@ -107,7 +107,10 @@
 //     largest magnitude first). The same holds for math.Sqrt(v.Dot(v)),
 //     also through what the package's functions return
 //     (math.Sqrt(w.lengthSq())), where Dot sums products of the same such
-//     fields of its receiver and parameter;
+//     fields of its receiver and parameter, unless the squared length is
+//     a variable used elsewhere too (4*C*A beside math.Sqrt(C)), whose
+//     products overflow as early or earlier, so that math.Hypot at the
+//     root would not remove the overflow;
 //   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
 //     function and p is not a constant (a p-norm): the powers overflow
 //     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30

@@ -123,7 +123,7 @@ func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.Call
 func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 	ops, ok := c.squaresOf(call.Args[0])
 	if !ok {
-		c.selfDotLength(call)
+		c.selfDotLength(cur, call)
 		return // not a sum of two or three squares
 	}
 	reach, bounded := false, true
@@ -163,10 +163,11 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 // selfDotLength reports math.Sqrt(v.Dot(v)), also through what the
 // package's functions return (math.Sqrt(w.lengthSq())), where Dot sums
 // products of fields the package takes as unbounded (unboundedData): the
-// squares overflow as in math.Sqrt(x*x+y*y).
-func (c *checker) selfDotLength(call *ast.CallExpr) {
+// squares overflow as in math.Sqrt(x*x+y*y). A squared length stored in
+// a variable used elsewhere too is left alone (usedElsewhere).
+func (c *checker) selfDotLength(cur inspector.Cursor, call *ast.CallExpr) {
 	fields, ok := c.selfDotFields(call.Args[0], 3)
-	if !ok {
+	if !ok || c.usedElsewhere(cur, call.Args[0]) {
 		return
 	}
 	if c.unbounded == nil {
@@ -184,6 +185,26 @@ func (c *checker) selfDotLength(call *ast.CallExpr) {
 		Message: fmt.Sprintf("math.Sqrt of a vector's dot product with itself (fields %s, which the package takes as unbounded) overflows to +Inf once a component exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot of the components",
 			strings.Join(names, ", "), squareMax, squareNormal),
 	})
+}
+
+// usedElsewhere reports whether e is a variable that the function
+// enclosing cur also uses other than at cur: a squared length that enters
+// other products (4*C*A beside math.Sqrt(C)), which overflow at the same
+// magnitudes or earlier, so math.Hypot at the root would not remove the
+// overflow.
+func (c *checker) usedElsewhere(cur inspector.Cursor, e ast.Expr) bool {
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	fn, inFunc := enclosingFunc(cur)
+	if !ok || !inFunc {
+		return false
+	}
+	v := c.pass.TypesInfo.Uses[id]
+	for u := range fn.Preorder((*ast.Ident)(nil)) {
+		if n := u.Node().(*ast.Ident); n != id && c.pass.TypesInfo.Uses[n] == v {
+			return true
+		}
+	}
+	return false
 }
 
 // squaresOf returns the operands of e when it is a sum of two or three

@@ -130,6 +130,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {
 			c.log1p(cur, call, name)
 		}
+		c.logOfRatio(cur, call, name)
 	case "Sqrt":
 		c.hypot(cur, call)
 	case "Acos":
@@ -138,8 +139,11 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		if c.mathFunc2(call) == "Pow" {
 			c.pnorm(cur, call)
 		}
-		if c.mathName(call) == "Acos" {
+		switch wrapped := c.mathName(call); wrapped {
+		case "Acos":
 			c.acos(cur, call, "Acos") // a package's own wrapper: reported, with no fix
+		case "Log", "Log10", "Log2":
+			c.logOfRatio(cur, call, wrapped)
 		}
 	}
 }

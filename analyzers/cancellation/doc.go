@@ -24,6 +24,16 @@
 //     (a-b)/b, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits;
 //     math.Log1p((a-b)/b) keeps them all where a-b is exact (Sterbenz).
 //     In a sum, as a log-likelihood ratio, only the absolute error shows;
+//   - math.Log(f(a)/f(b)) and math.Log(f(a)*g(b)) with g the reciprocal
+//     of f (1/f written out, or the package's sec of cos), for one math
+//     function f (also through the package's wrappers) at two arguments
+//     that are not constants, consumed to relative accuracy (a divisor,
+//     as in the cone constant of a conic projection): as a approaches b
+//     the ratio is within a few roundings of 1, so about
+//     log10(|f(a)-f(b)|/(u·|f(b)|)) digits remain (7 lost at
+//     a - b = 1e-9), and a = b gives log 1 = 0, a 0/0 where the limit
+//     exists; math.Log1p((f(a)-f(b))/f(b)) with the difference in closed
+//     form (sum-to-product) keeps them;
 //   - math.Exp(x)-1 and 1-math.Exp(x), also with the exponential stored
 //     in a variable first: the same loss; math.Expm1(x);
 //   - math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent that is not a

@@ -49,3 +49,24 @@ func TestLgammaRatioLoss(t *testing.T) {
 		}
 	}
 }
+
+// TestLogOfRatioLoss checks the loss the log-of-ratio rule quotes:
+// log(cos a / cos b) for a = b + 1e-9 against its Taylor series at b,
+// -d·tan b - d²/(2cos²b) (ln cos has derivative -tan and second
+// derivative -sec²; the next term is d³-small, 1e-18 relative), and the
+// form the message recommends, log1p of a difference in closed form
+// (cos a - cos b = -2·sin((a+b)/2)·sin((a-b)/2), a-b exact by Sterbenz).
+func TestLogOfRatioLoss(t *testing.T) {
+	b := 0.7
+	a := b + 1e-9
+	d := a - b
+	ref := -d*math.Tan(b) - d*d/(2*math.Cos(b)*math.Cos(b))
+	plain := math.Log(math.Cos(a) / math.Cos(b))
+	closed := math.Log1p(-2 * math.Sin((a+b)/2) * math.Sin((a-b)/2) / math.Cos(b))
+	if e := math.Abs(plain-ref) / math.Abs(ref); e < 1e-10 {
+		t.Errorf("plain log of the ratio: relative error %g, want the loss of about 7 digits", e)
+	}
+	if e := math.Abs(closed-ref) / math.Abs(ref); e > 1e-14 {
+		t.Errorf("closed form: relative error %g, want within 1e-14", e)
+	}
+}

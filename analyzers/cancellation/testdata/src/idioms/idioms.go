@@ -250,3 +250,13 @@ func (p plot) inner(o plot) float64 {
 func (p plot) size() float64 {
 	return math.Sqrt(p.inner(p))
 }
+
+// Logarithms of ratios of two different functions, or added to another
+// term, lose nothing that shows.
+func mixedRatio(a, b, c float64) float64 {
+	return c / math.Log(math.Cos(a)/math.Sin(b))
+}
+
+func gainInBels(a, b, offset float64) float64 {
+	return offset + math.Log10(math.Sqrt(a)/math.Sqrt(b))
+}

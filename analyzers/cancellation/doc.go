@@ -53,6 +53,15 @@
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
 //     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
+//   - 1 - s where s accumulates math.Sqrt(p*q) (s += math.Sqrt(p[i]*q[i]),
+//     in the function or in the package's own function returning s),
+//     consumed to relative accuracy (under a root, as a divisor): for
+//     distributions of unit mass s is the Bhattacharyya coefficient, the
+//     cosine of the angle between √p and √q, 1 where they coincide, and
+//     1 - s the squared Hellinger distance; s carries about n·u, so
+//     distances below about 1e-8 are lost, while 0.5·Σ(√p-√q)² keeps
+//     them. A complement only returned or stored is left alone, as for
+//     the squares;
 //   - a*a - b*b, 1 - x*x and x*x - 1 where the difference is consumed
 //     to relative accuracy: under a square root (a radicand near
 //     tangency, where sqrt turns an absolute error d into sqrt(d)), in a

@@ -260,3 +260,21 @@ func mixedRatio(a, b, c float64) float64 {
 func gainInBels(a, b, offset float64) float64 {
 	return offset + math.Log10(math.Sqrt(a)/math.Sqrt(b))
 }
+
+// A complement of a plain dot product, or one only returned, is not the
+// squared distance of two distributions consumed to relative accuracy.
+func overlapOf(h, g []float64) float64 {
+	var s float64
+	for k := range h {
+		s += h[k] * g[k]
+	}
+	return math.Sqrt(1 - s)
+}
+
+func missingMass(h, g []float64) float64 {
+	var s float64
+	for k := range h {
+		s += math.Sqrt(h[k] * g[k])
+	}
+	return 1 - s
+}

@@ -72,7 +72,10 @@ func (c *checker) pointValueOf(e ast.Expr) (pointValue, bool) {
 		return pointValue{}, false
 	}
 	name := c.mathName(call)
-	return pointValue{name, call.Args[0]}, name != ""
+	if name == "" {
+		return pointValue{}, false
+	}
+	return pointValue{name, call.Args[0]}, true
 }
 
 // reciprocalOf reads e as 1/f(a), written out or as a call of the

@@ -278,3 +278,9 @@ func missingMass(h, g []float64) float64 {
 	}
 	return 1 - s
 }
+
+func now() float64 { return 2 }
+
+func logOfCalls(t float64) float64 {
+	return t / math.Log(now()/now()) // calls of no argument: no point to compare
+}

@@ -227,7 +227,11 @@
 // sum too: a constant of at least 100 in magnitude (two digits of the
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
-// data. Nor is the slope of a Newton update of a variable the argument
+// data. So is (n-k)*math.Log(1-p) beside k*math.Log(p) with k not a
+// constant, the log-likelihood of k successes in n trials: for small p the
+// likeliest count is k = 0, where the other term vanishes and the sum is
+// the failure term itself, whose relative error u/p is then the result's.
+// Nor is the slope of a Newton update of a variable the argument
 // mentions (slope := 1 - math.Cos(t); t -= resid/slope, the step perhaps
 // also compared in a stopping test): the iteration stops where the
 // residual vanishes, a point the slope does not move, so a relative

@@ -28,7 +28,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) {
+	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"

@@ -284,3 +284,16 @@ func now() float64 { return 2 }
 func logOfCalls(t float64) float64 {
 	return t / math.Log(now()/now()) // calls of no argument: no point to compare
 }
+
+// A failure term is hidden where the rate is kept away from 0, or where
+// no success term beside it can vanish.
+func sturdyLikelihood(k, batch, q float64) float64 {
+	if q > 0.01 {
+		return k*math.Log(q) + (batch-k)*math.Log(1-q)
+	}
+	return k*math.Log(q) + (batch-k)*math.Log1p(-q)
+}
+
+func shiftedFailure(mu, s, q float64) float64 {
+	return mu + s*math.Log(1-q)
+}

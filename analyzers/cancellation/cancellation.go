@@ -83,7 +83,7 @@ type checker struct {
 	lgammas   map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
 	unbounded map[types.Object]bool       // fields the package takes as unbounded, by unboundedData
 	selectors map[*types.Func]bool        // the package's functions that return one of their parameters
-	used      map[string]bool             // math functions the package calls, by uses
+	used      map[string]bool             // math functions the package calls, by usesMath
 }
 
 func run(pass *analysis.Pass) (any, error) {

@@ -26,7 +26,7 @@ func (c *checker) sums(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !isFloat64(c.pass.TypesInfo.TypeOf(n)) {
 		return
 	}
-	gamma, lgamma := c.uses("math", "Gamma"), c.uses("math", "Lgamma")
+	gamma, lgamma := c.usesMath("Gamma"), c.usesMath("Lgamma")
 	if !gamma && !lgamma {
 		return // prefilter: neither function in the package
 	}
@@ -205,28 +205,21 @@ func (c *checker) coefficientHas(e ast.Expr, v ast.Expr) bool {
 	return found
 }
 
-// uses reports whether the package refers to the function name of the
-// package path, remembering the answer.
-func (c *checker) uses(path, name string) bool {
-	key := path + "." + name
-	if used, ok := c.used[key]; ok {
-		return used
-	}
+// usesMath reports whether the package calls the math function name. The
+// set is gathered in one pass over the package's uses, and only where it
+// imports math.
+func (c *checker) usesMath(name string) bool {
 	if c.used == nil {
 		c.used = make(map[string]bool)
-	}
-	if !slices.ContainsFunc(c.pass.Pkg.Imports(), func(p *types.Package) bool { return p.Path() == path }) {
-		c.used[key] = false
-		return false // the package does not import it
-	}
-	for _, obj := range c.pass.TypesInfo.Uses {
-		if fn, ok := obj.(*types.Func); ok && fn.Name() == name && fn.Pkg() != nil && fn.Pkg().Path() == path {
-			c.used[key] = true
-			return true
+		if slices.ContainsFunc(c.pass.Pkg.Imports(), func(p *types.Package) bool { return p.Path() == "math" }) {
+			for _, obj := range c.pass.TypesInfo.Uses {
+				if fn, ok := obj.(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+					c.used[fn.Name()] = true
+				}
+			}
 		}
 	}
-	c.used[key] = false
-	return false
+	return c.used[name]
 }
 
 // laterTerms returns the terms of the sums that the value of the sum at

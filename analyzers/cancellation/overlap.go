@@ -26,7 +26,7 @@ import (
 // cosine of the angle between the unit vectors √p and √q, so this is the
 // cosine rule's 1 - cos θ. It reports whether n had the form.
 func (c *checker) overlapComplement(cur inspector.Cursor, n *ast.BinaryExpr) bool {
-	if !c.isOne(n.X) {
+	if !c.isOne(n.X) || !c.usesMath("Sqrt") {
 		return false
 	}
 	e, _ := c.through(n.Y)

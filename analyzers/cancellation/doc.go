@@ -230,7 +230,9 @@
 // data. So is (n-k)*math.Log(1-p) beside k*math.Log(p) with k not a
 // constant, the log-likelihood of k successes in n trials: for small p the
 // likeliest count is k = 0, where the other term vanishes and the sum is
-// the failure term itself, whose relative error u/p is then the result's.
+// the failure term itself, whose relative error u/p is then the result's
+// (a density's (α-1)·log x + (β-1)·log(1-x), whose coefficients are not
+// complementary counts, is left alone).
 // Nor is the slope of a Newton update of a variable the argument
 // mentions (slope := 1 - math.Cos(t); t -= resid/slope, the step perhaps
 // also compared in a stopping test): the iteration stops where the

@@ -113,33 +113,29 @@ func (c *checker) isParam(call *ast.CallExpr, e ast.Expr) bool {
 	return params.Len() == 1 && c.pass.TypesInfo.Uses[id] == params.At(0)
 }
 
-// failureTerm reports whether math.Log(1-p) at cur is, with a coefficient
-// that is not a constant, a term of a sum that also holds k·math.Log(p)
-// with k not a constant: the log-likelihood of k successes and n-k
-// failures, k·log p + (n-k)·log(1-p). For small p the likeliest count is
-// k = 0, where the other term vanishes and the sum is (n-k)·log(1-p)
-// itself, about -n·p, so the relative error u/p of the rounded 1-p is the
-// result's; the sum hides nothing. p must not be a constant nor kept away
-// from 0 by an enclosing condition.
+// failureTerm reports whether math.Log(1-p) at cur is a term
+// (n-k)·math.Log(1-p) of a sum that also holds k·math.Log(p), k not a
+// constant: the log-likelihood of k successes and n-k failures. For
+// small p the likeliest count is k = 0, where the other term vanishes and
+// the sum is n·log(1-p) itself, about -n·p, so the relative error u/p of
+// the rounded 1-p is the result's; the sum hides nothing. p must not be a
+// constant nor kept away from 0 by an enclosing condition.
 func (c *checker) failureTerm(cur inspector.Cursor, name string, p ast.Expr) bool {
 	if c.isConst(p) || c.guarded(cur, p, c.awayFromZero) {
 		return false
 	}
-	term := cur
-	for {
-		switch q := term.Parent().Node().(type) {
-		case *ast.ParenExpr:
-			term = term.Parent()
-			continue
-		case *ast.BinaryExpr:
-			if q.Op == token.MUL {
-				term = term.Parent()
-				continue
-			}
-		}
-		break
+	term, ok := cur.Parent().Node().(*ast.BinaryExpr)
+	if !ok || term.Op != token.MUL {
+		return false
 	}
-	top := term
+	diff, ok := ast.Unparen(term.X).(*ast.BinaryExpr)
+	if term.X == cur.Node() {
+		diff, ok = ast.Unparen(term.Y).(*ast.BinaryExpr)
+	}
+	if !ok || diff.Op != token.SUB || c.isConst(diff.Y) {
+		return false // the coefficient is not n - k
+	}
+	top := cur.Parent()
 	for {
 		q, ok := top.Parent().Node().(*ast.BinaryExpr)
 		_, paren := top.Parent().Node().(*ast.ParenExpr)
@@ -148,40 +144,17 @@ func (c *checker) failureTerm(cur inspector.Cursor, name string, p ast.Expr) boo
 		}
 		top = top.Parent()
 	}
-	if term == cur || top == term || !c.variableFactor(term.Node().(ast.Expr)) {
-		return false // not a scaled term of a sum
-	}
 	for _, t := range c.addTerms(top.Node().(ast.Expr), 1, nil) {
-		if t.e != term.Node() && c.variableFactor(t.e) && c.holdsLogOf(t.e, name, p) {
-			return true
+		m, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
+		if !ok || m.Op != token.MUL || m == term {
+			continue
+		}
+		for _, pair := range [2][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+			if call, isCall := ast.Unparen(pair[1]).(*ast.CallExpr); isCall && same(pair[0], diff.Y) &&
+				c.mathFunc(call) == name && same(call.Args[0], p) {
+				return true
+			}
 		}
 	}
 	return false
-}
-
-// variableFactor reports whether e is a product with a factor that is not
-// a constant nor a call (a count or coefficient from the data).
-func (c *checker) variableFactor(e ast.Expr) bool {
-	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
-	if !ok || m.Op != token.MUL {
-		return false
-	}
-	for _, f := range []ast.Expr{m.X, m.Y} {
-		if _, isCall := ast.Unparen(f).(*ast.CallExpr); !isCall && !c.isConst(f) || c.variableFactor(f) {
-			return true
-		}
-	}
-	return false
-}
-
-// holdsLogOf reports whether e holds a call math.<name>(p).
-func (c *checker) holdsLogOf(e ast.Expr, name string, p ast.Expr) bool {
-	found := false
-	ast.Inspect(e, func(n ast.Node) bool {
-		if call, ok := n.(*ast.CallExpr); ok && c.mathFunc(call) == name && same(call.Args[0], p) {
-			found = true
-		}
-		return !found
-	})
-	return found
 }

@@ -297,3 +297,9 @@ func sturdyLikelihood(k, batch, q float64) float64 {
 func shiftedFailure(mu, s, q float64) float64 {
 	return mu + s*math.Log(1-q)
 }
+
+// A density's exponents (α-1, β-1) are parameters, not complementary
+// counts: the first term vanishes only at α = 1.
+func logShape(alpha, beta, t float64) float64 {
+	return (alpha-1)*math.Log(t) + (beta-1)*math.Log(1-t)
+}

@@ -232,20 +232,24 @@ func (c *checker) laterTerms(cur inspector.Cursor) []signedTerm {
 	}
 	var terms []signedTerm
 	for _, use := range c.valueSites(fn, cur) {
-		top := use
-		for {
-			p, isSum := top.Parent().Node().(*ast.BinaryExpr)
-			_, isParen := top.Parent().Node().(*ast.ParenExpr)
-			if !isParen && (!isSum || p.Op != token.ADD && p.Op != token.SUB) {
-				break
-			}
-			top = top.Parent()
-		}
-		if top != use {
+		if top := sumTop(use); top != use {
 			terms = c.addTerms(top.Node().(ast.Expr), 1, terms)
 		}
 	}
 	return terms
+}
+
+// sumTop returns the top of the sum that the expression at cur is a
+// term of, through parentheses, + and -: cur itself where it is none.
+func sumTop(cur inspector.Cursor) inspector.Cursor {
+	for {
+		p, isSum := cur.Parent().Node().(*ast.BinaryExpr)
+		_, isParen := cur.Parent().Node().(*ast.ParenExpr)
+		if !isParen && (!isSum || p.Op != token.ADD && p.Op != token.SUB) {
+			return cur
+		}
+		cur = cur.Parent()
+	}
 }
 
 // signedTerm is a term of a sum and the sign it enters with.

@@ -135,16 +135,7 @@ func (c *checker) failureTerm(cur inspector.Cursor, name string, p ast.Expr) boo
 	if !ok || diff.Op != token.SUB || c.isConst(diff.Y) {
 		return false // the coefficient is not n - k
 	}
-	top := cur.Parent()
-	for {
-		q, ok := top.Parent().Node().(*ast.BinaryExpr)
-		_, paren := top.Parent().Node().(*ast.ParenExpr)
-		if !paren && (!ok || q.Op != token.ADD && q.Op != token.SUB) {
-			break
-		}
-		top = top.Parent()
-	}
-	for _, t := range c.addTerms(top.Node().(ast.Expr), 1, nil) {
+	for _, t := range c.addTerms(sumTop(cur.Parent()).Node().(ast.Expr), 1, nil) {
 		m, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
 		if !ok || m.Op != token.MUL || m == term {
 			continue

@@ -36,21 +36,23 @@ var Analyzer = &analysis.Analyzer{
 
 // Categories of diagnostics, one per rewrite.
 const (
-	catLog1p     = "log1p"
-	catExpm1     = "expm1"
-	catCosine    = "cosine"
-	catHypot     = "hypot"
-	catLogSumExp = "logsumexp"
-	catRadical   = "radical"
-	catArc       = "arc"
-	catSquares   = "squares"
-	catTail      = "tail"
-	catVariance  = "variance"
-	catDivided   = "divided"
-	catShare     = "share"
-	catRoundTrip = "roundtrip"
-	catSplit     = "split"
-	catBigFloat  = "bigfloat"
+	catLog1p      = "log1p"
+	catExpm1      = "expm1"
+	catCosine     = "cosine"
+	catHypot      = "hypot"
+	catLogSumExp  = "logsumexp"
+	catRadical    = "radical"
+	catArc        = "arc"
+	catSquares    = "squares"
+	catTail       = "tail"
+	catVariance   = "variance"
+	catDivided    = "divided"
+	catShare      = "share"
+	catRoundTrip  = "roundtrip"
+	catSplit      = "split"
+	catBigFloat   = "bigfloat"
+	catMoments    = "moments"
+	catGammaRatio = "gammaratio"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -75,8 +77,13 @@ type checker struct {
 	abs   *absval.Known             // absolute-value functions, by meaning
 	acc   *accumulation             // how variables are updated, scanned when first needed
 
-	wrappers map[*types.Func]string      // the package's own wrappers of math functions, by mathName
-	fields   map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
+	wrappers  map[*types.Func]string      // the package's own wrappers of math functions, by mathName
+	fields    map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
+	bodies    map[*types.Func]ast.Expr    // what the package's functions return, by returned
+	lgammas   map[types.Object]ast.Expr   // variables set once by math.Lgamma, and its argument, by lgammaArg
+	unbounded map[types.Object]bool       // fields the package takes as unbounded, by unboundedData
+	selectors map[*types.Func]bool        // the package's functions that return one of their parameters
+	used      map[string]bool             // math functions the package calls, by usesMath
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -97,10 +104,12 @@ func run(pass *analysis.Pass) (any, error) {
 			case *ast.BinaryExpr:
 				switch n.Op {
 				case token.SUB:
+					c.sums(cur, n)
 					c.difference(cur, n)
 					c.roundTrip(cur, n)
 					c.splitReduction(cur, n)
 				case token.ADD:
+					c.sums(cur, n)
 					c.roundTrip(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)
@@ -121,6 +130,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {
 			c.log1p(cur, call, name)
 		}
+		c.logOfRatio(cur, call, name)
 	case "Sqrt":
 		c.hypot(cur, call)
 	case "Acos":
@@ -129,8 +139,11 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		if c.mathFunc2(call) == "Pow" {
 			c.pnorm(cur, call)
 		}
-		if c.mathName(call) == "Acos" {
+		switch wrapped := c.mathName(call); wrapped {
+		case "Acos":
 			c.acos(cur, call, "Acos") // a package's own wrapper: reported, with no fix
+		case "Log", "Log10", "Log2":
+			c.logOfRatio(cur, call, wrapped)
 		}
 	}
 }
@@ -142,7 +155,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.gram(cur, n) || c.squares(cur, n) || c.variance(n) || c.share(cur, n) || c.logRatio(cur, n) {
+	if c.gram(cur, n) || c.squares(cur, n) || c.variance(n) || c.share(cur, n) || c.logRatio(cur, n) || c.overlapComplement(cur, n) {
 		return
 	}
 	e, indirect := c.through(call)
@@ -283,10 +296,12 @@ func (c *checker) wholeNumber(e ast.Expr) bool {
 // when its argument x is small can reach a result: x may be small (it is
 // not a constant, a whole number or a uniform random draw, and no
 // enclosing condition keeps it away from zero), and the value is not added
-// to another term, which hides a relative error in a small value.
+// to another term, which hides a relative error in a small value, nor only
+// the slope of a Newton update of x (newtonSlope), which the root does not
+// depend on.
 func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
-		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero)
+		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x)
 }
 
 // addend reports whether the value at cur, carried through products,

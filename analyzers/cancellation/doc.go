@@ -24,14 +24,25 @@
 //     (a-b)/b, keeps only about log10(|a-b|/(u·|b|·|log a|)) digits;
 //     math.Log1p((a-b)/b) keeps them all where a-b is exact (Sterbenz).
 //     In a sum, as a log-likelihood ratio, only the absolute error shows;
+//   - math.Log(f(a)/f(b)) and math.Log(f(a)*g(b)) with g the reciprocal
+//     of f (1/f written out, or the package's sec of cos), for one math
+//     function f (also through the package's wrappers) at two arguments
+//     that are not constants, consumed to relative accuracy (a divisor,
+//     as in the cone constant of a conic projection): as a approaches b
+//     the ratio is within a few roundings of 1, so about
+//     log10(|f(a)-f(b)|/(u·|f(b)|)) digits remain (7 lost at
+//     a - b = 1e-9), and a = b gives log 1 = 0, a 0/0 where the limit
+//     exists; math.Log1p((f(a)-f(b))/f(b)) with the difference in closed
+//     form (sum-to-product) keeps them;
 //   - math.Exp(x)-1 and 1-math.Exp(x), also with the exponential stored
 //     in a variable first: the same loss; math.Expm1(x);
 //   - math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent that is not a
 //     constant: a^b is near 1 when b·ln a is small (a short time step, a
 //     small probability over n trials); math.Expm1(b*math.Log(a));
 //   - u + math.Sqrt(u*u+c) and its mirror images (the quadratic formula's
-//     -b + math.Sqrt(b*b-4*a*c), math.Sqrt(r*r+k) - r) when the sign of u
-//     is not known: for the sign that makes the terms subtract the result
+//     -b + math.Sqrt(b*b-4*a*c), math.Sqrt(r*r+k) - r, and a radicand
+//     formed by the package's own dot product with u·u among its terms,
+//     dot3(b, a, 0, b, -c, 0)) when the sign of u is not known: for the sign that makes the terms subtract the result
 //     is about |c|/(2|u|) with relative error about 2u·u²/|c|;
 //     math.Log(x + math.Sqrt(x*x+1)) is -Inf from x ≈ -1.34e8, where
 //     math.Asinh(x) is exact to an ulp;
@@ -42,6 +53,15 @@
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
 //     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
+//   - 1 - s where s accumulates math.Sqrt(p*q) (s += math.Sqrt(p[i]*q[i]),
+//     in the function or in the package's own function returning s),
+//     consumed to relative accuracy (under a root, as a divisor): for
+//     distributions of unit mass s is the Bhattacharyya coefficient, the
+//     cosine of the angle between √p and √q, 1 where they coincide, and
+//     1 - s the squared Hellinger distance; s carries about n·u, so
+//     distances below about 1e-8 are lost, while 0.5·Σ(√p-√q)² keeps
+//     them. A complement only returned or stored is left alone, as for
+//     the squares;
 //   - a*a - b*b, 1 - x*x and x*x - 1 where the difference is consumed
 //     to relative accuracy: under a square root (a radicand near
 //     tangency, where sqrt turns an absolute error d into sqrt(d)), in a
@@ -62,17 +82,54 @@
 //     negative; accumulate squared deviations from the mean (two passes
 //     or Welford's update). An accumulator of squared deviations
 //     ((x-m)*(x-m)) is the accurate two-pass form and is left alone;
+//   - a sum of terms of both signs, each a constant times a product of
+//     powers of math.Gamma(1 + c/v) with one and the same v (also through
+//     what the package's own functions return): the central moments of a
+//     distribution of shape v from its raw moments, such as the variance
+//     Γ(1+2/v) - Γ(1+1/v)². Every factor tends to Γ(1) = 1 as v grows, so
+//     each term is about its coefficient and rounded at that size, while
+//     the sum shrinks like a power of 1/v ((π²/6)/v² for the variance):
+//     about 2·log10(v) digits go and from v ≈ 1e8 none are left; the
+//     series ln Γ(1+z) = -γz + Σ (-1)^k ζ(k) z^k/k in z = 1/v has no
+//     cancellation. Terms that only add, and Gamma values of two
+//     different shapes, are left alone;
+//   - a sum in which math.Lgamma(x) and math.Lgamma(y) (values stored
+//     by v, _ := math.Lgamma(·), each variable assigned once) enter with
+//     opposite signs and x and y share a term that is not a constant
+//     (n+1 and n-k+1, (v+1)/2 and v/2): the log of the ratio Γ(x)/Γ(y),
+//     as in a log binomial coefficient or a log beta function. Each value
+//     is about x·ln x and rounded at that size, while the difference is
+//     about (x-y)·ln x, so about log10(x/|x-y|) digits go, and the
+//     absolute error u·x·ln x, which exponentiating turns into a relative
+//     one, is 1.5e-9 at x = 1e6 and 3e-3 at 1e12. It is left alone where
+//     another term of the sum, or of a sum its value joins through a
+//     variable, has a coefficient (a factor other than a call) containing
+//     the shared term, ((v+1)/2)·log(1+z²/v) in a
+//     log-density: that term already carries an absolute error of about
+//     u·|v|, and the difference adds only a factor ln v to it;
 //   - 1-math.Cos(x) and math.Cos(x)-1: cos(x) rounds to 1 for |x| below
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
 //     subtraction;
-//   - math.Sqrt(x*x+y*y), the same x and y squared, where an operand is
-//     computed by an operation that reaches such magnitudes from ordinary
-//     inputs (a quotient by a variable, an exponential, power, gamma,
-//     tangent or hyperbolic function, a constant beyond 1e100): the
-//     squares overflow to +Inf once |x| or |y| exceeds 1.34e154 and become
+//   - math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z), the same operands
+//     squared, where an operand is computed by an operation that reaches
+//     such magnitudes from ordinary inputs (a quotient by a variable, an
+//     exponential, power, gamma, tangent or hyperbolic function, a
+//     constant beyond 1e100), or is made of fields the package itself
+//     takes as unbounded: fields it tests with math.IsInf (a validation
+//     that rejects only non-finite values, so every finite value is an
+//     input) or passes to math.Hypot elsewhere, also through differences,
+//     variables and maxima (math.Max, a max of the package's own). The
+//     squares overflow to +Inf once an operand exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
-//     math.Hypot(x, y) scales instead;
+//     math.Hypot(x, y) scales instead (for three operands, divide by the
+//     largest magnitude first). The same holds for math.Sqrt(v.Dot(v)),
+//     also through what the package's functions return
+//     (math.Sqrt(w.lengthSq())), where Dot sums products of the same such
+//     fields of its receiver and parameter, unless the squared length is
+//     a variable used elsewhere too (4*C*A beside math.Sqrt(C)), whose
+//     products overflow as early or earlier, so that math.Hypot at the
+//     root would not remove the overflow;
 //   - math.Pow(s, 1/p) where s accumulates math.Pow(x, p) in the same
 //     function and p is not a constant (a p-norm): the powers overflow
 //     once |x| exceeds MaxFloat64^(1/p), 5.64e102 for p = 3 and 6.69e30
@@ -170,7 +227,17 @@
 // sum too: a constant of at least 100 in magnitude (two digits of the
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the
-// data. The cosine rule leaves alone an angle built from constants and
+// data. So is (n-k)*math.Log(1-p) beside k*math.Log(p) with k not a
+// constant, the log-likelihood of k successes in n trials: for small p the
+// likeliest count is k = 0, where the other term vanishes and the sum is
+// the failure term itself, whose relative error u/p is then the result's
+// (a density's (α-1)·log x + (β-1)·log(1-x), whose coefficients are not
+// complementary counts, is left alone).
+// Nor is the slope of a Newton update of a variable the argument
+// mentions (slope := 1 - math.Cos(t); t -= resid/slope, the step perhaps
+// also compared in a stopping test): the iteration stops where the
+// residual vanishes, a point the slope does not move, so a relative
+// error in it only lengthens or shortens the steps. The cosine rule leaves alone an angle built from constants and
 // whole numbers by products and quotients (2πi/(n-1) of a window, a
 // quarter turn over a segment count), also through a field of the
 // package every assignment of which is such an angle: it is 0 or at least |c|/n, cos rounds
@@ -188,7 +255,12 @@
 // a square, sums, products and quotients of such values, an enclosing
 // condition that compares u, or the value last assigned to u before the
 // expression in straight-line code (no loop or label between) being one
-// of those: then the terms add and nothing cancels. The arc rule reads the cosine through
+// of those: then the terms add and nothing cancels. It is silent too where
+// u and c are bounded by construction (constants, a fractional part
+// x - math.Floor(x), sines and cosines, and arithmetic on those) so that
+// u²/|c| stays within 100: the loss, about log10(u²/|c|) digits, is then
+// at most two, as in Cardano's formula on the fractional part of a
+// logarithm. The arc rule reads the cosine through
 // the value last assigned to a variable (a clamp to [-1, 1] that
 // reassigns it included) and through the package's own wrappers of
 // math.Acos, Sin and Cos (no fix is offered there). It is silent for other arguments,
@@ -219,14 +291,16 @@
 // it or its absolute value, as scaled rotations do, and when the result
 // feeds math.Exp, Cosh, Sinh or Gamma, which overflow long before the
 // squares; for squares of data (parameters, fields, coordinates and their
-// differences), which reach 1e154 only if the data do, and physical and
-// geometric data do not; and where both operands are bounded by
-// construction (sines,
+// differences) that the package does not declare unbounded, which reach
+// 1e154 only if the data do, and physical and geometric data do not; for
+// a quotient whose variable an enclosing condition compares (the
+// parameter of a projection after if t <= 0 { return }); and where all
+// operands are bounded by construction (sines,
 // cosines, components of a unit vector a/math.Hypot(a, b), sums and
 // products of those): there nothing overflows, and math.Hypot is less
 // accurate on average (0.35 against 0.17 ulp over a million random pairs).
 // Look-alikes that lose nothing are left alone: math.Log(2+x),
-// math.Log(x-1), math.Exp(x)-2, x*x+y*y+z*z, and code already in the
+// math.Log(x-1), math.Exp(x)-2, and code already in the
 // accurate form. math.Pow(x, 0.5) and math.Pow(x, 2) are not reported: the
 // math package computes the first as math.Sqrt(x) and the second, in the
 // normal range, with the same single rounding as x*x, so they cost time

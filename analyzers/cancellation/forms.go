@@ -103,7 +103,7 @@ func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
 // the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
 func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 	u, root, ok := c.rootSum(n)
-	if !ok || c.isConst(u) || c.signKnown(cur, u) {
+	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) {
 		return
 	}
 	if call, isLog := c.parentCall(cur); isLog && c.mathFunc(call) == "Log" && c.isOne(root) {
@@ -115,6 +115,26 @@ func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 		Message: fmt.Sprintf("u ± math.Sqrt(u*u+c)%s cancels for the sign of u that makes the terms subtract: the result is about |c|/(2|u|) with relative error about 2u·u²/|c| (u = %.3g), every digit lost once u² ≥ |c|/u; rationalise as c/(math.Sqrt(u*u+c) ∓ u), or take the root of larger magnitude with math.Copysign and the other from the product of the roots",
 			binding("uc", u, root), unitRoundoff),
 	})
+}
+
+// boundedLoss is the most digits the radical rule lets pass where the
+// ranges of u and c bound the loss: two, the size of error that
+// largeCoefficient also lets pass (common practice).
+const boundedLoss = 100
+
+// smallLoss reports whether the ranges of u and c, bounded by construction
+// (rangeOf), keep u²/|c|, and with it the digits u ± math.Sqrt(u*u+c)
+// loses (about log10(u²/|c|)), within two digits: c away from 0 and u
+// bounded, as in Cardano's formula on a fractional part.
+func (c *checker) smallLoss(u, root ast.Expr) bool {
+	ru, oku := c.rangeOf(u, 6)
+	rc, okc := c.rangeOf(root, 6)
+	if !oku || !okc {
+		return false
+	}
+	_, uMax := ru.magnitude()
+	cMin, _ := rc.magnitude()
+	return cMin > 0 && uMax*uMax <= boundedLoss*cMin
 }
 
 // parentCall returns the call whose only argument is the expression at
@@ -133,7 +153,8 @@ func (c *checker) parentCall(cur inspector.Cursor) (*ast.CallExpr, bool) {
 }
 
 // rootSum reads n as ±u ± math.Sqrt(u*u ± c), directly or through
-// never-reassigned variables, and returns u and c.
+// never-reassigned variables, the radicand perhaps a call of the package's
+// own dot product with u·u among its terms, and returns u and c.
 func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 	if n.Op != token.ADD && n.Op != token.SUB {
 		return nil, nil, false
@@ -148,13 +169,18 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 			continue
 		}
 		arg, _ := c.through(call.Args[0])
-		sum, ok := arg.(*ast.BinaryExpr)
-		if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
-			continue
-		}
 		other := pair[0]
 		if neg, ok := ast.Unparen(other).(*ast.UnaryExpr); ok && neg.Op == token.SUB {
 			other = neg.X
+		}
+		if dot, isCall := arg.(*ast.CallExpr); isCall && fixes.Pure(c.pass.TypesInfo, other) {
+			if rest, ok := c.dotSquare(dot, other); ok {
+				return other, rest, true // the package's dot product with u·u among its terms
+			}
+		}
+		sum, ok := arg.(*ast.BinaryExpr)
+		if !ok || sum.Op != token.ADD && sum.Op != token.SUB {
+			continue
 		}
 		for _, sq := range [][2]ast.Expr{{sum.X, sum.Y}, {sum.Y, sum.X}} {
 			if x, isSquare := c.square(sq[0]); isSquare && same(x, other) && (sum.Op == token.ADD || sq[0] == sum.X) {
@@ -705,11 +731,16 @@ func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr)
 // by a variable (which may be small), an exponential, power, gamma,
 // tangent or hyperbolic function, or a constant already out there;
 // directly, through sums, products and signs, or through never-reassigned
-// variables. Squares of data (coordinates, differences, fields) reach
+// variables, unless an enclosing condition at cur compares a variable on
+// the way (if r <= 0 { return }; if r >= 1 { return }). Squares of data
+// (coordinates, differences, fields) reach
 // those magnitudes only if the data do, which physical and geometric data
 // do not; there math.Hypot would only cost accuracy (0.35 against 0.17 ulp
 // on average).
-func (c *checker) farReaching(e ast.Expr, depth int) bool {
+func (c *checker) farReaching(cur inspector.Cursor, e ast.Expr, depth int) bool {
+	if _, isIdent := ast.Unparen(e).(*ast.Ident); isIdent && c.guarded(cur, e, c.compares) {
+		return false // a variable whose range an enclosing condition checked
+	}
 	e, _ = c.through(e)
 	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
 		f, _ := constant.Float64Val(constant.ToFloat(v))
@@ -726,12 +757,12 @@ func (c *checker) farReaching(e ast.Expr, depth int) bool {
 		}
 		return c.mathFunc2(e) == "Pow" || c.mathFunc2(e) == "Ldexp"
 	case *ast.UnaryExpr:
-		return c.farReaching(e.X, depth-1)
+		return c.farReaching(cur, e.X, depth-1)
 	case *ast.BinaryExpr:
 		if e.Op == token.QUO && !c.isConst(e.Y) {
 			return true
 		}
-		return c.farReaching(e.X, depth-1) || c.farReaching(e.Y, depth-1)
+		return c.farReaching(cur, e.X, depth-1) || c.farReaching(cur, e.Y, depth-1)
 	}
 	return false
 }

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -27,7 +28,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) {
+	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
@@ -116,22 +117,24 @@ func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.Call
 	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(n, text)))
 }
 
-// hypot reports math.Sqrt(x*x+y*y): the squares overflow, or leave the
-// normal range, long before the result does.
+// hypot reports math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z): the
+// squares overflow, or leave the normal range, long before the result
+// does.
 func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
-	sum, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
-	if !ok || sum.Op != token.ADD {
-		return
+	ops, ok := c.squaresOf(call.Args[0])
+	if !ok {
+		c.selfDotLength(cur, call)
+		return // not a sum of two or three squares
 	}
-	x, okx := c.square(sum.X)
-	y, oky := c.square(sum.Y)
-	if !okx || !oky {
-		return // not a sum of exactly two squares
+	reach, bounded := false, true
+	for _, e := range ops {
+		reach = reach || c.farReaching(cur, e, 4) || c.unboundedData(e, 4)
+		bounded = bounded && c.bounded(e, 4)
 	}
-	if !c.farReaching(x, 4) && !c.farReaching(y, 4) || c.bounded(x, 4) && c.bounded(y, 4) {
-		return // data, or sines and cosines: math.Hypot would only cost accuracy
+	if !reach || bounded {
+		return // data of a bounded range, or sines and cosines: math.Hypot would only cost accuracy
 	}
-	for _, e := range []ast.Expr{x, y} {
+	for _, e := range ops {
 		if c.isConst(e) || c.wholeNumber(e) || c.scaled(e) || c.guarded(cur, e, c.compares) {
 			return // a constant, a whole number, or a value whose range the code controls
 		}
@@ -139,6 +142,15 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 	if c.overflowsFirst(cur) {
 		return // the result feeds a function that overflows at far smaller magnitudes
 	}
+	if len(ops) == 3 {
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: call.Pos(), End: call.End(), Category: catHypot,
+			Message: fmt.Sprintf("math.Sqrt(x*x+y*y+z*z)%s overflows to +Inf once |x|, |y| or |z| exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; divide by the largest magnitude first and multiply the root by it",
+				binding("xyz", ops...), squareMax, squareNormal),
+		})
+		return
+	}
+	x, y := ops[0], ops[1]
 	q := qualifier(call)
 	text := q + ".Hypot(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ", " + fixes.Source(c.pass.Fset, ast.Unparen(y)) + ")"
 	fixes.Report(c.pass, analysis.Diagnostic{
@@ -146,6 +158,76 @@ func (c *checker) hypot(cur inspector.Cursor, call *ast.CallExpr) {
 		Message: fmt.Sprintf("math.Sqrt(x*x+y*y)%s overflows to +Inf once |x| or |y| exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot(x, y)",
 			binding("xy", x, y), squareMax, squareNormal),
 	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+}
+
+// selfDotLength reports math.Sqrt(v.Dot(v)), also through what the
+// package's functions return (math.Sqrt(w.lengthSq())), where Dot sums
+// products of fields the package takes as unbounded (unboundedData): the
+// squares overflow as in math.Sqrt(x*x+y*y). A squared length stored in
+// a variable used elsewhere too is left alone (usedElsewhere).
+func (c *checker) selfDotLength(cur inspector.Cursor, call *ast.CallExpr) {
+	fields, ok := c.selfDotFields(call.Args[0], 3)
+	if !ok || c.usedElsewhere(cur, call.Args[0]) {
+		return
+	}
+	if c.unbounded == nil {
+		c.unbounded = c.unboundedFields()
+	}
+	var names []string
+	for _, f := range fields {
+		if !c.unbounded[f] {
+			return
+		}
+		names = append(names, f.Name())
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: catHypot,
+		Message: fmt.Sprintf("math.Sqrt of a vector's dot product with itself (fields %s, which the package takes as unbounded) overflows to +Inf once a component exceeds %.3g and loses precision below %.3g, where the squares leave the normal range; use math.Hypot of the components",
+			strings.Join(names, ", "), squareMax, squareNormal),
+	})
+}
+
+// usedElsewhere reports whether e is a variable that the function
+// enclosing cur also uses other than at cur: a squared length that enters
+// other products (4*C*A beside math.Sqrt(C)), which overflow at the same
+// magnitudes or earlier, so math.Hypot at the root would not remove the
+// overflow.
+func (c *checker) usedElsewhere(cur inspector.Cursor, e ast.Expr) bool {
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	fn, inFunc := enclosingFunc(cur)
+	if !ok || !inFunc {
+		return false
+	}
+	v := c.pass.TypesInfo.Uses[id]
+	for u := range fn.Preorder((*ast.Ident)(nil)) {
+		if n := u.Node().(*ast.Ident); n != id && c.pass.TypesInfo.Uses[n] == v {
+			return true
+		}
+	}
+	return false
+}
+
+// squaresOf returns the operands of e when it is a sum of two or three
+// squares (x*x + y*y, x*x + y*y + z*z).
+func (c *checker) squaresOf(e ast.Expr) ([]ast.Expr, bool) {
+	sum, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || sum.Op != token.ADD {
+		return nil, false
+	}
+	y, oky := c.square(sum.Y)
+	if !oky {
+		return nil, false
+	}
+	if x, okx := c.square(sum.X); okx {
+		return []ast.Expr{x, y}, true
+	}
+	inner, ok := ast.Unparen(sum.X).(*ast.BinaryExpr)
+	if !ok || inner.Op != token.ADD {
+		return nil, false
+	}
+	x, okx := c.square(inner.X)
+	w, okw := c.square(inner.Y)
+	return []ast.Expr{x, w, y}, okx && okw
 }
 
 // square returns x when e is x*x for a side-effect-free float64 x.

@@ -162,3 +162,21 @@ func (g *bendGauge) set(turns int, angle, radius float64) {
 	}
 	g.sag = radius * (1 - math.Cos(g.angle)) // want `1-math.Cos\(x\) with x = g.angle returns 0`
 }
+
+func inner3(a1, a2, a3, b1, b2, b3 float64) float64 {
+	return a1*b1 + a2*b2 + a3*b3
+}
+
+// nearRoot is the smaller root of a·t² - 2·h·t + k with the discriminant
+// formed by the package's own dot product.
+func nearRoot(h, a, k float64) float64 {
+	disc := inner3(h, a, 0, h, -k, 0)
+	return (h - math.Sqrt(disc)) / a // want `u ± math.Sqrt\(u\*u\+c\) with u = h, c = a \* -k cancels`
+}
+
+// tinyGap has a bounded u but a radicand offset far below u²: u²/c
+// reaches 1e12.
+func tinyGap(t float64) float64 {
+	u := math.Cos(t)
+	return u - math.Sqrt(u*u+1e-12) // want `u ± math.Sqrt\(u\*u\+c\) with c = 1e-12 cancels`
+}

@@ -130,3 +130,10 @@ func survivalStored(x float64) float64 {
 	q := 1 - math.Exp(-x) // want `1-math.Exp\(x\) with x = -x`
 	return q
 }
+
+// growthRatio divides by the same slope outside an iteration: its lost
+// digits are the result's.
+func growthRatio(a, t float64) float64 {
+	slope := math.Exp(t) - 1 // want `math.Exp\(x\)-1 with x = t`
+	return a / slope
+}

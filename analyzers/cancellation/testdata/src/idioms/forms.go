@@ -395,3 +395,23 @@ func (t *tally) redo(xs []float64) {
 		t.total += x
 	}
 }
+
+func pairSum(a1, a2, b1, b2 float64) float64 {
+	return a1*b1 + a2*b2
+}
+
+// farRoot adds the root to |h|: the terms never subtract.
+func farRoot(h, a, k float64) float64 {
+	m := math.Abs(h)
+	return (m + math.Sqrt(pairSum(m, a, m, -k))) / a
+}
+
+// knot inverts a fixed cubic on the fractional part of x: u stays in
+// [0.5, 1.5] and c is 2, so u²/c is at most 1.125 and the root loses at
+// most a bit.
+func knot(x float64) float64 {
+	const k = 0.5
+	whole := math.Floor(x)
+	u := k + (x - whole)
+	return u - math.Sqrt(u*u+2*k*2)
+}

@@ -118,8 +118,7 @@
 //     constant beyond 1e100), or is made of fields the package itself
 //     takes as unbounded: fields it tests with math.IsInf (a validation
 //     that rejects only non-finite values, so every finite value is an
-//     input) or passes to math.Hypot elsewhere, also through differences,
-//     variables and maxima (math.Max, a max of the package's own). The
+//     input), also through differences, variables and maxima (math.Max, a max of the package's own). The
 //     squares overflow to +Inf once an operand exceeds 1.34e154 and become
 //     subnormal below 1.49e-154, though the result is representable;
 //     math.Hypot(x, y) scales instead (for three operands, divide by the

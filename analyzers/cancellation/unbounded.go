@@ -12,7 +12,7 @@ import (
 // variables, sums, differences, signs and calls that return one of their
 // arguments (math.Max, math.Min, the package's own max and min), is made
 // of fields the package declares unbounded (unboundedFields): fields it
-// rejects only when infinite or NaN, or passes to math.Hypot elsewhere.
+// rejects only when infinite or NaN.
 // The package has then said that every finite value is in range, so
 // coordinates beyond 1.34e154, or below 1.49e-154, are its inputs too.
 func (c *checker) unboundedData(e ast.Expr, depth int) bool {
@@ -106,37 +106,22 @@ func firstResult(ret *ast.ReturnStmt) ast.Expr {
 }
 
 // unboundedFields returns the float fields that the package tests with
-// math.IsInf (a validation that rejects only non-finite values) or passes,
-// directly, through variables or in differences, to math.Hypot.
+// math.IsInf: a validation that rejects only non-finite values accepts
+// every finite one. (A field merely passed to math.Hypot elsewhere says
+// nothing of its range: Hypot is also written for accuracy or habit.)
 func (c *checker) unboundedFields() map[types.Object]bool {
 	m := make(map[types.Object]bool)
-	var mark func(e ast.Expr, depth int)
-	mark = func(e ast.Expr, depth int) {
-		e, _ = c.through(e)
-		switch e := e.(type) {
-		case *ast.SelectorExpr:
-			if sel := c.pass.TypesInfo.Selections[e]; sel != nil && sel.Kind() == types.FieldVal && isFloat64(sel.Obj().Type()) {
-				m[sel.Obj()] = true
-			}
-		case *ast.BinaryExpr:
-			if depth > 0 && (e.Op == token.SUB || e.Op == token.ADD) {
-				mark(e.X, depth-1)
-				mark(e.Y, depth-1)
-			}
-		}
-	}
 	for _, f := range c.pass.Files {
 		ast.Inspect(f, func(n ast.Node) bool {
 			call, ok := n.(*ast.CallExpr)
-			if !ok {
+			if !ok || c.mathFunc2(call) != "IsInf" {
 				return true
 			}
-			switch c.mathFunc2(call) {
-			case "IsInf":
-				mark(call.Args[0], 0)
-			case "Hypot":
-				mark(call.Args[0], 2)
-				mark(call.Args[1], 2)
+			arg, _ := c.through(call.Args[0])
+			if sel, isSel := arg.(*ast.SelectorExpr); isSel {
+				if s := c.pass.TypesInfo.Selections[sel]; s != nil && s.Kind() == types.FieldVal && isFloat64(s.Obj().Type()) {
+					m[s.Obj()] = true
+				}
 			}
 			return true
 		})

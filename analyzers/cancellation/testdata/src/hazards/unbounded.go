@@ -35,8 +35,8 @@ func gap(a, b station) float64 {
 	return math.Sqrt(de*de + dn*dn) // want `math.Sqrt\(x\*x\+y\*y\) with x = de, y = dn overflows`
 }
 
-// slant uses math.Hypot for the horizontal part: the package takes up as
-// unbounded too.
+// slant: east and north are validated only as finite, so the three-term
+// root is reported though up is not.
 func slant(a, b station) (float64, float64) {
 	de, dn, du := b.east-a.east, b.north-a.north, b.up-a.up
 	flat := math.Hypot(de, dn)
@@ -61,4 +61,14 @@ func (s station) norm() float64 {
 func bend(s station) float64 {
 	q := s.dot(s)
 	return q*q + math.Sqrt(q)
+}
+
+// pixel's fields are passed to math.Hypot below, but never validated only
+// as finite: Hypot says nothing of their range, and the root of their
+// squares is left alone.
+type pixel struct{ u, v float64 }
+
+func pixelGap(a, b pixel) (float64, float64) {
+	du, dv := b.u-a.u, b.v-a.v
+	return math.Hypot(du, dv), math.Sqrt(du*du + dv*dv)
 }

@@ -43,12 +43,14 @@ type Reader struct {
 	done   map[*ast.FuncDecl]bool
 	memo   map[string]float64
 	busy   map[*types.Var]bool
+	cancel map[cancelKey]bool
+	top    *frame // the reading at the top
 }
 
 // New returns a Reader for the package of files.
 func New(info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
-		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}}
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
@@ -65,8 +67,15 @@ func New(info *types.Info, files []*ast.File) *Reader {
 // could be read.
 func (r *Reader) Of(fd *ast.FuncDecl, e ast.Expr) (float64, bool) {
 	r.index(fd)
-	d := r.of(e, nil, 0)
+	d := r.of(e, r.top, 0)
 	return d, !math.IsNaN(d) && !math.IsInf(d, 0)
+}
+
+// cancelKey is a variable read by Cancels, in a call with the same
+// receiver and argument or not.
+type cancelKey struct {
+	v    *types.Var
+	self bool
 }
 
 // result is the i-th result of a call.
@@ -81,9 +90,15 @@ type scaling struct {
 	by ast.Expr
 }
 
-// env binds parameters to the degrees of the arguments of a call being
-// read; nil at the top, where every parameter is of degree 1.
-type env map[*types.Var]float64
+// env is what one reading knows: the parameters bound to the degrees of
+// the arguments of a call being read (none at the top, where every
+// parameter is of degree 1), and the degrees of variables read so far.
+type env = *frame
+
+type frame struct {
+	bound map[*types.Var]float64
+	known map[*types.Var]float64
+}
 
 // of returns the degree of e: NaN when unknown, none when e has no value
 // of its own.
@@ -138,8 +153,11 @@ func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 	if v == nil {
 		return math.NaN()
 	}
+	if d, ok := bind.known[v]; ok {
+		return d
+	}
 	sets, ok := r.sets[v]
-	d, bound := bind[v]
+	d, bound := bind.bound[v]
 	switch {
 	case r.poison[v]:
 		return math.NaN() // multiplied by itself, or changed through a pointer
@@ -156,6 +174,7 @@ func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 	}
 	r.busy[v] = true
 	defer delete(r.busy, v)
+	defer func() { bind.known[v] = d }() // in a cycle, what its other values give
 	for _, s := range sets {
 		if s != nil {
 			d = larger(d, r.of(s, bind, depth+1))
@@ -276,14 +295,14 @@ func (r *Reader) through(fd *ast.FuncDecl, fn *types.Func, i int, recv float64, 
 	}
 	r.memo[key] = math.NaN() // recursion: unknown
 	r.index(fd)
-	bind := env{}
+	bind := &frame{bound: map[*types.Var]float64{}, known: map[*types.Var]float64{}}
 	sig := fn.Signature()
 	if sig.Recv() != nil {
-		bind[sig.Recv()] = recv
+		bind.bound[sig.Recv()] = recv
 	}
 	for k := range sig.Params().Len() {
 		if k < len(args) && !sig.Variadic() {
-			bind[sig.Params().At(k)] = args[k]
+			bind.bound[sig.Params().At(k)] = args[k]
 		}
 	}
 	d := none
@@ -474,20 +493,29 @@ func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
 // cancels.
 func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
 	v := r.varOf(id)
+	key := cancelKey{v, self}
+	if c, ok := r.cancel[key]; ok {
+		return c
+	}
 	sets := r.sets[v]
-	if len(sets) == 0 || r.poison[v] || r.busy[v] || r.params[v] {
+	if len(sets) == 0 || r.poison[v] || r.params[v] {
+		return false
+	}
+	if r.busy[v] {
 		return false
 	}
 	r.busy[v] = true
 	defer delete(r.busy, v)
-	given := false
+	c := false
 	for _, s := range sets {
 		if s != nil && !r.cancels(s, self, depth+1) {
-			return false
+			c = false
+			break
 		}
-		given = given || s != nil
+		c = c || s != nil
 	}
-	return given
+	r.cancel[key] = c
+	return c
 }
 
 // callCancels reports whether a call's result can cancel: a remainder,

@@ -240,6 +240,9 @@ func (c *checker) bare(cur inspector.Cursor, n *ast.BinaryExpr) {
 // cancelled judges x < tol, or |x| < tol, at the data size when x
 // cancels (see degree.Reader.Cancels).
 func (c *checker) cancelled(cur inspector.Cursor, x ast.Expr, tol float64, f numeric.Format, n ast.Node) {
+	if tol < f.Eps {
+		return // a threshold below eps on one value asks whether it vanished (a guard before a division, a domain bound), not whether it is noise
+	}
 	if fd := enclosingDecl(cur); fd == nil || !c.degrees().Cancels(fd, x) {
 		return // a plain threshold: no rounding of its own to drown it
 	}

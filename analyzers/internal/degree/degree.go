@@ -265,8 +265,10 @@ func mathDegree(name string, args []float64, info *types.Info, call *ast.CallExp
 		return args[0] / 2
 	case "Cbrt":
 		return args[0] / 3
-	case "Abs", "Floor", "Ceil", "Trunc", "Round", "RoundToEven", "Copysign":
+	case "Abs", "Copysign":
 		return args[0]
+	case "Floor", "Ceil", "Trunc", "Round", "RoundToEven":
+		return math.NaN() // integrality depends on the unit: a count or a pure number, not data of any size
 	case "Max", "Min", "Hypot", "Mod", "Remainder", "Dim":
 		return larger(args[0], args[1])
 	case "Pow":

@@ -65,6 +65,9 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if c.learnHelper(cur, fd, t) {
 		return
 	}
+	if !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
+		return // values read as given: their difference is exact when they are close
+	}
 	d, ok := c.degrees().Of(fd, t.a)
 	if t.b != nil {
 		db, okb := c.degrees().Of(fd, t.b)
@@ -115,10 +118,11 @@ func dataSize(path string) float64 {
 	return DefaultDataSize
 }
 
-// learnHelper reports whether t compares two values read as they are
-// from parameters of fd (a, float64(a), p.x, xs[i]) in a predicate (one
-// bool result) that returns the test: a comparison helper, whose data
-// are its callers'. When both are parameters themselves it records fd,
+// learnHelper reports whether t sits in a predicate (one bool result)
+// that returns it and compares values computed from its parameters alone
+// (a, float64(a), p.x, xs[i], their sums, differences and remainders,
+// accessors such as i.Length()): a comparison helper, whose data are its
+// callers'. When the two values are parameters themselves it records fd,
 // so that its calls are judged with their arguments.
 func (c *checker) learnHelper(cur inspector.Cursor, fd *ast.FuncDecl, t scaleTest) bool {
 	info := c.pass.TypesInfo
@@ -126,7 +130,7 @@ func (c *checker) learnHelper(cur inspector.Cursor, fd *ast.FuncDecl, t scaleTes
 	if res == nil || res.NumFields() != 1 || !types.Identical(info.TypeOf(res.List[0].Type), types.Typ[types.Bool]) || !returned(cur) {
 		return false
 	}
-	if t.b == nil || !readsParam(info, t.a) || !readsParam(info, t.b) {
+	if !c.fromParams(t.a, 0) || t.b != nil && !c.fromParams(t.b, 0) {
 		return false
 	}
 	fn, _ := info.Defs[fd.Name].(*types.Func)
@@ -141,27 +145,43 @@ func (c *checker) learnHelper(cur inspector.Cursor, fd *ast.FuncDecl, t scaleTes
 	return true
 }
 
-// readsParam reports whether e reads a parameter (or receiver) as it is:
-// through conversions, fields and elements.
-func readsParam(info *types.Info, e ast.Expr) bool {
-	for {
-		switch x := ast.Unparen(e).(type) {
-		case *ast.CallExpr:
-			if len(x.Args) != 1 || !info.Types[x.Fun].IsType() {
-				return false
-			}
-			e = x.Args[0]
-		case *ast.SelectorExpr:
-			e = x.X
-		case *ast.IndexExpr:
-			e = x.X
-		case *ast.Ident:
-			v, ok := info.Uses[x].(*types.Var)
-			return ok && v.Kind() == types.ParamVar || ok && v.Kind() == types.RecvVar
-		default:
-			return false
-		}
+// fromParams reports whether e is computed from parameters (or the
+// receiver) alone: read through conversions, fields, elements, local
+// variables given one value, sums, differences, remainders and calls of
+// methods with no arguments.
+func (c *checker) fromParams(e ast.Expr, depth int) bool {
+	info := c.pass.TypesInfo
+	if depth > 8 {
+		return false
 	}
+	switch x := ast.Unparen(e).(type) {
+	case *ast.CallExpr:
+		if len(x.Args) == 1 && info.Types[x.Fun].IsType() {
+			return c.fromParams(x.Args[0], depth+1)
+		}
+		fn, ok := typeutil.Callee(info, x).(*types.Func)
+		if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && (fn.Name() == "Remainder" || fn.Name() == "Mod") {
+			return c.fromParams(x.Args[0], depth+1) && c.fromParams(x.Args[1], depth+1)
+		}
+		sel, ok := x.Fun.(*ast.SelectorExpr)
+		return ok && len(x.Args) == 0 && info.Selections[sel] != nil && c.fromParams(sel.X, depth+1)
+	case *ast.SelectorExpr:
+		return c.isConst(x) || c.fromParams(x.X, depth+1)
+	case *ast.IndexExpr:
+		return c.fromParams(x.X, depth+1)
+	case *ast.BinaryExpr:
+		return c.isConst(x) || (x.Op == token.ADD || x.Op == token.SUB) && c.fromParams(x.X, depth+1) && c.fromParams(x.Y, depth+1)
+	case *ast.Ident:
+		if c.isConst(x) {
+			return true
+		}
+		v, ok := info.Uses[x].(*types.Var)
+		if init, local := c.decls[v]; ok && local {
+			return c.fromParams(init, depth+1)
+		}
+		return ok && (v.Kind() == types.ParamVar || v.Kind() == types.RecvVar)
+	}
+	return c.isConst(e)
 }
 
 // returned reports whether cur lies in a return statement.
@@ -247,6 +267,9 @@ func (c *checker) cancelled(cur inspector.Cursor, x ast.Expr, tol float64, f num
 		return // a plain threshold: no rounding of its own to drown it
 	}
 	t := scaleTest{node: n, a: x, tol: tol, f: f}
+	if id, ok := ast.Unparen(x).(*ast.Ident); ok && c.decls[c.pass.TypesInfo.Uses[id]] != nil {
+		x = c.decls[c.pass.TypesInfo.Uses[id]] // r := hi - lo; r < tol: the difference itself
+	}
 	if d, ok := ast.Unparen(x).(*ast.BinaryExpr); ok && d.Op == token.SUB {
 		t.a, t.b = d.X, d.Y // a predicate comparing two parameters is then seen as one
 	}

@@ -582,3 +582,63 @@ func NonNegative(info *types.Info, e ast.Expr) bool {
 	}
 	return false
 }
+
+// Rounds reports whether e, an expression inside fd, carries a rounding
+// error of its own: it is computed by arithmetic (a sum, product or
+// quotient, a call other than a conversion, math.Abs, Copysign, Mod or
+// Remainder, which are exact) rather than read as the caller gave it. A
+// difference of two values read as given is exact when they are close
+// (Sterbenz; Goldberg 1991, Thm 11): no rounding drowns a tolerance there.
+func (r *Reader) Rounds(fd *ast.FuncDecl, e ast.Expr) bool {
+	r.index(fd)
+	return r.rounds(e, 0)
+}
+
+func (r *Reader) rounds(e ast.Expr, depth int) bool {
+	if depth > 8 {
+		return true
+	}
+	switch x := ast.Unparen(e).(type) {
+	case *ast.Ident:
+		v := r.varOf(x)
+		if v == nil || r.params[v] || r.busy[v] {
+			return false
+		}
+		r.busy[v] = true
+		defer delete(r.busy, v)
+		for _, s := range r.sets[v] {
+			if s != nil && r.rounds(s, depth+1) {
+				return true
+			}
+		}
+		return len(r.tuples[v]) > 0 || len(r.scales[v]) > 0
+	case *ast.SelectorExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.IndexExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.StarExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.UnaryExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.BinaryExpr:
+		return r.info.Types[x].Value == nil
+	case *ast.CallExpr:
+		if len(x.Args) == 1 && r.info.Types[x.Fun].IsType() {
+			return r.rounds(x.Args[0], depth+1)
+		}
+		fn, ok := typeutil.Callee(r.info, x).(*types.Func)
+		if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && exact[fn.Name()] {
+			for _, a := range x.Args {
+				if r.rounds(a, depth+1) {
+					return true
+				}
+			}
+			return false
+		}
+		return true
+	}
+	return false
+}
+
+// exact lists the math functions whose result is exact.
+var exact = map[string]bool{"Abs": true, "Copysign": true, "Mod": true, "Remainder": true}

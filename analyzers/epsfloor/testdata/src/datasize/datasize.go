@@ -54,13 +54,28 @@ func Steady(readings []float64) bool {
 	return spread < 1e-12 // want `absolute tolerance 1e-12 on spread < 1e-12, of degree 2 in the data, .* once the data reach s = 67,`
 }
 
-// Extent rejects an empty range of readings: a difference of two
-// readings (degree 1) below 1e-14 is noise above 45.
+// Extent guards a division by the range of two readings as given: their
+// difference is exact when they are close (Sterbenz), so no rounding
+// drowns 1e-14; above 45 the guard becomes an exact zero test.
 func Extent(lo, hi float64) float64 {
-	if r := hi - lo; r < 1e-14 { // want `absolute tolerance 1e-14 on r < 1e-14, of degree 1 in the data, .* once the data reach s = 45,`
+	if r := hi - lo; r < 1e-14 {
 		return 1
 	}
 	return hi - lo
+}
+
+// OnTarget compares a mean of readings (computed, degree 1) with a
+// target: its rounding, eps·s, passes 1e-14 once the readings reach 45.
+func OnTarget(readings []float64, target float64) bool {
+	sum := 0.0
+	for _, r := range readings {
+		sum += r
+	}
+	mean := sum / float64(len(readings))
+	if math.Abs(mean-target) < 1e-14 { // want `absolute tolerance 1e-14 on math.Abs\(mean-target\) < 1e-14, of degree 1 in the data, .* once the data reach s = 45,`
+		return true
+	}
+	return false
 }
 
 // Within compares squared distances with a squared tolerance: both

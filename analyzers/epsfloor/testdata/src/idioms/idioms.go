@@ -202,14 +202,15 @@ func sliverArea(got float64) bool { return areaNear(got, sliver, sliver*1e-13) }
 // The value a variable holds at a test is known only when nothing but a
 // constant assignment can have set it: a branch, a loop that updates it
 // after the test, or a closure may have moved it, so 1e-14 (above eps)
-// is not judged at 1000.5 in any of these. got and xs are the caller's
-// data, of unknown size, so the data-size rule judges them instead.
+// is not judged at 1000.5 in any of these. Where a compared value is
+// computed from the caller's data (x/1e3, want/1e3), the data-size rule
+// judges it instead; got read as given, against a constant, is exact.
 func branchSet(got float64, big bool) bool {
 	want := 0.5
 	if big {
 		want = 1000.5
 	}
-	return math.Abs(got-want) < 1e-14 // want `absolute tolerance 1e-14 on .*, of degree 1 in the data, .* once the data reach s = 45`
+	return math.Abs(got-want) < 1e-14
 }
 
 func loopSet(xs []float64) bool {
@@ -283,7 +284,7 @@ func (l *level) halve() { *l /= 2 }
 func halved(got float64) bool {
 	want := level(1000.5)
 	want.halve()
-	return math.Abs(got-float64(want)) < 1e-14 // want `absolute tolerance 1e-14 on .*, of degree 1 in the data, .* once the data reach s = 45`
+	return math.Abs(got-float64(want)) < 1e-14
 }
 
 // scaledByLiteral divides the difference by the expected value written as

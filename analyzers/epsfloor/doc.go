@@ -117,7 +117,10 @@
 // whatever unit a caller picks. It judges |a-b| < t, |x| < t and a bare
 // x < t where x can cancel (a difference or sum of non-constant values, a
 // remainder, a product with such a factor; a product that does not cancel,
-// w*h, keeps a relative error, eps·|w*h|, and is left alone), and the calls
+// w*h, keeps a relative error, eps·|w*h|, and is left alone; so is a
+// difference of two values read as the caller gave them, exact when they
+// are close by Sterbenz's lemma, and an integrality test x - math.Round(x),
+// whose x is a count or a pure number), and the calls
 // of a predicate that compares two of its parameters (Equal(a, b float64)
 // bool), where the arguments give the degree: Equal(p.Cross(q), 0). The
 // fix, where the test is |a-b| < t, adds 4 ulps of max(|a|,|b|) to t (for

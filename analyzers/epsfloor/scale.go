@@ -85,10 +85,14 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if t.test != nil && t.test.Kind == tolerance.Absolute && t.test.Factor == 1 {
 		fs = c.relativeFix(cur, *t.test, t.f, true)
 	}
+	remedy := fmt.Sprintf("make it relative to the compared values, such as tol + %s·max(|a|,|b|)", t.f.FewUlpsLiteral())
+	if t.test == nil || t.test.Kind != tolerance.Absolute {
+		remedy = fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: t.node.Pos(), End: t.node.End(), Category: catScale,
-		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, is below its rounding error eps·s^%[3]s (eps = %.3g) once the data reach s = %.2g, under the %.2g assumed for data of unknown size; make it relative to the compared values, such as tol + %s·max(|a|,|b|)",
-			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), t.f.Eps, breaks, size, t.f.FewUlpsLiteral()),
+		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, is below its rounding error eps·s^%[3]s (eps = %.3g) once the data reach s = %.2g, under the %.2g assumed for data of unknown size; %s",
+			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), t.f.Eps, breaks, size, remedy),
 	}, fs...)
 }
 

@@ -8,6 +8,7 @@ import (
 	"go/types"
 	"testing"
 
+	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 
 	"roundoff/analyzers/internal/degree"
@@ -73,15 +74,15 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64) {
 	length := a0.norm()
 	ratio := area
 	ratio /= self
+	east := a0.x
+	rem := math.Mod(a0.x, b0.x)
+	_, _ = east, rem
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
 
-// TestDegrees checks the degree of each variable in sites: the rule a
-// rounding error eps·s^d at data size s rests on is dimensional analysis
-// (common practice: each product of two lengths is an area, Higham 2002
-// §3.1 bounds a dot product's error by a multiple of eps·|x|·|y|).
-func TestDegrees(t *testing.T) {
+// load type-checks src and returns a Reader of it and its last function.
+func load(t *testing.T) (*types.Info, *degree.Reader, *ast.FuncDecl) {
 	fset := token.NewFileSet()
 	f, err := parser.ParseFile(fset, "plane.go", src, 0)
 	require.NoError(t, err)
@@ -90,6 +91,15 @@ func TestDegrees(t *testing.T) {
 	require.NoError(t, err)
 	r := degree.New(info, []*ast.File{f})
 	fd := f.Decls[len(f.Decls)-1].(*ast.FuncDecl)
+	return info, r, fd
+}
+
+// TestDegrees checks the degree of each variable in sites: the rule a
+// rounding error eps·s^d at data size s rests on is dimensional analysis
+// (common practice: each product of two lengths is an area, Higham 2002
+// §3.1 bounds a dot product's error by a multiple of eps·|x|·|y|).
+func TestDegrees(t *testing.T) {
+	info, r, fd := load(t)
 	read := func(name string) (float64, bool, bool) {
 		for id, obj := range info.Defs {
 			if id.Name == name && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {
@@ -122,5 +132,19 @@ func TestDegrees(t *testing.T) {
 			require.Equal(t, c.deg, d, c.name)
 		}
 		require.Equal(t, c.cancels, cancels, c.name)
+	}
+}
+
+// TestRounds checks which values carry a rounding error of their own:
+// IEEE 754-2019 §5.3.1 makes remainder exact, and a value read as the
+// caller gave it has none (Goldberg 1991, Thm 11: the difference of two
+// such values is exact when they are close).
+func TestRounds(t *testing.T) {
+	info, r, fd := load(t)
+	want := map[string]bool{"area": true, "spread": true, "east": false, "rem": false}
+	for id, obj := range info.Defs {
+		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {
+			assert.Equal(t, w, r.Rounds(fd, id), id.Name)
+		}
 	}
 }

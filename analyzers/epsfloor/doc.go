@@ -99,6 +99,35 @@
 // the product against eps, since 1e-14 of an area of 5e-21 asks for 14
 // digits of it however small the product is.
 //
+// An absolute tolerance on values whose size the code does not fix is
+// judged at the size of the data. Library code receives its callers'
+// data, of any size: a quantity of degree d in the data (a parameter, a
+// field or element of one: 1; a product adds degrees, a quotient
+// subtracts them, a square root halves, a sum keeps the larger; read
+// through the package's own functions, so p.Cross(q) of two differences
+// is 2; see package degree) carries a rounding error of about eps·s^d at
+// data size s, so a tolerance t stops passing anything but equality once
+// the data reach (t/eps)^(1/d): 1e-10 on a cross product of coordinates
+// fails at 670, 1e-14 on a one-pass variance at 6.7, 2.2e-14 on a
+// difference of two data values at 99. epsfloor reports it when that size
+// lies below the size assumed for data of unknown size, 1e3 unless
+// roundoff.yaml declares another for the package (datasize): the SI habit
+// of choosing the prefix that keeps a value below 1000 (BIPM SI Brochure,
+// 9th ed., §3, from memory) makes 1e3 a size ordinary data reach in
+// whatever unit a caller picks. It judges |a-b| < t, |x| < t and a bare
+// x < t where x can cancel (a difference or sum of non-constant values, a
+// remainder, a product with such a factor; a product that does not cancel,
+// w*h, keeps a relative error, eps·|w*h|, and is left alone; so is a
+// difference of two values read as the caller gave them, exact when they
+// are close by Sterbenz's lemma, and an integrality test x - math.Round(x),
+// whose x is a count or a pure number), and the calls
+// of a predicate that compares two of its parameters (Equal(a, b float64)
+// bool), where the arguments give the degree: Equal(p.Cross(q), 0). The
+// fix, where the test is |a-b| < t, adds 4 ulps of max(|a|,|b|) to t (for
+// b*b - 4*a*c that is b² and 4ac, the size of its rounding). A test file
+// supplies its own data, whose size it fixes: there only a size the code
+// shows is judged, as above.
+//
 // A difference multiplied or divided by a constant before the test
 // (|(x-c)/c| < tol, |b-a|/2 < tol, |k·(a-b)| < tol) holds when
 // |a-b| < tol/k, so tol/k is what the float spacing is held to: 1e-15 on
@@ -114,7 +143,12 @@
 // 1 + 2^-52); constants at or below 2^-511 ≈ 1.5e-154, which guard against underflow
 // (safe minimum), never tolerances; single magnitudes compared with tiny
 // constants before a division (|d| < 1e-300); thresholds on squared
-// quantities; mixed tests atol + rtol·scale; tolerances at or above eps
+// quantities, squared distances against tol² (degree 2 on both sides:
+// consistent at every size); mixed tests atol + rtol·scale; a predicate
+// that compares values read straight from its parameters (its callers'
+// data decide); quantities of unknown degree (a call into another
+// package, a package variable, a variable multiplied by itself in a
+// loop) and of degree 0 (a ratio, a sine); tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
 // tolerance reaches the gap between floats just under that magnitude.
 //

@@ -15,6 +15,7 @@ import (
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
@@ -41,6 +42,7 @@ const (
 	catIterate   = "iterate"
 	catAbsorbed  = "absorbed"
 	catOverflow  = "overflow"
+	catScale     = "scale"
 )
 
 // use records how a parameter or field is used as a tolerance.
@@ -73,6 +75,9 @@ type checker struct {
 	uses   *tolerance.Uses[use]
 	tested map[use]token.Pos // this package's tolerance tests, by use
 	fields map[types.Object][]ast.Expr
+
+	deg     *degree.Reader         // made on first use (see degrees)
+	helpers map[*types.Func]helper // predicates comparing two parameters (see atScale)
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -100,6 +105,7 @@ func run(pass *analysis.Pass) (any, error) {
 		switch n := n.(type) {
 		case *ast.CallExpr:
 			c.call(cur, n)
+			c.helperCall(cur, n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:
@@ -115,6 +121,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	t, ok := c.read.Recognize(n)
+	if !ok {
+		c.bare(cur, n)
+	}
 	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}

@@ -18,6 +18,7 @@ import (
 
 	"roundoff/analyzers/epsfloor"
 	"roundoff/analyzers/internal/testrun"
+	"roundoff/internal/config"
 	"roundoff/internal/numeric"
 )
 
@@ -201,4 +202,18 @@ func TestSiteRelated(t *testing.T) {
 		}
 	}
 	assert.True(t, found)
+}
+
+// TestDataSize checks the data-size rule: an absolute tolerance t on a
+// quantity of degree d stops meaning anything once the data reach
+// (t/eps)^(1/d) (eps = 2^-52, IEEE 754-2019 binary64), below the assumed
+// size 1e3; and, with a size of 1e6 declared for a package, where that
+// size puts the limit.
+func TestDataSize(t *testing.T) {
+	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), epsfloor.Analyzer, "datasize")
+	cfg := config.Default(nil, "")
+	cfg.DataSizes = []config.DataSize{{Package: "bigdata", Size: 1e6}}
+	config.Use(cfg)
+	defer config.Use(config.Default(nil, ""))
+	analysistest.Run(t, analysistest.TestData(), epsfloor.Analyzer, "bigdata")
 }

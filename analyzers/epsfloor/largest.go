@@ -10,6 +10,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 )
@@ -23,7 +24,7 @@ import (
 // does). It reports whether it reported.
 func (c *checker) aboveLargest(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	x, _, v, f, ok := c.boundTest(n, token.GTR)
-	if !ok || v != maxOf(f) || nonNegative(c.pass.TypesInfo, c.followed(x)) || c.testsBelow(cur, x, -maxOf(f)) {
+	if !ok || v != maxOf(f) || degree.NonNegative(c.pass.TypesInfo, c.followed(x)) || c.testsBelow(cur, x, -maxOf(f)) {
 		return false
 	}
 	t := c.pass.TypesInfo.TypeOf(x)

@@ -23,6 +23,7 @@ import (
 func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.Format, tol float64) {
 	if t.Kind == tolerance.Magnitude {
 		c.iterate(cur, t, f, tol)
+		c.cancelled(cur, t.A, tol/t.Factor, f, t.Cmp)
 		return
 	}
 	mag := c.magnitude(cur, t, f)
@@ -34,6 +35,10 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		desc += fmt.Sprintf(" on the difference times %.3g, %.3g on the difference itself,", t.Factor, tol)
 	}
 	res := judge(t.Kind, tol, f, mag)
+	if res == tolerance.Resolvable && t.Kind == tolerance.Absolute && mag == 0 {
+		c.atScale(cur, scaleTest{node: t.Cmp, a: t.A, b: t.B, tol: tol, f: f, test: &t})
+		return
+	}
 	if res == tolerance.Resolvable {
 		return
 	}

@@ -12,6 +12,7 @@ import (
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/internal/numeric"
@@ -148,7 +149,7 @@ func runningMax(info *types.Info, body ast.Node, v *types.Var) bool {
 	ast.Inspect(body, func(n ast.Node) bool {
 		switch n := n.(type) {
 		case *ast.IfStmt:
-			if x := greater(info, n.Cond, v); x != nil && !nonNegative(info, x) && assignsFrom(info, n.Body, v, x) {
+			if x := greater(info, n.Cond, v); x != nil && !degree.NonNegative(info, x) && assignsFrom(info, n.Body, v, x) {
 				found = true
 			}
 		case *ast.AssignStmt:
@@ -159,7 +160,7 @@ func runningMax(info *types.Info, body ast.Node, v *types.Var) bool {
 				}
 				fn, _ := typeutil.Callee(info, call).(*types.Func)
 				found = fn != nil && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Max" &&
-					len(call.Args) == 2 && (isVar(info, call.Args[0], v) && !nonNegative(info, call.Args[1]) || isVar(info, call.Args[1], v) && !nonNegative(info, call.Args[0]))
+					len(call.Args) == 2 && (isVar(info, call.Args[0], v) && !degree.NonNegative(info, call.Args[1]) || isVar(info, call.Args[1], v) && !degree.NonNegative(info, call.Args[0]))
 			}
 		}
 		return !found
@@ -189,19 +190,6 @@ func assignsFrom(info *types.Info, block *ast.BlockStmt, v *types.Var, x ast.Exp
 		if ok && len(as.Lhs) == 1 && len(as.Rhs) == 1 && isVar(info, as.Lhs[0], v) && types.ExprString(as.Rhs[0]) == types.ExprString(x) {
 			return true
 		}
-	}
-	return false
-}
-
-// nonNegative reports whether e is non-negative by construction: a square
-// x*x, or a call of math.Abs, Sqrt, Hypot or Exp.
-func nonNegative(info *types.Info, e ast.Expr) bool {
-	switch e := ast.Unparen(e).(type) {
-	case *ast.BinaryExpr:
-		return e.Op == token.MUL && types.ExprString(e.X) == types.ExprString(e.Y)
-	case *ast.CallExpr:
-		fn, _ := typeutil.Callee(info, e).(*types.Func)
-		return fn != nil && fn.Pkg() != nil && fn.Pkg().Path() == "math" && map[string]bool{"Abs": true, "Sqrt": true, "Hypot": true, "Exp": true}[fn.Name()]
 	}
 	return false
 }

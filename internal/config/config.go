@@ -31,6 +31,7 @@ type Config struct {
 	Root        string       // the directory excluded paths are relative to
 	Exclude     []string     // slash-separated globs, relative to Root
 	NoiseLevels []NoiseLevel // in file order
+	DataSizes   []DataSize   // in file order
 
 	names     []string // the suite, in its order
 	analyzers map[string]*Analyzer
@@ -49,6 +50,15 @@ type NoiseLevel struct {
 	Function string  // a function or Type.Method name; "" for every function
 	Relative float64 // relative accuracy, in (0, 1)
 	Line     int     // where it is declared, 0 when not from a file
+}
+
+// A DataSize declares the size that data reaching the packages it covers
+// can have, in the units their callers use (epsfloor judges absolute
+// tolerances of unknown size at it).
+type DataSize struct {
+	Package string  // an import path, or a path ending in /... for a tree
+	Size    float64 // positive and finite
+	Line    int     // where it is declared, 0 when not from a file
 }
 
 // Default returns the configuration that applies without a file: every
@@ -130,24 +140,45 @@ func (c *Config) Noise(pkgPath, fn string) (float64, bool) {
 	return best, rank >= 0
 }
 
+// DataSize returns the data size declared for the package at pkgPath: the
+// most specific entry that covers it (the later among equals).
+func (c *Config) DataSize(pkgPath string) (float64, bool) {
+	best, rank := 0.0, -1
+	for _, d := range c.DataSizes {
+		r, ok := coversPackage(d.Package, pkgPath)
+		if ok && r >= rank {
+			best, rank = d.Size, r
+		}
+	}
+	return best, rank >= 0
+}
+
 // covers reports whether n applies to fn of pkgPath, and how specifically.
 func (n NoiseLevel) covers(pkgPath, fn string) (rank int, ok bool) {
 	if n.Function != "" && n.Function != fn {
 		return 0, false
 	}
-	tree, isTree := strings.CutSuffix(n.Package, "/...")
-	switch {
-	case n.Package == pkgPath:
-		rank = 2 * len(n.Package)
-	case isTree && (pkgPath == tree || strings.HasPrefix(pkgPath, tree+"/")):
-		rank = 2*len(tree) - 1
-	default:
+	rank, ok = coversPackage(n.Package, pkgPath)
+	if !ok {
 		return 0, false
 	}
 	if n.Function != "" {
 		rank += 1 << 20 // a function rule beats every package rule
 	}
 	return rank, true
+}
+
+// coversPackage reports whether the package pattern (a path, or a tree
+// ending in /...) covers pkgPath, and how specifically.
+func coversPackage(pattern, pkgPath string) (rank int, ok bool) {
+	tree, isTree := strings.CutSuffix(pattern, "/...")
+	switch {
+	case pattern == pkgPath:
+		return 2 * len(pattern), true
+	case isTree && (pkgPath == tree || strings.HasPrefix(pkgPath, tree+"/")):
+		return 2*len(tree) - 1, true
+	}
+	return 0, false
 }
 
 var unattendedOnly atomic.Bool
@@ -178,6 +209,10 @@ func Current() *Config {
 // Noise returns the relative accuracy the run's configuration declares
 // for function fn of the package at pkgPath; see Config.Noise.
 func Noise(pkgPath, fn string) (float64, bool) { return Current().Noise(pkgPath, fn) }
+
+// Size returns the data size the run's configuration declares for the
+// package at pkgPath; see Config.DataSize.
+func Size(pkgPath string) (float64, bool) { return Current().DataSize(pkgPath) }
 
 // An Error is a mistake in a configuration file, at a line.
 type Error struct {

@@ -64,7 +64,7 @@ func TestEmptyFileIsDefaults(t *testing.T) {
 
 func TestErrorsNameFileAndLine(t *testing.T) {
 	for _, c := range []struct{ src, want string }{
-		{"exlude:\n  - a\n", `cfg.yaml:1: unknown key "exlude" in the top level (want analyzers, exclude, noise)`},
+		{"exlude:\n  - a\n", `cfg.yaml:1: unknown key "exlude" in the top level (want analyzers, datasize, exclude, noise)`},
 		{"analyzers:\n  exacteqq:\n    level: error\n", `cfg.yaml:2: unknown analyzer "exacteqq" (the suite has exacteq, fdstep, reviewmark)`},
 		{"analyzers:\n  exacteq:\n    level: fatal\n", `cfg.yaml:3: level must be one of error, warning, note, not "fatal"`},
 		{"analyzers:\n  exacteq:\n    enabled: maybe\n", `cfg.yaml:3: enabled must be true or false, not "maybe"`},
@@ -82,6 +82,9 @@ func TestErrorsNameFileAndLine(t *testing.T) {
 		// IEEE 754-2019 binary64 unit roundoff 2^-53 ≈ 1.11e-16: no computed value is more accurate.
 		{"noise:\n  - package: a/b\n    relative: 1e-17\n", `cfg.yaml:3: relative 1e-17: below the unit roundoff of float64 (1.11e-16): no computed float64 value is that accurate`},
 		{"noise:\n  - package: a/b\n    relative: 1e-6\n    scope: all\n", `cfg.yaml:4: unknown key "scope" in a noise entry (want function, package, relative)`},
+		{"datasize:\n  - package: a/b\n", `cfg.yaml:2: a datasize entry needs size, the largest magnitude of the data (such as 1e6)`},
+		{"datasize:\n  - package: a/b\n    size: -3\n", `cfg.yaml:3: size must be a positive number such as 1e6, not "-3"`},
+		{"datasize:\n  - size: 1e6\n", `cfg.yaml:2: a datasize entry needs a package`},
 		{"exclude: []\nexclude: []\n", `cfg.yaml:2: key "exclude" appears twice in the top level`},
 		{"analyzers:\n  exacteq:\n    level: note\n  exacteq:\n    level: error\n", `cfg.yaml:4: analyzer "exacteq" appears twice`},
 		{"analyzers: [exacteq]\n", `cfg.yaml:1: analyzers must map analyzer names to settings`},
@@ -183,4 +186,24 @@ func TestWriteReadsBack(t *testing.T) {
 		assert.Equal(t, [3]any{a.Package, a.Function, a.Relative}, [3]any{b.Package, b.Function, b.Relative})
 	}
 	assert.Contains(t, buf.String(), "  reviewmark:\n    enabled: true\n    level: warning\n", "every analyzer listed")
+}
+
+// TestDataSize checks that the most specific datasize entry applies.
+func TestDataSize(t *testing.T) {
+	c, err := config.Parse("roundoff.yaml", []byte("datasize:\n  - package: survey/...\n    size: 1e6\n  - package: survey/plan\n    size: 10\n"), suite)
+	require.NoError(t, err)
+	for _, tc := range []struct {
+		pkg  string
+		size float64
+		ok   bool
+	}{{"survey", 1e6, true}, {"survey/field", 1e6, true}, {"survey/plan", 10, true}, {"surveyor", 0, false}} {
+		size, ok := c.DataSize(tc.pkg)
+		assert.Equal(t, tc.ok, ok, tc.pkg)
+		assert.Equal(t, tc.size, size, tc.pkg)
+	}
+	var buf bytes.Buffer
+	require.NoError(t, c.Write(&buf))
+	back, err := config.Parse("roundoff.yaml", buf.Bytes(), suite)
+	require.NoError(t, err)
+	assert.Equal(t, c.DataSizes[0].Size, back.DataSizes[0].Size)
 }

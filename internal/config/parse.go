@@ -57,6 +57,7 @@ func Parse(path string, data []byte, names []string) (*Config, error) {
 		"analyzers": p.analyzers,
 		"exclude":   p.exclude,
 		"noise":     p.noise,
+		"datasize":  p.datasize,
 	})
 	if p.err != nil {
 		return nil, p.err
@@ -215,6 +216,43 @@ func (p *parser) noise(n *yaml.Node) {
 			p.c.NoiseLevels = append(p.c.NoiseLevels, nl)
 		}
 	}
+}
+
+// datasize reads the list of data sizes.
+func (p *parser) datasize(n *yaml.Node) {
+	if n.Kind != yaml.SequenceNode {
+		p.fail(n, "datasize must be a list of entries with package and size")
+		return
+	}
+	for _, v := range n.Content {
+		if p.err != nil {
+			return
+		}
+		ds := DataSize{Line: v.Line}
+		p.mapping(v, "a datasize entry", map[string]func(*yaml.Node){
+			"package": func(s *yaml.Node) { ds.Package = p.text(s, "package") },
+			"size":    func(s *yaml.Node) { ds.Size = p.size(s) },
+		})
+		switch {
+		case p.err != nil:
+		case ds.Package == "":
+			p.fail(v, "a datasize entry needs a package")
+		case ds.Size == 0:
+			p.fail(v, "a datasize entry needs size, the largest magnitude of the data (such as 1e6)")
+		default:
+			p.c.DataSizes = append(p.c.DataSizes, ds)
+		}
+	}
+}
+
+// size reads a data size: a positive finite number.
+func (p *parser) size(n *yaml.Node) float64 {
+	v, err := strconv.ParseFloat(n.Value, 64)
+	if n.Kind != yaml.ScalarNode || err != nil || !(v > 0) || math.IsInf(v, 0) {
+		p.fail(n, "size must be a positive number such as 1e6, not %q", n.Value)
+		return 0
+	}
+	return v
 }
 
 func (p *parser) text(n *yaml.Node, key string) string {

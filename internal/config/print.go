@@ -34,6 +34,14 @@ func (c *Config) Write(w io.Writer) error {
 		noise.Content = append(noise.Content, entry)
 	}
 	add(doc, "noise", noise)
+	if len(c.DataSizes) > 0 {
+		sizes := &yaml.Node{Kind: yaml.SequenceNode}
+		for _, d := range c.DataSizes {
+			sizes.Content = append(sizes.Content, mapNode(scalar("package"), scalar(d.Package),
+				scalar("size"), scalar(strconv.FormatFloat(d.Size, 'g', -1, 64))))
+		}
+		add(doc, "datasize", sizes)
+	}
 	enc := yaml.NewEncoder(w)
 	enc.SetIndent(2)
 	if err := enc.Encode(doc); err != nil {

@@ -1,0 +1,313 @@
+package epsfloor
+
+import (
+	"fmt"
+	"go/ast"
+	"go/constant"
+	"go/token"
+	"go/types"
+	"math"
+
+	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/constval"
+	"roundoff/analyzers/internal/degree"
+	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/tolerance"
+	"roundoff/internal/config"
+	"roundoff/internal/numeric"
+)
+
+// DefaultDataSize is the size roundoff assumes for data of unknown size:
+// the SI habit of choosing the unit prefix that keeps a value below 1000
+// (BIPM SI Brochure, 9th ed. 2019, §3, from memory) makes 1e3 the size
+// that ordinary data reach in whatever unit a caller picks.
+const DefaultDataSize = 1e3
+
+// helper is a predicate of this package that tests two of its parameters
+// against an absolute tolerance: its callers' arguments are the data.
+type helper struct {
+	a, b int // parameter indices
+	tol  float64
+	f    numeric.Format
+	at   token.Pos
+}
+
+// scaleTest is an absolute tolerance test on a quantity q, a difference
+// a-b (b may be nil when q is a cancelling product) whose size is not known.
+type scaleTest struct {
+	node ast.Node
+	a, b ast.Expr
+	tol  float64
+	f    numeric.Format
+	test *tolerance.Test // the recognised test, for a fix; nil for a bare one
+}
+
+// atScale judges t at the data size of the package: the rounding error of
+// a quantity of degree d in the data is about eps·s^d at data size s, so
+// an absolute tolerance tol stops passing anything but equality once the
+// data reach (tol/eps)^(1/d). A predicate that compares two of its own
+// parameters is learnt as a helper, judged at its calls instead.
+func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
+	if provenance.InTestFile(c.pass.Fset, t.node.Pos()) {
+		return // a test fixes its own data: only a known size says anything
+	}
+	if t.tol <= tolerance.UnderflowGuard {
+		return // an underflow guard, not a tolerance
+	}
+	fd := enclosingDecl(cur)
+	if fd == nil {
+		return
+	}
+	if c.learnHelper(cur, fd, t) {
+		return
+	}
+	if !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
+		return // values read as given: their difference is exact when they are close
+	}
+	d, ok := c.degrees().Of(fd, t.a)
+	if t.b != nil {
+		db, okb := c.degrees().Of(fd, t.b)
+		d, ok = max(d, db), ok && okb
+	}
+	if !ok || d <= 0 {
+		return // unknown, or of a size fixed by constants
+	}
+	size := dataSize(c.pass.Pkg.Path())
+	breaks := math.Pow(t.tol/t.f.Eps, 1/d)
+	if breaks >= size {
+		return
+	}
+	var fs []fixes.Fix
+	if t.test != nil && t.test.Kind == tolerance.Absolute && t.test.Factor == 1 {
+		fs = c.relativeFix(cur, *t.test, t.f, true)
+	}
+	remedy := fmt.Sprintf("make it relative to the compared values, such as tol + %s·max(|a|,|b|)", t.f.FewUlpsLiteral())
+	if t.test == nil || t.test.Kind != tolerance.Absolute {
+		remedy = fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: t.node.Pos(), End: t.node.End(), Category: catScale,
+		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, is below its rounding error eps·s^%[3]s (eps = %.3g) once the data reach s = %.2g, under the %.2g assumed for data of unknown size; %s",
+			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), t.f.Eps, breaks, size, remedy),
+	}, fs...)
+}
+
+// degrees returns the package's degree reader, made on first use: only
+// functions holding a tolerance test of unknown size read degrees.
+func (c *checker) degrees() *degree.Reader {
+	if c.deg == nil {
+		c.deg = degree.New(c.pass.TypesInfo, c.pass.Files)
+	}
+	return c.deg
+}
+
+// quantity returns the tested expression, for messages.
+func quantity(t scaleTest) ast.Node {
+	if t.test != nil {
+		return t.test.Cmp
+	}
+	return t.node
+}
+
+// dataSize returns the data size assumed for the package at path: the
+// one set in roundoff.yaml, else DefaultDataSize.
+func dataSize(path string) float64 {
+	if s, ok := config.Size(path); ok {
+		return s
+	}
+	return DefaultDataSize
+}
+
+// learnHelper reports whether t sits in a predicate (one bool result)
+// that returns it and compares values computed from its parameters alone
+// (a, float64(a), p.x, xs[i], their sums, differences and remainders,
+// accessors such as i.Length()): a comparison helper, whose data are its
+// callers'. When the two values are parameters themselves it records fd,
+// so that its calls are judged with their arguments.
+func (c *checker) learnHelper(cur inspector.Cursor, fd *ast.FuncDecl, t scaleTest) bool {
+	info := c.pass.TypesInfo
+	res := fd.Type.Results
+	if res == nil || res.NumFields() != 1 || !types.Identical(info.TypeOf(res.List[0].Type), types.Typ[types.Bool]) || !returned(cur) {
+		return false
+	}
+	if !c.fromParams(t.a, 0) || t.b != nil && !c.fromParams(t.b, 0) {
+		return false
+	}
+	fn, _ := info.Defs[fd.Name].(*types.Func)
+	ia, oka := paramIndex(info, fn, t.a)
+	ib, okb := paramIndex(info, fn, t.b)
+	if oka && okb {
+		if c.helpers == nil {
+			c.helpers = map[*types.Func]helper{}
+		}
+		c.helpers[fn] = helper{ia, ib, t.tol, t.f, t.node.Pos()}
+	}
+	return true
+}
+
+// fromParams reports whether e is computed from parameters (or the
+// receiver) alone: read through conversions, fields, elements, local
+// variables given one value, sums, differences, remainders and calls of
+// methods with no arguments.
+func (c *checker) fromParams(e ast.Expr, depth int) bool {
+	info := c.pass.TypesInfo
+	if depth > 8 {
+		return false
+	}
+	switch x := ast.Unparen(e).(type) {
+	case *ast.CallExpr:
+		if len(x.Args) == 1 && info.Types[x.Fun].IsType() {
+			return c.fromParams(x.Args[0], depth+1)
+		}
+		fn, ok := typeutil.Callee(info, x).(*types.Func)
+		if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && (fn.Name() == "Remainder" || fn.Name() == "Mod") {
+			return c.fromParams(x.Args[0], depth+1) && c.fromParams(x.Args[1], depth+1)
+		}
+		sel, ok := x.Fun.(*ast.SelectorExpr)
+		return ok && len(x.Args) == 0 && info.Selections[sel] != nil && c.fromParams(sel.X, depth+1)
+	case *ast.SelectorExpr:
+		return c.isConst(x) || c.fromParams(x.X, depth+1)
+	case *ast.IndexExpr:
+		return c.fromParams(x.X, depth+1)
+	case *ast.BinaryExpr:
+		return c.isConst(x) || (x.Op == token.ADD || x.Op == token.SUB) && c.fromParams(x.X, depth+1) && c.fromParams(x.Y, depth+1)
+	case *ast.Ident:
+		if c.isConst(x) {
+			return true
+		}
+		v, ok := info.Uses[x].(*types.Var)
+		if init, local := c.decls[v]; ok && local {
+			return c.fromParams(init, depth+1)
+		}
+		return ok && (v.Kind() == types.ParamVar || v.Kind() == types.RecvVar)
+	}
+	return c.isConst(e)
+}
+
+// returned reports whether cur lies in a return statement.
+func returned(cur inspector.Cursor) bool {
+	for range cur.Enclosing((*ast.ReturnStmt)(nil)) {
+		return true
+	}
+	return false
+}
+
+// paramIndex returns the index of the parameter of fn that e names,
+// through conversions.
+func paramIndex(info *types.Info, fn *types.Func, e ast.Expr) (int, bool) {
+	if fn == nil || e == nil {
+		return 0, false
+	}
+	for {
+		call, ok := ast.Unparen(e).(*ast.CallExpr)
+		if !ok || len(call.Args) != 1 || !info.Types[call.Fun].IsType() {
+			break
+		}
+		e = call.Args[0]
+	}
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	if !ok {
+		return 0, false
+	}
+	ps := fn.Signature().Params()
+	for i := range ps.Len() {
+		if ps.At(i) == info.Uses[id] {
+			return i, true
+		}
+	}
+	return 0, false
+}
+
+// helperCall judges a call of a helper at cur with the degrees of its
+// arguments.
+func (c *checker) helperCall(cur inspector.Cursor, call *ast.CallExpr) {
+	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+	h, known := c.helpers[fn]
+	if !ok || !known || max(h.a, h.b) >= len(call.Args) || call.Ellipsis.IsValid() {
+		return
+	}
+	a, b := call.Args[h.a], call.Args[h.b]
+	for _, pair := range [][2]ast.Expr{{a, b}, {b, a}} {
+		if c.isConst(pair[1]) && !c.isConst(pair[0]) {
+			c.cancelled(cur, pair[0], h.tol, h.f, call) // Equal(x, 0): x's own rounding
+			return
+		}
+	}
+	c.atScale(cur, scaleTest{node: call, a: a, b: b, tol: h.tol, f: h.f})
+}
+
+// bare reads x < tol (or tol > x) with tol a positive constant and x a
+// cancelling quantity, possibly scaled by a constant: a difference of two
+// non-constant values, a remainder, or a product of such.
+func (c *checker) bare(cur inspector.Cursor, n *ast.BinaryExpr) {
+	x, tolE := n.X, n.Y
+	switch n.Op {
+	case token.GTR, token.GEQ:
+		x, tolE = n.Y, n.X
+	case token.LSS, token.LEQ:
+	default:
+		return
+	}
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tolE)
+	if !ok || v.Kind() != constant.Int && v.Kind() != constant.Float || constant.Sign(v) <= 0 || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(x)) {
+		return
+	}
+	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(x))
+	x, k := c.unscaled(x)
+	c.cancelled(cur, x, f.Value(v)/k, f, n)
+}
+
+// cancelled judges x < tol, or |x| < tol, at the data size when x
+// cancels (see degree.Reader.Cancels).
+func (c *checker) cancelled(cur inspector.Cursor, x ast.Expr, tol float64, f numeric.Format, n ast.Node) {
+	if tol < f.Eps {
+		return // a threshold below eps on one value asks whether it vanished (a guard before a division, a domain bound), not whether it is noise
+	}
+	if fd := enclosingDecl(cur); fd == nil || !c.degrees().Cancels(fd, x) {
+		return // a plain threshold: no rounding of its own to drown it
+	}
+	t := scaleTest{node: n, a: x, tol: tol, f: f}
+	if id, ok := ast.Unparen(x).(*ast.Ident); ok && c.decls[c.pass.TypesInfo.Uses[id]] != nil {
+		x = c.decls[c.pass.TypesInfo.Uses[id]] // r := hi - lo; r < tol: the difference itself
+	}
+	if d, ok := ast.Unparen(x).(*ast.BinaryExpr); ok && d.Op == token.SUB {
+		t.a, t.b = d.X, d.Y // a predicate comparing two parameters is then seen as one
+	}
+	c.atScale(cur, t)
+}
+
+// unscaled strips constant factors and divisors from x.
+func (c *checker) unscaled(x ast.Expr) (ast.Expr, float64) {
+	k := 1.0
+	for {
+		b, ok := ast.Unparen(x).(*ast.BinaryExpr)
+		if !ok || b.Op != token.MUL && b.Op != token.QUO {
+			return x, k
+		}
+		v, ok := constval.Exact(c.pass.TypesInfo, c.decls, b.Y)
+		if !ok || v.Kind() != constant.Int && v.Kind() != constant.Float {
+			return x, k
+		}
+		f, _ := constant.Float64Val(v)
+		if !(f > 0) || math.IsInf(f, 0) {
+			return x, k
+		}
+		x = b.X
+		if b.Op == token.QUO {
+			f = 1 / f
+		}
+		k *= f
+	}
+}
+
+// enclosingDecl returns the function declaration around cur, or nil.
+func enclosingDecl(cur inspector.Cursor) *ast.FuncDecl {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		return fd.Node().(*ast.FuncDecl)
+	}
+	return nil
+}

@@ -1,0 +1,117 @@
+// Package datasize surveys plots of land: absolute tolerances on
+// quantities whose size is the caller's, judged at the data size 1e3.
+package datasize
+
+import (
+	"math"
+	"strconv"
+)
+
+type station struct{ east, north float64 }
+
+func (p station) to(q station) station { return station{q.east - p.east, q.north - p.north} }
+
+func (p station) cross(q station) float64 { return p.east*q.north - p.north*q.east }
+
+func (p station) dot(q station) float64 { return p.east*q.east + p.north*q.north }
+
+// level compares two of its parameters: its callers' arguments are the
+// data, so it is judged where it is called, not here.
+func level(a, b float64) bool { return math.Abs(a-b) < 1e-11 }
+
+// Collinear tests a cross product of two sides (an area, degree 2): its
+// rounding at coordinates of 1e3 is about 2.2e-16·1e6 = 2.2e-10.
+func Collinear(a, b, c station) bool {
+	return level(a.to(b).cross(a.to(c)), 0) // want `absolute tolerance 1e-11 on level\(a.to\(b\).cross\(a.to\(c\)\), 0\), of degree 2 in the data, is below its rounding error eps·s\^2 \(eps = 2.22e-16\) once the data reach s = 2.1e\+02, under the 1e\+03 assumed`
+}
+
+// SameEasting compares coordinates (degree 1): 1e-11 lasts up to 4.5e4.
+func SameEasting(a, b station) bool {
+	return level(a.east, b.east)
+}
+
+// Flat compares a product of two lengths that do not cancel: its
+// rounding is relative, 2.2e-16 of itself, so no size breaks the test.
+func Flat(width, depth float64) bool {
+	return level(width*depth, 0)
+}
+
+// DoubleRoot tests a discriminant, degree 2 in the coefficients.
+func DoubleRoot(a, b, c float64) bool {
+	return math.Abs(b*b-4*a*c) < 1e-12 // want `absolute tolerance 1e-12 on math.Abs\(b\*b-4\*a\*c\) < 1e-12, of degree 2 in the data, .* once the data reach s = 67,`
+}
+
+// Steady tests a one-pass spread of readings (degree 2) against a bare
+// threshold: a flat series leaves a residue of eps times the sum of
+// squares.
+func Steady(readings []float64) bool {
+	sum, sq := 0.0, 0.0
+	for _, r := range readings {
+		sum += r
+		sq += r * r
+	}
+	spread := sq - sum*sum/float64(len(readings))
+	return spread < 1e-12 // want `absolute tolerance 1e-12 on spread < 1e-12, of degree 2 in the data, .* once the data reach s = 67,`
+}
+
+// Extent guards a division by the range of two readings as given: their
+// difference is exact when they are close (Sterbenz), so no rounding
+// drowns 1e-14; above 45 the guard becomes an exact zero test.
+func Extent(lo, hi float64) float64 {
+	if r := hi - lo; r < 1e-14 {
+		return 1
+	}
+	return hi - lo
+}
+
+// OnTarget compares a mean of readings (computed, degree 1) with a
+// target: its rounding, eps·s, passes 1e-14 once the readings reach 45.
+func OnTarget(readings []float64, target float64) bool {
+	sum := 0.0
+	for _, r := range readings {
+		sum += r
+	}
+	mean := sum / float64(len(readings))
+	if math.Abs(mean-target) < 1e-14 { // want `absolute tolerance 1e-14 on math.Abs\(mean-target\) < 1e-14, of degree 1 in the data, .* once the data reach s = 45,`
+		return true
+	}
+	return false
+}
+
+// Within compares squared distances with a squared tolerance: both
+// sides are of degree 2, so the test is consistent at every size.
+func Within(a, b station) bool {
+	d := a.to(b)
+	return d.dot(d) < 1e-6*1e-6
+}
+
+// Mixed has a relative part that grows with the data.
+func Mixed(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-12+1e-9*math.Abs(b)
+}
+
+// Thin compares a parameter with a threshold: it carries no rounding of
+// its own to drown the tolerance.
+func Thin(width float64) bool {
+	return width < 1e-12
+}
+
+// Bearing compares angles' sines, of degree 0: their size is fixed.
+func Bearing(t, s float64) bool {
+	return math.Abs(math.Sin(t)-math.Sin(s)) < 1e-14
+}
+
+// Parsed compares a value of unknown degree (from another package).
+func Parsed(text string, w float64) bool {
+	v, _ := strconv.ParseFloat(text, 64)
+	return math.Abs(v-w) < 1e-14
+}
+
+// Guarded keeps a cross product away from underflow: a constant at or
+// below 2^-511 is a guard, not a tolerance.
+func Guarded(a, b station) float64 {
+	if d := a.cross(b); math.Abs(d) < 1e-300 {
+		return 0
+	}
+	return 1 / a.cross(b)
+}

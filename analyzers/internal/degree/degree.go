@@ -1,0 +1,644 @@
+// Package degree reads the degree of a float expression in the data its
+// function receives: how its size grows when every value the caller
+// passes in grows by a factor s. A parameter, a field or element of one,
+// and whatever else arrives from outside is of degree 1 (it scales with
+// the data); constants and integers (counts, indices) are of degree 0; a
+// product adds degrees, a quotient subtracts them, a sum or difference
+// takes the larger, a square root halves. The rounding error of a value of
+// degree d is about eps·s^d at data size s, which is what an absolute
+// tolerance on it has to exceed.
+//
+// Functions of the package are read through their return statements,
+// once per combination of argument degrees (p.Dot(q) is deg(p)+deg(q));
+// where the reading cannot tell (a call into another package, a package
+// variable, a loop product), it says so, and callers claim nothing.
+package degree
+
+import (
+	"go/ast"
+	"go/token"
+	"go/types"
+	"math"
+	"strconv"
+
+	"golang.org/x/tools/go/types/typeutil"
+)
+
+// none is the degree of a variable that has no value of its own yet (its
+// zero value, or itself while its assignments are being read): it does
+// not raise the larger of a sum.
+var none = math.Inf(-1)
+
+// Reader reads degrees in one package. Its zero value is not usable: use
+// New.
+type Reader struct {
+	info   *types.Info
+	funcs  map[*types.Func]*ast.FuncDecl
+	sets   map[*types.Var][]ast.Expr // values given to local variables; a nil value is the zero value
+	poison map[*types.Var]bool       // local variables multiplied by themselves or changed through pointers
+	tuples map[*types.Var][]result   // values given to local variables from calls of several results
+	scales map[*types.Var][]scaling  // v *= e and v /= e outside loops, in order
+	loops  []ast.Node                // the loops of the functions indexed
+	params map[*types.Var]bool
+	done   map[*ast.FuncDecl]bool
+	memo   map[string]float64
+	busy   map[*types.Var]bool
+	cancel map[cancelKey]bool
+	top    *frame // the reading at the top
+}
+
+// New returns a Reader for the package of files.
+func New(info *types.Info, files []*ast.File) *Reader {
+	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, top: &frame{known: map[*types.Var]float64{}}}
+	for _, f := range files {
+		for _, d := range f.Decls {
+			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
+				if fn, ok := info.Defs[fd.Name].(*types.Func); ok {
+					r.funcs[fn] = fd
+				}
+			}
+		}
+	}
+	return r
+}
+
+// Of returns the degree of e, an expression inside fd, and whether it
+// could be read.
+func (r *Reader) Of(fd *ast.FuncDecl, e ast.Expr) (float64, bool) {
+	r.index(fd)
+	d := r.of(e, r.top, 0)
+	return d, !math.IsNaN(d) && !math.IsInf(d, 0)
+}
+
+// cancelKey is a variable read by Cancels, in a call with the same
+// receiver and argument or not.
+type cancelKey struct {
+	v    *types.Var
+	self bool
+}
+
+// result is the i-th result of a call.
+type result struct {
+	call *ast.CallExpr
+	i    int
+}
+
+// scaling is v *= by or v /= by.
+type scaling struct {
+	op token.Token
+	by ast.Expr
+}
+
+// env is what one reading knows: the parameters bound to the degrees of
+// the arguments of a call being read (none at the top, where every
+// parameter is of degree 1), and the degrees of variables read so far.
+type env = *frame
+
+type frame struct {
+	bound map[*types.Var]float64
+	known map[*types.Var]float64
+}
+
+// of returns the degree of e: NaN when unknown, none when e has no value
+// of its own.
+func (r *Reader) of(e ast.Expr, bind env, depth int) float64 {
+	if depth > 40 {
+		return math.NaN()
+	}
+	if tv, ok := r.info.Types[e]; ok && (tv.Value != nil || isInteger(tv.Type)) {
+		return 0 // constants and counts are not measured in the data's units
+	}
+	switch e := e.(type) {
+	case *ast.ParenExpr:
+		return r.of(e.X, bind, depth)
+	case *ast.UnaryExpr:
+		if e.Op == token.SUB || e.Op == token.ADD {
+			return r.of(e.X, bind, depth+1)
+		}
+	case *ast.StarExpr:
+		return r.of(e.X, bind, depth+1)
+	case *ast.IndexExpr:
+		return r.of(e.X, bind, depth+1)
+	case *ast.SliceExpr:
+		return r.of(e.X, bind, depth+1)
+	case *ast.SelectorExpr:
+		if sel, ok := r.info.Selections[e]; ok && sel.Kind() == types.FieldVal {
+			return r.of(e.X, bind, depth+1)
+		}
+	case *ast.Ident:
+		return r.ident(e, bind, depth)
+	case *ast.BinaryExpr:
+		return r.binary(e, bind, depth)
+	case *ast.CallExpr:
+		return r.call(e, 0, bind, depth)
+	case *ast.CompositeLit:
+		d := none
+		for _, elt := range e.Elts {
+			if kv, ok := elt.(*ast.KeyValueExpr); ok {
+				elt = kv.Value
+			}
+			d = larger(d, r.of(elt, bind, depth+1))
+		}
+		return d
+	}
+	return math.NaN()
+}
+
+// ident reads a variable: a parameter is the data (or what the call being
+// read binds it to); a local variable is the largest of the values it is
+// given.
+func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
+	v := r.varOf(id)
+	if v == nil {
+		return math.NaN()
+	}
+	if d, ok := bind.known[v]; ok {
+		return d
+	}
+	sets, ok := r.sets[v]
+	d, bound := bind.bound[v]
+	switch {
+	case r.poison[v]:
+		return math.NaN() // multiplied by itself, or changed through a pointer
+	case bound:
+	case r.params[v]:
+		d = 1
+	case !ok:
+		return math.NaN() // a package variable
+	default:
+		d = none
+	}
+	if r.busy[v] {
+		return none
+	}
+	r.busy[v] = true
+	defer delete(r.busy, v)
+	defer func() { bind.known[v] = d }() // in a cycle, what its other values give
+	for _, s := range sets {
+		if s != nil {
+			d = larger(d, r.of(s, bind, depth+1))
+		}
+	}
+	for _, t := range r.tuples[v] {
+		d = larger(d, r.call(t.call, t.i, bind, depth+1))
+	}
+	for _, sc := range r.scales[v] {
+		d = combine(sc.op, d, r.of(sc.by, bind, depth+1))
+	}
+	return d
+}
+
+// binary reads a product, quotient, sum or difference.
+func (r *Reader) binary(b *ast.BinaryExpr, bind env, depth int) float64 {
+	return combine(b.Op, r.of(b.X, bind, depth+1), r.of(b.Y, bind, depth+1))
+}
+
+// combine returns the degree of x op y from theirs.
+func combine(op token.Token, x, y float64) float64 {
+	switch op {
+	case token.ADD, token.SUB:
+		return larger(x, y)
+	case token.MUL, token.QUO:
+		if math.IsNaN(x) || math.IsNaN(y) {
+			return math.NaN()
+		}
+		if x == none || y == none {
+			return none // a variable read while its value is: this value says nothing new
+		}
+		if op == token.QUO {
+			return x - y
+		}
+		return x + y
+	}
+	return math.NaN()
+}
+
+// larger returns the larger degree; NaN wins.
+func larger(x, y float64) float64 {
+	if math.IsNaN(x) || math.IsNaN(y) {
+		return math.NaN()
+	}
+	return max(x, y)
+}
+
+// call reads result i of a conversion, a builtin, a math function, or a
+// function of the package through its returns.
+func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
+	if tv, ok := r.info.Types[call.Fun]; ok && tv.IsType() && len(call.Args) == 1 {
+		return r.of(call.Args[0], bind, depth+1)
+	}
+	args := make([]float64, len(call.Args))
+	for i, a := range call.Args {
+		args[i] = r.of(a, bind, depth+1)
+	}
+	if b, ok := typeutil.Callee(r.info, call).(*types.Builtin); ok && (b.Name() == "append" || b.Name() == "min" || b.Name() == "max") {
+		d := none
+		for _, a := range args {
+			d = larger(d, a) // the values kept, or the one chosen
+		}
+		return d
+	}
+	fn, ok := typeutil.Callee(r.info, call).(*types.Func)
+	if !ok {
+		return math.NaN()
+	}
+	if fn.Pkg() != nil && fn.Pkg().Path() == "math" {
+		return mathDegree(fn.Name(), args, r.info, call)
+	}
+	fd, ok := r.funcs[fn]
+	if !ok {
+		return math.NaN()
+	}
+	recv := none
+	if sel, ok := call.Fun.(*ast.SelectorExpr); ok && fn.Signature().Recv() != nil {
+		recv = r.of(sel.X, bind, depth+1)
+	}
+	return r.through(fd, fn, i, recv, args, depth)
+}
+
+// mathDegree returns the degree of a math function's result from its
+// arguments' degrees.
+func mathDegree(name string, args []float64, info *types.Info, call *ast.CallExpr) float64 {
+	switch name {
+	case "Sqrt":
+		return args[0] / 2
+	case "Cbrt":
+		return args[0] / 3
+	case "Abs", "Copysign":
+		return args[0]
+	case "Floor", "Ceil", "Trunc", "Round", "RoundToEven":
+		return math.NaN() // integrality depends on the unit: a count or a pure number, not data of any size
+	case "Max", "Min", "Hypot", "Mod", "Remainder", "Dim":
+		return larger(args[0], args[1])
+	case "Pow":
+		if tv := info.Types[call.Args[1]]; tv.Value != nil {
+			k, _ := strconv.ParseFloat(tv.Value.ExactString(), 64)
+			return args[0] * k
+		}
+	case "Sin", "Cos", "Sincos", "Asin", "Acos", "Atan", "Atan2", "Tanh", "Erf", "Erfc":
+		return 0 // bounded results
+	case "NaN", "Inf":
+		return none // no size
+	}
+	return math.NaN()
+}
+
+// through reads result i of a function of the package called with
+// arguments of the given degrees: the largest degree among its returns,
+// once per function, result and degrees.
+func (r *Reader) through(fd *ast.FuncDecl, fn *types.Func, i int, recv float64, args []float64, depth int) float64 {
+	key := fn.FullName() + strconv.Itoa(i) + ":" + strconv.FormatFloat(recv, 'g', -1, 64)
+	for _, a := range args {
+		key += "," + strconv.FormatFloat(a, 'g', -1, 64)
+	}
+	if d, ok := r.memo[key]; ok {
+		return d
+	}
+	r.memo[key] = math.NaN() // recursion: unknown
+	r.index(fd)
+	bind := &frame{bound: map[*types.Var]float64{}, known: map[*types.Var]float64{}}
+	sig := fn.Signature()
+	if sig.Recv() != nil {
+		bind.bound[sig.Recv()] = recv
+	}
+	for k := range sig.Params().Len() {
+		if k < len(args) && !sig.Variadic() {
+			bind.bound[sig.Params().At(k)] = args[k]
+		}
+	}
+	d := none
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.FuncLit:
+			return false
+		case *ast.ReturnStmt:
+			if i < len(n.Results) {
+				d = larger(d, r.of(n.Results[i], bind, 0)) // a fresh depth: memo stops recursion
+			}
+		}
+		return true
+	})
+	r.memo[key] = d
+	return d
+}
+
+// index learns the parameters and the assignments of the local variables
+// of fd, once.
+func (r *Reader) index(fd *ast.FuncDecl) {
+	if r.done[fd] {
+		return
+	}
+	r.done[fd] = true
+	ast.Inspect(fd, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.FuncType:
+			r.fieldVars(n.Params)
+		case *ast.FuncDecl:
+			r.fieldVars(n.Recv)
+		case *ast.ForStmt, *ast.RangeStmt:
+			r.loops = append(r.loops, n)
+		}
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			r.assign(n)
+		case *ast.ValueSpec:
+			for i, name := range n.Names {
+				r.set(name, nil)
+				if len(n.Values) == len(n.Names) {
+					r.set(name, n.Values[i])
+				}
+			}
+		case *ast.RangeStmt:
+			if id, ok := n.Value.(*ast.Ident); ok {
+				r.set(id, n.X)
+			}
+		case *ast.UnaryExpr:
+			if id, ok := ast.Unparen(n.X).(*ast.Ident); ok && n.Op == token.AND {
+				r.spoil(id) // changed through a pointer
+			}
+		}
+		return true
+	})
+}
+
+func (r *Reader) fieldVars(fl *ast.FieldList) {
+	if fl == nil {
+		return
+	}
+	for _, f := range fl.List {
+		for _, name := range f.Names {
+			if v, ok := r.info.Defs[name].(*types.Var); ok {
+				r.params[v] = true
+			}
+		}
+	}
+}
+
+// assign records v = e, v := e, v += e and v -= e (a sum of values of
+// degree d stays of degree d); v *= e, v /= e and tuple assignments from
+// calls leave v unknown.
+func (r *Reader) assign(as *ast.AssignStmt) {
+	for i, l := range as.Lhs {
+		id, ok := ast.Unparen(l).(*ast.Ident)
+		if !ok {
+			continue
+		}
+		call, isCall := as.Rhs[0].(*ast.CallExpr)
+		switch {
+		case len(as.Rhs) == 1 && len(as.Lhs) > 1 && isCall && as.Tok != token.ADD_ASSIGN:
+			if v := r.varOf(id); v != nil {
+				r.tuples[v] = append(r.tuples[v], result{call, i})
+				r.sets[v] = append(r.sets[v], nil)
+			}
+		case len(as.Lhs) != len(as.Rhs):
+			r.spoil(id)
+		case as.Tok == token.ASSIGN || as.Tok == token.DEFINE || as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN:
+			r.set(id, as.Rhs[i])
+		case (as.Tok == token.MUL_ASSIGN || as.Tok == token.QUO_ASSIGN) && !r.inLoop(as) && r.varOf(id) != nil:
+			v := r.varOf(id) // scaled once in straight code (b /= a): its degree moves by e's
+			r.scales[v] = append(r.scales[v], scaling{map[token.Token]token.Token{token.MUL_ASSIGN: token.MUL, token.QUO_ASSIGN: token.QUO}[as.Tok], as.Rhs[i]})
+		default:
+			r.spoil(id)
+		}
+	}
+}
+
+// inLoop reports whether n lies in a loop of an indexed function, where
+// a scaling may repeat.
+func (r *Reader) inLoop(n ast.Node) bool {
+	for _, l := range r.loops {
+		if l.Pos() <= n.Pos() && n.End() <= l.End() {
+			return true
+		}
+	}
+	return false
+}
+
+// set records that the local variable id may hold e (nil: its zero value).
+func (r *Reader) set(id *ast.Ident, e ast.Expr) {
+	v := r.varOf(id)
+	if v == nil {
+		return
+	}
+	r.sets[v] = append(r.sets[v], e)
+}
+
+// spoil marks id as a variable whose degree cannot be read.
+func (r *Reader) spoil(id *ast.Ident) {
+	if v := r.varOf(id); v != nil {
+		r.poison[v] = true
+	}
+}
+
+func (r *Reader) varOf(id *ast.Ident) *types.Var {
+	if v, ok := r.info.Defs[id].(*types.Var); ok {
+		return v
+	}
+	v, _ := r.info.Uses[id].(*types.Var)
+	return v
+}
+
+func isInteger(t types.Type) bool {
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&types.IsInteger != 0
+}
+
+// Cancels reports whether e, an expression inside fd, can cancel: a
+// difference or sum of two values neither of them constant (a sum of two
+// non-negative terms excepted), a remainder (math.Mod, math.Remainder: an
+// exact difference x - k·y), a product or quotient with such a factor, a
+// variable every value of which cancels, or a call of a function of the
+// package whose result does. Near zero such a quantity is made of its
+// terms' rounding, eps times their size; a product of values that do not
+// cancel keeps a relative error, eps times its own size.
+func (r *Reader) Cancels(fd *ast.FuncDecl, e ast.Expr) bool {
+	r.index(fd)
+	return r.cancels(e, false, 0)
+}
+
+// cancels reads x; self says that x is in a function called with the
+// same value for its receiver and arguments (a.Dot(a)), so p.X*q.X is a
+// square there.
+func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
+	if depth > 8 {
+		return false
+	}
+	switch e := ast.Unparen(x).(type) {
+	case *ast.Ident:
+		return r.varCancels(e, self, depth)
+	case *ast.BinaryExpr:
+		switch e.Op {
+		case token.SUB:
+			return r.info.Types[e.X].Value == nil && r.info.Types[e.Y].Value == nil
+		case token.ADD:
+			return r.info.Types[e.X].Value == nil && r.info.Types[e.Y].Value == nil && !(square(r.info, e.X, self) && square(r.info, e.Y, self))
+		case token.MUL, token.QUO:
+			return r.cancels(e.X, self, depth+1) || r.cancels(e.Y, self, depth+1)
+		}
+	case *ast.CompositeLit:
+		for _, elt := range e.Elts {
+			if kv, ok := elt.(*ast.KeyValueExpr); ok {
+				elt = kv.Value
+			}
+			if r.cancels(elt, self, depth+1) {
+				return true
+			}
+		}
+	case *ast.CallExpr:
+		return r.callCancels(e, depth)
+	}
+	return false
+}
+
+// varCancels reports whether every value given to the local variable id
+// cancels.
+func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
+	v := r.varOf(id)
+	key := cancelKey{v, self}
+	if c, ok := r.cancel[key]; ok {
+		return c
+	}
+	sets := r.sets[v]
+	if len(sets) == 0 || r.poison[v] || r.params[v] {
+		return false
+	}
+	if r.busy[v] {
+		return false
+	}
+	r.busy[v] = true
+	defer delete(r.busy, v)
+	c := false
+	for _, s := range sets {
+		if s != nil && !r.cancels(s, self, depth+1) {
+			c = false
+			break
+		}
+		c = c || s != nil
+	}
+	r.cancel[key] = c
+	return c
+}
+
+// callCancels reports whether a call's result can cancel: a remainder,
+// or a function of the package whose returned value cancels.
+func (r *Reader) callCancels(call *ast.CallExpr, depth int) bool {
+	fn, ok := typeutil.Callee(r.info, call).(*types.Func)
+	if !ok || fn.Pkg() == nil {
+		return false
+	}
+	if fn.Pkg().Path() == "math" {
+		return fn.Name() == "Mod" || fn.Name() == "Remainder"
+	}
+	fd, ok := r.funcs[fn]
+	if !ok {
+		return false
+	}
+	r.index(fd)
+	self := sameOperands(call)
+	found := false
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		if ret, ok := n.(*ast.ReturnStmt); ok && len(ret.Results) > 0 {
+			found = found || r.cancels(ret.Results[0], self, depth+1)
+		}
+		_, lit := n.(*ast.FuncLit)
+		return !found && !lit
+	})
+	return found
+}
+
+// sameOperands reports whether a method call passes its receiver again
+// as its only argument (a.Dot(a)).
+func sameOperands(call *ast.CallExpr) bool {
+	sel, ok := call.Fun.(*ast.SelectorExpr)
+	return ok && len(call.Args) == 1 && types.ExprString(sel.X) == types.ExprString(call.Args[0])
+}
+
+// square reports whether e is non-negative by construction (see
+// NonNegative), or, with self, a product of the same field of the
+// receiver and of the argument (p.X*q.X in a.Dot(a)).
+func square(info *types.Info, e ast.Expr, self bool) bool {
+	if NonNegative(info, e) {
+		return true
+	}
+	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL || !self {
+		return false
+	}
+	x, okx := ast.Unparen(m.X).(*ast.SelectorExpr)
+	y, oky := ast.Unparen(m.Y).(*ast.SelectorExpr)
+	return okx && oky && x.Sel.Name == y.Sel.Name
+}
+
+// NonNegative reports whether e is non-negative by construction: a square
+// x*x, or a call of math.Abs, Sqrt, Hypot or Exp.
+func NonNegative(info *types.Info, e ast.Expr) bool {
+	switch e := ast.Unparen(e).(type) {
+	case *ast.BinaryExpr:
+		return e.Op == token.MUL && types.ExprString(e.X) == types.ExprString(e.Y)
+	case *ast.CallExpr:
+		fn, _ := typeutil.Callee(info, e).(*types.Func)
+		return fn != nil && fn.Pkg() != nil && fn.Pkg().Path() == "math" && map[string]bool{"Abs": true, "Sqrt": true, "Hypot": true, "Exp": true}[fn.Name()]
+	}
+	return false
+}
+
+// Rounds reports whether e, an expression inside fd, carries a rounding
+// error of its own: it is computed by arithmetic (a sum, product or
+// quotient, a call other than a conversion, math.Abs, Copysign, Mod or
+// Remainder, which are exact) rather than read as the caller gave it. A
+// difference of two values read as given is exact when they are close
+// (Sterbenz; Goldberg 1991, Thm 11): no rounding drowns a tolerance there.
+func (r *Reader) Rounds(fd *ast.FuncDecl, e ast.Expr) bool {
+	r.index(fd)
+	return r.rounds(e, 0)
+}
+
+func (r *Reader) rounds(e ast.Expr, depth int) bool {
+	if depth > 8 {
+		return true
+	}
+	switch x := ast.Unparen(e).(type) {
+	case *ast.Ident:
+		v := r.varOf(x)
+		if v == nil || r.params[v] || r.busy[v] {
+			return false
+		}
+		r.busy[v] = true
+		defer delete(r.busy, v)
+		for _, s := range r.sets[v] {
+			if s != nil && r.rounds(s, depth+1) {
+				return true
+			}
+		}
+		return len(r.tuples[v]) > 0 || len(r.scales[v]) > 0
+	case *ast.SelectorExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.IndexExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.StarExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.UnaryExpr:
+		return r.rounds(x.X, depth+1)
+	case *ast.BinaryExpr:
+		return r.info.Types[x].Value == nil
+	case *ast.CallExpr:
+		if len(x.Args) == 1 && r.info.Types[x.Fun].IsType() {
+			return r.rounds(x.Args[0], depth+1)
+		}
+		fn, ok := typeutil.Callee(r.info, x).(*types.Func)
+		if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && exact[fn.Name()] {
+			for _, a := range x.Args {
+				if r.rounds(a, depth+1) {
+					return true
+				}
+			}
+			return false
+		}
+		return true
+	}
+	return false
+}
+
+// exact lists the math functions whose result is exact.
+var exact = map[string]bool{"Abs": true, "Copysign": true, "Mod": true, "Remainder": true}

@@ -110,11 +110,17 @@
 // the data reach (t/eps)^(1/d): 1e-10 on a cross product of coordinates
 // fails at 670, 1e-14 on a one-pass variance at 6.7, 2.2e-14 on a
 // difference of two data values at 99. epsfloor reports it when that size
-// lies below the size assumed for data of unknown size, 1e3 unless
-// roundoff.yaml declares another for the package (datasize): the SI habit
-// of choosing the prefix that keeps a value below 1000 (BIPM SI Brochure,
-// 9th ed., §3, from memory) makes 1e3 a size ordinary data reach in
-// whatever unit a caller picks. It judges |a-b| < t, |x| < t and a bare
+// lies below the size of the data: the size roundoff.yaml declares for the
+// package (datasize), at every degree; else 1e3, at degree 2 and above
+// only. The SI habit of choosing the prefix that keeps a value below 1000
+// (BIPM SI Brochure, 9th ed., §3, from memory) makes 1e3 a size ordinary
+// data reach in whatever unit a caller picks; but a quantity of degree 1
+// may be a pure number (an angle, a fraction, a colour component), which
+// its reading cannot tell from a length, and whose tolerance states the
+// size its author expects. A product of two data values squares whatever
+// size they have, so one tolerance used for lengths and for their
+// products (1e-10 on a point's offset and on a cross product) breaks at
+// sizes as modest as 670. It judges |a-b| < t, |x| < t and a bare
 // x < t where x can cancel (a difference or sum of non-constant values, a
 // remainder, a product with such a factor; a product that does not cancel,
 // w*h, keeps a relative error, eps·|w*h|, and is left alone; so is a

@@ -76,7 +76,10 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if !ok || d <= 0 {
 		return // unknown, or of a size fixed by constants
 	}
-	size := dataSize(c.pass.Pkg.Path())
+	size, declared := dataSize(c.pass.Pkg.Path())
+	if d < 2 && !declared {
+		return // may be a pure number (an angle, a fraction): its size is the author's to state
+	}
 	breaks := math.Pow(t.tol/t.f.Eps, 1/d)
 	if breaks >= size {
 		return
@@ -113,13 +116,13 @@ func quantity(t scaleTest) ast.Node {
 	return t.node
 }
 
-// dataSize returns the data size assumed for the package at path: the
-// one set in roundoff.yaml, else DefaultDataSize.
-func dataSize(path string) float64 {
+// dataSize returns the data size for the package at path and whether
+// roundoff.yaml declares it; else DefaultDataSize.
+func dataSize(path string) (float64, bool) {
 	if s, ok := config.Size(path); ok {
-		return s
+		return s, true
 	}
-	return DefaultDataSize
+	return DefaultDataSize, false
 }
 
 // learnHelper reports whether t sits in a predicate (one bool result)

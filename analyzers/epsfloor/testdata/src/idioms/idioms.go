@@ -202,9 +202,8 @@ func sliverArea(got float64) bool { return areaNear(got, sliver, sliver*1e-13) }
 // The value a variable holds at a test is known only when nothing but a
 // constant assignment can have set it: a branch, a loop that updates it
 // after the test, or a closure may have moved it, so 1e-14 (above eps)
-// is not judged at 1000.5 in any of these. Where a compared value is
-// computed from the caller's data (x/1e3, want/1e3), the data-size rule
-// judges it instead; got read as given, against a constant, is exact.
+// is not judged at 1000.5 in any of these. The compared values are of
+// degree 1, which the data-size rule judges only at a declared size.
 func branchSet(got float64, big bool) bool {
 	want := 0.5
 	if big {
@@ -216,7 +215,7 @@ func branchSet(got float64, big bool) bool {
 func loopSet(xs []float64) bool {
 	ref := 1000.5
 	for _, x := range xs {
-		if math.Abs(x-ref) < 1e-14 { // want `absolute tolerance 1e-14 on .*, of degree 1 in the data, .* once the data reach s = 45`
+		if math.Abs(x-ref) < 1e-14 {
 			return true
 		}
 		ref = x / 1e3
@@ -228,7 +227,7 @@ func closureSet(got float64, rescale func(func())) bool {
 	want := 1000.5
 	shrink := func() { want /= 1e3 }
 	rescale(shrink)
-	return math.Abs(got-want) < 1e-14 // want `absolute tolerance 1e-14 on .*, of degree 1 in the data, .* once the data reach s = 45`
+	return math.Abs(got-want) < 1e-14
 }
 
 // A non-negative value can overflow only to +Inf, and a test of both

@@ -212,12 +212,13 @@ func (w *walk) callee(call *ssa.CallCommon, depth int) bool {
 // fusable reports whether v is a float product not wrapped in an explicit
 // float conversion, which the Go spec says rounds it ("Arithmetic
 // operators": an explicit floating-point type conversion rounds to the
-// precision of the target type, preventing fusion), and not exact on the
-// inputs known: fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019
-// §5.4.1), which for an exact product is the rounding of the separate add.
+// precision of the target type, preventing fusion), not a scaling by a
+// constant power of two, and not exact on the inputs known:
+// fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019 §5.4.1), which for
+// an exact product is the rounding of the separate add.
 func (w *walk) fusable(v ssa.Value) bool {
 	b, ok := provenance.Strip(v).(*ssa.BinOp)
-	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !w.j.convertedProducts()[b.Pos()] && !w.at.exact(b)
+	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !w.j.convertedProducts()[b.Pos()] && !provenance.ExactScaling(b) && !w.at.exact(b)
 }
 
 // convertedProducts returns, by operator position, the products of the

@@ -59,13 +59,7 @@ func (j *Judge) causedBody(fn *ssa.Function) bool {
 
 func (s *sighting) value(v ssa.Value, depth int) bool {
 	v = provenance.Strip(v)
-	if c, done := s.seen[v]; done {
-		return c
-	}
-	s.seen[v] = false
-	c := depth > 0 && s.step(v, depth)
-	s.seen[v] = c
-	return c
+	return memo(s.seen, v, false, func() bool { return depth > 0 && s.step(v, depth) })
 }
 
 // step searches v's operation and operands.
@@ -171,34 +165,7 @@ func wholePow(call *ssa.CallCommon) bool {
 // body searches fn's float results, or, where a result is not a float,
 // every float fn computes and every call it makes.
 func (s *sighting) body(fn *ssa.Function, depth int) bool {
-	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
-			continue
-		}
-		for _, r := range ret.Results {
-			if !provenance.IsFloat(r.Type()) {
-				return s.everyFloat(fn, depth)
-			}
-			if s.value(r, depth) {
-				return true
-			}
-		}
-	}
-	return false
-}
-
-// everyFloat searches every float fn computes and every call it makes.
-func (s *sighting) everyFloat(fn *ssa.Function, depth int) bool {
-	for _, b := range fn.Blocks {
-		for _, instr := range b.Instrs {
-			if call, ok := instr.(ssa.CallInstruction); ok && s.call(call.Common(), depth-1) {
-				return true
-			}
-			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && s.value(v, depth) {
-				return true
-			}
-		}
-	}
-	return false
+	return someFloat(fn,
+		func(v ssa.Value) bool { return s.value(v, depth) },
+		func(c *ssa.CallCommon) bool { return s.call(c, depth-1) })
 }

@@ -15,7 +15,8 @@
 // may change their last bits. A value is portable when it is built from
 // constants, parameters and loads by + - * / on operands none of which is
 // a product added to or subtracted from another value (a product divided
-// before it is added cannot fuse), by math.Sqrt and the exact math
+// before it is added cannot fuse, and a product by a constant power of two
+// is exact, so fusing it changes nothing), by math.Sqrt and the exact math
 // functions (Abs, Floor, Trunc, Mod, Copysign...), and by calls of
 // functions that are themselves portable; a call through an interface or
 // a function value is unknown, hence not portable.

@@ -171,9 +171,23 @@
 // 754-2019 §5.4.1) and for an exact x*y that is the rounding of the
 // addition; products and sums of whole multiples of 2^e stay exact while
 // their significands fit the format, and math.Pow of such a value to a
-// whole constant power is exact when its result is representable; and
+// whole constant power is exact when its result is representable;
 // printed values that also appear among the test's inputs
-// (passed through without arithmetic, as the vertices a hull keeps).
+// (passed through without arithmetic, as the vertices a hull keeps); and
+// results whose computation shows no cause before it leaves sight. A pin
+// claims the bits can change between platforms, so it is reported only
+// where the analyzer sees why: a product added to another value (not a
+// scaling by a constant power of two, which is exact), or a math function
+// that is not correctly rounded (not math.Pow to a whole constant power,
+// which Go computes in pure Go on every architecture by products of
+// squarings that no sum takes in), in the test, in the functions of its
+// package it calls, or, by a fact, in those of another package. Every
+// other step (+ - * /, square root, a conversion between float formats)
+// is correctly rounded (IEEE 754-2019 §4.3, §5.4.2) and gives the same
+// bits from the same operands; where the computation leaves sight (an
+// interface method, a function value, a body not available, floats behind
+// an interface or a map handed to a call) before any cause shows, nothing
+// is known, and nothing is claimed.
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
 // condition x != b with a constant step s in the loop's post statement

@@ -91,6 +91,15 @@ func TestPortableAcrossPackages(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/blade")
 }
 
+// TestCauseInSight checks that a pin is reported only where the
+// computation shows a cause (a fusable product, a math function not
+// correctly rounded: IEEE 754-2019 §5.4.1, §9.2), and left alone where it
+// leaves sight through an interface or a function value with every step
+// seen correctly rounded (IEEE 754-2019 §4.3).
+func TestCauseInSight(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/kiln")
+}
+
 // TestHelperAssertions checks equality assertions of a test suite's own
 // helpers against short decimals.
 func TestHelperAssertions(t *testing.T) {

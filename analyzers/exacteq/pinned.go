@@ -64,7 +64,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 			continue
 		}
 		p, ok := c.printed(exp)
-		if !ok || roundTrip(fn, p) || c.passedThrough(fn, p) || c.judge.OnInputs(got.val) {
+		if !ok || roundTrip(fn, p) || c.passedThrough(fn, p) || c.judge.OnInputs(got.val) || !c.judge.Cause(got.val) {
 			continue
 		}
 		var fs []fixes.Fix

@@ -66,12 +66,18 @@ func (j *Judge) Body(fn *ssa.Function) bool {
 
 func (w *walk) value(v ssa.Value, depth int) bool {
 	v = provenance.Strip(v)
-	if ok, done := w.seen[v]; done {
-		return ok // known, or in progress around a loop (assumed portable until shown otherwise)
+	return memo(w.seen, v, true, func() bool { return depth > 0 && w.step(v, depth) })
+}
+
+// memo returns the verdict on v kept in seen, or, the first time, step's,
+// taking v to be assume while step is in progress (around a loop).
+func memo(seen map[ssa.Value]bool, v ssa.Value, assume bool, step func() bool) bool {
+	if ok, done := seen[v]; done {
+		return ok
 	}
-	w.seen[v] = true
-	ok := depth > 0 && w.step(v, depth)
-	w.seen[v] = ok
+	seen[v] = assume
+	ok := step()
+	seen[v] = ok
 	return ok
 }
 
@@ -132,6 +138,16 @@ func (w *walk) filled(addr ssa.Value, depth int) bool {
 }
 
 func (w *walk) body(fn *ssa.Function, depth int) bool {
+	return !someFloat(fn,
+		func(v ssa.Value) bool { return !w.value(v, depth) },
+		func(c *ssa.CallCommon) bool { return !w.call(c, depth-1) })
+}
+
+// someFloat reports whether bad holds of one of fn's float results, or,
+// when a result is not a float (a struct, a slice filled in place), of one
+// of the floats fn computes, or badCall of one of the calls it makes
+// (builtins aside).
+func someFloat(fn *ssa.Function, bad func(ssa.Value) bool, badCall func(*ssa.CallCommon) bool) bool {
 	for _, b := range fn.Blocks {
 		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
 		if !ok {
@@ -139,32 +155,32 @@ func (w *walk) body(fn *ssa.Function, depth int) bool {
 		}
 		for _, r := range ret.Results {
 			if !provenance.IsFloat(r.Type()) {
-				return w.everyFloat(fn, depth)
+				return someComputed(fn, bad, badCall)
 			}
-			if !w.value(r, depth) {
-				return false
+			if bad(r) {
+				return true
 			}
 		}
 	}
-	return true
+	return false
 }
 
-// everyFloat reports whether every float fn computes, and every call it
-// makes (builtins aside), is portable.
-func (w *walk) everyFloat(fn *ssa.Function, depth int) bool {
+// someComputed reports whether bad holds of one of the floats fn computes,
+// or badCall of one of the calls it makes (builtins aside).
+func someComputed(fn *ssa.Function, bad func(ssa.Value) bool, badCall func(*ssa.CallCommon) bool) bool {
 	for _, b := range fn.Blocks {
 		for _, instr := range b.Instrs {
 			if call, ok := instr.(ssa.CallInstruction); ok {
-				if _, builtin := call.Common().Value.(*ssa.Builtin); !builtin && !w.call(call.Common(), depth-1) {
-					return false
+				if _, builtin := call.Common().Value.(*ssa.Builtin); !builtin && badCall(call.Common()) {
+					return true
 				}
 			}
-			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && !w.value(v, depth) {
-				return false
+			if v, ok := instr.(ssa.Value); ok && provenance.IsFloat(v.Type()) && bad(v) {
+				return true
 			}
 		}
 	}
-	return true
+	return false
 }
 
 // call reports whether a call computes the same bits everywhere: an exact
@@ -212,12 +228,13 @@ func (w *walk) callee(call *ssa.CallCommon, depth int) bool {
 // fusable reports whether v is a float product not wrapped in an explicit
 // float conversion, which the Go spec says rounds it ("Arithmetic
 // operators": an explicit floating-point type conversion rounds to the
-// precision of the target type, preventing fusion), and not exact on the
-// inputs known: fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019
-// §5.4.1), which for an exact product is the rounding of the separate add.
+// precision of the target type, preventing fusion), not a scaling by a
+// constant power of two, and not exact on the inputs known:
+// fusedMultiplyAdd rounds x*y + z once (IEEE 754-2019 §5.4.1), which for
+// an exact product is the rounding of the separate add.
 func (w *walk) fusable(v ssa.Value) bool {
 	b, ok := provenance.Strip(v).(*ssa.BinOp)
-	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !w.j.convertedProducts()[b.Pos()] && !w.at.exact(b)
+	return ok && b.Op == token.MUL && provenance.IsFloat(b.Type()) && !w.j.convertedProducts()[b.Pos()] && !provenance.ExactScaling(b) && !w.at.exact(b)
 }
 
 // convertedProducts returns, by operator position, the products of the

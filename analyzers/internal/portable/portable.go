@@ -15,7 +15,8 @@
 // may change their last bits. A value is portable when it is built from
 // constants, parameters and loads by + - * / on operands none of which is
 // a product added to or subtracted from another value (a product divided
-// before it is added cannot fuse), by math.Sqrt and the exact math
+// before it is added cannot fuse, and a product by a constant power of two
+// is exact, so fusing it changes nothing), by math.Sqrt and the exact math
 // functions (Abs, Floor, Trunc, Mod, Copysign...), and by calls of
 // functions that are themselves portable; a call through an interface or
 // a function value is unknown, hence not portable.
@@ -27,6 +28,12 @@
 // for an exact x*y that is the rounding of the separate addition; and
 // math.Pow of such a value to a whole constant power is portable when its
 // result is representable.
+//
+// Judge.Cause tells the values that are not portable apart (cause.go):
+// those whose computation shows a fusable product or a math function that
+// is not correctly rounded, and those that leave sight (an interface
+// method, a function value) before any such cause shows. Functions whose
+// results show a cause carry CauseFact across packages.
 //
 // The per-package work is done only where a package declares a function
 // with float results, and never for the standard library, whose math
@@ -53,7 +60,7 @@ var Analyzer = &analysis.Analyzer{
 	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
-	FactTypes:  []analysis.Fact{new(Fact)},
+	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact)},
 }
 
 // Fact marks a function whose float results are portable.
@@ -69,6 +76,7 @@ type Judge struct {
 	pass      *analysis.Pass
 	converted map[token.Pos]bool // products written inside float64(...), by operator position
 	bodies    map[*ssa.Function]bool
+	causes    map[*ssa.Function]bool // functions searched for a cause
 }
 
 // Of returns the Judge of pass's package; the pass's analyzer must require
@@ -76,14 +84,19 @@ type Judge struct {
 func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
-	j := &Judge{pass: pass, bodies: make(map[*ssa.Function]bool)}
+	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}}
 	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
 	for _, fn := range pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().SrcFuncs {
 		obj, ok := fn.Object().(*types.Func)
-		if ok && fn.Blocks != nil && fn.TypeParams().Len() == 0 && j.Body(fn) {
+		if !ok || fn.Blocks == nil || fn.TypeParams().Len() != 0 {
+			continue
+		}
+		if j.Body(fn) {
 			pass.ExportObjectFact(obj, new(Fact))
+		} else if j.causedBody(fn) {
+			pass.ExportObjectFact(obj, new(CauseFact))
 		}
 	}
 	return j, nil

@@ -230,6 +230,11 @@ func storesComputed(t *Tracker, addr ssa.Value) bool {
 	return false
 }
 
+// ExactScaling reports whether b multiplies or divides by a constant power
+// of two, which changes only the exponent: exact unless the result
+// overflows or falls among the subnormals.
+func ExactScaling(b *ssa.BinOp) bool { _, ok := exactScaling(b); return ok }
+
 // exactScaling reports whether b multiplies or divides by a power of two,
 // returning the other operand.
 func exactScaling(b *ssa.BinOp) (ssa.Value, bool) {

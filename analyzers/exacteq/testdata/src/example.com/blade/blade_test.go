@@ -32,7 +32,12 @@ func TestPlatformDependent(t *testing.T) {
 	if got := blade.Pitch(1, 3); got != 0.3217505543966422 { // want `exact != pins a computed result to 0.3217505543966422`
 		t.Fail()
 	}
-	if got := blade.Shaped(nil, 1); got != 0.3333333333333333 { // want `exact != pins a computed result to 0.3333333333333333`
+}
+
+// Through an interface, with only a correctly rounded division in sight:
+// no cause shows, nothing is claimed.
+func TestOutOfSight(t *testing.T) {
+	if got := blade.Shaped(nil, 1); got != 0.3333333333333333 {
 		t.Fail()
 	}
 }

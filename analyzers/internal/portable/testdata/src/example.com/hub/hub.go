@@ -10,12 +10,12 @@ func Radius(x, y float64) float64 { // want Radius:"portable"
 }
 
 // Reach adds a product: it may fuse into one rounding.
-func Reach(x, y, r float64) float64 {
+func Reach(x, y, r float64) float64 { // want Reach:"cause"
 	return x*y + r
 }
 
 // Tilt goes through Atan2, which is not correctly rounded.
-func Tilt(x, y float64) float64 {
+func Tilt(x, y float64) float64 { // want Tilt:"cause"
 	return math.Atan2(y, x)
 }
 
@@ -47,7 +47,7 @@ func Halves(x float64) []float64 { // want Halves:"portable"
 }
 
 // Bearings fills an array with values from Sin: not portable.
-func Bearings(x float64) []float64 {
+func Bearings(x float64) []float64 { // want Bearings:"cause"
 	var b [2]float64
 	b[0] = math.Sin(x)
 	b[1] = x / 2
@@ -55,7 +55,21 @@ func Bearings(x float64) []float64 {
 }
 
 // Levels appends a struct holding a value from Atan2: not portable.
-func Levels(x, y float64) []struct{ q float64 } {
+func Levels(x, y float64) []struct{ q float64 } { // want Levels:"cause"
 	var out []struct{ q float64 }
 	return append(out, struct{ q float64 }{Tilt(x, y)})
+}
+
+// Twice adds a doubled value: a product by a power of two is exact, so a
+// fused form rounds the same (IEEE 754-2019 §5.4.1).
+func Twice(x, y float64) float64 { // want Twice:"portable"
+	return 2*x + y
+}
+
+// Cube raises to a whole power: not among the correctly rounded
+// functions, hence not portable, yet no cause either, since Go's Pow
+// multiplies squarings in pure Go on every architecture (math/pow.go);
+// no fact.
+func Cube(x float64) float64 {
+	return math.Pow(x, 3)
 }

@@ -105,7 +105,13 @@
 // field or element of one: 1; a product adds degrees, a quotient
 // subtracts them, a square root halves, a sum keeps the larger; read
 // through the package's own functions, so p.Cross(q) of two differences
-// is 2; see package degree) carries a rounding error of about eps·s^d at
+// is 2; an entry of a fixed-size array that the package multiplies by
+// data and adds to another entry of the same type, m[0][0]*p.X + m[0][2],
+// is 0 by dimensional consistency, a pure factor such as the linear part
+// of an affine map; a variable assigned only by statements of the
+// function's body itself has the value of the last one before its use, so
+// heading = heading.Unit() makes heading a direction from there on; see
+// package degree) carries a rounding error of about eps·s^d at
 // data size s, so a tolerance t stops passing anything but equality once
 // the data reach (t/eps)^(1/d): 1e-10 on a cross product of coordinates
 // fails at 670, 1e-14 on a one-pass variance at 6.7, 2.2e-14 on a

@@ -2,7 +2,9 @@
 // function receives: how its size grows when every value the caller
 // passes in grows by a factor s. A parameter, a field or element of one,
 // and whatever else arrives from outside is of degree 1 (it scales with
-// the data); constants and integers (counts, indices) are of degree 0; a
+// the data); constants and integers (counts, indices) are of degree 0, and
+// so are the entries of a fixed-size array that the package multiplies by
+// data beside another entry as it is (m[0][0]*p.x + m[0][2]); a
 // product adds degrees, a quotient subtracts them, a sum or difference
 // takes the larger, a square root halves. The rounding error of a value of
 // degree d is about eps·s^d at data size s, which is what an absolute
@@ -39,18 +41,22 @@ type Reader struct {
 	tuples map[*types.Var][]result   // values given to local variables from calls of several results
 	scales map[*types.Var][]scaling  // v *= e and v /= e outside loops, in order
 	loops  []ast.Node                // the loops of the functions indexed
+	lits   []ast.Node                // their function literals, which may run after a later assignment
 	params map[*types.Var]bool
 	done   map[*ast.FuncDecl]bool
 	memo   map[string]float64
 	busy   map[*types.Var]bool
 	cancel map[cancelKey]bool
-	top    *frame // the reading at the top
+	files  []*ast.File
+	plain  map[*types.Var][]plainSet // v = e and v := e as statements of the function's body itself
+	factor map[string]bool           // entries of fixed-size arrays used as pure factors (see factors)
+	top    *frame                    // the reading at the top
 }
 
 // New returns a Reader for the package of files.
 func New(info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
-		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, top: &frame{known: map[*types.Var]float64{}}}
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
@@ -82,6 +88,13 @@ type cancelKey struct {
 type result struct {
 	call *ast.CallExpr
 	i    int
+}
+
+// plainSet is an assignment v = e, or v := e, that is a statement of its
+// function's body itself (no branch or loop around it), ending at end.
+type plainSet struct {
+	end token.Pos
+	e   ast.Expr
 }
 
 // scaling is v *= by or v /= by.
@@ -119,6 +132,9 @@ func (r *Reader) of(e ast.Expr, bind env, depth int) float64 {
 	case *ast.StarExpr:
 		return r.of(e.X, bind, depth+1)
 	case *ast.IndexExpr:
+		if key, ok := r.entry(e); ok && r.factors()[key] {
+			return 0
+		}
 		return r.of(e.X, bind, depth+1)
 	case *ast.SliceExpr:
 		return r.of(e.X, bind, depth+1)
@@ -147,11 +163,15 @@ func (r *Reader) of(e ast.Expr, bind env, depth int) float64 {
 
 // ident reads a variable: a parameter is the data (or what the call being
 // read binds it to); a local variable is the largest of the values it is
-// given.
+// given, or the last one before the use where all are plain statements of
+// the body (see reaching).
 func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 	v := r.varOf(id)
 	if v == nil {
 		return math.NaN()
+	}
+	if e, ok := r.reaching(v, id.Pos()); ok {
+		return r.of(e, bind, depth+1)
 	}
 	if d, ok := bind.known[v]; ok {
 		return d
@@ -330,6 +350,7 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 		return
 	}
 	r.done[fd] = true
+	jumps := false
 	ast.Inspect(fd, func(n ast.Node) bool {
 		switch n := n.(type) {
 		case *ast.FuncType:
@@ -338,6 +359,10 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 			r.fieldVars(n.Recv)
 		case *ast.ForStmt, *ast.RangeStmt:
 			r.loops = append(r.loops, n)
+		case *ast.FuncLit:
+			r.lits = append(r.lits, n)
+		case *ast.LabeledStmt:
+			jumps = true // a jump back may carry a later value
 		}
 		switch n := n.(type) {
 		case *ast.AssignStmt:
@@ -360,6 +385,9 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 		}
 		return true
 	})
+	if !jumps {
+		r.plainSets(fd)
+	}
 }
 
 func (r *Reader) fieldVars(fl *ast.FieldList) {
@@ -400,6 +428,46 @@ func (r *Reader) assign(as *ast.AssignStmt) {
 			r.scales[v] = append(r.scales[v], scaling{map[token.Token]token.Token{token.MUL_ASSIGN: token.MUL, token.QUO_ASSIGN: token.QUO}[as.Tok], as.Rhs[i]})
 		default:
 			r.spoil(id)
+		}
+	}
+}
+
+// reaching returns the value of v at pos when every assignment of v is a
+// plain statement of its function's body: the last one before pos (start
+// = start.unit() makes start a pure number after it, whatever it was
+// before). No loop or branch holds an assignment, so none can reach pos
+// from elsewhere; a parameter read before them all is read as usual.
+func (r *Reader) reaching(v *types.Var, pos token.Pos) (ast.Expr, bool) {
+	ps := r.plain[v]
+	if len(ps) == 0 || len(ps) != len(r.sets[v]) || len(r.tuples[v]) > 0 || len(r.scales[v]) > 0 || r.poison[v] {
+		return nil, false
+	}
+	for _, l := range r.lits {
+		if l.Pos() <= pos && pos < l.End() {
+			return nil, false
+		}
+	}
+	var e ast.Expr
+	for _, p := range ps {
+		if p.end <= pos {
+			e = p.e
+		}
+	}
+	return e, e != nil
+}
+
+// plainSets records the assignments v = e and v := e that are statements
+// of fd's body itself.
+func (r *Reader) plainSets(fd *ast.FuncDecl) {
+	for _, st := range fd.Body.List {
+		as, ok := st.(*ast.AssignStmt)
+		if !ok || as.Tok != token.ASSIGN && as.Tok != token.DEFINE || len(as.Lhs) != len(as.Rhs) {
+			continue
+		}
+		for i, l := range as.Lhs {
+			if id, ok := ast.Unparen(l).(*ast.Ident); ok && r.varOf(id) != nil {
+				r.plain[r.varOf(id)] = append(r.plain[r.varOf(id)], plainSet{as.End(), as.Rhs[i]})
+			}
 		}
 	}
 }
@@ -642,3 +710,112 @@ func (r *Reader) rounds(e ast.Expr, depth int) bool {
 
 // exact lists the math functions whose result is exact.
 var exact = map[string]bool{"Abs": true, "Copysign": true, "Mod": true, "Remainder": true}
+
+// entry returns a key for e when it is an entry of a fixed-size array at
+// constant indices (m[0][1]): its type and the indices.
+func (r *Reader) entry(e ast.Expr) (string, bool) {
+	path := ""
+	for {
+		ix, ok := ast.Unparen(e).(*ast.IndexExpr)
+		if !ok {
+			break
+		}
+		if r.info.Types[ix.Index].Value == nil {
+			return "", false
+		}
+		path = "[" + r.info.Types[ix.Index].Value.ExactString() + "]" + path
+		e = ix.X
+	}
+	t := r.info.TypeOf(e)
+	if _, ok := t.Underlying().(*types.Array); !ok || path == "" {
+		return "", false
+	}
+	return types.TypeString(t, nil) + path, true
+}
+
+// factors returns the entries of fixed-size arrays that the package uses
+// as pure factors, read once: by dimensional consistency, in a sum
+// m[0][0]*p.x + m[0][2] of a parameter's entry m[0][2] (degree 1) and a
+// product of another entry with data p.x (degree 1), that entry is of
+// degree 0 (the linear part of an affine map, beside its offset).
+func (r *Reader) factors() map[string]bool {
+	if r.factor != nil {
+		return r.factor
+	}
+	r.factor = map[string]bool{}
+	for _, f := range r.files {
+		ast.Inspect(f, func(n ast.Node) bool {
+			if b, ok := n.(*ast.BinaryExpr); ok && (b.Op == token.ADD || b.Op == token.SUB) {
+				r.factorsIn(terms(b, nil))
+			}
+			return true
+		})
+	}
+	return r.factor
+}
+
+// factorsIn records the factors of a sum of terms: entries multiplied by
+// data from outside their array, beside a parameter's entry of the same
+// array type added as it is.
+func (r *Reader) factorsIn(ts []ast.Expr) {
+	offsets := map[string]bool{} // array types with an entry added as it is
+	for _, t := range ts {
+		if _, ok := r.entry(t); ok && r.fromParam(t) {
+			offsets[r.info.TypeOf(rootOf(t)).String()] = true
+		}
+	}
+	for _, t := range ts {
+		m, ok := ast.Unparen(t).(*ast.BinaryExpr)
+		if !ok || m.Op != token.MUL {
+			continue
+		}
+		for _, pair := range [2][2]ast.Expr{{m.X, m.Y}, {m.Y, m.X}} {
+			key, ok := r.entry(pair[0])
+			typ := r.info.TypeOf(rootOf(pair[0])).String()
+			if ok && offsets[typ] && r.fromParam(pair[1]) && r.info.TypeOf(rootOf(pair[1])).String() != typ {
+				r.factor[key] = true
+			}
+		}
+	}
+}
+
+// terms returns the terms of a sum or difference, signs dropped.
+func terms(e ast.Expr, ts []ast.Expr) []ast.Expr {
+	switch x := ast.Unparen(e).(type) {
+	case *ast.BinaryExpr:
+		if x.Op == token.ADD || x.Op == token.SUB {
+			return terms(x.Y, terms(x.X, ts))
+		}
+	case *ast.UnaryExpr:
+		if x.Op == token.SUB || x.Op == token.ADD {
+			return terms(x.X, ts)
+		}
+	}
+	return append(ts, e)
+}
+
+// rootOf strips indices and field selections from e: m for m[0][1], p
+// for p.x.
+func rootOf(e ast.Expr) ast.Expr {
+	for {
+		switch x := ast.Unparen(e).(type) {
+		case *ast.IndexExpr:
+			e = x.X
+		case *ast.SelectorExpr:
+			e = x.X
+		default:
+			return e
+		}
+	}
+}
+
+// fromParam reports whether e is a parameter or receiver, or a field or
+// element of one: data of degree 1.
+func (r *Reader) fromParam(e ast.Expr) bool {
+	id, ok := rootOf(e).(*ast.Ident)
+	if !ok {
+		return false
+	}
+	v, ok := r.info.Uses[id].(*types.Var)
+	return ok && (v.Kind() == types.ParamVar || v.Kind() == types.RecvVar)
+}

@@ -28,8 +28,17 @@ func (p vec) times(k float64) vec  { return vec{k * p.x, k * p.y} }
 func (p vec) inner(q vec) float64  { return p.x*q.x + p.y*q.y }
 func (p vec) wedge(q vec) float64  { return p.x*q.y - p.y*q.x }
 func (p vec) norm() float64        { return math.Sqrt(p.inner(p)) }
+func (p vec) unit() vec            { return p.times(1 / p.norm()) }
 
 var origin = vec{}
+
+// affine maps points: a linear part and an offset.
+type affine [2][3]float64
+
+func (m affine) apply(p vec) vec {
+	return vec{m[0][0]*p.x + m[0][1]*p.y + m[0][2], m[1][0]*p.x + m[1][1]*p.y + m[1][2]}
+}
+func (m affine) det() float64 { return m[0][0]*m[1][1] - m[0][1]*m[1][0] }
 
 func roots(a, b, c float64) (float64, float64) {
 	if a == 0 {
@@ -54,7 +63,7 @@ func along(p0, p1 vec, t float64) vec {
 	return p0.plus(p1)
 }
 
-func sites(a0, a1, b0, b1 vec, n int, xs []float64) {
+func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 	area := a1.minus(a0).wedge(b1.minus(b0))
 	self := a1.minus(a0).inner(a1.minus(a0))
 	r, _ := roots(area, self, area)
@@ -77,6 +86,13 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64) {
 	east := a0.x
 	rem := math.Mod(a0.x, b0.x)
 	_, _ = east, rem
+	jac := m.det()
+	dir := a0
+	dir = dir.unit()
+	heading := dir.wedge(b0)
+	_ = heading
+	shift := m[0][2] * m[1][2]
+	_, _ = jac, shift
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
@@ -125,6 +141,9 @@ func TestDegrees(t *testing.T) {
 		{"scaled", 0, false, false}, // multiplied by itself in a loop: not read
 		{"far", 0, false, false},    // read from a package variable: not read
 		{"length", 1, true, false},  // the square root of an inner product
+		{"jac", 0, true, true},      // entries that multiply a point beside an offset are pure factors (dimensional consistency)
+		{"shift", 2, true, false},   // the offsets themselves are data
+		{"heading", 1, true, true},  // dir is a unit vector from its reassignment on: its cross product with a point is a length
 	} {
 		d, ok, cancels := read(c.name)
 		require.Equal(t, c.ok, ok, c.name)

@@ -129,3 +129,36 @@ func Guarded(a, b station) float64 {
 	}
 	return 1 / a.cross(b)
 }
+
+// sheet maps survey stations onto a drawing: a linear part and an offset.
+type sheet [2][3]float64
+
+func (m sheet) place(p station) station {
+	return station{m[0][0]*p.east + m[0][1]*p.north + m[0][2], m[1][0]*p.east + m[1][1]*p.north + m[1][2]}
+}
+
+// Folds tests the determinant of the linear part. Its entries multiply a
+// station and are added to an offset entry, so by dimensional consistency
+// they are pure numbers (degree 0): the determinant has no data size.
+func Folds(m sheet) bool {
+	return level(m[0][0]*m[1][1]-m[0][1]*m[1][0], 0)
+}
+
+// Swept tests the cross product of the offset with a station: the
+// offsets are data (degree 1), the product an area (degree 2).
+func Swept(m sheet, p station) bool {
+	return level(station{m[0][2], m[1][2]}.cross(p), 0) // want `absolute tolerance 1e-11 on .*, of degree 2 in the data, .* once the data reach s = 2.1e\+02`
+}
+
+func (p station) unit() station {
+	n := math.Hypot(p.east, p.north)
+	return station{p.east / n, p.north / n}
+}
+
+// Offside reassigns its parameter to a unit vector before the test: the
+// value that reaches the cross product is a pure direction (degree 0),
+// so the product with a station is a length (degree 1), not an area.
+func Offside(heading, p station) bool {
+	heading = heading.unit()
+	return level(heading.cross(p), 0)
+}

@@ -108,10 +108,13 @@
 // is 2; an entry of a fixed-size array that the package multiplies by
 // data and adds to another entry of the same type, m[0][0]*p.X + m[0][2],
 // is 0 by dimensional consistency, a pure factor such as the linear part
-// of an affine map; a variable assigned only by statements of the
-// function's body itself has the value of the last one before its use, so
-// heading = heading.Unit() makes heading a direction from there on; see
-// package degree) carries a rounding error of about eps·s^d at
+// of an affine map; a variable assigned only by statements of the block
+// that declares it has the value of the last one before its use, so
+// heading = heading.Unit() makes heading a direction from there on, and
+// d := a - b; d *= d in a loop body is a fresh square, degree 2, on each
+// pass; a slice made with make holds the values stored into its elements,
+// and its elements cancel where one of those values does; see package
+// degree) carries a rounding error of about eps·s^d at
 // data size s, so a tolerance t stops passing anything but equality once
 // the data reach (t/eps)^(1/d): 1e-10 on a cross product of coordinates
 // fails at 670, 1e-14 on a one-pass variance at 6.7, 2.2e-14 on a
@@ -159,8 +162,9 @@
 // consistent at every size); mixed tests atol + rtol·scale; a predicate
 // that compares values read straight from its parameters (its callers'
 // data decide); quantities of unknown degree (a call into another
-// package, a package variable, a variable multiplied by itself in a
-// loop) and of degree 0 (a ratio, a sine); tolerances at or above eps
+// package, a package variable, a variable declared before a loop and
+// multiplied by itself on each pass, of degree 2^k after k passes, which
+// no fixed degree bounds) and of degree 0 (a ratio, a sine); tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
 // tolerance reaches the gap between floats just under that magnitude.
 //

@@ -12,8 +12,10 @@
 //
 // Functions of the package are read through their return statements,
 // once per combination of argument degrees (p.Dot(q) is deg(p)+deg(q));
-// where the reading cannot tell (a call into another package, a package
-// variable, a loop product), it says so, and callers claim nothing.
+// a slice holds the values stored into its elements; where the reading
+// cannot tell (a call into another package, a package variable, a
+// product carried from pass to pass of a loop), it says so, and callers
+// claim nothing.
 package degree
 
 import (
@@ -48,7 +50,9 @@ type Reader struct {
 	busy   map[*types.Var]bool
 	cancel map[cancelKey]bool
 	files  []*ast.File
-	plain  map[*types.Var][]plainSet // v = e and v := e as statements of the function's body itself
+	plain  map[*types.Var][]plainSet // v = e, v := e, v *= e and v /= e as statements of the block declaring v
+	elems  map[*types.Var]bool       // slices and arrays given values by element stores (s[i] = e)
+	self   map[*types.Var]bool       // variables multiplied or divided in a loop body that declares them (see plainSets)
 	factor map[string]bool           // entries of fixed-size arrays used as pure factors (see factors)
 	top    *frame                    // the reading at the top
 }
@@ -56,7 +60,7 @@ type Reader struct {
 // New returns a Reader for the package of files.
 func New(info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
-		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, top: &frame{known: map[*types.Var]float64{}}}
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
@@ -90,8 +94,9 @@ type result struct {
 	i    int
 }
 
-// plainSet is an assignment v = e, or v := e, that is a statement of its
-// function's body itself (no branch or loop around it), ending at end.
+// plainSet is an assignment v = e, v := e, or v *= e (read as v = v*e),
+// that is a statement of the block declaring v (no branch or loop between
+// them), ending at end.
 type plainSet struct {
 	end token.Pos
 	e   ast.Expr
@@ -147,6 +152,9 @@ func (r *Reader) of(e ast.Expr, bind env, depth int) float64 {
 	case *ast.BinaryExpr:
 		return r.binary(e, bind, depth)
 	case *ast.CallExpr:
+		if r.isMake(e) {
+			return none // zero values until its elements are stored
+		}
 		return r.call(e, 0, bind, depth)
 	case *ast.CompositeLit:
 		d := none
@@ -179,7 +187,7 @@ func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 	sets, ok := r.sets[v]
 	d, bound := bind.bound[v]
 	switch {
-	case r.poison[v]:
+	case r.poison[v] || r.self[v]:
 		return math.NaN() // multiplied by itself, or changed through a pointer
 	case bound:
 	case r.params[v]:
@@ -350,7 +358,10 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 		return
 	}
 	r.done[fd] = true
-	jumps := false
+	ops := map[*ast.AssignStmt]bool{}
+	if !jumps(fd) {
+		ops = r.plainSets(fd)
+	}
 	ast.Inspect(fd, func(n ast.Node) bool {
 		switch n := n.(type) {
 		case *ast.FuncType:
@@ -361,12 +372,10 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 			r.loops = append(r.loops, n)
 		case *ast.FuncLit:
 			r.lits = append(r.lits, n)
-		case *ast.LabeledStmt:
-			jumps = true // a jump back may carry a later value
 		}
 		switch n := n.(type) {
 		case *ast.AssignStmt:
-			r.assign(n)
+			r.assign(n, ops[n])
 		case *ast.ValueSpec:
 			for i, name := range n.Names {
 				r.set(name, nil)
@@ -385,9 +394,17 @@ func (r *Reader) index(fd *ast.FuncDecl) {
 		}
 		return true
 	})
-	if !jumps {
-		r.plainSets(fd)
-	}
+}
+
+// jumps reports whether fd holds a label: a jump back may carry a later
+// value to an earlier statement.
+func jumps(fd *ast.FuncDecl) bool {
+	found := false
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		_, found = n.(*ast.LabeledStmt)
+		return !found
+	})
+	return found
 }
 
 func (r *Reader) fieldVars(fl *ast.FieldList) {
@@ -404,10 +421,16 @@ func (r *Reader) fieldVars(fl *ast.FieldList) {
 }
 
 // assign records v = e, v := e, v += e and v -= e (a sum of values of
-// degree d stays of degree d); v *= e, v /= e and tuple assignments from
-// calls leave v unknown.
-func (r *Reader) assign(as *ast.AssignStmt) {
+// degree d stays of degree d), and the same stores into elements of a
+// local slice or array s[i] (its values are those of its elements); v *=
+// e and v /= e are read as v = v*e where plain (a statement of the block
+// declaring v, see plainSets), else they leave v unknown but outside
+// loops.
+func (r *Reader) assign(as *ast.AssignStmt, plain bool) {
 	for i, l := range as.Lhs {
+		if r.store(as, i) {
+			continue
+		}
 		id, ok := ast.Unparen(l).(*ast.Ident)
 		if !ok {
 			continue
@@ -423,6 +446,9 @@ func (r *Reader) assign(as *ast.AssignStmt) {
 			r.spoil(id)
 		case as.Tok == token.ASSIGN || as.Tok == token.DEFINE || as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN:
 			r.set(id, as.Rhs[i])
+		case plain && r.inLoop(as):
+			r.set(id, selfOp(as, i)) // x := a - b; x *= x in a loop body: a fresh square each pass
+			r.self[r.varOf(id)] = true
 		case (as.Tok == token.MUL_ASSIGN || as.Tok == token.QUO_ASSIGN) && !r.inLoop(as) && r.varOf(id) != nil:
 			v := r.varOf(id) // scaled once in straight code (b /= a): its degree moves by e's
 			r.scales[v] = append(r.scales[v], scaling{map[token.Token]token.Token{token.MUL_ASSIGN: token.MUL, token.QUO_ASSIGN: token.QUO}[as.Tok], as.Rhs[i]})
@@ -430,6 +456,50 @@ func (r *Reader) assign(as *ast.AssignStmt) {
 			r.spoil(id)
 		}
 	}
+}
+
+// store records as's i-th target when it is an element of a local slice
+// or array s (s[i] = e, s[i][j] += e), and reports whether it is.
+func (r *Reader) store(as *ast.AssignStmt, i int) bool {
+	ix, ok := ast.Unparen(as.Lhs[i]).(*ast.IndexExpr)
+	if !ok {
+		return false
+	}
+	for {
+		inner, ok := ast.Unparen(ix.X).(*ast.IndexExpr)
+		if !ok {
+			break
+		}
+		ix = inner
+	}
+	id, ok := ast.Unparen(ix.X).(*ast.Ident)
+	if !ok || r.varOf(id) == nil || r.params[r.varOf(id)] {
+		return ok
+	}
+	switch {
+	case len(as.Lhs) == len(as.Rhs) && (as.Tok == token.ASSIGN || as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN):
+		r.set(id, as.Rhs[i])
+		r.elems[r.varOf(id)] = true
+	default:
+		r.spoil(id)
+	}
+	return true
+}
+
+// selfOp returns v *= e or v /= e, the i-th of as, as the value v*e or v/e.
+func selfOp(as *ast.AssignStmt, i int) ast.Expr {
+	op := map[token.Token]token.Token{token.MUL_ASSIGN: token.MUL, token.QUO_ASSIGN: token.QUO}[as.Tok]
+	return &ast.BinaryExpr{X: as.Lhs[i], OpPos: as.TokPos, Op: op, Y: as.Rhs[i]}
+}
+
+// isMake reports whether e is make(...): zero values.
+func (r *Reader) isMake(e ast.Expr) bool {
+	call, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	b, ok := typeutil.Callee(r.info, call).(*types.Builtin)
+	return ok && b.Name() == "make"
 }
 
 // reaching returns the value of v at pos when every assignment of v is a
@@ -456,20 +526,48 @@ func (r *Reader) reaching(v *types.Var, pos token.Pos) (ast.Expr, bool) {
 	return e, e != nil
 }
 
-// plainSets records the assignments v = e and v := e that are statements
-// of fd's body itself.
-func (r *Reader) plainSets(fd *ast.FuncDecl) {
-	for _, st := range fd.Body.List {
-		as, ok := st.(*ast.AssignStmt)
-		if !ok || as.Tok != token.ASSIGN && as.Tok != token.DEFINE || len(as.Lhs) != len(as.Rhs) {
-			continue
+// plainSets records the assignments v = e, v := e, v *= e and v /= e
+// that are statements of the block declaring v (a parameter: of fd's body
+// itself), and returns those of the last two kinds. A variable declared
+// in a loop body starts afresh each pass, so within the pass only the
+// statements before a use reach it: x := a - b; x *= x is a square of
+// degree 2·deg(a), where x declared outside the loop and squared each pass
+// grows without bound.
+func (r *Reader) plainSets(fd *ast.FuncDecl) map[*ast.AssignStmt]bool {
+	ops := map[*ast.AssignStmt]bool{}
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		b, ok := n.(*ast.BlockStmt)
+		if !ok {
+			_, lit := n.(*ast.FuncLit)
+			return !lit
 		}
-		for i, l := range as.Lhs {
-			if id, ok := ast.Unparen(l).(*ast.Ident); ok && r.varOf(id) != nil {
-				r.plain[r.varOf(id)] = append(r.plain[r.varOf(id)], plainSet{as.End(), as.Rhs[i]})
+		scope := r.info.Scopes[b]
+		if b == fd.Body {
+			scope = r.info.Scopes[fd.Type]
+		}
+		for _, st := range b.List {
+			as, ok := st.(*ast.AssignStmt)
+			if !ok || len(as.Lhs) != len(as.Rhs) {
+				continue
+			}
+			for i, l := range as.Lhs {
+				id, ok := ast.Unparen(l).(*ast.Ident)
+				if !ok || r.varOf(id) == nil || r.varOf(id).Parent() != scope {
+					continue
+				}
+				v := r.varOf(id)
+				switch as.Tok {
+				case token.ASSIGN, token.DEFINE:
+					r.plain[v] = append(r.plain[v], plainSet{as.End(), as.Rhs[i]})
+				case token.MUL_ASSIGN, token.QUO_ASSIGN:
+					ops[as] = true
+					r.plain[v] = append(r.plain[v], plainSet{as.End(), selfOp(as, i)})
+				}
 			}
 		}
-	}
+		return true
+	})
+	return ops
 }
 
 // inLoop reports whether n lies in a loop of an indexed function, where
@@ -535,6 +633,8 @@ func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
 	switch e := ast.Unparen(x).(type) {
 	case *ast.Ident:
 		return r.varCancels(e, self, depth)
+	case *ast.IndexExpr:
+		return r.cancels(e.X, self, depth+1)
 	case *ast.BinaryExpr:
 		switch e.Op {
 		case token.SUB:
@@ -560,7 +660,9 @@ func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
 }
 
 // varCancels reports whether every value given to the local variable id
-// cancels.
+// cancels; for a slice or array given values by element stores, whether
+// one does: each element keeps the value stored in it, so the elements
+// stored from a cancelling difference are noise of eps times its terms.
 func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
 	v := r.varOf(id)
 	key := cancelKey{v, self}
@@ -578,11 +680,12 @@ func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
 	defer delete(r.busy, v)
 	c := false
 	for _, s := range sets {
-		if s != nil && !r.cancels(s, self, depth+1) {
-			c = false
-			break
+		if s == nil || r.isMake(s) {
+			continue
 		}
-		c = c || s != nil
+		if c = r.cancels(s, self, depth+1); c == r.elems[v] {
+			break // one value that does not cancel decides for a variable, one that does for elements
+		}
 	}
 	r.cancel[key] = c
 	return c

@@ -92,7 +92,20 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 	heading := dir.wedge(b0)
 	_ = heading
 	shift := m[0][2] * m[1][2]
-	_, _ = jac, shift
+	devs := make([]float64, len(xs))
+	for i, x := range xs {
+		dev := x - xs[0]
+		dev *= dev
+		devs[i] = dev
+	}
+	sqdev := devs[1]
+	gaps := make([]float64, len(xs))
+	gaps[0] = 1
+	for i := 1; i < n; i++ {
+		gaps[i] = xs[i] - xs[i-1]
+	}
+	gap := gaps[1]
+	_, _, _, _ = jac, shift, sqdev, gap
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
@@ -102,7 +115,7 @@ func load(t *testing.T) (*types.Info, *degree.Reader, *ast.FuncDecl) {
 	fset := token.NewFileSet()
 	f, err := parser.ParseFile(fset, "plane.go", src, 0)
 	require.NoError(t, err)
-	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}}
+	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}, Scopes: map[ast.Node]*types.Scope{}}
 	_, err = (&types.Config{Importer: importer.ForCompiler(fset, "source", nil)}).Check("plane", fset, []*ast.File{f}, info)
 	require.NoError(t, err)
 	r := degree.New(info, []*ast.File{f})
@@ -144,6 +157,8 @@ func TestDegrees(t *testing.T) {
 		{"jac", 0, true, true},      // entries that multiply a point beside an offset are pure factors (dimensional consistency)
 		{"shift", 2, true, false},   // the offsets themselves are data
 		{"heading", 1, true, true},  // dir is a unit vector from its reassignment on: its cross product with a point is a length
+		{"gap", 1, true, true},      // elements stored from differences: those elements are their terms' rounding near zero
+		{"sqdev", 2, true, false},   // elements stored from a square made afresh in each pass: an area-like square, whose error is relative
 	} {
 		d, ok, cancels := read(c.name)
 		require.Equal(t, c.ok, ok, c.name)

@@ -162,3 +162,69 @@ func Offside(heading, p station) bool {
 	heading = heading.unit()
 	return level(heading.cross(p), 0)
 }
+
+// windowSpread returns the one-pass spread of the heights in each window
+// of w readings, stored element by element into a slice made for them.
+// Each pass squares fresh values (h2 := h; h2 *= h2), so the sums of
+// squares are of degree 2, and so is their difference with the squared
+// mean, which cancels for a flat window.
+func windowSpread(heights []float64, w int) []float64 {
+	out := make([]float64, len(heights))
+	sum, sq := 0.0, 0.0
+	for i, h := range heights {
+		sum += h
+		h2 := h
+		h2 *= h2
+		sq += h2
+		if i >= w {
+			gone := heights[i-w]
+			sum -= gone
+			gone *= gone
+			sq -= gone
+		}
+		n := float64(min(i+1, w))
+		out[i] = sq/n - (sum/n)*(sum/n)
+	}
+	return out
+}
+
+// LevelGround reads the spreads from windowSpread: for a flat window
+// their residue is eps times the sum of squares, 2.2e-16·1e6 at heights
+// of 1e3, far above 1e-13, which holds only below heights of 21.
+func LevelGround(heights []float64, w int) []bool {
+	spreads := windowSpread(heights, w)
+	flat := make([]bool, len(spreads))
+	for i := range spreads {
+		s := spreads[i]
+		flat[i] = s < 1e-13 // want `absolute tolerance 1e-13 on s < 1e-13, of degree 2 in the data, .* once the data reach s = 21,`
+	}
+	return flat
+}
+
+// Compounded squares a growth factor declared before the loop on every
+// pass: after k passes it is of degree 2^k, which no fixed degree bounds,
+// so the test is left alone.
+func Compounded(rate float64, years int) bool {
+	g := rate
+	for range years {
+		g *= g
+	}
+	return math.Abs(g-rate) < 1e-14
+}
+
+// Footprints stores each plot's area, width times depth, element by
+// element: a product that does not cancel keeps a relative error, 2.2e-16
+// of itself, so a bare threshold on it is a plain size test at any scale.
+func Footprints(widths, depths []float64) int {
+	areas := make([]float64, len(widths))
+	for i := range widths {
+		areas[i] = widths[i] * depths[i]
+	}
+	small := 0
+	for _, a := range areas {
+		if a < 1e-12 {
+			small++
+		}
+	}
+	return small
+}

@@ -126,7 +126,13 @@
 // data reach in whatever unit a caller picks; but a quantity of degree 1
 // may be a pure number (an angle, a fraction, a colour component), which
 // its reading cannot tell from a length, and whose tolerance states the
-// size its author expects. A product of two data values squares whatever
+// size its author expects. A tolerance that is a whole multiple k of eps
+// (worked out from it, 100*eps with eps = 1.0/(1<<52): a decimal literal
+// such as 2.2e-14 never is one, its binary value carries low-order bits)
+// states a relative precision instead, k ulps at magnitude 1; it is judged
+// at degree 1 too, and even on a difference of two values read as given,
+// whose exactness does not help: once the data exceed k it is an exact
+// equality test (r := hi - lo; r < 100*eps). A product of two data values squares whatever
 // size they have, so one tolerance used for lengths and for their
 // products (1e-10 on a point's offset and on a cross product) breaks at
 // sizes as modest as 670. It judges |a-b| < t, |x| < t and a bare

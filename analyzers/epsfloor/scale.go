@@ -65,7 +65,8 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if c.learnHelper(cur, fd, t) {
 		return
 	}
-	if !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
+	k, eps := t.f.EpsMultiple(t.tol)
+	if !eps && !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
 		return // values read as given: their difference is exact when they are close
 	}
 	d, ok := c.degrees().Of(fd, t.a)
@@ -77,7 +78,7 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 		return // unknown, or of a size fixed by constants
 	}
 	size, declared := dataSize(c.pass.Pkg.Path())
-	if d < 2 && !declared {
+	if d < 2 && !declared && !eps {
 		return // may be a pure number (an angle, a fraction): its size is the author's to state
 	}
 	breaks := math.Pow(t.tol/t.f.Eps, 1/d)
@@ -92,10 +93,14 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if t.test == nil || t.test.Kind != tolerance.Absolute {
 		remedy = fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
 	}
+	why := fmt.Sprintf("is below its rounding error eps·s^%s (eps = %.3g) once the data reach s = %.2g", numeric.Short(d), t.f.Eps, breaks)
+	if eps {
+		why = fmt.Sprintf("is %s·eps (eps = %.3g), a relative precision used as an absolute one: %[1]s ulps at magnitude 1, less than one once the data exceed s = %.2[3]g", numeric.Short(k), t.f.Eps, breaks)
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: t.node.Pos(), End: t.node.End(), Category: catScale,
-		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, is below its rounding error eps·s^%[3]s (eps = %.3g) once the data reach s = %.2g, under the %.2g assumed for data of unknown size; %s",
-			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), t.f.Eps, breaks, size, remedy),
+		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, %s, under the %.2g assumed for data of unknown size; %s",
+			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), why, size, remedy),
 	}, fs...)
 }
 

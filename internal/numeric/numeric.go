@@ -36,6 +36,16 @@ var (
 // forward-difference step.
 func (f Format) SqrtEps() float64 { return math.Sqrt(f.Eps) }
 
+// EpsMultiple returns k when t is exactly k·Eps for a whole k from 1 to
+// 1000, or Eps/2 (k = 0.5): a value derived from machine epsilon by
+// arithmetic, which a decimal literal (2.2e-16, 1e-14) never is, since Eps
+// is a power of two and such literals carry low-order bits. It returns
+// false otherwise.
+func (f Format) EpsMultiple(t float64) (float64, bool) {
+	k := t / f.Eps // exact: Eps is a power of two
+	return k, k == 0.5 || k >= 1 && k <= 1000 && k == math.Trunc(k)
+}
+
 // CbrtEps returns Eps^(1/3), the optimal relative central-difference step.
 func (f Format) CbrtEps() float64 { return math.Cbrt(f.Eps) }
 

@@ -69,6 +69,27 @@ func TestFormats(t *testing.T) {
 	}
 }
 
+// TestEpsMultiple checks which tolerances read as derived from machine
+// epsilon: whole multiples k·2^-52 (IEEE 754-2019 binary64: eps = 2^-52,
+// u = 2^-53), built here with math/big, against decimal literals, whose
+// nearest binary64 value carries low-order bits (common practice).
+func TestEpsMultiple(t *testing.T) {
+	for _, k := range []int64{1, 2, 4, 10, 100, 1000} {
+		v, _ := new(big.Float).SetMantExp(big.NewFloat(float64(k)), -52).Float64()
+		got, ok := numeric.Float64.EpsMultiple(v)
+		assert.True(t, ok, "%d·eps", k)
+		assert.Equal(t, float64(k), got)
+	}
+	_, ok := numeric.Float64.EpsMultiple(pow2(-53))
+	assert.True(t, ok, "u = eps/2")
+	_, ok = numeric.Float32.EpsMultiple(100 * pow2(-23))
+	assert.True(t, ok, "100·eps of binary32")
+	for _, v := range []float64{2.2e-16, 1e-15, 2.2e-14, 1e-14, 1e-12, 2001 * pow2(-52), pow2(-54)} {
+		_, ok := numeric.Float64.EpsMultiple(v)
+		assert.False(t, ok, "%g", v)
+	}
+}
+
 func TestRootsOfEps(t *testing.T) {
 	f64, f32 := numeric.Float64, numeric.Float32
 	// Exact powers of two: sqrt(2^-52) = 2^-26, (2^-52)^(1/4) = 2^-13 (NUMERICS.md; IEEE 754-2019).

@@ -228,3 +228,48 @@ func Footprints(widths, depths []float64) int {
 	}
 	return small
 }
+
+// ulp is machine epsilon worked out by arithmetic (2^-52, IEEE 754-2019
+// binary64): a multiple of it states a relative precision.
+const ulp = 1.0 / (1 << 52)
+
+// Degenerate asks whether a survey line has no length with a tolerance of
+// 100 ulps: that is 100 ulps of a value of size 1, and less than the
+// spacing of floats once coordinates exceed 100 (2.2e-14 < ulp(128) =
+// 2.8e-14), where it is an exact equality test.
+func Degenerate(start, end float64, n int) float64 {
+	if end-start < 100*ulp { // want `absolute tolerance 2.22e-14 on end-start < 100\*ulp, of degree 1 in the data, is 100·eps \(eps = 2.22e-16\), a relative precision used as an absolute one: 100 ulps at magnitude 1, less than one once the data exceed s = 1e\+02, under the 1e\+03 assumed`
+		return 0
+	}
+	return (end - start) / float64(n)
+}
+
+// OnGrid tests that a stake lies on a grid of the given pitch: the
+// remainder has the size of the pitch, so 4 ulps of 1 is no margin there.
+func OnGrid(stake, pitch float64) float64 {
+	r := math.Mod(stake, pitch)
+	if r < 4*ulp { // want `absolute tolerance 8.88e-16 on r < 4\*ulp, of degree 1 in the data, is 4·eps`
+		return 0
+	}
+	return r
+}
+
+// SameSlope compares two grades, rise over run (degree 0, a pure number
+// whatever the unit of length): 100 ulps of 1 is a relative margin there.
+func SameSlope(rise1, run1, rise2, run2 float64) string {
+	if math.Abs(rise1/run1-rise2/run2) < 100*ulp {
+		return "even"
+	}
+	return "break"
+}
+
+// CloseEnough compares a midpoint with a third coordinate, with a decimal
+// tolerance that states an absolute size its author chose (not a multiple
+// of eps): at degree 1 it is judged only at a declared data size.
+func CloseEnough(a, b, c float64) float64 {
+	m := (a + b) / 2
+	if math.Abs(m-c) < 2.2e-14 {
+		return c
+	}
+	return m
+}

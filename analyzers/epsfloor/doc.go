@@ -138,7 +138,8 @@
 // sizes as modest as 670. It judges |a-b| < t, |x| < t and a bare
 // x < t where x can cancel (a difference or sum of non-constant values, a
 // remainder, a product with such a factor; a product that does not cancel,
-// w*h, keeps a relative error, eps·|w*h|, and is left alone; so is a
+// w*h, keeps a relative error, eps·|w*h|, and is left alone, as is a sum
+// of squares, x*x + y*y + z*z, whose terms cannot cancel; so is a
 // difference of two values read as the caller gave them, exact when they
 // are close by Sterbenz's lemma, and an integrality test x - math.Round(x),
 // whose x is a count or a pure number), and the calls

@@ -16,6 +16,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
 )
 
@@ -36,6 +37,38 @@ func equalityName(name string) bool {
 	return true
 }
 
+// tolerant reports whether a call of callee compares within a tolerance,
+// whatever its name says: it passes a third float operand (an equality of
+// two values takes two; a third is the tolerance their difference is held
+// to), or callee's body, where this package declares it, holds a
+// tolerance test (math.Abs(a-b) > eps).
+func (c *checker) tolerant(call *ast.CallExpr, callee *ssa.Function) bool {
+	floats := 0
+	for _, a := range call.Args {
+		if provenance.IsFloat(c.pass.TypesInfo.TypeOf(a)) {
+			floats++
+		}
+	}
+	if floats > 2 {
+		return true
+	}
+	if callee == nil {
+		return false
+	}
+	fd, ok := callee.Syntax().(*ast.FuncDecl)
+	if !ok || fd.Body == nil {
+		return false
+	}
+	found := false
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && !found {
+			_, found = tolerance.Recognize(c.pass.TypesInfo, c.decls, b)
+		}
+		return !found
+	})
+	return found
+}
+
 // helperAssertion reports, in a test file, an equality assertion outside
 // testify and the standard library (a helper package's AssertEqual, or a
 // call given such a function, as in So(x, ShouldEqual, 2.9)) that compares
@@ -49,7 +82,7 @@ func (c *checker) helperAssertion(cur inspector.Cursor, call *ast.CallExpr, fn *
 		}
 	}
 	sc := c.calls[call.Lparen]
-	if !equalityName(name) || sc == nil || c.deliberate(cur) || !c.inTest(cur) {
+	if !equalityName(name) || sc == nil || c.tolerant(call, sc.Common().StaticCallee()) || c.deliberate(cur) || !c.inTest(cur) {
 		return
 	}
 	args := sc.Common().Args

@@ -81,7 +81,11 @@
 //     fused multiply-add, so it fails on other platforms;
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
-//     such a function, as So(x, ShouldEqual, 2.9), or an Equal method
+//     such a function, as So(x, ShouldEqual, 2.9), unless it takes a third
+//     float operand or its body, where the package declares it, holds a
+//     tolerance test: then it compares within that tolerance, whatever
+//     its name says (PracticallyEqual(a, b) returning |a-b| < 1e-9);
+//     or an Equal method
 //     of a type holding floats by value, as c.Equal(Point{1.5, 0.45}), with
 //     the decimal among a literal's elements) of a result that a
 //     function of this package computes in several rounded steps (also
@@ -140,8 +144,9 @@
 // remainder reductions x - k*y with k from Floor, Ceil, Trunc or Round
 // (exact where exact sign algorithms use them), of recurrence terms
 // that feed the next pass (a residue there only scales the next term),
-// and of divisors the function then divides by when the zero branch only
-// assigns or returns constants (zero is the one divisor that gives Inf or
+// and of divisors the function then divides by when the zero branch
+// computes no answer of its own (it assigns or returns constants, nil,
+// zero values, or an error, or panics: zero is the one divisor that gives Inf or
 // NaN; a residue in its place gives a large finite quotient, which the
 // code goes on to judge, as a ratio far outside [0, 1] for near-parallel
 // segments; a zero branch that handles a case of its own, such as

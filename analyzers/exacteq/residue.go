@@ -9,6 +9,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
@@ -24,7 +25,8 @@ import (
 // usually leave a residue of a few ulps of the terms. It reports whether
 // the comparison was such a zero test. A zero test of a value the
 // function then divides by, whose zero branch only records a constant
-// answer (no intersection, 0), is a division guard: zero is the one
+// answer (no intersection, 0) or reports the case as an error, is a
+// division guard: zero is the one
 // divisor that gives Inf or NaN, and a residue of a few ulps in its place
 // gives a finite quotient of large magnitude, which the code goes on to
 // judge (a ratio far outside [0, 1] for near-parallel segments), so the
@@ -62,8 +64,9 @@ func divides(v ssa.Value) bool {
 }
 
 // constantBranch reports whether n is the condition of an if statement
-// whose branch taken on zero (the body for ==, the else for !=) only
-// assigns or returns constants.
+// whose branch taken on zero (the body for ==, the else for !=) computes
+// no answer of its own: it only assigns or returns inert values (see
+// inert), or panics.
 func (c *checker) constantBranch(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token) bool {
 	ifs, ok := cur.Parent().Node().(*ast.IfStmt)
 	if !ok || ifs.Cond != n {
@@ -83,16 +86,53 @@ func (c *checker) constantBranch(cur inspector.Cursor, n *ast.BinaryExpr, op tok
 			vals = st.Rhs
 		case *ast.ReturnStmt:
 			vals = st.Results
+		case *ast.ExprStmt:
+			vals = []ast.Expr{st.X}
 		default:
 			return false
 		}
 		for _, v := range vals {
-			if !c.isConst(v) {
+			if !c.inert(v) {
 				return false
 			}
 		}
 	}
 	return true
+}
+
+// inert reports whether e, assigned or returned in a zero branch, is no
+// answer computed for that case: a constant, nil, a literal of constants,
+// the address of a package variable (&Zero), or an error made to report
+// the case (errors.New, fmt.Errorf, panic) to a caller that handles it.
+func (c *checker) inert(e ast.Expr) bool {
+	info := c.pass.TypesInfo
+	switch e := ast.Unparen(e).(type) {
+	case *ast.Ident:
+		if _, ok := info.Uses[e].(*types.Nil); ok {
+			return true
+		}
+	case *ast.UnaryExpr:
+		id, ok := ast.Unparen(e.X).(*ast.Ident)
+		v, isVar := info.Uses[id].(*types.Var)
+		return e.Op == token.AND && ok && isVar && v.Parent() == v.Pkg().Scope()
+	case *ast.CompositeLit:
+		for _, elt := range e.Elts {
+			if kv, ok := elt.(*ast.KeyValueExpr); ok {
+				elt = kv.Value
+			}
+			if !c.inert(elt) {
+				return false
+			}
+		}
+		return true
+	case *ast.CallExpr:
+		if b, ok := typeutil.Callee(info, e).(*types.Builtin); ok {
+			return b.Name() == "panic"
+		}
+		fn, ok := typeutil.Callee(info, e).(*types.Func)
+		return ok && fn.Pkg() != nil && (fn.Pkg().Path() == "errors" && fn.Name() == "New" || fn.Pkg().Path() == "fmt" && fn.Name() == "Errorf")
+	}
+	return c.isConst(e)
 }
 
 // isZero reports whether o is the constant zero.

@@ -611,7 +611,7 @@ func isInteger(t types.Type) bool {
 }
 
 // Cancels reports whether e, an expression inside fd, can cancel: a
-// difference or sum of two values neither of them constant (a sum of two
+// difference or sum of two values neither of them constant (a sum of
 // non-negative terms excepted), a remainder (math.Mod, math.Remainder: an
 // exact difference x - k·y), a product or quotient with such a factor, a
 // variable every value of which cancels, or a call of a function of the
@@ -640,7 +640,7 @@ func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
 		case token.SUB:
 			return r.info.Types[e.X].Value == nil && r.info.Types[e.Y].Value == nil
 		case token.ADD:
-			return r.info.Types[e.X].Value == nil && r.info.Types[e.Y].Value == nil && !(square(r.info, e.X, self) && square(r.info, e.Y, self))
+			return r.info.Types[e.X].Value == nil && r.info.Types[e.Y].Value == nil && !(squares(r.info, e.X, self) && squares(r.info, e.Y, self))
 		case token.MUL, token.QUO:
 			return r.cancels(e.X, self, depth+1) || r.cancels(e.Y, self, depth+1)
 		}
@@ -739,6 +739,16 @@ func square(info *types.Info, e ast.Expr, self bool) bool {
 	x, okx := ast.Unparen(m.X).(*ast.SelectorExpr)
 	y, oky := ast.Unparen(m.Y).(*ast.SelectorExpr)
 	return okx && oky && x.Sel.Name == y.Sel.Name
+}
+
+// squares reports whether e is a square (see square) or a sum of them,
+// x*x + y*y + z*z: a sum of non-negative terms does not cancel, its
+// rounding error is relative, a few eps of its own value.
+func squares(info *types.Info, e ast.Expr, self bool) bool {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && b.Op == token.ADD {
+		return squares(info, b.X, self) && squares(info, b.Y, self)
+	}
+	return square(info, e, self)
 }
 
 // NonNegative reports whether e is non-negative by construction: a square

@@ -105,7 +105,8 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 		gaps[i] = xs[i] - xs[i-1]
 	}
 	gap := gaps[1]
-	_, _, _, _ = jac, shift, sqdev, gap
+	power := a0.x*a0.x + a0.y*a0.y + b0.x*b0.x
+	_, _, _, _, _ = jac, shift, sqdev, gap, power
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
@@ -159,6 +160,7 @@ func TestDegrees(t *testing.T) {
 		{"heading", 1, true, true},  // dir is a unit vector from its reassignment on: its cross product with a point is a length
 		{"gap", 1, true, true},      // elements stored from differences: those elements are their terms' rounding near zero
 		{"sqdev", 2, true, false},   // elements stored from a square made afresh in each pass: an area-like square, whose error is relative
+		{"power", 2, true, false},   // a sum of three squares: non-negative terms never cancel, its error is relative (Higham 2002 §4.2)
 	} {
 		d, ok, cancels := read(c.name)
 		require.Equal(t, c.ok, ok, c.name)

@@ -273,3 +273,15 @@ func CloseEnough(a, b, c float64) float64 {
 	}
 	return m
 }
+
+// Stakeless tests a squared distance of three components against a bare
+// threshold: a sum of squares never cancels, so its rounding error is
+// relative, a few eps of itself, and the test is a plain size test at any
+// scale.
+func Stakeless(dx, dy, dz float64) float64 {
+	sq := dx*dx + dy*dy + dz*dz
+	if sq < 1e-14 {
+		return 0
+	}
+	return math.Sqrt(sq)
+}

@@ -3,6 +3,7 @@
 package idioms
 
 import (
+	"errors"
 	"math"
 	"sort"
 	"strconv"
@@ -386,6 +387,22 @@ func crossingRatio(ux, uy, vx, vy, wx, wy float64) (float64, bool) {
 	}
 	r := (wx*vy - wy*vx) / det
 	return r, r >= 0 && r <= 1
+}
+
+// A determinant tested for zero only to guard the division by it, the
+// singular case reported as an error: a residue in place of zero gives a
+// large finite reciprocal, and conditioning is the caller's question.
+type frame2 [4]float64
+
+var blank frame2
+
+func (m frame2) inverse() (*frame2, error) {
+	det := m[0]*m[3] - m[1]*m[2]
+	if det == 0 {
+		return &blank, errors.New("frame2: singular")
+	}
+	k := 1 / det
+	return &frame2{m[3] * k, -m[1] * k, -m[2] * k, m[0] * k}, nil
 }
 
 // A field filled by a function and compared with that function's result:

@@ -58,3 +58,25 @@ func TestHubs(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// closeEquals is named for equality but holds the difference to a
+// tolerance in its body: a tolerance test, left alone.
+func closeEquals(a, b float64) bool { return math.Abs(a-b) < 1e-9 }
+
+// plainEquals compares exactly, as its name says.
+func plainEquals(a, b float64) bool { return a == b }
+
+// An equality helper is read by what its body does and by the operands it
+// takes: a tolerance in the body or a third float operand makes it a
+// tolerance test.
+func TestHelperMeaning(t *testing.T) {
+	if !closeEquals(Mean([]float64{0.1, 0.2, 0.6}), 0.3) {
+		t.Fail()
+	}
+	if !check.FairlyEqual(Mean([]float64{0.1, 0.2, 0.6}), 0.3, 1e-9) {
+		t.Fail()
+	}
+	if !plainEquals(Mean([]float64{0.1, 0.2, 0.6}), 0.3) { // want `plainEquals compares the result of Mean, computed in several rounded steps, exactly with 0.3`
+		t.Fail()
+	}
+}

@@ -35,3 +35,7 @@ type Hub [2]float64
 
 // Equal reports whether two hubs coincide, comparing coordinates exactly.
 func (h Hub) Equal(o Hub) bool { return h[0] == o[0] && h[1] == o[1] }
+
+// FairlyEqual reports whether a and b differ by at most slack: a
+// tolerance passed as a third operand, whatever the name says.
+func FairlyEqual(a, b, slack float64) bool { return a-b <= slack && b-a <= slack }

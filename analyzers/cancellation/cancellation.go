@@ -99,6 +99,9 @@ func run(pass *analysis.Pass) (any, error) {
 				c.slidingSum(n)
 			case *ast.AssignStmt:
 				c.shoelace(cur, n)
+				if n.Tok == token.QUO_ASSIGN && len(n.Lhs) == 1 {
+					c.expShare(cur, n.Lhs[0], n.Rhs[0], n)
+				}
 			case *ast.CallExpr:
 				c.call(cur, n)
 			case *ast.BinaryExpr:
@@ -114,6 +117,7 @@ func run(pass *analysis.Pass) (any, error) {
 				case token.QUO:
 					c.dividedDifference(n)
 					c.expRatio(cur, n)
+					c.expShare(cur, n.X, n.Y, n)
 				}
 				c.radical(cur, n)
 			}
@@ -131,6 +135,9 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 			c.log1p(cur, call, name)
 		}
 		c.logOfRatio(cur, call, name)
+		if name == "Log" {
+			c.logExpSum(cur, call)
+		}
 	case "Sqrt":
 		c.hypot(cur, call)
 	case "Acos":

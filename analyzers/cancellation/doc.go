@@ -136,11 +136,24 @@
 //     dividing by the largest |x| first keeps every power at most 1, and
 //     a base so divided is left alone;
 //   - e/(…(1+e)…) with e = math.Exp(y) (directly or through a variable),
-//     the sigmoid e/(1+e) and the logistic density e/(s·(1+e)²): once y
-//     exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN,
-//     though it tends to a finite limit; dividing through by e (the
-//     exponential of -y) keeps every value finite. An exponent known not
-//     to be positive (-|z|) is left alone;
+//     the sigmoid e/(1+e) and the logistic density e/(s·(1+e)²), and with
+//     a numerator c±e, the hyperbolic tangent (1-e)/(1+e) with
+//     e = math.Exp(-2x): once y exceeds 709.78 both overflow and the
+//     quotient is ∞/∞ = NaN, though it tends to a finite limit; dividing
+//     through by e (the exponential of -y) keeps every value finite. An
+//     exponent known not to be positive (-|z|) is left alone, as is a
+//     quotient under a condition that checks e or y (math.IsInf(e, 1),
+//     y < 700);
+//   - a sum of exponentials over a loop (s += math.Exp(y), or of a
+//     variable or slice the loop stores math.Exp(y) into), divided into
+//     one of them (a softmax share, x/s or x /= s) or passed to math.Log
+//     (a log-sum-exp): once a y exceeds 709.78 the term and the sum are
+//     +Inf and the share NaN, and the log is -Inf once every y is below
+//     -745.13, though the share lies in [0, 1] and the log is about the
+//     largest y; subtracting the largest y before exponentiating keeps
+//     every term at most 1 and the sum at least 1. An exponent shifted by
+//     a value (y - m), not positive (-|z|) or constant is left alone, as
+//     is a use under a condition that checks the sum (math.IsInf(s, 1));
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));

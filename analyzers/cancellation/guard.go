@@ -8,6 +8,7 @@ import (
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 )
 
 // A bound reports whether condition cond, or its negation when negated,
@@ -143,9 +144,23 @@ func (c *checker) compares(cond ast.Expr, _ bool, x ast.Expr) bool {
 	found := false
 	ast.Inspect(cond, func(n ast.Node) bool {
 		if b, ok := n.(*ast.BinaryExpr); ok && isOrder(b.Op) {
-			_, okx := c.form(b.X, x)
-			_, oky := c.form(b.Y, x)
-			found = found || okx || oky
+			found = found || c.mentions(b.X, x) || c.mentions(b.Y, x)
+		}
+		return !found
+	})
+	return found
+}
+
+// overflowChecked is the bound for the exponential rules: cond compares x
+// (see compares) or asks math.IsInf of it, so the code is reached only
+// while x is finite. A finite x says nothing of its size, which is why the
+// squares' rule does not use it.
+func (c *checker) overflowChecked(cond ast.Expr, negated bool, x ast.Expr) bool {
+	found := c.compares(cond, negated, x)
+	ast.Inspect(cond, func(n ast.Node) bool {
+		if call, ok := n.(*ast.CallExpr); ok {
+			fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+			found = found || ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "IsInf" && c.mentions(call.Args[0], x)
 		}
 		return !found
 	})

@@ -569,6 +569,22 @@ func (c *checker) pnorm(cur inspector.Cursor, call *ast.CallExpr) {
 	}
 }
 
+// expTerm returns the term of a numerator that grows with e, x itself or
+// the non-constant side of c±x, and the numerator's form for messages.
+func (c *checker) expTerm(x ast.Expr) (ast.Expr, string) {
+	b, ok := ast.Unparen(x).(*ast.BinaryExpr)
+	if !ok || b.Op != token.ADD && b.Op != token.SUB {
+		return x, "e"
+	}
+	switch {
+	case c.isConst(b.X) && !c.isConst(b.Y):
+		return b.Y, "(" + types.ExprString(b.X) + b.Op.String() + "e)"
+	case c.isConst(b.Y) && !c.isConst(b.X):
+		return b.X, "(e" + b.Op.String() + types.ExprString(b.Y) + ")"
+	}
+	return x, "e"
+}
+
 // scaledBase reports whether e, or the argument of an absolute value e, is
 // a quotient by a value that is not a constant: a scaled magnitude.
 func (c *checker) scaledBase(e ast.Expr) bool {
@@ -582,14 +598,18 @@ func (c *checker) scaledBase(e ast.Expr) bool {
 }
 
 // expRatio reports e/(…(c+e)…) where e is math.Exp(y) (directly or
-// through a never-reassigned variable) and the denominator holds c+e, as
-// the logistic density e/(s·(1+e)²) and the sigmoid e/(1+e) do: once y
-// exceeds 709.78 both overflow and the quotient is +Inf/+Inf = NaN, though
+// through a never-reassigned variable), or the numerator is c-e, e-c or
+// c+e (the hyperbolic tangent (1-e)/(1+e) with e = math.Exp(-2x)), and
+// the denominator holds c+e, as the logistic density e/(s·(1+e)²) and the
+// sigmoid e/(1+e) do: once y
+// exceeds 709.78 both overflow and the quotient is ∞/∞ = NaN, though
 // it tends to a finite limit (e^-y·… ); for y > 0, dividing through by e,
 // i.e. using math.Exp(-y), keeps every value finite. An exponent known
-// not to be positive (-|z|) is left alone.
+// not to be positive (-|z|) is left alone, as is a quotient under a
+// condition that checks e or y (math.IsInf(e, 1), y < 700).
 func (c *checker) expRatio(cur inspector.Cursor, n *ast.BinaryExpr) {
-	e, _ := c.through(n.X)
+	num, form := c.expTerm(n.X)
+	e, _ := c.through(num)
 	call, ok := e.(*ast.CallExpr)
 	if n.Op != token.QUO || !ok || c.mathFunc(call) != "Exp" || c.isConst(call.Args[0]) {
 		return
@@ -597,10 +617,13 @@ func (c *checker) expRatio(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if neg, ok := ast.Unparen(call.Args[0]).(*ast.UnaryExpr); ok && neg.Op == token.SUB && c.nonNegative(cur, neg.X, 3) {
 		return // e^-|z| is at most 1
 	}
+	if c.guarded(cur, num, c.overflowChecked) || c.guarded(cur, call.Args[0], c.overflowChecked) {
+		return // the code checks the range of e or of its exponent
+	}
 	found := false
 	ast.Inspect(n.Y, func(m ast.Node) bool {
 		if s, ok := m.(*ast.BinaryExpr); ok && s.Op == token.ADD {
-			found = found || c.isConst(s.X) && same(s.Y, n.X) || c.isConst(s.Y) && same(s.X, n.X)
+			found = found || c.isConst(s.X) && same(s.Y, num) || c.isConst(s.Y) && same(s.X, num)
 		}
 		return !found
 	})
@@ -609,7 +632,7 @@ func (c *checker) expRatio(cur inspector.Cursor, n *ast.BinaryExpr) {
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catLogSumExp,
-		Message: fmt.Sprintf("e/(…(1+e)…) with e = %s is +Inf/+Inf = NaN once the exponent exceeds %.6g, though the quotient tends to a finite limit; for a positive exponent divide through by e, using math.Exp of the negated exponent",
-			types.ExprString(call), expOverflow),
+		Message: fmt.Sprintf("%s/(…(1+e)…) with e = %s is ∞/∞ = NaN once the exponent exceeds %.6g, though the quotient tends to a finite limit; for a positive exponent divide through by e, using math.Exp of the negated exponent",
+			form, types.ExprString(call), expOverflow),
 	})
 }

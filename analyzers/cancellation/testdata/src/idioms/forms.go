@@ -415,3 +415,57 @@ func knot(x float64) float64 {
 	u := k + (x - whole)
 	return u - math.Sqrt(u*u+2*k*2)
 }
+
+// Shares and a log-partition computed with the largest score subtracted
+// first: every exponential is at most 1 and the total at least 1, so
+// nothing overflows and the log is finite (the shifted log-sum-exp,
+// common practice; log Σe^y = m + log Σe^(y-m) holds exactly).
+func shiftedShares(scores []float64) ([]float64, float64) {
+	top := math.Inf(-1)
+	for _, s := range scores {
+		top = math.Max(top, s)
+	}
+	shares := make([]float64, len(scores))
+	total := 0.0
+	for i, s := range scores {
+		shares[i] = math.Exp(s - top)
+		total += shares[i]
+	}
+	for i := range shares {
+		shares[i] /= total
+	}
+	return shares, top + math.Log(total)
+}
+
+// Weights of non-positive exponents, e^-|d| at most 1: their sum is at
+// most the count, so it cannot overflow.
+func decayWeights(ds []float64) float64 {
+	w := 0.0
+	for _, d := range ds {
+		w += math.Exp(-math.Abs(d))
+	}
+	return math.Exp(-math.Abs(ds[0])) / w
+}
+
+// A logistic weight whose exponential is checked for overflow first: the
+// quotient is reached only while e is finite.
+func guardedLogistic(y float64) float64 {
+	e := math.Exp(y)
+	if math.IsInf(e, 1) {
+		return 1
+	}
+	return e / (1 + e)
+}
+
+// A softmax share under a check of the total: the division runs only
+// while the total is finite.
+func checkedShare(w []float64) float64 {
+	z := 0.0
+	for _, v := range w {
+		z += math.Exp(v)
+	}
+	if math.IsInf(z, 1) {
+		return math.NaN()
+	}
+	return math.Exp(w[0]) / z
+}

@@ -47,8 +47,10 @@
 //     math.Log(x + math.Sqrt(x*x+1)) is -Inf from x ≈ -1.34e8, where
 //     math.Asinh(x) is exact to an ulp;
 //   - math.Acos(x) of the cosine of an angle between vectors (a dot
-//     product over norms) or of a great-circle distance (the spherical law
-//     of cosines): near ±1, where parallel vectors and nearby points put
+//     product over norms, the norms also from the package's own methods,
+//     a.Len() returning math.Sqrt(a.Dot(a)), and the ratio also returned
+//     by the package's own function, clamped or not) or of a great-circle
+//     distance (the spherical law of cosines): near ±1, where parallel vectors and nearby points put
 //     it, one rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms

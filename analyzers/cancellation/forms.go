@@ -342,8 +342,34 @@ func asExpr(n ast.Node) ast.Expr {
 // normCosine reports whether e is a ratio over a norm, a/|u| or
 // a/(|u|·|v|): the cosine of an angle computed from a dot product.
 func (c *checker) normCosine(e ast.Expr) bool {
+	if call, ok := e.(*ast.CallExpr); ok {
+		return c.cosineCall(call)
+	}
 	q, ok := e.(*ast.BinaryExpr)
 	return ok && q.Op == token.QUO && c.isNorm(q.Y, 2)
+}
+
+// cosineCall reports whether call is of a function of the package whose
+// every result is such a ratio or a constant (a clamp to ±1, 0 for a
+// zero vector), read through variables given one value.
+func (c *checker) cosineCall(call *ast.CallExpr) bool {
+	fd := c.declOf(call)
+	if fd == nil || fd.Body == nil {
+		return false
+	}
+	cosine, other := false, false
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		ret, ok := n.(*ast.ReturnStmt)
+		if ok && len(ret.Results) == 1 && !c.isConst(ret.Results[0]) {
+			r, _ := c.through(ret.Results[0])
+			q, isQuo := ast.Unparen(r).(*ast.BinaryExpr)
+			isCos := isQuo && q.Op == token.QUO && c.isNorm(q.Y, 2)
+			cosine, other = cosine || isCos, other || !isCos
+		}
+		_, lit := n.(*ast.FuncLit)
+		return !lit
+	})
+	return cosine && !other
 }
 
 // isNorm reports whether e is a Euclidean norm or a product of norms:
@@ -357,6 +383,9 @@ func (c *checker) isNorm(e ast.Expr, depth int) bool {
 	case *ast.CallExpr:
 		if c.mathFunc2(e) == "Hypot" {
 			return true
+		}
+		if r := c.returned(e); r != nil && depth > 0 {
+			return c.isNorm(r, depth-1) // a.Len() returning math.Sqrt(a.Dot(a))
 		}
 		if c.mathFunc(e) != "Sqrt" && (c.mathFunc2(e) != "Pow" || !c.isHalf(e.Args[1])) {
 			return false
@@ -378,7 +407,28 @@ func (c *checker) hasSquare(e ast.Expr) bool {
 		case *ast.BinaryExpr:
 			_, found = c.square(n)
 		case *ast.CallExpr:
-			found = len(n.Args) == 2 && same(n.Args[0], n.Args[1]) && fixes.Pure(c.pass.TypesInfo, n.Args[0])
+			found = len(n.Args) == 2 && same(n.Args[0], n.Args[1]) && fixes.Pure(c.pass.TypesInfo, n.Args[0]) || c.selfProduct(n)
+		}
+		return !found
+	})
+	return found
+}
+
+// selfProduct reports a method call given its own receiver (a.Dot(a)) or
+// a call of a function of the package that returns a sum of squares (of
+// its receiver's fields: a.LenSq() returning a.X*a.X + a.Y*a.Y).
+func (c *checker) selfProduct(call *ast.CallExpr) bool {
+	if sel, ok := call.Fun.(*ast.SelectorExpr); ok && len(call.Args) == 1 && same(sel.X, call.Args[0]) && fixes.Pure(c.pass.TypesInfo, sel.X) {
+		return true
+	}
+	r := c.returned(call)
+	if r == nil {
+		return false
+	}
+	found := false
+	ast.Inspect(r, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok {
+			_, found = c.square(b)
 		}
 		return !found
 	})

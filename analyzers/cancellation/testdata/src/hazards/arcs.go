@@ -19,3 +19,37 @@ func sweepAngle(ux, uy, vx, vy float64) float64 {
 	c = math.Min(1, math.Max(-1, c))
 	return math.Acos(c) // want `math.Acos\(x\) with x = c loses half the digits`
 }
+
+// A hull panel's normal, with its length and inner product as methods.
+type panel struct{ nx, ny, nz float64 }
+
+func (p panel) inner(q panel) float64 { return p.nx*q.nx + p.ny*q.ny + p.nz*q.nz }
+func (p panel) size() float64         { return math.Sqrt(p.inner(p)) }
+func (p panel) sizeSq() float64       { return p.nx*p.nx + p.ny*p.ny + p.nz*p.nz }
+
+// The dihedral angle between two panels from norms computed by methods.
+func dihedral(p, q panel) float64 {
+	return math.Acos(p.inner(q) / (p.size() * q.size())) // want `math.Acos\(x\) with x = p.inner\(q\) / \(p.size\(\) \* q.size\(\)\) loses half the digits`
+}
+
+// tilt is the cosine of the angle between two panels, clamped, and 0 for
+// a degenerate panel.
+func tilt(p, q panel) float64 {
+	n := p.sizeSq() * q.sizeSq()
+	if n == 0 {
+		return 0
+	}
+	c := p.inner(q) / math.Sqrt(n)
+	if c > 1 {
+		return 1
+	}
+	if c < -1 {
+		return -1
+	}
+	return c
+}
+
+// The angle from that cosine, through the package's function.
+func tiltAngle(p, q panel) float64 {
+	return math.Acos(tilt(p, q)) // want `math.Acos\(x\) with x = tilt\(p, q\) loses half the digits`
+}

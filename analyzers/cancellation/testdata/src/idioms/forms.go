@@ -469,3 +469,13 @@ func checkedShare(w []float64) float64 {
 	}
 	return math.Exp(w[0]) / z
 }
+
+// A share of a panel's area, not a cosine: a function whose result is a
+// ratio over something other than a norm is no angle's cosine, and its
+// arc is taken where the argument reaches ±1 only by an ill-conditioned
+// problem.
+type slab struct{ w, h float64 }
+
+func (s slab) fill(used float64) float64 { return used / (s.w * s.h) }
+
+func slabArc(s slab, used float64) float64 { return math.Acos(s.fill(used)) }

@@ -18,6 +18,7 @@ var none = math.Inf(-1)
 // Reader reads degrees in one package. Its zero value is not usable: use
 // New.
 type Reader struct {
+	fset   *token.FileSet
 	info   *types.Info
 	funcs  map[*types.Func]*ast.FuncDecl
 	sets   map[*types.Var][]ast.Expr // values given to local variables; a nil value is the zero value
@@ -44,8 +45,8 @@ type Reader struct {
 }
 
 // New returns a Reader for the package of files.
-func New(info *types.Info, files []*ast.File) *Reader {
-	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
+func New(fset *token.FileSet, info *types.Info, files []*ast.File) *Reader {
+	r := &Reader{fset: fset, info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
 		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{},
 		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {

@@ -123,7 +123,7 @@ func loadSrc(t *testing.T, text string) (*types.Info, *degree.Reader, *ast.FuncD
 	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}, Scopes: map[ast.Node]*types.Scope{}}
 	_, err = (&types.Config{Importer: importer.ForCompiler(fset, "source", nil)}).Check(f.Name.Name, fset, []*ast.File{f}, info)
 	require.NoError(t, err)
-	r := degree.New(info, []*ast.File{f})
+	r := degree.New(fset, info, []*ast.File{f})
 	fd := f.Decls[len(f.Decls)-1].(*ast.FuncDecl)
 	return info, r, fd
 }
@@ -198,7 +198,7 @@ import "math"
 type v3 struct{ x, y, z float64 }
 
 func (a v3) sub(b v3) v3          { return v3{a.x - b.x, a.y - b.y, a.z - b.z} }
-func (a v3) dot(b v3) float64     { return a.x*b.x + a.y*b.y + a.z*b.z }
+func (a v3) dot(b v3) float64     { return float64(a.x*b.x) + float64(a.y*b.y) + float64(a.z*b.z) }
 func (a v3) sq() float64          { return a.dot(a) }
 func (a v3) size() float64        { return math.Sqrt(a.sq()) }
 func (a v3) mul(k float64) v3     { return v3{a.x * k, a.y * k, a.z * k} }
@@ -230,6 +230,22 @@ func grow(a v3) v3 {
 	return a.over(a.size())
 }
 
+// even divides by a length made of nested hypotenuses, and gives the
+// zero vector NaNs.
+func even(a v3) v3 {
+	if a.x == 0 && a.y == 0 && a.z == 0 {
+		return v3{math.NaN(), math.NaN(), math.NaN()}
+	}
+	return a.over(math.Hypot(a.x, math.Hypot(a.y, a.z)))
+}
+
+// flat divides by the length of the horizontal part alone: no direction.
+func flat(a v3) v3 { return a.over(math.Hypot(a.x, a.y)) }
+
+type mast struct{ foot, lean v3 }
+
+func raise(foot, top v3) mast { return mast{foot, flat(top.sub(foot))} }
+
 // keep returns a long vector as it is: no normalisation.
 func keep(a v3) v3 {
 	if a.size() > 1e3 {
@@ -242,6 +258,14 @@ type ray struct{ from, dir v3 }
 
 func aim(from, to v3) ray        { return ray{from, to.sub(from).tame()} }
 func (r ray) bent(n v3) ray     { return ray{from: r.from, dir: squash(n)} }
+func (r ray) tilt(n v3) ray      { return ray{r.from, even(n)} }
+
+// cast normalises its parameter in place before storing it.
+func cast(from, to v3) ray {
+	to = to.sub(from)
+	to = squash(to)
+	return ray{from, to}
+}
 
 type probe struct{ at, toward v3 }
 
@@ -250,7 +274,7 @@ func raw(at, to v3) probe   { return probe{at: at, toward: to} }
 
 func (p *probe) nudge(d v3) { p.toward = p.toward.sub(d) }
 
-func sites(r, s ray, p probe, q v3) {
+func sites(r, s ray, p probe, q v3, m mast) {
 	cosine := r.dir.dot(s.dir)
 	slant := r.dir.x
 	reach := r.dir.dot(q)
@@ -264,7 +288,8 @@ func sites(r, s ray, p probe, q v3) {
 	doubled := g.dot(g)
 	k := keep(p.at)
 	kept := k.dot(k)
-	_, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept
+	leaning := m.lean.dot(m.lean)
+	_, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning
 }
 `
 
@@ -284,6 +309,7 @@ func TestDirections(t *testing.T) {
 		"spread":  0, // a triple product of directions
 		"doubled": 2, // grow keeps a's size: data
 		"kept":    2, // keep returns a long input as it is: data
+		"leaning": 2, // lean is divided by part of its length only: data
 	}
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {

@@ -9,6 +9,8 @@ import (
 	"strconv"
 
 	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // A direction is a vector divided by its own length: its components, and
@@ -35,11 +37,8 @@ type viaKey struct {
 // vector: the field names of a struct whose fields are all floats, or the
 // indices of an array of floats.
 func vectorKeys(t types.Type) []string {
-	if p, ok := t.Underlying().(*types.Pointer); ok {
-		t = p.Elem()
-	}
 	var keys []string
-	switch u := t.Underlying().(type) {
+	switch u := derefd(t).Underlying().(type) {
 	case *types.Struct:
 		for f := range u.Fields() {
 			if !isFloat(f.Type()) {
@@ -122,7 +121,7 @@ func (r *Reader) isDot(e ast.Expr, a, b *types.Var, depth int) bool {
 	}
 	seen := map[string]bool{}
 	for _, t := range ts {
-		m, ok := ast.Unparen(t).(*ast.BinaryExpr)
+		m, ok := r.value(t).(*ast.BinaryExpr) // float64(v.X*w.X) keeps the product from fusing
 		if !ok || m.Op != token.MUL {
 			return false
 		}
@@ -167,11 +166,26 @@ func (r *Reader) isLength(e ast.Expr, x *types.Var, depth int) bool {
 	case fn.Name() == "Sqrt":
 		return r.isDot(call.Args[0], x, x, depth+1)
 	case fn.Name() == "Hypot":
-		k0, ok0 := r.comp(call.Args[0], x)
-		k1, ok1 := r.comp(call.Args[1], x)
-		return ok0 && ok1 && k0 != k1 && len(vectorKeys(x.Type())) == 2
+		seen := map[string]bool{}
+		return r.hypotOf(call, x, seen) && len(seen) == len(vectorKeys(x.Type()))
 	}
 	return false
+}
+
+// hypotOf reports whether e is math.Hypot of components of x or of such
+// calls (math.Hypot(p.X, math.Hypot(p.Y, p.Z))), each component once,
+// adding them to seen.
+func (r *Reader) hypotOf(e ast.Expr, x *types.Var, seen map[string]bool) bool {
+	if k, ok := r.comp(e, x); ok && !seen[k] {
+		seen[k] = true
+		return true
+	}
+	call, ok := r.value(e).(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	fn, _ := typeutil.Callee(r.info, call).(*types.Func)
+	return fn != nil && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Hypot" && r.hypotOf(call.Args[0], x, seen) && r.hypotOf(call.Args[1], x, seen)
 }
 
 // isInverseLength reports whether e is 1/|x|.
@@ -314,7 +328,7 @@ func (r *Reader) scaledBy(lit *ast.CompositeLit, x *types.Var) (token.Token, []a
 			}
 			want, elt = id.Name, kv.Value
 		}
-		b, ok := ast.Unparen(elt).(*ast.BinaryExpr)
+		b, ok := r.value(elt).(*ast.BinaryExpr)
 		if !ok || op != token.ILLEGAL && b.Op != op {
 			return token.ILLEGAL, nil
 		}
@@ -481,7 +495,8 @@ func (r *Reader) tested(e ast.Expr, into map[*types.Var]bool, depth int) {
 }
 
 // constantVector reports whether e is a vector literal of constants no
-// longer than 1 (a unit axis, the zero vector).
+// longer than 1 (a unit axis, the zero vector), or of NaNs (no size at
+// all: what some normalisers give the zero vector).
 func (r *Reader) constantVector(e ast.Expr) bool {
 	e = ast.Unparen(e)
 	if u, ok := e.(*ast.UnaryExpr); ok && u.Op == token.AND {
@@ -497,6 +512,12 @@ func (r *Reader) constantVector(e ast.Expr) bool {
 			elt = kv.Value
 		}
 		v := r.info.Types[elt].Value
+		if call, ok := ast.Unparen(elt).(*ast.CallExpr); ok && v == nil {
+			fn, _ := typeutil.Callee(r.info, call).(*types.Func)
+			if fn != nil && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN" {
+				continue
+			}
+		}
 		if v == nil {
 			return false
 		}
@@ -537,11 +558,14 @@ func (r *Reader) direction(fd *ast.FuncDecl, e ast.Expr, depth int) bool {
 // directionVar reports whether the local variable id holds a direction.
 func (r *Reader) directionVar(fd *ast.FuncDecl, id *ast.Ident, depth int) bool {
 	v := r.varOf(id)
-	if v == nil || r.params[v] || r.poison[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 || len(r.scales[v]) > 0 || r.busy[v] {
+	if v == nil || r.busy[v] {
 		return false
 	}
 	if e, ok := r.reaching(v, id.Pos()); ok {
-		return r.direction(fd, e, depth+1)
+		return r.direction(fd, e, depth+1) // d = d.Normalize() before the use
+	}
+	if r.params[v] || r.poison[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 || len(r.scales[v]) > 0 {
+		return false
 	}
 	r.busy[v] = true
 	defer delete(r.busy, v)
@@ -584,8 +608,8 @@ type fieldStore struct {
 // read. A field changed in another way (a component stored, its address
 // taken, a pointer method called on it) is not.
 func (r *Reader) directionField(f *types.Var) bool {
-	if vectorKeys(f.Type()) == nil {
-		return false
+	if vectorKeys(f.Type()) == nil || !r.declares(f) {
+		return false // a field of another package's struct: its stores are elsewhere
 	}
 	if ok, known := r.dirs[f]; known {
 		return ok
@@ -603,14 +627,29 @@ func (r *Reader) directionField(f *types.Var) bool {
 	return ok
 }
 
+// declares reports whether f is declared in the package's files.
+func (r *Reader) declares(f *types.Var) bool {
+	for _, file := range r.files {
+		if file.FileStart <= f.Pos() && f.Pos() < file.FileEnd {
+			return true
+		}
+	}
+	return false
+}
+
 // storesOnce indexes the stores into vector fields in the package's
-// files, once; a nil value marks a field changed in another way.
+// files, once; a nil value marks a field changed in another way. Test
+// files are left out: a test builds its own fixtures, which the
+// package's invariants do not bind.
 func (r *Reader) storesOnce() {
 	if r.stores != nil {
 		return
 	}
 	r.stores = map[*types.Var][]fieldStore{}
 	for _, f := range r.files {
+		if provenance.InTestFile(r.fset, f.Pos()) {
+			continue
+		}
 		for _, d := range f.Decls {
 			fd, _ := d.(*ast.FuncDecl)
 			ast.Inspect(d, func(n ast.Node) bool {

@@ -30,10 +30,11 @@
 // Len...) or math.Hypot of its two components; a return of the input
 // itself under a test that bounds it by a constant no larger than 1
 // (l == 0: the zero vector, which has no direction to give), or of a
-// constant vector no longer than 1, does not spoil it. A function
-// returning such a value is a direction too, and so is a vector field of
-// a struct every store of which in the package (composite literals,
-// assignments) is a direction or a constant vector no longer than 1; a
+// constant vector no longer than 1 (or of NaNs), does not spoil it. A
+// function returning such a value is a direction too, and so is a vector
+// field of a struct of the package every store of which in its non-test
+// files (composite literals, assignments) is a direction or a constant
+// vector no longer than 1 (a test builds its own fixtures); a
 // field changed in any other way (a component stored, its address taken,
 // a pointer method called on it) is data as before. A field read through
 // a value built outside the package may hold anything its builder put

@@ -242,6 +242,22 @@ func even(a v3) v3 {
 // flat divides by the length of the horizontal part alone: no direction.
 func flat(a v3) v3 { return a.over(math.Hypot(a.x, a.y)) }
 
+// quat is an array vector of float32, normalised by a reciprocal.
+type quat [4]float32
+
+func (q quat) size() float32 {
+	return float32(math.Sqrt(float64(q[0]*q[0] + q[1]*q[1] + q[2]*q[2] + q[3]*q[3])))
+}
+
+func (q quat) norm() quat {
+	l := 1.0 / q.size()
+	return quat{q[0] * l, q[1] * l, q[2] * l, q[3] * l}
+}
+
+type spin struct{ axis quat }
+
+func turn(q quat) spin { return spin{q.norm()} }
+
 type mast struct{ foot, lean v3 }
 
 func raise(foot, top v3) mast { return mast{foot, flat(top.sub(foot))} }
@@ -274,7 +290,7 @@ func raw(at, to v3) probe   { return probe{at: at, toward: to} }
 
 func (p *probe) nudge(d v3) { p.toward = p.toward.sub(d) }
 
-func sites(r, s ray, p probe, q v3, m mast) {
+func sites(r, s ray, p probe, q v3, m mast, sp spin) {
 	cosine := r.dir.dot(s.dir)
 	slant := r.dir.x
 	reach := r.dir.dot(q)
@@ -289,7 +305,8 @@ func sites(r, s ray, p probe, q v3, m mast) {
 	k := keep(p.at)
 	kept := k.dot(k)
 	leaning := m.lean.dot(m.lean)
-	_, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning
+	twist := sp.axis[0]*sp.axis[3] - sp.axis[1]*sp.axis[2]
+	_, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist
 }
 `
 
@@ -310,6 +327,7 @@ func TestDirections(t *testing.T) {
 		"doubled": 2, // grow keeps a's size: data
 		"kept":    2, // keep returns a long input as it is: data
 		"leaning": 2, // lean is divided by part of its length only: data
+		"twist":   0, // products of components of a normalised array
 	}
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {

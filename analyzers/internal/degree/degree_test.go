@@ -258,6 +258,17 @@ type spin struct{ axis quat }
 
 func turn(q quat) spin { return spin{q.norm()} }
 
+// top reads through its pointer; flip changes what it points to.
+func (a *v3) top() float64 { return math.Max(a.x, math.Max(a.y, a.z)) }
+func (a *v3) flip()        { a.x, a.y, a.z = -a.x, -a.y, -a.z }
+
+func (r *ray) peak() float64 { return r.dir.top() }
+
+type lamp struct{ glow v3 }
+
+func light(at v3) lamp { return lamp{squash(at)} }
+func (l *lamp) dim()   { l.glow.flip() }
+
 type mast struct{ foot, lean v3 }
 
 func raise(foot, top v3) mast { return mast{foot, flat(top.sub(foot))} }
@@ -290,7 +301,7 @@ func raw(at, to v3) probe   { return probe{at: at, toward: to} }
 
 func (p *probe) nudge(d v3) { p.toward = p.toward.sub(d) }
 
-func sites(r, s ray, p probe, q v3, m mast, sp spin) {
+func sites(r, s ray, p probe, q v3, m mast, sp spin, l lamp) {
 	cosine := r.dir.dot(s.dir)
 	slant := r.dir.x
 	reach := r.dir.dot(q)
@@ -306,7 +317,8 @@ func sites(r, s ray, p probe, q v3, m mast, sp spin) {
 	kept := k.dot(k)
 	leaning := m.lean.dot(m.lean)
 	twist := sp.axis[0]*sp.axis[3] - sp.axis[1]*sp.axis[2]
-	_, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist
+	glowing := l.glow.dot(l.glow)
+	_, _, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist, glowing
 }
 `
 
@@ -328,6 +340,7 @@ func TestDirections(t *testing.T) {
 		"kept":    2, // keep returns a long input as it is: data
 		"leaning": 2, // lean is divided by part of its length only: data
 		"twist":   0, // products of components of a normalised array
+		"glowing": 2, // glow is changed in place by a pointer method: data
 	}
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {

@@ -6,6 +6,7 @@ import (
 	"go/token"
 	"go/types"
 	"maps"
+	"slices"
 	"strconv"
 
 	"golang.org/x/tools/go/types/typeutil"
@@ -606,7 +607,7 @@ type fieldStore struct {
 // directionField reports whether f is a vector field every store of which
 // in the package is a direction: its components are bounded by 1 at every
 // read. A field changed in another way (a component stored, its address
-// taken, a pointer method called on it) is not.
+// taken, a pointer method called on it that may change it) is not.
 func (r *Reader) directionField(f *types.Var) bool {
 	if vectorKeys(f.Type()) == nil || !r.declares(f) {
 		return false // a field of another package's struct: its stores are elsewhere
@@ -702,10 +703,75 @@ func (r *Reader) storesIn(fd *ast.FuncDecl, n ast.Node) {
 		}
 	case *ast.CallExpr:
 		if sel, ok := n.Fun.(*ast.SelectorExpr); ok && r.info.Selections[sel] != nil && r.info.Selections[sel].Kind() == types.MethodVal {
-			if _, ptr := r.info.Selections[sel].Obj().(*types.Func).Signature().Recv().Type().(*types.Pointer); ptr {
+			if m := r.info.Selections[sel].Obj().(*types.Func); !r.keeps(m) {
 				r.changes(fd, sel.X, nil)
 			}
 		}
+	}
+}
+
+// keeps reports whether a call of the method m leaves its receiver as
+// it was: a value receiver, or a pointer receiver of a method of the
+// package that only reads through it (no store, increment or address
+// taken under it, the pointer neither passed on, returned nor copied,
+// and its own pointer methods keep it).
+func (r *Reader) keeps(m *types.Func) bool {
+	recv := m.Signature().Recv()
+	if _, ptr := recv.Type().(*types.Pointer); !ptr {
+		return true
+	}
+	if ok, known := r.kept[m]; known {
+		return ok
+	}
+	fd := r.funcs[m]
+	r.kept[m] = fd != nil // recursion: what its other statements say
+	ok := fd != nil
+	if ok {
+		ast.Inspect(fd.Body, func(n ast.Node) bool {
+			ok = ok && r.readsOnly(n, recv)
+			return ok
+		})
+	}
+	r.kept[m] = ok
+	return ok
+}
+
+// readsOnly reports whether n, a node in a method with pointer receiver
+// recv, neither changes what recv points to nor lets the pointer out.
+func (r *Reader) readsOnly(n ast.Node, recv *types.Var) bool {
+	under := func(e ast.Expr) bool { return r.isVar(starless(rootOf(starless(e))), recv) }
+	switch n := n.(type) {
+	case *ast.AssignStmt:
+		return !slices.ContainsFunc(n.Lhs, under) && !slices.ContainsFunc(n.Rhs, func(e ast.Expr) bool { return r.isVar(e, recv) })
+	case *ast.IncDecStmt:
+		return !under(n.X)
+	case *ast.UnaryExpr:
+		return n.Op != token.AND || !under(n.X)
+	case *ast.ReturnStmt:
+		return !slices.ContainsFunc(n.Results, func(e ast.Expr) bool { return r.isVar(e, recv) })
+	case *ast.CompositeLit:
+		return !slices.ContainsFunc(n.Elts, func(e ast.Expr) bool { return r.isVar(e, recv) })
+	case *ast.CallExpr:
+		if slices.ContainsFunc(n.Args, func(e ast.Expr) bool { return r.isVar(e, recv) }) {
+			return false // the pointer passed on
+		}
+		sel, ok := n.Fun.(*ast.SelectorExpr)
+		if !ok || r.info.Selections[sel] == nil || r.info.Selections[sel].Kind() != types.MethodVal || !under(sel.X) {
+			return true
+		}
+		return r.keeps(r.info.Selections[sel].Obj().(*types.Func))
+	}
+	return true
+}
+
+// starless strips parentheses and dereferences from e.
+func starless(e ast.Expr) ast.Expr {
+	for {
+		s, ok := ast.Unparen(e).(*ast.StarExpr)
+		if !ok {
+			return ast.Unparen(e)
+		}
+		e = s.X
 	}
 }
 

@@ -36,7 +36,9 @@
 // files (composite literals, assignments) is a direction or a constant
 // vector no longer than 1 (a test builds its own fixtures); a
 // field changed in any other way (a component stored, its address taken,
-// a pointer method called on it) is data as before. A field read through
+// a pointer method called on it that may change it: one of another
+// package, or one that stores through its receiver or lets the pointer
+// out) is data as before. A field read through
 // a value built outside the package may hold anything its builder put
 // there: the reading trusts the package's own stores.
 package degree

@@ -239,6 +239,14 @@ func even(a v3) v3 {
 	return a.over(math.Hypot(a.x, math.Hypot(a.y, a.z)))
 }
 
+// shift divides a by a length it had before one of its components moved:
+// no direction.
+func shift(a v3) v3 {
+	l := a.size()
+	a.x += 1e3
+	return v3{a.x / l, a.y / l, a.z / l}
+}
+
 // flat divides by the length of the horizontal part alone: no direction.
 func flat(a v3) v3 { return a.over(math.Hypot(a.x, a.y)) }
 
@@ -264,9 +272,9 @@ func (a *v3) flip()        { a.x, a.y, a.z = -a.x, -a.y, -a.z }
 
 func (r *ray) peak() float64 { return r.dir.top() }
 
-type lamp struct{ glow v3 }
+type lamp struct{ glow, halo v3 }
 
-func light(at v3) lamp { return lamp{squash(at)} }
+func light(at v3) lamp { return lamp{squash(at), shift(at)} }
 func (l *lamp) dim()   { l.glow.flip() }
 
 type mast struct{ foot, lean v3 }
@@ -318,7 +326,8 @@ func sites(r, s ray, p probe, q v3, m mast, sp spin, l lamp) {
 	leaning := m.lean.dot(m.lean)
 	twist := sp.axis[0]*sp.axis[3] - sp.axis[1]*sp.axis[2]
 	glowing := l.glow.dot(l.glow)
-	_, _, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist, glowing
+	haloed := l.halo.dot(l.halo)
+	_, _, _, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist, glowing, haloed
 }
 `
 
@@ -341,6 +350,7 @@ func TestDirections(t *testing.T) {
 		"leaning": 2, // lean is divided by part of its length only: data
 		"twist":   0, // products of components of a normalised array
 		"glowing": 2, // glow is changed in place by a pointer method: data
+		"haloed":  2, // shift divides by the length a had before it changed: data
 	}
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {

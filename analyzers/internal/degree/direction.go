@@ -386,7 +386,8 @@ func (r *Reader) scaler(fn *types.Func, v, k *types.Var) token.Token {
 }
 
 // unit reports whether fn, a function of the package, returns a
-// direction: every return is an input divided by its own length, another
+// direction: every return is an input that fn never changes divided by
+// its own length, another
 // direction, a constant vector no longer than 1 (the zero vector for
 // zero input), or the input itself under a test of it (if v.X == 0 &&
 // v.Y == 0 { return v }: the zero vector, which has no direction to
@@ -400,12 +401,14 @@ func (r *Reader) unit(fn *types.Func) bool {
 	if fd == nil || fn.Signature().Results().Len() != 1 || vectorKeys(fn.Signature().Results().At(0).Type()) == nil {
 		return false
 	}
-	var ins []*types.Var
-	if recv := fn.Signature().Recv(); recv != nil {
+	var ins []*types.Var // the inputs fd only reads: a value of one is what it was given
+	if recv := fn.Signature().Recv(); recv != nil && !r.written(fd, recv) {
 		ins = append(ins, recv)
 	}
 	for p := range fn.Signature().Params().Variables() {
-		ins = append(ins, p)
+		if !r.written(fd, p) {
+			ins = append(ins, p)
+		}
 	}
 	r.index(fd)
 	guarded := r.guards(fd)
@@ -739,29 +742,53 @@ func (r *Reader) keeps(m *types.Func) bool {
 // readsOnly reports whether n, a node in a method with pointer receiver
 // recv, neither changes what recv points to nor lets the pointer out.
 func (r *Reader) readsOnly(n ast.Node, recv *types.Var) bool {
-	under := func(e ast.Expr) bool { return r.isVar(starless(rootOf(starless(e))), recv) }
+	if r.writes(n, recv) {
+		return false
+	}
+	out := func(es []ast.Expr) bool {
+		return slices.ContainsFunc(es, func(e ast.Expr) bool { return r.isVar(e, recv) })
+	}
 	switch n := n.(type) {
 	case *ast.AssignStmt:
-		return !slices.ContainsFunc(n.Lhs, under) && !slices.ContainsFunc(n.Rhs, func(e ast.Expr) bool { return r.isVar(e, recv) })
-	case *ast.IncDecStmt:
-		return !under(n.X)
-	case *ast.UnaryExpr:
-		return n.Op != token.AND || !under(n.X)
+		return !out(n.Rhs)
 	case *ast.ReturnStmt:
-		return !slices.ContainsFunc(n.Results, func(e ast.Expr) bool { return r.isVar(e, recv) })
+		return !out(n.Results)
 	case *ast.CompositeLit:
-		return !slices.ContainsFunc(n.Elts, func(e ast.Expr) bool { return r.isVar(e, recv) })
+		return !out(n.Elts)
 	case *ast.CallExpr:
-		if slices.ContainsFunc(n.Args, func(e ast.Expr) bool { return r.isVar(e, recv) }) {
-			return false // the pointer passed on
-		}
-		sel, ok := n.Fun.(*ast.SelectorExpr)
-		if !ok || r.info.Selections[sel] == nil || r.info.Selections[sel].Kind() != types.MethodVal || !under(sel.X) {
-			return true
-		}
-		return r.keeps(r.info.Selections[sel].Obj().(*types.Func))
+		return !out(n.Args) // the pointer passed on
 	}
 	return true
+}
+
+// writes reports whether n changes x or a part of it: an assignment, an
+// increment, its address taken, or a pointer method that may change it.
+func (r *Reader) writes(n ast.Node, x *types.Var) bool {
+	under := func(e ast.Expr) bool { return e != nil && r.isVar(starless(rootOf(starless(e))), x) }
+	switch n := n.(type) {
+	case *ast.AssignStmt:
+		return slices.ContainsFunc(n.Lhs, under)
+	case *ast.IncDecStmt:
+		return under(n.X)
+	case *ast.RangeStmt:
+		return under(n.Key) || under(n.Value)
+	case *ast.UnaryExpr:
+		return n.Op == token.AND && under(n.X)
+	case *ast.CallExpr:
+		sel, ok := n.Fun.(*ast.SelectorExpr)
+		return ok && r.info.Selections[sel] != nil && r.info.Selections[sel].Kind() == types.MethodVal && under(sel.X) && !r.keeps(r.info.Selections[sel].Obj().(*types.Func))
+	}
+	return false
+}
+
+// written reports whether fd changes x anywhere (see writes).
+func (r *Reader) written(fd *ast.FuncDecl, x *types.Var) bool {
+	found := false
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		found = found || r.writes(n, x)
+		return !found
+	})
+	return found
 }
 
 // starless strips parentheses and dereferences from e.

@@ -42,6 +42,7 @@ type Reader struct {
 	dirs   map[*types.Var]bool         // vector fields read for holding directions (see directionField)
 	stores map[*types.Var][]fieldStore // values stored into vector fields (see storesOnce)
 	kept   map[*types.Func]bool        // pointer methods read for leaving their receiver as it was (see keeps)
+	aiming map[*types.Var]bool         // local variables being read for holding directions (see directionVar)
 	top    *frame                      // the reading at the top
 }
 
@@ -49,7 +50,7 @@ type Reader struct {
 func New(fset *token.FileSet, info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{fset: fset, info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
 		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{},
-		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, top: &frame{known: map[*types.Var]float64{}}}
+		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, aiming: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {

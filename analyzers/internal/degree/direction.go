@@ -562,7 +562,7 @@ func (r *Reader) direction(fd *ast.FuncDecl, e ast.Expr, depth int) bool {
 // directionVar reports whether the local variable id holds a direction.
 func (r *Reader) directionVar(fd *ast.FuncDecl, id *ast.Ident, depth int) bool {
 	v := r.varOf(id)
-	if v == nil || r.busy[v] {
+	if v == nil {
 		return false
 	}
 	if e, ok := r.reaching(v, id.Pos()); ok {
@@ -571,8 +571,11 @@ func (r *Reader) directionVar(fd *ast.FuncDecl, id *ast.Ident, depth int) bool {
 	if r.params[v] || r.poison[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 || len(r.scales[v]) > 0 {
 		return false
 	}
-	r.busy[v] = true
-	defer delete(r.busy, v)
+	if r.aiming[v] {
+		return true // d = d in a loop: its other values decide
+	}
+	r.aiming[v] = true
+	defer delete(r.aiming, v)
 	for _, s := range r.sets[v] {
 		if s != nil && !r.direction(fd, s, depth+1) {
 			return false

@@ -113,8 +113,10 @@
 // heading = heading.Unit() makes heading a direction from there on, and
 // d := a - b; d *= d in a loop body is a fresh square, degree 2, on each
 // pass; a slice made with make holds the values stored into its elements,
-// and its elements cancel where one of those values does; see package
-// degree) carries a rounding error of about eps·s^d at
+// and its elements cancel where one of those values does; a direction, a
+// vector that a function of the package divides by its own length, or a
+// vector field every store of which in the package is one, is 0; see
+// package degree) carries a rounding error of about eps·s^d at
 // data size s, so a tolerance t stops passing anything but equality once
 // the data reach (t/eps)^(1/d): 1e-10 on a cross product of coordinates
 // fails at 670, 1e-14 on a one-pass variance at 6.7, 2.2e-14 on a
@@ -171,7 +173,11 @@
 // data decide); quantities of unknown degree (a call into another
 // package, a package variable, a variable declared before a loop and
 // multiplied by itself on each pass, of degree 2^k after k passes, which
-// no fixed degree bounds) and of degree 0 (a ratio, a sine); tolerances at or above eps
+// no fixed degree bounds) and of degree 0 (a ratio, a sine; a component
+// of a direction, or the dot product of two, such as the cosine between a
+// ray and a surface normal: a normalised vector has length 1 up to
+// rounding, so these are bounded by 1 whatever the caller's units, and
+// their rounding error is about eps, not eps·s^d); tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
 // tolerance reaches the gap between floats just under that magnitude.
 //

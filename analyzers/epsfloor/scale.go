@@ -108,7 +108,7 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 // functions holding a tolerance test of unknown size read degrees.
 func (c *checker) degrees() *degree.Reader {
 	if c.deg == nil {
-		c.deg = degree.New(c.pass.TypesInfo, c.pass.Files)
+		c.deg = degree.New(c.pass.Fset, c.pass.TypesInfo, c.pass.Files)
 	}
 	return c.deg
 }

@@ -1,21 +1,3 @@
-// Package degree reads the degree of a float expression in the data its
-// function receives: how its size grows when every value the caller
-// passes in grows by a factor s. A parameter, a field or element of one,
-// and whatever else arrives from outside is of degree 1 (it scales with
-// the data); constants and integers (counts, indices) are of degree 0, and
-// so are the entries of a fixed-size array that the package multiplies by
-// data beside another entry as it is (m[0][0]*p.x + m[0][2]); a
-// product adds degrees, a quotient subtracts them, a sum or difference
-// takes the larger, a square root halves. The rounding error of a value of
-// degree d is about eps·s^d at data size s, which is what an absolute
-// tolerance on it has to exceed.
-//
-// Functions of the package are read through their return statements,
-// once per combination of argument degrees (p.Dot(q) is deg(p)+deg(q));
-// a slice holds the values stored into its elements; where the reading
-// cannot tell (a call into another package, a package variable, a
-// product carried from pass to pass of a loop), it says so, and callers
-// claim nothing.
 package degree
 
 import (
@@ -36,6 +18,7 @@ var none = math.Inf(-1)
 // Reader reads degrees in one package. Its zero value is not usable: use
 // New.
 type Reader struct {
+	fset   *token.FileSet
 	info   *types.Info
 	funcs  map[*types.Func]*ast.FuncDecl
 	sets   map[*types.Var][]ast.Expr // values given to local variables; a nil value is the zero value
@@ -50,17 +33,24 @@ type Reader struct {
 	busy   map[*types.Var]bool
 	cancel map[cancelKey]bool
 	files  []*ast.File
-	plain  map[*types.Var][]plainSet // v = e, v := e, v *= e and v /= e as statements of the block declaring v
-	elems  map[*types.Var]bool       // slices and arrays given values by element stores (s[i] = e)
-	self   map[*types.Var]bool       // variables multiplied or divided in a loop body that declares them (see plainSets)
-	factor map[string]bool           // entries of fixed-size arrays used as pure factors (see factors)
-	top    *frame                    // the reading at the top
+	plain  map[*types.Var][]plainSet   // v = e, v := e, v *= e and v /= e as statements of the block declaring v
+	elems  map[*types.Var]bool         // slices and arrays given values by element stores (s[i] = e)
+	self   map[*types.Var]bool         // variables multiplied or divided in a loop body that declares them (see plainSets)
+	factor map[string]bool             // entries of fixed-size arrays used as pure factors (see factors)
+	units  map[*types.Func]bool        // functions of the package read for returning a direction (see unit)
+	vias   map[viaKey]bool             // functions read for returning a dot product or a length (see via)
+	dirs   map[*types.Var]bool         // vector fields read for holding directions (see directionField)
+	stores map[*types.Var][]fieldStore // values stored into vector fields (see storesOnce)
+	kept   map[*types.Func]bool        // pointer methods read for leaving their receiver as it was (see keeps)
+	aiming map[*types.Var]bool         // local variables being read for holding directions (see directionVar)
+	top    *frame                      // the reading at the top
 }
 
 // New returns a Reader for the package of files.
-func New(info *types.Info, files []*ast.File) *Reader {
-	r := &Reader{info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
-		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
+func New(fset *token.FileSet, info *types.Info, files []*ast.File) *Reader {
+	r := &Reader{fset: fset, info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{},
+		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, aiming: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
@@ -145,6 +135,9 @@ func (r *Reader) of(e ast.Expr, bind env, depth int) float64 {
 		return r.of(e.X, bind, depth+1)
 	case *ast.SelectorExpr:
 		if sel, ok := r.info.Selections[e]; ok && sel.Kind() == types.FieldVal {
+			if r.onDirection(sel, len(sel.Index())) {
+				return 0 // a direction, or a component of one
+			}
 			return r.of(e.X, bind, depth+1)
 		}
 	case *ast.Ident:
@@ -278,9 +271,15 @@ func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
 	if !ok {
 		return math.NaN()
 	}
+	if r.unit(fn) {
+		return 0 // a direction, whatever it was made from
+	}
 	recv := none
 	if sel, ok := call.Fun.(*ast.SelectorExpr); ok && fn.Signature().Recv() != nil {
 		recv = r.of(sel.X, bind, depth+1)
+		if s := r.info.Selections[sel]; s != nil && len(s.Index()) > 1 && r.onDirection(s, len(s.Index())-1) {
+			recv = 0 // a method promoted from an embedded direction
+		}
 	}
 	return r.through(fd, fn, i, recv, args, depth)
 }

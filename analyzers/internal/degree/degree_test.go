@@ -113,13 +113,18 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 
 // load type-checks src and returns a Reader of it and its last function.
 func load(t *testing.T) (*types.Info, *degree.Reader, *ast.FuncDecl) {
+	return loadSrc(t, src)
+}
+
+// loadSrc type-checks text and returns a Reader of it and its last function.
+func loadSrc(t *testing.T, text string) (*types.Info, *degree.Reader, *ast.FuncDecl) {
 	fset := token.NewFileSet()
-	f, err := parser.ParseFile(fset, "plane.go", src, 0)
+	f, err := parser.ParseFile(fset, "src.go", text, 0)
 	require.NoError(t, err)
 	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}, Scopes: map[ast.Node]*types.Scope{}}
-	_, err = (&types.Config{Importer: importer.ForCompiler(fset, "source", nil)}).Check("plane", fset, []*ast.File{f}, info)
+	_, err = (&types.Config{Importer: importer.ForCompiler(fset, "source", nil)}).Check(f.Name.Name, fset, []*ast.File{f}, info)
 	require.NoError(t, err)
-	r := degree.New(info, []*ast.File{f})
+	r := degree.New(fset, info, []*ast.File{f})
 	fd := f.Decls[len(f.Decls)-1].(*ast.FuncDecl)
 	return info, r, fd
 }
@@ -181,6 +186,179 @@ func TestRounds(t *testing.T) {
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {
 			assert.Equal(t, w, r.Rounds(fd, id), id.Name)
+		}
+	}
+}
+
+// src3 is an invented package of a small ray caster: a vector type whose
+// normalising helpers have unrevealing names, rays whose direction is
+// stored normalised, and probes whose aim is stored once as given.
+const src3 = `package caster
+
+import "math"
+
+type v3 struct{ x, y, z float64 }
+
+func (a v3) sub(b v3) v3          { return v3{a.x - b.x, a.y - b.y, a.z - b.z} }
+func (a v3) dot(b v3) float64     { return float64(a.x*b.x) + float64(a.y*b.y) + float64(a.z*b.z) }
+func (a v3) sq() float64          { return a.dot(a) }
+func (a v3) size() float64        { return math.Sqrt(a.sq()) }
+func (a v3) mul(k float64) v3     { return v3{a.x * k, a.y * k, a.z * k} }
+func (a v3) over(k float64) v3    { return v3{a.x / k, a.y / k, a.z / k} }
+func (a v3) cross(b v3) v3        { return v3{a.y*b.z - a.z*b.y, a.z*b.x - a.x*b.z, a.x*b.y - a.y*b.x} }
+
+// tame scales a to length 1, leaving the zero vector as it is.
+func (a v3) tame() v3 {
+	if a.x == 0 && a.y == 0 && a.z == 0 {
+		return a
+	}
+	return a.mul(1 / a.size())
+}
+
+// squash divides each component by the length it computes itself.
+func squash(a v3) v3 {
+	n := math.Sqrt(a.x*a.x + a.y*a.y + a.z*a.z)
+	if n == 0 {
+		return v3{0, 0, 1}
+	}
+	return v3{a.x / n, a.y / n, a.z / n}
+}
+
+// grow is no normalisation: it doubles a when it is short.
+func grow(a v3) v3 {
+	if a.size() < 1 {
+		return a.mul(2)
+	}
+	return a.over(a.size())
+}
+
+// even divides by a length made of nested hypotenuses, and gives the
+// zero vector NaNs.
+func even(a v3) v3 {
+	if a.x == 0 && a.y == 0 && a.z == 0 {
+		return v3{math.NaN(), math.NaN(), math.NaN()}
+	}
+	return a.over(math.Hypot(a.x, math.Hypot(a.y, a.z)))
+}
+
+// shift divides a by a length it had before one of its components moved:
+// no direction.
+func shift(a v3) v3 {
+	l := a.size()
+	a.x += 1e3
+	return v3{a.x / l, a.y / l, a.z / l}
+}
+
+// flat divides by the length of the horizontal part alone: no direction.
+func flat(a v3) v3 { return a.over(math.Hypot(a.x, a.y)) }
+
+// quat is an array vector of float32, normalised by a reciprocal.
+type quat [4]float32
+
+func (q quat) size() float32 {
+	return float32(math.Sqrt(float64(q[0]*q[0] + q[1]*q[1] + q[2]*q[2] + q[3]*q[3])))
+}
+
+func (q quat) norm() quat {
+	l := 1.0 / q.size()
+	return quat{q[0] * l, q[1] * l, q[2] * l, q[3] * l}
+}
+
+type spin struct{ axis quat }
+
+func turn(q quat) spin { return spin{q.norm()} }
+
+// top reads through its pointer; flip changes what it points to.
+func (a *v3) top() float64 { return math.Max(a.x, math.Max(a.y, a.z)) }
+func (a *v3) flip()        { a.x, a.y, a.z = -a.x, -a.y, -a.z }
+
+func (r *ray) peak() float64 { return r.dir.top() }
+
+type lamp struct{ glow, halo v3 }
+
+func light(at v3) lamp { return lamp{squash(at), shift(at)} }
+func (l *lamp) dim()   { l.glow.flip() }
+
+type mast struct{ foot, lean v3 }
+
+func raise(foot, top v3) mast { return mast{foot, flat(top.sub(foot))} }
+
+// keep returns a long vector as it is: no normalisation.
+func keep(a v3) v3 {
+	if a.size() > 1e3 {
+		return a
+	}
+	return squash(a)
+}
+
+type ray struct{ from, dir v3 }
+
+func aim(from, to v3) ray        { return ray{from, to.sub(from).tame()} }
+func (r ray) bent(n v3) ray     { return ray{from: r.from, dir: squash(n)} }
+func (r ray) tilt(n v3) ray      { return ray{r.from, even(n)} }
+
+// cast normalises its parameter in place before storing it.
+func cast(from, to v3) ray {
+	to = to.sub(from)
+	to = squash(to)
+	return ray{from, to}
+}
+
+type probe struct{ at, toward v3 }
+
+func point(at, to v3) probe { return probe{at, squash(to)} }
+func raw(at, to v3) probe   { return probe{at: at, toward: to} }
+
+func (p *probe) nudge(d v3) { p.toward = p.toward.sub(d) }
+
+func sites(r, s ray, p probe, q v3, m mast, sp spin, l lamp) {
+	cosine := r.dir.dot(s.dir)
+	slant := r.dir.x
+	reach := r.dir.dot(q)
+	offset := r.from.dot(s.dir)
+	facing := p.toward.dot(r.dir)
+	q = q.tame()
+	turned := q.dot(r.dir)
+	e := squash(q.sub(r.from))
+	spread := e.cross(q).dot(r.dir)
+	g := grow(p.at)
+	doubled := g.dot(g)
+	k := keep(p.at)
+	kept := k.dot(k)
+	leaning := m.lean.dot(m.lean)
+	twist := sp.axis[0]*sp.axis[3] - sp.axis[1]*sp.axis[2]
+	glowing := l.glow.dot(l.glow)
+	haloed := l.halo.dot(l.halo)
+	_, _, _, _, _, _, _, _, _, _, _, _, _ = cosine, slant, reach, offset, facing, turned, spread, doubled, kept, leaning, twist, glowing, haloed
+}
+`
+
+// TestDirections checks the reading of normalised vectors: a vector
+// divided by its own length has length 1 up to rounding, so its components
+// and the dot product of two of them are at most 1 in size whatever the
+// data's units (common practice: |u·v| <= |u||v| by Cauchy-Schwarz).
+func TestDirections(t *testing.T) {
+	info, r, fd := loadSrc(t, src3)
+	want := map[string]float64{
+		"cosine":  0, // two ray directions, stored only through tame and squash
+		"slant":   0, // a component of one
+		"reach":   1, // a direction against a point: a length
+		"offset":  1, // a point against a direction
+		"facing":  1, // toward is stored once as given (raw): data
+		"turned":  0, // the parameter reassigned from its normalised value
+		"spread":  0, // a triple product of directions
+		"doubled": 2, // grow keeps a's size: data
+		"kept":    2, // keep returns a long input as it is: data
+		"leaning": 2, // lean is divided by part of its length only: data
+		"twist":   0, // products of components of a normalised array
+		"glowing": 2, // glow is changed in place by a pointer method: data
+		"haloed":  2, // shift divides by the length a had before it changed: data
+	}
+	for id, obj := range info.Defs {
+		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {
+			d, ok := r.Of(fd, id)
+			require.True(t, ok, id.Name)
+			assert.Equal(t, w, d, id.Name)
 		}
 	}
 }

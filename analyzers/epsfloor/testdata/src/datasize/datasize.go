@@ -285,3 +285,56 @@ func Stakeless(dx, dy, dz float64) float64 {
 	}
 	return math.Sqrt(sq)
 }
+
+// settle rescales p by the reciprocal of its own length (its name says
+// nothing; its body divides p by |p|), leaving the zero vector as it is.
+func (p station) settle() station {
+	l := math.Sqrt(p.dot(p))
+	if l == 0 {
+		return p
+	}
+	inv := 1 / l
+	return station{p.east * inv, p.north * inv}
+}
+
+// beam is a lamp's light: heading is stored only normalised, so it is a
+// direction wherever the package reads it.
+type beam struct {
+	origin, heading station
+}
+
+func castBeam(from, to station) beam { return beam{from, from.to(to).settle()} }
+
+func (b beam) swung(toward station) beam { return beam{origin: b.origin, heading: toward.unit()} }
+
+// Perpendicular tests the cosine of two headings: directions have length
+// 1 up to rounding, so their dot product is at most 1 whatever the units
+// of the lamps' positions and rounds at about eps, far below 1e-11.
+func Perpendicular(a, b beam) bool {
+	return level(a.heading.dot(b.heading), 0)
+}
+
+// Aside normalises a station into a local direction and its parameter in
+// place before the test: both are directions there.
+func Aside(along, p station) bool {
+	along = along.settle()
+	n := p.settle()
+	return level(along.cross(n), 0)
+}
+
+// shadow is a mark cast on a wall: its lean is stored once as given, a
+// difference of stations, so it is data of degree 1 even though another
+// store normalises it.
+type shadow struct {
+	spot, lean station
+}
+
+func cast(at, to station) shadow { return shadow{at, at.to(to)} }
+
+func (s shadow) tilted(n station) shadow { return shadow{s.spot, n.settle()} }
+
+// Square tests two leans for a right angle: a dot product of two lengths,
+// an area, whose rounding at 1e3 is about 2.2e-16·1e6.
+func Square(a, b shadow) bool {
+	return level(a.lean.dot(b.lean), 0) // want `absolute tolerance 1e-11 on level\(a.lean.dot\(b.lean\), 0\), of degree 2 in the data, .* once the data reach s = 2.1e\+02`
+}

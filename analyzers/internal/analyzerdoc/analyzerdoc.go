@@ -3,32 +3,38 @@
 package analyzerdoc
 
 import (
-	"go/parser"
-	"go/token"
 	"strings"
 )
 
 // Extract returns the section of the package comment in src (the text of a
 // doc.go file) headed "# Analyzer <name>", whose first line is
 // "<name>: <title>"; the result starts at the title, the rest being the full
-// explanation. It panics when the
-// section is missing, which is a mistake in the analyzer's own source.
+// explanation, as go/ast's CommentGroup.Text gives it (comment markers and
+// the first space after them removed, trailing spaces trimmed, runs of
+// empty lines reduced to one). It panics when the section is missing, which
+// is a mistake in the analyzer's own source.
+//
+// It reads the lines itself rather than parsing src: every Doc is built
+// when the program starts, and go vet starts roundoff once per package.
 func Extract(src, name string) string {
-	f, err := parser.ParseFile(token.NewFileSet(), "doc.go", src, parser.ParseComments|parser.PackageClauseOnly)
-	if err != nil || f.Doc == nil {
-		panic("analyzerdoc: doc.go has no package comment")
+	heading := "// # Analyzer " + name + "\n"
+	i := strings.Index(src, heading)
+	if i < 0 || (i > 0 && src[i-1] != '\n') {
+		panic("analyzerdoc: doc.go has no section # Analyzer " + name)
 	}
-	text := f.Doc.Text()
-	heading := "# Analyzer " + name + "\n"
-	i := strings.Index(text, heading)
-	if i < 0 {
-		panic("analyzerdoc: doc.go has no section " + strings.TrimSpace(heading))
+	var lines []string
+	for line := range strings.Lines(src[i+len(heading):]) {
+		text, ok := strings.CutPrefix(strings.TrimSuffix(line, "\n"), "//")
+		if !ok || strings.HasPrefix(text, " # ") {
+			break // the end of the comment, or the next section
+		}
+		text = strings.TrimRight(strings.TrimPrefix(text, " "), " \t")
+		if text == "" && len(lines) > 0 && lines[len(lines)-1] == "" {
+			continue
+		}
+		lines = append(lines, text)
 	}
-	section := text[i+len(heading):]
-	if j := strings.Index(section, "\n# "); j >= 0 {
-		section = section[:j]
-	}
-	section = strings.TrimSpace(section)
+	section := strings.TrimSpace(strings.Join(lines, "\n"))
 	title, ok := strings.CutPrefix(section, name+": ")
 	if !ok {
 		panic("analyzerdoc: section must start with \"" + name + ": <title>\"")

@@ -8,6 +8,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/analysis"
 )
 
 // Workflow command escaping as GitHub Actions defines it (the toolkit's
@@ -132,4 +133,28 @@ func TestColumnsInCodePoints(t *testing.T) {
 	p := src.offsetPosition(file, len("package t\n\nvar s = \"°€\" + "))
 	assert.Equal(t, token.Position{Filename: file, Line: 3, Column: 19}, p)
 	assert.Equal(t, 1, src.offsetPosition(file, 0).Line)
+}
+
+type testFact struct{}
+
+func (*testFact) AFact() {}
+
+// On a unit analysed only for facts, an analyzer without facts of its own
+// runs none of its code, while what it requires still runs (common
+// practice: unitchecker's VetxOnly contract, the facts of every
+// dependency are written for its dependents).
+func TestFactsOnlyRuns(t *testing.T) {
+	ran := map[string]bool{}
+	run := func(pass *analysis.Pass) (any, error) { ran[pass.Analyzer.Name] = true; return nil, nil }
+	facts := &analysis.Analyzer{Name: "facts", Doc: "facts", Run: run, FactTypes: []analysis.Fact{new(testFact)}}
+	rule := &analysis.Analyzer{Name: "rule", Doc: "rule", Run: run, Requires: []*analysis.Analyzer{facts}}
+	out := factsOnlyRuns([]*analysis.Analyzer{rule, facts})
+	require.Len(t, out, 2)
+	assert.Equal(t, "rule", out[0].Name)
+	assert.Equal(t, rule.Requires, out[0].Requires)
+	for _, a := range out {
+		_, err := a.Run(&analysis.Pass{Analyzer: a})
+		require.NoError(t, err)
+	}
+	assert.Equal(t, map[string]bool{"facts": true}, ran)
 }

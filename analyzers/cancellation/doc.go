@@ -77,9 +77,13 @@
 //     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
 //     below 1.11e-16 come out 0 and small ones lose digits; math.Erfc(x),
 //     0.5*math.Erfc(x), or a complementary function;
-//   - the one-pass variance E[x²]-E[x]²: s2/n - m*m or s2 - s1*s1/n where
-//     s2 accumulates squares of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a
-//     value squared in place first): both terms are about mean², so the
+//   - the one-pass variance E[x²]-E[x]²: s2/n - m*m, s2 - s1*s1/n or the
+//     weighted n*s2 - s1*s1 (Σw·Σwx² - (Σwx)²) where s2 accumulates squares
+//     of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a value squared in place
+//     first, w*x*x; also a field read through an accessor, d.SumWX2()), but
+//     not a product of two such sums (Σx²·Σy² - (Σxy)²), nor sums of data
+//     centred before squaring (x = (v - mean)/sd, also through the
+//     package's own function), which hold no mean² to cancel: both terms are about mean², so the
 //     difference loses about log10(mean²/variance) digits and can turn
 //     negative; accumulate squared deviations from the mean (two passes
 //     or Welford's update). An accumulator of squared deviations

@@ -8,7 +8,9 @@ import (
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 
+	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
 )
 
@@ -60,8 +62,8 @@ func (c *checker) updates() *accumulation {
 				if !c.wholeConst(s.Rhs[i]) && !c.wholeNumber(s.Rhs[i]) {
 					c.acc.counts[obj] = false
 				}
-				if s.Tok == token.ADD_ASSIGN && c.squareTerm(s.Rhs[i], inPlace) ||
-					s.Tok == token.ASSIGN && c.recurrence(s.Rhs[i], obj, inPlace) {
+				if s.Tok == token.ADD_ASSIGN && c.squareTerm(cur, s.Rhs[i], inPlace) ||
+					s.Tok == token.ASSIGN && c.recurrence(cur, s.Rhs[i], obj, inPlace) {
 					c.acc.squares[obj] = true
 				}
 			}
@@ -72,7 +74,7 @@ func (c *checker) updates() *accumulation {
 
 // recurrence reports whether e is a sum with a term that mentions obj and
 // a term with a square of data: s2 = k*s2 + w*(x*x).
-func (c *checker) recurrence(e ast.Expr, obj types.Object, inPlace map[types.Object]bool) bool {
+func (c *checker) recurrence(cur inspector.Cursor, e ast.Expr, obj types.Object, inPlace map[types.Object]bool) bool {
 	sum, ok := ast.Unparen(e).(*ast.BinaryExpr)
 	if !ok || sum.Op != token.ADD {
 		return false
@@ -87,24 +89,73 @@ func (c *checker) recurrence(e ast.Expr, obj types.Object, inPlace map[types.Obj
 		})
 		return found
 	}
-	return mentions(sum.X) && c.squareTerm(sum.Y, inPlace) || mentions(sum.Y) && c.squareTerm(sum.X, inPlace)
+	return mentions(sum.X) && c.squareTerm(cur, sum.Y, inPlace) || mentions(sum.Y) && c.squareTerm(cur, sum.X, inPlace)
 }
 
 // squareTerm reports whether e is a square of a value that is not a
 // deviation, possibly weighted: x*x, w*(x*x), or a variable squared in
-// place (t *= t). A squared deviation (x-m)*(x-m) is the two-pass form,
+// place (t *= t), or a product with the same factor twice (w*x*x). A squared deviation (x-m)*(x-m) is the two-pass form,
 // which is accurate.
-func (c *checker) squareTerm(e ast.Expr, inPlace map[types.Object]bool) bool {
+func (c *checker) squareTerm(cur inspector.Cursor, e ast.Expr, inPlace map[types.Object]bool) bool {
 	if x, ok := c.square(e); ok {
-		d, _ := c.through(x)
-		b, isDiff := d.(*ast.BinaryExpr)
-		return !isDiff || b.Op != token.SUB
+		return !c.centred(cur, x, 6)
 	}
 	switch e := ast.Unparen(e).(type) {
 	case *ast.BinaryExpr:
-		return e.Op == token.MUL && (c.squareTerm(e.X, inPlace) || c.squareTerm(e.Y, inPlace))
+		return e.Op == token.MUL && (c.squareTerm(cur, e.X, inPlace) || c.squareTerm(cur, e.Y, inPlace) || c.repeatedFactor(cur, e))
 	case *ast.Ident:
 		return inPlace[c.target(e)]
+	}
+	return false
+}
+
+// repeatedFactor reports whether the product e has the same
+// side-effect-free value, not a deviation, among its factors twice:
+// w*x*x, parsed (w*x)*x.
+func (c *checker) repeatedFactor(cur inspector.Cursor, e *ast.BinaryExpr) bool {
+	var factors []ast.Expr
+	var flatten func(x ast.Expr)
+	flatten = func(x ast.Expr) {
+		if m, ok := ast.Unparen(x).(*ast.BinaryExpr); ok && m.Op == token.MUL {
+			flatten(m.X)
+			flatten(m.Y)
+			return
+		}
+		factors = append(factors, x)
+	}
+	flatten(e)
+	for i, f := range factors {
+		for _, g := range factors[i+1:] {
+			if same(f, g) && fixes.Pure(c.pass.TypesInfo, f) && !c.isConst(f) && !c.centred(cur, f, 6) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// centred reports whether x, as it reaches the statement at cur, is a
+// deviation (a - m), also scaled (a - m)/s, through variables and the
+// package's own functions (x = normalize(x) returning (x - mean)/sd): data
+// centred before squaring hold no mean² to cancel.
+func (c *checker) centred(cur inspector.Cursor, x ast.Expr, depth int) bool {
+	if depth == 0 {
+		return false
+	}
+	d, _ := c.through(x)
+	switch d := ast.Unparen(d).(type) {
+	case *ast.BinaryExpr:
+		return d.Op == token.SUB || (d.Op == token.QUO || d.Op == token.MUL) && c.centred(cur, d.X, depth-1)
+	case *ast.Ident:
+		if v, ok := c.pass.TypesInfo.Uses[d].(*types.Var); ok {
+			if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
+				return c.centred(rhs, rhs.Node().(ast.Expr), depth-1)
+			}
+		}
+	case *ast.CallExpr:
+		if r := c.returned(d); r != nil {
+			return c.centred(cur, r, depth-1)
+		}
 	}
 	return false
 }
@@ -121,8 +172,9 @@ func (c *checker) counts(e ast.Expr) bool {
 	return obj != nil && c.updates().counts[obj]
 }
 
-// variance reports the one-pass variance E[x²] - E[x]²: s2/n - m*m or
-// s2 - s1*s1/n with s2 accumulating squares of data. Both terms are about
+// variance reports the one-pass variance E[x²] - E[x]²: s2/n - m*m,
+// s2 - s1*s1/n or the weighted W*s2 - s1*s1, with s2 accumulating squares
+// of data (also a field read through an accessor, d.SumWX2()). Both terms are about
 // mean², so the difference loses about log10(mean²/variance) digits (8 of
 // 16 for data near 1e4 with spread 1) and can come out negative; the sum
 // of squared deviations from the mean (two passes, or Welford's update)
@@ -132,15 +184,25 @@ func (c *checker) variance(n *ast.BinaryExpr) bool {
 	if q, ok := sq.(*ast.BinaryExpr); ok && q.Op == token.QUO {
 		sq = ast.Unparen(q.X) // s1*s1/n
 	}
-	if _, ok := c.square(sq); !ok {
+	if !c.squared(sq) {
 		return false
 	}
 	s2, _ := c.through(n.X)
 	if q, ok := s2.(*ast.BinaryExpr); ok && q.Op == token.QUO {
 		s2, _ = c.through(q.X) // s2/n
+	} else if ok && q.Op == token.MUL {
+		// n*s2 or Σw*Σwx², the weighted form Σw·Σwx² - (Σwx)²; not
+		// Σx²*Σy², a product of two sums of squares
+		x, y := c.accumulatesSquares(q.X), c.accumulatesSquares(q.Y)
+		if x == y {
+			return false
+		}
+		s2 = q.X
+		if y {
+			s2 = q.Y
+		}
 	}
-	obj := c.target(s2)
-	if obj == nil || !c.updates().squares[obj] {
+	if !c.accumulatesSquares(s2) {
 		return false
 	}
 	c.pass.Report(analysis.Diagnostic{
@@ -149,6 +211,40 @@ func (c *checker) variance(n *ast.BinaryExpr) bool {
 			fixes.Source(c.pass.Fset, ast.Unparen(n.X)), fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff),
 	})
 	return true
+}
+
+// accumulatesSquares reports whether e, through variables and accessors, is a
+// variable or field that accumulates squares of data.
+func (c *checker) accumulatesSquares(e ast.Expr) bool {
+	obj := c.target(c.accessed(e))
+	return obj != nil && c.updates().squares[obj]
+}
+
+// squared reports whether e is x*x of a side-effect-free x, or of the
+// same accessor call twice (d.SumWX()*d.SumWX()).
+func (c *checker) squared(e ast.Expr) bool {
+	if _, ok := c.square(e); ok {
+		return true
+	}
+	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	return ok && m.Op == token.MUL && same(m.X, m.Y) && c.accessed(m.X) != ast.Unparen(m.X)
+}
+
+// accessed returns the field an accessor call reads (d.SumWX2() whose body
+// returns d.Stats.SumWX2), through variables; else e.
+func (c *checker) accessed(e ast.Expr) ast.Expr {
+	e, _ = c.through(e)
+	call, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok || len(call.Args) != 0 {
+		return e
+	}
+	sel, isSel := call.Fun.(*ast.SelectorExpr)
+	if r := c.returned(call); r != nil && isSel && fixes.Pure(c.pass.TypesInfo, sel.X) {
+		if f, isField := ast.Unparen(r).(*ast.SelectorExpr); isField && c.pass.TypesInfo.Selections[f] != nil && c.pass.TypesInfo.Selections[f].Kind() == types.FieldVal {
+			return f
+		}
+	}
+	return e
 }
 
 // wholeConst reports whether e is a constant with an integer value.

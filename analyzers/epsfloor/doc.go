@@ -58,6 +58,11 @@
 //     other terms' rounding errors when they cancel it. A plain variable
 //     can cancel the term exactly (Sterbenz), so 1 - p + 1e-16 is left
 //     alone;
+//   - math.Nextafter(x, y) and math.Nextafter32 whose direction y is x
+//     itself (equal constants, or the same variable): the call returns x
+//     unchanged (IEEE 754-2019 §5.3.1 steps toward a direction), so
+//     Nextafter(1, 1) - 1 is 0, not eps, and a tolerance made that way
+//     turns its test into exact equality;
 //   - constant tolerance arguments to well-known APIs (gonum's
 //     floats/scalar EqualWithinAbs, EqualWithinRel, EqualWithinAbsOrRel,
 //     floats.EqualApprox; testify's InDelta, InDeltaSlice, InEpsilon,

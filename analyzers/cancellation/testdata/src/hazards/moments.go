@@ -36,3 +36,33 @@ func windowSpread(xs []float64) float64 {
 	mean, meanSq := s1/float64(len(xs)), s2/float64(len(xs))
 	return meanSq - mean*mean // want `one-pass variance meanSq - mean \* mean subtracts`
 }
+
+// tally keeps weighted sums of readings behind accessors.
+type tally struct{ sums struct{ w, wx, wx2 float64 } }
+
+func (t *tally) fill(x, w float64) {
+	t.sums.w += w
+	t.sums.wx += w * x
+	t.sums.wx2 += w * x * x
+}
+
+func (t *tally) W() float64   { return t.sums.w }
+func (t *tally) WX() float64  { return t.sums.wx }
+func (t *tally) WX2() float64 { return t.sums.wx2 }
+
+// The weighted one-pass form Σw·Σwx² - (Σwx)², read through accessors.
+func (t *tally) spread() float64 {
+	sw := t.W()
+	return (t.WX2()*sw - t.WX()*t.WX()) / (sw * sw) // want `one-pass variance t.WX2\(\) \* sw - t.WX\(\) \* t.WX\(\) subtracts two values of about mean²`
+}
+
+// The count-weighted form n·Σx² - (Σx)².
+func countSpread(xs []float64) float64 {
+	var s1, s2 float64
+	for _, x := range xs {
+		s1 += x
+		s2 += x * x
+	}
+	n := float64(len(xs))
+	return (n*s2 - s1*s1) / (n * n) // want `one-pass variance n \* s2 - s1 \* s1 subtracts`
+}

@@ -479,3 +479,37 @@ type slab struct{ w, h float64 }
 func (s slab) fill(used float64) float64 { return used / (s.w * s.h) }
 
 func slabArc(s slab, used float64) float64 { return math.Acos(s.fill(used)) }
+
+// A product of two sums of squares less a squared cross sum, Σx²·Σy² -
+// (Σxy)²: the Cauchy-Schwarz gap of two series, not a variance, so the
+// variance rule leaves it to the rules about Gram determinants.
+func schwarzGap(xs, ys []float64) float64 {
+	var sxx, syy, sxy float64
+	for i := range xs {
+		sxx += xs[i] * xs[i]
+		syy += ys[i] * ys[i]
+		sxy += xs[i] * ys[i]
+	}
+	return sxx*syy - sxy*sxy
+}
+
+// A least-squares slope on readings standardised first, through the
+// package's own function: centred data hold no mean² to cancel, so n·Σx² -
+// (Σx)² keeps its digits.
+type trend struct{ centre, scale float64 }
+
+func (t trend) standard(v float64) float64 { return (v - t.centre) / t.scale }
+
+func (t trend) slope(xs, ys []float64) float64 {
+	var sx, sy, sxx, sxy float64
+	for i := range xs {
+		x := xs[i]
+		x = t.standard(x)
+		sx += x
+		sy += ys[i]
+		sxx += x * x
+		sxy += x * ys[i]
+	}
+	n := float64(len(xs))
+	return (n*sxy - sx*sy) / (n*sxx - sx*sx)
+}

@@ -313,3 +313,16 @@ func tightened(a, b, c float64) bool {
 func scaledStillTight(x float64) bool {
 	return math.Abs(4*(x-1e6)) < 1e-12 // want `absolute tolerance 1e-12 on the difference times 4, 2.5e-13 on the difference itself, is below half the spacing of float64 values at 1e\+06 \(5.82e-11\): the test passes only on exact equality`
 }
+
+// A gauge's resolution meant as the gap above 1, stepping toward 1
+// itself: the result is 1 and the resolution 0, so the test below it is
+// exact equality.
+func levelled(a, b float64) bool {
+	resolution := math.Nextafter(1, 1) - 1 // want `math.Nextafter\(1, 1\) steps toward its own value and returns it unchanged`
+	return math.Abs(a-b) <= resolution
+}
+
+// The same mistake on a variable.
+func nudged(x float32) float32 {
+	return math.Nextafter32(x, x) // want `math.Nextafter32\(x, x\) steps toward its own value`
+}

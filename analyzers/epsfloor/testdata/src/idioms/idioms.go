@@ -300,3 +300,9 @@ func scaledByLiteral(x float64) bool {
 func halvedWidth(a float64) bool {
 	return math.Abs((a-0.9)/2) < 1e-16
 }
+
+// Steps toward a different value reach the neighbouring float: the gap
+// above 1 is eps, and a step toward +Inf from x moves up by one ulp.
+func gapAbove(x float64) (float64, float64) {
+	return math.Nextafter(1, 2) - 1, math.Nextafter(x, math.Inf(1))
+}

@@ -50,7 +50,8 @@
 //     product over norms, the norms also from the package's own methods,
 //     a.Len() returning math.Sqrt(a.Dot(a)), and the ratio also returned
 //     by the package's own function, clamped or not) or of a great-circle
-//     distance (the spherical law of cosines): near ±1, where parallel vectors and nearby points put
+//     distance (the spherical law of cosines; the message adds the NaN
+//     that an unclamped ratio gives once rounding puts it beyond ±1): near ±1, where parallel vectors and nearby points put
 //     it, one rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms

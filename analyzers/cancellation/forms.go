@@ -495,22 +495,27 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 // cosine parts is exact there. An angle only counted (math.Ceil of it, an
 // integer conversion) is left alone.
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
-	x := c.unclamped(cur, call.Args[0])
+	x, clamped := c.unclamped(cur, call.Args[0])
 	if !c.normCosine(x) && !c.lawOfCosines(x) || c.counted(cur) {
 		return
 	}
-	ends := "0 and π"
+	nan := ""
+	if _, fromFunc := x.(*ast.CallExpr); !clamped && !fromFunc {
+		nan = ", and returns NaN where rounding puts x just beyond ±1 (clamp it to [-1, 1] first)"
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catArc,
-		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near %s): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad; compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)",
-			name, binding("x", call.Args[0]), ends, math.Sqrt(2*unitRoundoff)),
+		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near 0 and π): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad%s; compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)",
+			name, binding("x", call.Args[0]), math.Sqrt(2*unitRoundoff), nan),
 	})
 }
 
 // unclamped returns the value e at cur stands for, through variables (the
 // value last assigned before cur) and a clamp to [-1, 1] written with
-// math.Max and math.Min, also when the clamp reassigns the variable.
-func (c *checker) unclamped(cur inspector.Cursor, e ast.Expr) ast.Expr {
+// math.Max and math.Min, also when the clamp reassigns the variable, and
+// whether it passed a clamp.
+func (c *checker) unclamped(cur inspector.Cursor, e ast.Expr) (ast.Expr, bool) {
+	clamped := false
 	for range 6 {
 		e, _ = c.through(e)
 		if id, ok := e.(*ast.Ident); ok {
@@ -523,15 +528,16 @@ func (c *checker) unclamped(cur inspector.Cursor, e ast.Expr) ast.Expr {
 		}
 		call, ok := e.(*ast.CallExpr)
 		if !ok || c.mathFunc2(call) != "Max" && c.mathFunc2(call) != "Min" {
-			return e
+			return e, clamped
 		}
+		clamped = true
 		if c.isConst(call.Args[0]) {
 			e = call.Args[1]
 		} else {
 			e = call.Args[0]
 		}
 	}
-	return e
+	return e, clamped
 }
 
 // counted reports whether the value at cur, carried through arithmetic,

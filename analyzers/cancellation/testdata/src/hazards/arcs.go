@@ -53,3 +53,10 @@ func tilt(p, q panel) float64 {
 func tiltAngle(p, q panel) float64 {
 	return math.Acos(tilt(p, q)) // want `math.Acos\(x\) with x = tilt\(p, q\) loses half the digits`
 }
+
+// A bearing change between two headings from their dot product over their
+// lengths, unclamped: for parallel headings the rounded ratio can be
+// 1 + 2.2e-16, and the arc of that is NaN.
+func bearingChange(ax, ay, bx, by float64) float64 {
+	return math.Acos((ax*bx + ay*by) / (math.Hypot(ax, ay) * math.Hypot(bx, by))) // want `≈ 1.49e-08 rad, and returns NaN where rounding puts x just beyond ±1 \(clamp it to \[-1, 1\] first\)`
+}

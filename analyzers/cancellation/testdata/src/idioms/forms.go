@@ -513,3 +513,11 @@ func (t trend) slope(xs, ys []float64) float64 {
 	n := float64(len(xs))
 	return (n*sxy - sx*sy) / (n*sxx - sx*sx)
 }
+
+// A bare dot product is not read as a cosine: whether its vectors are of
+// unit length is the caller's, and a plain dot product may be any size.
+type frame struct{ p, q float64 }
+
+func (f frame) inner(g frame) float64 { return f.p*g.p + f.q*g.q }
+
+func frameArc(f, g frame) float64 { return math.Acos(f.inner(g)) }

@@ -42,8 +42,9 @@ func (f Format) SqrtEps() float64 { return math.Sqrt(f.Eps) }
 // is a power of two and such literals carry low-order bits. It returns
 // false otherwise.
 func (f Format) EpsMultiple(t float64) (float64, bool) {
-	k := t / f.Eps                                                       // exact: Eps is a power of two
-	return k, k == 0.5 || k >= 1 && k <= 1000 && math.Mod(t, f.Eps) == 0 // Mod is exact
+	// Both exact: Eps is a power of two, and math.Mod rounds nothing.
+	k := t / f.Eps
+	return k, k == 0.5 || k >= 1 && k <= 1000 && math.Mod(t, f.Eps) == 0
 }
 
 // CbrtEps returns Eps^(1/3), the optimal relative central-difference step.

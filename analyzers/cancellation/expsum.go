@@ -129,7 +129,8 @@ func (c *checker) unshiftedExp(fn inspector.Cursor, call *ast.CallExpr) *ast.Cal
 			return nil // shifted, as by the largest exponent
 		}
 	case *ast.UnaryExpr:
-		if y.Op == token.SUB && c.nonNegative(fn, y.X, 3) {
+		at, found := fn.FindNode(call)
+		if found && y.Op == token.SUB && c.nonNegative(at, y.X, 3) {
 			return nil // e^-|z| is at most 1
 		}
 	}

@@ -521,3 +521,4 @@ type frame struct{ p, q float64 }
 func (f frame) inner(g frame) float64 { return f.p*g.p + f.q*g.q }
 
 func frameArc(f, g frame) float64 { return math.Acos(f.inner(g)) }
+

@@ -155,8 +155,8 @@
 //     variable or slice the loop stores math.Exp(y) into), divided into
 //     one of them (a softmax share, x/s or x /= s) or passed to math.Log
 //     (a log-sum-exp): once a y exceeds 709.78 the term and the sum are
-//     +Inf and the share NaN, and the log is -Inf once every y is below
-//     -745.13, though the share lies in [0, 1] and the log is about the
+//     +Inf and the share NaN, and once every y is below -745.13 they are 0,
+//     the share 0/0 = NaN and the log -Inf, though the share lies in [0, 1] and the log is about the
 //     largest y; subtracting the largest y before exponentiating keeps
 //     every term at most 1 and the sum at least 1. An exponent shifted by
 //     a value (y - m), not positive (-|z|) or constant is left alone, as

@@ -31,8 +31,8 @@ func (c *checker) expShare(cur inspector.Cursor, x, s ast.Expr, at ast.Node) {
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: at.Pos(), End: at.End(), Category: catLogSumExp,
-		Message: fmt.Sprintf("share of a sum of exponentials: %s and %s overflow to +Inf once the exponent exceeds %.6g, and the share is +Inf/+Inf = NaN though it lies in [0, 1]; subtract the largest exponent before exponentiating (math.Exp(y - max))",
-			types.ExprString(exp), types.ExprString(ast.Unparen(s)), expOverflow),
+		Message: fmt.Sprintf("share of a sum of exponentials: %s and %s overflow to +Inf once the exponent exceeds %.6g and are 0 once every exponent is below %.6g, so the share is NaN (∞/∞ or 0/0) though it lies in [0, 1]; subtract the largest exponent before exponentiating (math.Exp(y - max))",
+			types.ExprString(exp), types.ExprString(ast.Unparen(s)), expOverflow, expUnderflows),
 		Related: []analysis.RelatedInformation{{Pos: exp.Pos(), End: exp.End(), Message: "the exponential summed"}},
 	})
 }

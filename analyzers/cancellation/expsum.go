@@ -21,6 +21,9 @@ import (
 // a constant), not positive (-|z|) or constant is left alone, as is a
 // share under a condition that checks s (math.IsInf(s, 1)).
 func (c *checker) expShare(cur inspector.Cursor, x, s ast.Expr, at ast.Node) {
+	if _, isIdent := ast.Unparen(s).(*ast.Ident); !isIdent || !c.usesMath("Exp") {
+		return // a sum is held in a variable, and needs math.Exp
+	}
 	fn, ok := enclosingFunc(cur)
 	if !ok {
 		return
@@ -42,6 +45,9 @@ func (c *checker) expShare(cur inspector.Cursor, x, s ast.Expr, at ast.Node) {
 // below -745.13, though the result is finite, about max y; m + log(Σ
 // exp(y - m)) with m the largest y keeps it finite.
 func (c *checker) logExpSum(cur inspector.Cursor, call *ast.CallExpr) {
+	if _, isIdent := ast.Unparen(call.Args[0]).(*ast.Ident); !isIdent || !c.usesMath("Exp") {
+		return
+	}
 	fn, ok := enclosingFunc(cur)
 	if !ok {
 		return

@@ -23,7 +23,9 @@
 //     computed;
 //   - a computed operand is compared with a decimal constant the type cannot
 //     represent (0.1, 0.3); the message shows the value actually stored;
-//   - an operand is math.NaN(): such a comparison is always false (==) or
+//   - an operand is math.NaN(), also through a function of the package
+//     that only returns it (func NaN() float32 { return
+//     float32(math.NaN()) }): such a comparison is always false (==) or
 //     always true (!=);
 //   - arrays or structs holding computed floats are compared with ==, which
 //     compares every element exactly;

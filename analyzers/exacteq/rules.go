@@ -52,17 +52,34 @@ func (c *checker) nan(cur inspector.Cursor, n *ast.BinaryExpr, x, y operand) boo
 	return true
 }
 
-// isNaNCall reports whether e is a call of math.NaN.
-func (c *checker) isNaNCall(e ast.Expr) bool {
+// isNaNCall reports whether e is a call of math.NaN, or of a function of
+// this package without parameters whose body only returns one
+// (func NaN() float32 { return float32(math.NaN()) }).
+func (c *checker) isNaNCall(e ast.Expr) bool { return c.nanCall(e, true) }
+
+// nanCall is isNaNCall, following a wrapper's body when wrapper is set.
+func (c *checker) nanCall(e ast.Expr, wrapper bool) bool {
 	call, ok := ast.Unparen(e).(*ast.CallExpr)
 	if !ok {
 		return false
 	}
 	if c.pass.TypesInfo.Types[call.Fun].IsType() && len(call.Args) == 1 {
-		return c.isNaNCall(call.Args[0]) // float32(math.NaN())
+		return c.nanCall(call.Args[0], wrapper) // float32(math.NaN())
 	}
 	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN"
+	if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN" {
+		return true
+	}
+	sc := c.calls[call.Lparen]
+	if !wrapper || !ok || len(call.Args) != 0 || sc == nil || sc.Common().StaticCallee() == nil {
+		return false
+	}
+	fd, isDecl := sc.Common().StaticCallee().Syntax().(*ast.FuncDecl)
+	if !isDecl || fd.Body == nil || len(fd.Body.List) != 1 {
+		return false
+	}
+	ret, isRet := fd.Body.List[0].(*ast.ReturnStmt)
+	return isRet && len(ret.Results) == 1 && c.nanCall(ret.Results[0], false)
 }
 
 func isComplex(t types.Type) bool {

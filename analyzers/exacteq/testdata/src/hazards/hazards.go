@@ -82,6 +82,14 @@ func nan32(x float32) bool {
 	return x == float32(math.NaN()) // want `comparison with math.NaN\(\) is always false`
 }
 
+// quietNaN is the package's own NaN for float32 code.
+func quietNaN() float32 { return float32(math.NaN()) }
+
+// A comparison with the package's NaN is as false as one with math.NaN().
+func unset(h float32) bool {
+	return h == quietNaN() // want `comparison with math.NaN\(\) is always false`
+}
+
 func float32Literal(a, b float32) bool {
 	return a+b == 0.3 // want `exact == between a computed float32 value and 0.3, which float32 stores as 0.300000011920928955078125: one rounding error \(ulp 2.98e-08 there\)`
 }

@@ -153,7 +153,12 @@
 // code goes on to judge, as a ratio far outside [0, 1] for near-parallel
 // segments; a zero branch that handles a case of its own, such as
 // overlapping parallel segments, stays a hazard, since a residue skips it);
-// ordered float loops whose pass count agrees with exact arithmetic or
+// a loop variable tested against an infinity that grows geometrically
+// toward it (multiplied by a constant above 1, or stepped by a step so
+// multiplied, x += d; d *= 2): it overflows onto the infinity exactly
+// within about 2100 passes, and no float lies beyond an infinity to step
+// over (a constant step is absorbed at 2^53 times its size and stays a
+// hazard); ordered float loops whose pass count agrees with exact arithmetic or
 // exceeds it (the extra value lies within rounding error below the bound,
 // inside the admitted range); and,
 // in _test.go files, results and fields produced by the code under test,

@@ -43,8 +43,8 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	}
 	step, _ := provenance.LoopStep(phi)
 	sim := c.simulate(phi, step, bound.val)
-	if sim.hits {
-		return true // the constant loop lands on the bound exactly
+	if sim.hits || c.towardInfinity(phi, step, bound.val) {
+		return true // the constant loop lands on the bound exactly, or overflows onto it
 	}
 	name := fixes.Source(c.pass.Fset, v.expr)
 	bnd := fixes.Source(c.pass.Fset, bound.expr)
@@ -65,6 +65,63 @@ func (c *checker) loopCondition(cur inspector.Cursor, n *ast.BinaryExpr, x, y op
 	d := analysis.Diagnostic{Pos: n.Pos(), End: n.End(), Category: catLoop, Message: msg}
 	fixes.Report(c.pass, d, c.halfStepFix(n, loop, v, bound, step, phi, varLeft)...)
 	return true
+}
+
+// towardInfinity reports whether bound is ±Inf and the loop variable
+// grows geometrically toward it: multiplied by a constant above 1 in
+// magnitude each pass, or stepped by a loop-carried step so multiplied
+// (x += d; d *= 2). Then it overflows onto the infinity exactly within
+// about 2100 passes (2^1024 is the overflow threshold), and no float lies
+// beyond an infinity to step over. A constant step is absorbed at 2^53
+// times its size, short of any infinity, and stays a hazard.
+func (c *checker) towardInfinity(phi *ssa.Phi, step *ssa.BinOp, bound ssa.Value) bool {
+	b, ok := constval.Float(bound, c.globals)
+	if !ok || !math.IsInf(b, 0) || step == nil {
+		return false
+	}
+	if step.Op == token.MUL {
+		return c.grows(phi, step) && c.startSign(phi, step) == math.Copysign(1, b)
+	}
+	d := step.Y
+	if provenance.Strip(step.Y) == phi {
+		d = step.X
+	}
+	dphi, ok := provenance.Strip(d).(*ssa.Phi)
+	if !ok || step.Op != token.ADD && step.Op != token.SUB || step.Op == token.SUB && provenance.Strip(step.Y) == phi {
+		return false
+	}
+	dstep, ok := provenance.LoopStep(dphi)
+	dir := c.startSign(dphi, dstep)
+	if step.Op == token.SUB {
+		dir = -dir
+	}
+	return ok && c.grows(dphi, dstep) && dir == math.Copysign(1, b)
+}
+
+// grows reports whether the update mul of v multiplies it by a constant
+// above 1 (x *= 2).
+func (c *checker) grows(v *ssa.Phi, mul *ssa.BinOp) bool {
+	k := mul.Y
+	if provenance.Strip(mul.Y) == v {
+		k = mul.X
+	}
+	f, ok := constval.Float(k, c.globals)
+	return mul.Op == token.MUL && ok && f > 1
+}
+
+// startSign returns the sign of v's constant value on entry to the loop
+// (the edge that is not its update), or 0 when it is not known.
+func (c *checker) startSign(v *ssa.Phi, update *ssa.BinOp) float64 {
+	for _, e := range v.Edges {
+		if provenance.Strip(e) == update {
+			continue
+		}
+		if f, ok := constval.Float(provenance.Strip(e), c.globals); ok && f != 0 {
+			return math.Copysign(1, f)
+		}
+		return 0
+	}
+	return 0
 }
 
 // halfStepFix replaces x != bound, for a loop variable moving by a constant

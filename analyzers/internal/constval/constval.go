@@ -255,6 +255,7 @@ var mathFuncs = map[string]func(args []float64) float64{
 	"Cbrt": func(a []float64) float64 { return math.Cbrt(a[0]) },
 	"Abs":  func(a []float64) float64 { return math.Abs(a[0]) },
 	"Pow":  func(a []float64) float64 { return math.Pow(a[0], a[1]) },
+	"Inf":  func(a []float64) float64 { return math.Inf(int(a[0])) },
 }
 
 // mathCall evaluates a call of a function of mathFuncs whose arguments are

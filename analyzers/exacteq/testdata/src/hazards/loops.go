@@ -1,5 +1,7 @@
 package hazards
 
+import "math"
+
 func loopUp() int {
 	n := 0
 	for x := 0.0; x != 1; x += 0.1 { // want `float loop variable x goes from 0 in steps of 0.1 and never equals 1 \(it passes from 0.9999999999999999 to 1.0999999999999999\), so the loop never stops`
@@ -70,4 +72,16 @@ func loopTimes() int {
 		n++
 	}
 	return n
+}
+
+// A search for an upper bracket stepping by a constant toward infinity: the
+// step is absorbed once x reaches 2^53 times it, short of +Inf, so x never
+// equals the bound and the loop runs forever where f stays below y.
+func bracketFlat(f func(float64) float64, y float64) float64 {
+	top := math.Inf(1)
+	x := 0.0
+	for x != top && f(x) < y { // want `float loop variable x is tested with != against top but changes by rounded arithmetic and may step over it`
+		x += 1
+	}
+	return x
 }

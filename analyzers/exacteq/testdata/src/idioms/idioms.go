@@ -426,3 +426,16 @@ func (s *sieve) margin() float64 {
 	}
 	return s.reach
 }
+
+// A bracket search whose step doubles each pass: x overflows onto +Inf
+// exactly within about 1100 passes, and no float lies beyond an infinity
+// to step over, so the exact test against it ends the loop.
+func bracketDoubling(f func(float64) float64, y float64) float64 {
+	top := math.Inf(1)
+	x, d := 0.0, 1.0
+	for x != top && f(x) < y {
+		x += d
+		d *= 2
+	}
+	return x
+}

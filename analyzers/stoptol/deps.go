@@ -247,6 +247,44 @@ func (d *deps) additive(v *types.Var) (ast.Expr, bool) {
 	return step, len(d.rhs[v]) > 0
 }
 
+// doubling reports whether every update of v moves it away from a value b
+// the loop does not change, by v's own distance to b (v -= b - v,
+// v += v - b, v = v - (b - v)): the distance doubles each pass, so a step
+// that is not 0 on entry never falls below the spacing of v, and v
+// overflows to an infinity within about 2100 passes.
+func (d *deps) doubling(v *types.Var) bool {
+	updates := 0
+	for i, r := range d.rhs[v] {
+		if r.Pos() < d.l.stmt.Pos() || r.End() > d.l.stmt.End() {
+			continue // set before the loop (a bracket widened once)
+		}
+		updates++
+		tok := d.tokens[v][i]
+		step, ok := d.stepIn(v, tok, r)
+		diff, isDiff := ast.Unparen(step).(*ast.BinaryExpr)
+		if !ok || !isDiff || diff.Op != token.SUB {
+			return false
+		}
+		sub := tok == token.SUB_ASSIGN
+		if outer, isBin := ast.Unparen(r).(*ast.BinaryExpr); tok == token.ASSIGN && isBin {
+			sub = outer.Op == token.SUB
+		}
+		other := diff.X // v -= b - v
+		if !sub {
+			other = diff.Y // v += v - b
+		}
+		if self := map[bool]ast.Expr{true: diff.Y, false: diff.X}[sub]; subjectOf(d.info, self) != v {
+			return false
+		}
+		for _, w := range d.reads(other) {
+			if w == v || len(assignments(d.info, d.l.stmt, w)) > 0 {
+				return false
+			}
+		}
+	}
+	return updates > 0
+}
+
 func (d *deps) stepIn(v *types.Var, tok token.Token, rhs ast.Expr) (ast.Expr, bool) {
 	switch tok {
 	case token.ADD_ASSIGN, token.SUB_ASSIGN:

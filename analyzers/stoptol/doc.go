@@ -122,7 +122,12 @@
 //   - scans by a constant step from a constant start, by a step the caller
 //     gives (a parameter, a field, data), by a span divided by a count
 //     ((hi-lo)/n, zero only when the span is, and then x < hi fails at
-//     once), or by a step that cannot round to zero (1/slope);
+//     once), or by a step that cannot round to zero (1/slope); and a
+//     bracket end pushed away from the other end by the bracket's own
+//     width (lo -= hi - lo, hi += hi - lo, the other end fixed in the
+//     loop): the width doubles each pass, so a step that is not 0 on entry
+//     never falls below the spacing, and the end overflows to an infinity
+//     within about 2100 passes;
 //   - exits on errors count as no bound, but loops with another exit on
 //     data (a length, a state flag) are left alone;
 //   - range reductions in unexported functions or internal packages (their

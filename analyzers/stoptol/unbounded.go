@@ -188,6 +188,9 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if isConst || !d.canVanish(step, 4) {
 		return // a scan: the caller chose the step and the bounds
 	}
+	if d.doubling(x) {
+		return // x -= b - x: the step doubles each pass
+	}
 	c.reportLoop(d, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and nothing caps the passes; add an iteration limit",
 		x.Name(), fixes.Source(c.pass.Fset, step), x.Name(), f.U, x.Name(), f.Name, x.Name()), d.stepSource(step)...)
 }

@@ -284,3 +284,13 @@ func declaredInside(x float64) float64 {
 		}
 	}
 }
+
+// SettleOnto moves a probe onto a target by its own distance to it: the
+// step target - x shrinks to 0 (after one pass exactly), so a test that
+// still holds there keeps the loop running.
+func SettleOnto(level func(float64) float64, x, target float64) float64 {
+	for level(x) > 0.5 { // want `loop advances x by the computed step target - x and ends only on float tests`
+		x += target - x
+	}
+	return x
+}

@@ -221,3 +221,21 @@ func halfStepCounted(g func(float64) float64, x float64) float64 {
 		x = g(x)
 	}
 }
+
+// WidenBracket pushes the low end of a bracket away from the high end by
+// the bracket's own width: the width doubles each pass, so a step that is
+// not 0 on entry (the ends were made distinct first) never falls below the
+// spacing of lo, and lo overflows to -Inf within about 2100 passes, where a
+// distribution function is 0.
+func WidenBracket(cdf func(float64) float64, lo, hi float64) (float64, float64) {
+	if lo == hi {
+		lo, hi = lo-1, hi+1
+	}
+	for cdf(lo) > 0.005 {
+		lo -= hi - lo
+	}
+	for cdf(hi) < 0.995 {
+		hi += hi - lo
+	}
+	return lo, hi
+}

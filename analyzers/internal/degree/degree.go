@@ -614,7 +614,8 @@ func isInteger(t types.Type) bool {
 // non-negative terms excepted), a remainder (math.Mod, math.Remainder: an
 // exact difference x - k·y), a product or quotient with such a factor, a
 // variable every value of which cancels, or a call of a function of the
-// package whose result does. Near zero such a quantity is made of its
+// package whose result does (the i-th of several results, for a variable
+// given several at once: d, ok := split(a, b)). Near zero such a quantity is made of its
 // terms' rounding, eps times their size; a product of values that do not
 // cancel keeps a relative error, eps times its own size.
 func (r *Reader) Cancels(fd *ast.FuncDecl, e ast.Expr) bool {
@@ -653,7 +654,7 @@ func (r *Reader) cancels(x ast.Expr, self bool, depth int) bool {
 			}
 		}
 	case *ast.CallExpr:
-		return r.callCancels(e, depth)
+		return r.callCancels(e, 0, depth)
 	}
 	return false
 }
@@ -677,12 +678,21 @@ func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
 	}
 	r.busy[v] = true
 	defer delete(r.busy, v)
-	c := false
-	for _, s := range sets {
-		if s == nil || r.isMake(s) {
-			continue
+	values := func(yield func(bool) bool) {
+		for _, s := range sets {
+			if s != nil && !r.isMake(s) && !yield(r.cancels(s, self, depth+1)) {
+				return
+			}
 		}
-		if c = r.cancels(s, self, depth+1); c == r.elems[v] {
+		for _, t := range r.tuples[v] {
+			if !yield(r.callCancels(t.call, t.i, depth+1)) {
+				return
+			}
+		}
+	}
+	c := false
+	for c = range values {
+		if c == r.elems[v] {
 			break // one value that does not cancel decides for a variable, one that does for elements
 		}
 	}
@@ -692,7 +702,7 @@ func (r *Reader) varCancels(id *ast.Ident, self bool, depth int) bool {
 
 // callCancels reports whether a call's result can cancel: a remainder,
 // or a function of the package whose returned value cancels.
-func (r *Reader) callCancels(call *ast.CallExpr, depth int) bool {
+func (r *Reader) callCancels(call *ast.CallExpr, i int, depth int) bool {
 	fn, ok := typeutil.Callee(r.info, call).(*types.Func)
 	if !ok || fn.Pkg() == nil {
 		return false
@@ -708,8 +718,8 @@ func (r *Reader) callCancels(call *ast.CallExpr, depth int) bool {
 	self := sameOperands(call)
 	found := false
 	ast.Inspect(fd.Body, func(n ast.Node) bool {
-		if ret, ok := n.(*ast.ReturnStmt); ok && len(ret.Results) > 0 {
-			found = found || r.cancels(ret.Results[0], self, depth+1)
+		if ret, ok := n.(*ast.ReturnStmt); ok && i < len(ret.Results) {
+			found = found || r.cancels(ret.Results[i], self, depth+1)
 		}
 		_, lit := n.(*ast.FuncLit)
 		return !found && !lit

@@ -57,6 +57,8 @@ func roots(a, b, c float64) (float64, float64) {
 	return r1, r2
 }
 
+func cross(p, q vec) (float64, bool) { return p.wedge(q), p != q }
+
 func along(p0, p1 vec, t float64) vec {
 	p0 = p0.times(1 - t)
 	p1 = p1.times(t)
@@ -106,7 +108,8 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 	}
 	gap := gaps[1]
 	power := a0.x*a0.x + a0.y*a0.y + b0.x*b0.x
-	_, _, _, _, _ = jac, shift, sqdev, gap, power
+	split, _ := cross(a0, b0)
+	_, _, _, _, _, _ = jac, shift, sqdev, gap, power, split
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
@@ -166,6 +169,7 @@ func TestDegrees(t *testing.T) {
 		{"gap", 1, true, true},      // elements stored from differences: those elements are their terms' rounding near zero
 		{"sqdev", 2, true, false},   // elements stored from a square made afresh in each pass: an area-like square, whose error is relative
 		{"power", 2, true, false},   // a sum of three squares: non-negative terms never cancel, its error is relative (Higham 2002 §4.2)
+		{"split", 2, true, true},    // the first of two results, a cross product
 	} {
 		d, ok, cancels := read(c.name)
 		require.Equal(t, c.ok, ok, c.name)

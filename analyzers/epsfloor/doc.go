@@ -69,7 +69,8 @@
 //     InEpsilonSlice), and to functions and struct fields of any package
 //     that use a parameter or field as such a tolerance, directly or by
 //     passing it on to one (wrappers of wrappers; carried across packages
-//     as facts): the call argument, composite-literal field or
+//     as facts), also through a local copy (tol := o.Tol, with or
+//     without a default): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
 //     is reported.
 //

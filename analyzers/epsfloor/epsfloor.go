@@ -143,21 +143,24 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
-	if field := tolerance.FieldOf(c.pass.TypesInfo, t.Tol); field != nil && field.Pkg() == c.pass.Pkg {
+	decl := enclosingDecl(cur)
+	origin := t.Tol
+	if decl != nil {
+		origin = c.uses.Origin(decl, t.Tol) // tol := o.Tol: the field is the tolerance
+	}
+	if field := tolerance.FieldOf(c.pass.TypesInfo, origin); field != nil && field.Pkg() == c.pass.Pkg {
 		c.uses.Field(field, u)
-		return
 	}
 	id, ok := ast.Unparen(t.Tol).(*ast.Ident)
-	if !ok {
+	if !ok || decl == nil {
 		return
 	}
-	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
-		decl := fd.Node().(*ast.FuncDecl)
-		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
+	if param, ok := ast.Unparen(origin).(*ast.Ident); ok {
+		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, param); ok {
 			c.uses.Param(fn, i, u)
 		}
-		c.defaults(decl, id, u)
 	}
+	c.defaults(decl, id, u)
 }
 
 // wrappers learns the parameters and fields a function passes on, as they

@@ -176,27 +176,34 @@ func (c *checker) resolve(cur inspector.Cursor, tol ast.Expr, u use, test ast.No
 	if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tol); ok {
 		return source{constant: true, value: u.format().Value(v)}
 	}
-	if field := tolerance.FieldOf(c.pass.TypesInfo, tol); field != nil {
-		c.uses.Field(field, u)
-		c.learned(u, test)
-		return source{learned: true}
+	var decl *ast.FuncDecl
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		decl = fd.Node().(*ast.FuncDecl)
 	}
-	id, ok := ast.Unparen(tol).(*ast.Ident)
-	if !ok {
-		return source{}
+	origin := tol
+	if decl != nil {
+		origin = c.uses.Origin(decl, tol) // tol := o.Tol: the field is the tolerance
 	}
 	src := source{}
-	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
-		decl := fd.Node().(*ast.FuncDecl)
-		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, id); ok {
+	if field := tolerance.FieldOf(c.pass.TypesInfo, origin); field != nil {
+		c.uses.Field(field, u)
+		c.learned(u, test)
+		src.learned = true
+	}
+	id, ok := ast.Unparen(tol).(*ast.Ident)
+	if !ok || decl == nil {
+		return src
+	}
+	if param, ok := ast.Unparen(origin).(*ast.Ident); ok {
+		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, param); ok {
 			c.uses.Param(fn, i, u)
 			c.learned(u, test)
 			src.learned = true
 		}
-		v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
-		for _, val := range c.uses.DefaultsOf(decl)[v] {
-			c.site(val, u, "given as the default of "+id.Name, test)
-		}
+	}
+	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
+	for _, val := range c.uses.DefaultsOf(decl)[v] {
+		c.site(val, u, "given as the default of "+id.Name, test)
 	}
 	return src
 }

@@ -142,6 +142,62 @@ func Defaults(info *types.Info, body ast.Node) map[*types.Var][]ast.Expr {
 	return out
 }
 
+// Copies returns, for each local variable of body whose only value that is
+// not a constant is one parameter or field (tol := o.Tol, with or without
+// a default if tol == 0 { tol = 1e-9 }), that parameter or field: the
+// caller's value reaches every test of the copy that no constant replaced.
+// A variable changed in any other way (tol *= 10, &tol) is no copy.
+func Copies(info *types.Info, body ast.Node) map[*types.Var]ast.Expr {
+	vals := make(map[*types.Var][]ast.Expr)
+	bad := make(map[*types.Var]bool)
+	give := func(l, e ast.Expr) {
+		if v := VarOf(info, l); v != nil && info.Types[e].Value == nil {
+			vals[v] = append(vals[v], e)
+		}
+	}
+	spoil := func(e ast.Expr) {
+		if v := VarOf(info, e); v != nil {
+			bad[v] = true
+		}
+	}
+	ast.Inspect(body, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			for i, l := range n.Lhs {
+				if len(n.Lhs) == len(n.Rhs) && (n.Tok == token.ASSIGN || n.Tok == token.DEFINE) {
+					give(l, n.Rhs[i])
+				} else {
+					spoil(l)
+				}
+			}
+		case *ast.ValueSpec:
+			for i, name := range n.Names {
+				if len(n.Values) == len(n.Names) {
+					give(name, n.Values[i])
+				}
+			}
+		case *ast.IncDecStmt:
+			spoil(n.X)
+		case *ast.RangeStmt:
+			spoil(n.Key)
+			spoil(n.Value)
+		case *ast.UnaryExpr:
+			if n.Op == token.AND {
+				spoil(n.X)
+			}
+		}
+		return true
+	})
+	out := make(map[*types.Var]ast.Expr)
+	for v, es := range vals {
+		e := ast.Unparen(es[0])
+		if _, isID := e.(*ast.Ident); len(es) == 1 && !bad[v] && (isID || FieldOf(info, e) != nil) {
+			out[v] = e
+		}
+	}
+	return out
+}
+
 // zeroTest returns v when cond is v == 0 or v <= 0.
 func zeroTest(info *types.Info, cond ast.Expr) *types.Var {
 	b, ok := ast.Unparen(cond).(*ast.BinaryExpr)

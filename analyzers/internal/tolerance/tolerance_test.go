@@ -213,3 +213,35 @@ func TestJudge(t *testing.T) {
 	}
 	assert.Equal(t, math.Ldexp(1, -511), tolerance.UnderflowGuard)
 }
+
+// TestCopies checks which local variables hand a parameter or a field on
+// to their tests unchanged (common practice: a copy with a default, tol :=
+// o.Tol; if tol == 0 { tol = c }, is how options reach a loop).
+func TestCopies(t *testing.T) {
+	info, body := funcBody(t, `func f(o struct{ Tol float64 }, tol float64) {
+	copied := o.Tol
+	if copied == 0 {
+		copied = 1e-9
+	}
+	again := copied
+	passed := tol
+	scaled := tol
+	scaled *= 1e6
+	mixed := tol
+	mixed = o.Tol
+	_, _, _, _, _ = copied, again, passed, scaled, mixed
+}`)
+	copies := tolerance.Copies(info, body)
+	name := func(v string) string {
+		e, ok := copies[info.Uses[ident(body.List[len(body.List)-1], v)].(*types.Var)]
+		if !ok {
+			return ""
+		}
+		return types.ExprString(e)
+	}
+	assert.Equal(t, "o.Tol", name("copied"), "the default is a constant")
+	assert.Equal(t, "copied", name("again"), "a copy of a copy, followed by Origin")
+	assert.Equal(t, "tol", name("passed"))
+	assert.Empty(t, name("scaled"), "scaled: the tolerance tested is not the one given")
+	assert.Empty(t, name("mixed"), "two sources")
+}

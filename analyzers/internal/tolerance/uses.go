@@ -44,11 +44,12 @@ type Uses[U fmt.Stringer] struct {
 	params    map[*types.Func]map[int]U
 	fields    map[*types.Var]U
 	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
+	copies    map[*ast.FuncDecl]map[*types.Var]ast.Expr
 }
 
 // NewUses returns an empty Uses for pass.
 func NewUses[U fmt.Stringer](pass *analysis.Pass) *Uses[U] {
-	return &Uses[U]{pass: pass, params: map[*types.Func]map[int]U{}, fields: map[*types.Var]U{}, defaulted: map[*ast.FuncDecl]map[*types.Var][]ast.Expr{}}
+	return &Uses[U]{pass: pass, params: map[*types.Func]map[int]U{}, fields: map[*types.Var]U{}, defaulted: map[*ast.FuncDecl]map[*types.Var][]ast.Expr{}, copies: map[*ast.FuncDecl]map[*types.Var]ast.Expr{}}
 }
 
 // Param records parameter i of fn as a tolerance.
@@ -71,6 +72,9 @@ func (u *Uses[U]) Field(field *types.Var, use U) {
 // package; it reports whether that is new.
 func (u *Uses[U]) Forward(cur inspector.Cursor, val ast.Expr, use U, known Lookup[U]) bool {
 	info := u.pass.TypesInfo
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		val = u.Origin(fd.Node().(*ast.FuncDecl), val) // t := tol, handed on: the parameter is
+	}
 	if field := FieldOf(info, val); field != nil && field.Pkg() == u.pass.Pkg {
 		if _, ok := known.Field(field); !ok {
 			u.Field(field, use)
@@ -137,4 +141,22 @@ func (u *Uses[U]) DefaultsOf(decl *ast.FuncDecl) map[*types.Var][]ast.Expr {
 		u.defaulted[decl] = d
 	}
 	return d
+}
+
+// Origin returns the parameter or field that e, a local variable of decl,
+// copies (see Copies), following copies of copies; else e.
+func (u *Uses[U]) Origin(decl *ast.FuncDecl, e ast.Expr) ast.Expr {
+	c, ok := u.copies[decl]
+	if !ok {
+		c = Copies(u.pass.TypesInfo, decl.Body)
+		u.copies[decl] = c
+	}
+	for range 4 {
+		src, ok := c[VarOf(u.pass.TypesInfo, e)]
+		if !ok {
+			break
+		}
+		e = src
+	}
+	return e
 }

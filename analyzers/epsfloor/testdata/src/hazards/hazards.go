@@ -142,6 +142,33 @@ func callsSolve(a, b float64) bool {
 	return solve(a, b, tight) // want `tight \(1e-18\), passed as tol to solve \(a relative tolerance of float64 in [A-Za-z]+, tested at \w+\.go:\d+\), is below`
 }
 
+// Limits holds a tolerance that its reader copies, with a default, before
+// the test: the field still reaches the test whenever it is set.
+type Limits struct {
+	Rel float64 // want Rel:"a relative tolerance of float64 in within"
+}
+
+func (l Limits) within(a, b float64) bool {
+	rel := l.Rel
+	if rel == 0 {
+		rel = 4 * 0x1p-52
+	}
+	return math.Abs(a-b) <= rel*math.Abs(b)
+}
+
+func tightLimits() Limits {
+	return Limits{Rel: 1e-20} // want `1e-20, set as field Rel \(a relative tolerance of float64 in within, tested at \w+\.go:\d+\), is below`
+}
+
+func agree(a, b, tol float64) bool { // want agree:"parameter 2 is a relative tolerance of float64 in agree"
+	t := tol
+	return math.Abs(a-b) <= t*math.Abs(b)
+}
+
+func callsAgree(a, b float64) bool {
+	return agree(a, b, 1e-19) // want `1e-19, passed as tol to agree \(a relative tolerance of float64 in agree, tested at \w+\.go:\d+\), is below`
+}
+
 func stepTest(x float64) float64 {
 	for range 50 {
 		step := x/2 - 1

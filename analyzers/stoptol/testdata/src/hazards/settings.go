@@ -65,3 +65,32 @@ func checkGradient(grad []float64, gradThresh float64) bool { // want checkGradi
 func gradientLiteral(gnorm float64) bool {
 	return gnorm < 1e-11 // want `absolute gradient-norm threshold 1e-11 ignores the scale of f`
 }
+
+// Bracket configures a golden-section search whose loop reads a copy.
+type Bracket struct {
+	Width float64 // want Width:"an absolute x-tolerance of a minimization in Shrink"
+}
+
+// Shrink searches [a, b] for a minimum of f, with a default width.
+func (s Bracket) Shrink(f func(float64) float64, a, b float64) float64 {
+	width := s.Width
+	if width == 0 {
+		width = 1e-6
+	}
+	for i := 0; i < 100; i++ {
+		c, d := b-invPhi*(b-a), a+invPhi*(b-a)
+		if f(c) < f(d) {
+			b = d
+		} else {
+			a = c
+		}
+		if b-a < width {
+			break
+		}
+	}
+	return a
+}
+
+func narrowBracket() Bracket {
+	return Bracket{Width: 1e-13} // want `1e-13, set as field Width \(an absolute x-tolerance of a minimization in Shrink\), is too tight`
+}

@@ -16,6 +16,8 @@
 //     math.Log2: 1±x rounds to 1 for |x| below 5.55e-17, so the logarithm
 //     is 0, and loses about log10(1/|x|) digits for larger small x;
 //     math.Log1p(x) keeps them all (divided by math.Ln10 or math.Ln2);
+//     also where a variable holds the sum (g := 1 + r; math.Log(g)),
+//     with no fix, since r may have changed since;
 //     math.Log((1+x)/(1-x)) likewise, where 2*math.Atanh(x) keeps them;
 //   - math.Log(a) - math.Log(b) (also Log10, Log2, through variables)
 //     consumed to relative accuracy (a divisor, a root, a logarithm, a

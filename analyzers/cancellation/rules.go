@@ -20,7 +20,8 @@ import (
 // and 2: 1±x rounds away the digits of a small x before the logarithm
 // sees them.
 func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
-	x, neg, ok := c.onePlus(call.Args[0])
+	sum, indirect := c.through(call.Args[0])
+	x, neg, ok := c.onePlus(sum)
 	if !ok {
 		return // Log(x-1) and Log(2+x) lose nothing to 1
 	}
@@ -49,11 +50,21 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		// math.Log10 return exactly (TestExactPowers).
 		fix = fixes.Judgement("Replace with "+text, fixes.Replace(call, text))
 	}
-	fixes.Report(c.pass, analysis.Diagnostic{
+	head := fmt.Sprintf("math.%s(%s)%s", name, form, binding("x", x))
+	if indirect {
+		held := types.ExprString(call.Args[0])
+		head = fmt.Sprintf("math.%s(%s), %[2]s = %s%s,", name, held, form, binding("x", x))
+	}
+	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catLog1p,
-		Message: fmt.Sprintf("math.%s(%s)%s returns 0 for |x| below %.3g, where %[2]s rounds to 1, and loses about log10(1/|x|) digits for small x; use %[5]s",
-			name, form, binding("x", x), unitRoundoff/2, use),
-	}, fix)
+		Message: fmt.Sprintf("%s returns 0 for |x| below %.3g, where %s rounds to 1, and loses about log10(1/|x|) digits for small x; use %s",
+			head, unitRoundoff/2, form, use),
+	}
+	if indirect {
+		fixes.Report(c.pass, d) // the sum is stored in a variable: x may have changed since
+		return
+	}
+	fixes.Report(c.pass, d, fix)
 }
 
 // negate returns the source of -x.

@@ -180,3 +180,17 @@ func tinyGap(t float64) float64 {
 	u := math.Cos(t)
 	return u - math.Sqrt(u*u+1e-12) // want `u ± math.Sqrt\(u\*u\+c\) with c = 1e-12 cancels`
 }
+
+// logReturn is a rate's log-return with the gross factor named first: the
+// variable holds 1+r, rounded before the logarithm sees it (no fix: r may
+// have changed since).
+func logReturn(r float64) float64 {
+	gross := 1 + r
+	return math.Log(gross) // want `math.Log\(gross\), gross = 1\+x with x = r, returns 0 for \|x\| below 5.55e-17`
+}
+
+// doubled holds 2+r, which loses nothing to 1: log(2+r) is far from 0.
+func doubled(r float64) float64 {
+	gross := 2 + r
+	return math.Log(gross)
+}

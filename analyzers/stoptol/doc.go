@@ -46,7 +46,10 @@
 //     lower confidence (category fscale);
 //   - loops whose only exits are such tolerance tests and that have no
 //     iteration cap, when the tolerance is too tight, or is a parameter or
-//     field that a caller may set too tight (category nocap); and
+//     field that a caller may set too tight (category nocap); a cap in the
+//     loop condition beside an operand the loop does not change (for i :=
+//     0; max == 0 || i < max; i++) is off wherever that operand holds, and
+//     so caps nothing on that path; and
 //     backtracking loops that shrink a step until a sufficient-decrease test
 //     holds with neither a floor on the step nor a cap (category
 //     backtrack);

@@ -82,7 +82,7 @@ func (c *checker) loop(cur inspector.Cursor, l *loop) {
 	if allX && !l.other && !l.capped && risky {
 		fixes.Report(c.pass, analysis.Diagnostic{
 			Pos: l.stmt.For, End: l.stmt.For + 3, Category: catNoCap,
-			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and nothing caps the iterations; add an iteration limit", l.class, numeric.Float64.Eps),
+			Message: fmt.Sprintf("%s may not terminate: its only exits are tolerance tests on x, which cannot pass when the tolerance is below the spacing of floats near x (%.3g·|x| in float64), and %s; add an iteration limit", l.class, numeric.Float64.Eps, c.uncapped(l, "iterations")),
 		})
 	} else {
 		c.unbounded(l)

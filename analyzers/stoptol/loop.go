@@ -49,6 +49,7 @@ type loop struct {
 	exits   []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
 	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
 	capped  bool       // an integer comparison bounds the iterations
+	capOff  ast.Expr   // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
@@ -61,7 +62,8 @@ type loop struct {
 // for statement of function fn.
 func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
 	l := &loop{function: fn, stmt: stmt, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
-	if stmt.Cond != nil {
+	l.capOff = invariantOr(info, stmt)
+	if stmt.Cond != nil && l.capOff == nil {
 		l.exits = append(l.exits, stmt.Cond)
 	}
 	l.walk(stmt.Body, nil)
@@ -283,6 +285,79 @@ func hasIntComparison(info *types.Info, e ast.Expr) bool {
 			if t, ok := info.TypeOf(b.X).Underlying().(*types.Basic); ok && t.Info()&types.IsInteger != 0 {
 				found = true
 			}
+		}
+		return !found
+	})
+	return found
+}
+
+// invariantOr returns the operand of the loop condition A || B that the
+// loop does not change (for i := 0; max == 0 || i < max; i++): where it
+// holds the condition never fails, so on that path the loop has no
+// condition and the cap beside it caps nothing. It returns nil when there
+// is no such operand, or it is a constant.
+func invariantOr(info *types.Info, stmt *ast.ForStmt) ast.Expr {
+	or, ok := ast.Unparen(stmt.Cond).(*ast.BinaryExpr)
+	if !ok || or.Op != token.LOR {
+		return nil
+	}
+	changed := map[types.Object]bool{}
+	for _, n := range []ast.Node{stmt.Post, stmt.Body} {
+		if n == nil {
+			continue
+		}
+		ast.Inspect(n, func(n ast.Node) bool {
+			switch n := n.(type) {
+			case *ast.AssignStmt:
+				for _, l := range n.Lhs {
+					changed[rootObj(info, l)] = true
+				}
+			case *ast.IncDecStmt:
+				changed[rootObj(info, n.X)] = true
+			case *ast.UnaryExpr:
+				if n.Op == token.AND {
+					changed[rootObj(info, n.X)] = true
+				}
+			}
+			return true
+		})
+	}
+	for _, side := range []ast.Expr{or.X, or.Y} {
+		if tv := info.Types[side]; tv.Value == nil && !reads(info, side, changed) {
+			return side
+		}
+	}
+	return nil
+}
+
+// rootObj returns the variable at the root of x, x.f, x[i], *x.
+func rootObj(info *types.Info, e ast.Expr) types.Object {
+	for {
+		switch x := ast.Unparen(e).(type) {
+		case *ast.SelectorExpr:
+			e = x.X
+		case *ast.IndexExpr:
+			e = x.X
+		case *ast.StarExpr:
+			e = x.X
+		case *ast.Ident:
+			return info.ObjectOf(x)
+		default:
+			return nil
+		}
+	}
+}
+
+// reads reports whether e reads a variable in vars, or calls anything
+// (a call may read state the loop changes).
+func reads(info *types.Info, e ast.Expr, vars map[types.Object]bool) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.CallExpr:
+			found = found || !info.Types[n.Fun].IsType()
+		case *ast.Ident:
+			found = found || vars[info.ObjectOf(n)]
 		}
 		return !found
 	})

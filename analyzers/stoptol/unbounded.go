@@ -37,14 +37,14 @@ func (c *checker) unbounded(l *loop) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)
-	for i, e := range l.exits {
+	for _, e := range l.exits {
 		switch {
 		case d.errorTest(e):
 			continue // a failure exit bounds nothing
 		case !d.floatTest(e):
 			return // an exit on something else: data, a state flag
 		}
-		d.tests = append(d.tests, exitTest{e, i == 0 && l.stmt.Cond != nil})
+		d.tests = append(d.tests, exitTest{e, e == l.stmt.Cond})
 	}
 	if len(d.tests) == 0 || d.noFloatLeft() {
 		return // no float test, or bisection until no float is left between the ends
@@ -67,8 +67,8 @@ func (c *checker) unbounded(l *loop) {
 		return // the tests read values the loop does not carry from pass to pass
 	}
 	if series {
-		c.reportLoop(d, catNoCap, fmt.Sprintf("series may never end: its only exits test the term (%s) and nothing caps the passes, so a NaN term, for which the test is false, or a sum that stalls keeps it running; add an iteration limit",
-			c.exitText(d.tests[0].e)))
+		c.reportLoop(d, catNoCap, fmt.Sprintf("series may never end: its only exits test the term (%s) and %s, so a NaN term, for which the test is false, or a sum that stalls keeps it running; add an iteration limit",
+			c.exitText(d.tests[0].e), c.uncapped(l, "passes")))
 		return
 	}
 	for _, v := range d.near(tested) {
@@ -84,8 +84,18 @@ func (c *checker) unbounded(l *loop) {
 	if nanRuns {
 		nan = ", and so does a NaN, which fails every ordered comparison"
 	}
-	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and nothing caps the passes, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
-		c.exitText(d.tests[0].e), nan))
+	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and %s, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
+		c.exitText(d.tests[0].e), c.uncapped(l, "passes"), nan))
+}
+
+// uncapped says, for a message, that nothing caps the loop's passes (or
+// what), or that the cap of its condition is off where an operand beside
+// it holds.
+func (c *checker) uncapped(l *loop, what string) string {
+	if l.capOff != nil {
+		return "its cap is off when " + fixes.Source(c.pass.Fset, l.capOff) + " (" + fixes.Source(c.pass.Fset, l.stmt.Cond) + " then never fails)"
+	}
+	return "nothing caps the " + what
 }
 
 // exitText writes an exit test for a message, with the value of a named
@@ -191,8 +201,8 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if d.doubling(x) {
 		return // x -= b - x: the step doubles each pass
 	}
-	c.reportLoop(d, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and nothing caps the passes; add an iteration limit",
-		x.Name(), fixes.Source(c.pass.Fset, step), x.Name(), f.U, x.Name(), f.Name, x.Name()), d.stepSource(step)...)
+	c.reportLoop(d, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and %s; add an iteration limit",
+		x.Name(), fixes.Source(c.pass.Fset, step), x.Name(), f.U, x.Name(), f.Name, x.Name(), c.uncapped(l, "passes")), d.stepSource(step)...)
 }
 
 // stepSource names where a step variable is computed, when it is a

@@ -294,3 +294,23 @@ func SettleOnto(level func(float64) float64, x, target float64) float64 {
 	}
 	return x
 }
+
+// Relaxer settles a fixed point with an optional cap: zero means no limit.
+type Relaxer struct {
+	MaxPasses int
+	Tol       float64
+}
+
+// Settle stops on the change alone when MaxPasses is 0: the cap beside
+// the zero test is off there, and a change that stalls above Tol (or is
+// NaN) keeps it running.
+func (r Relaxer) Settle(next func(float64) float64, x float64) float64 {
+	for i := 0; r.MaxPasses == 0 || i < r.MaxPasses; i++ {
+		y := next(x)
+		if math.Abs(y-x) < r.Tol { // want `iteration may never end: its only exits are float tests \(math.Abs\(y-x\) < r.Tol\) and its cap is off when r.MaxPasses == 0 \(r.MaxPasses == 0 \|\| i < r.MaxPasses then never fails\)`
+			return y
+		}
+		x = y
+	}
+	return x
+}

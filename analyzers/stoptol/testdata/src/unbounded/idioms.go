@@ -239,3 +239,19 @@ func WidenBracket(cdf func(float64) float64, lo, hi float64) (float64, float64) 
 	}
 	return lo, hi
 }
+
+// settleBounded keeps a hard cap in the body beside the optional one of
+// its condition: every path is bounded.
+func settleBounded(next func(float64) float64, x, tol float64, max int) float64 {
+	for i := 0; max == 0 || i < max; i++ {
+		if i >= 10000 {
+			break
+		}
+		y := next(x)
+		if math.Abs(y-x) < tol {
+			return y
+		}
+		x = y
+	}
+	return x
+}

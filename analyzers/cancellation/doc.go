@@ -281,7 +281,14 @@
 // x - math.Floor(x), sines and cosines, and arithmetic on those) so that
 // u²/|c| stays within 100: the loss, about log10(u²/|c|) digits, is then
 // at most two, as in Cardano's formula on the fractional part of a
-// logarithm. The arc rule reads the cosine through
+// logarithm. It is silent on a ray meeting a quadric of definite form,
+// the quadratic a·t² + b·t + c with a = d·d, b = 2·d·o and c = o·o - w in
+// one dot product (a package method, or products of the same fields): c
+// is itself a difference, off by about u·o·o whichever way the roots are
+// formed, and (d·o)² ≤ (d·d)(o·o) (Cauchy–Schwarz) bounds b²/4a by o·o,
+// so the cancellation adds an error of the same order and the stable
+// form gains at most a small factor. A cone's indefinite form has no such
+// bound and stays reported. The arc rule reads the cosine through
 // the value last assigned to a variable (a clamp to [-1, 1] that
 // reassigns it included) and through the package's own wrappers of
 // math.Acos, Sin and Cos (no fix is offered there). It is silent for other arguments,

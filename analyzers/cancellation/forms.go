@@ -103,7 +103,7 @@ func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
 // the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
 func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 	u, root, ok := c.rootSum(n)
-	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) {
+	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) || c.quadric(u, root) {
 		return
 	}
 	if call, isLog := c.parentCall(cur); isLog && c.mathFunc(call) == "Log" && c.isOne(root) {

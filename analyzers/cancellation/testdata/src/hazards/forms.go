@@ -194,3 +194,15 @@ func doubled(r float64) float64 {
 	gross := 2 + r
 	return math.Log(gross)
 }
+
+// beamEdge meets the cone x² + y² = k·z² of a transducer's beam: a =
+// dx² + dy² - k·dz² can be near 0 for a path along the cone, so no bound
+// ties b²/4a to the terms of c, and the near root loses what the
+// cancellation takes.
+func beamEdge(ox, oy, oz, dx, dy, dz, k float64) float64 {
+	a := dx*dx + dy*dy - k*dz*dz
+	b := 2 * (ox*dx + oy*dy - k*oz*dz)
+	c := ox*ox + oy*oy - k*oz*oz
+	disc := b*b - 4*a*c
+	return (-b + math.Sqrt(disc)) / (2 * a) // want `u ± math.Sqrt\(u\*u\+c\) with u = b, c = 4 \* a \* c cancels`
+}

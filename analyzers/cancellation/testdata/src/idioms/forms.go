@@ -522,3 +522,35 @@ func (f frame) inner(g frame) float64 { return f.p*g.p + f.q*g.q }
 
 func frameArc(f, g frame) float64 { return math.Acos(f.inner(g)) }
 
+
+// sonar is a ping's straight path through still water, from origin at
+// heading: a buoy is a sphere and a mooring line a vertical cylinder.
+type sonar struct{ origin, heading pos3 }
+
+type pos3 struct{ X, Y, Z float64 }
+
+func (p pos3) Dot(q pos3) float64 { return p.X*q.X + p.Y*q.Y + p.Z*q.Z }
+func (p pos3) Sub(q pos3) pos3    { return pos3{p.X - q.X, p.Y - q.Y, p.Z - q.Z} }
+
+// echoBuoy meets a sphere: c = o·o - r² is a difference whose error is
+// already about u·o·o, and (d·o)² ≤ (d·d)(o·o) (Cauchy–Schwarz) keeps
+// b²/4a below o·o, so the near root is as good either way.
+func echoBuoy(s sonar, centre pos3, r float64) float64 {
+	o := s.origin.Sub(centre)
+	a := s.heading.Dot(s.heading)
+	b := 2 * s.heading.Dot(o)
+	c := o.Dot(o) - r*r
+	disc := b*b - 4*a*c
+	return (-b + math.Sqrt(disc)) / (2 * a)
+}
+
+// echoMooring meets a vertical cylinder, written with fields: the same
+// bound holds over the X and Y components.
+func echoMooring(s sonar, r float64) float64 {
+	o, d := s.origin, s.heading
+	a := d.X*d.X + d.Y*d.Y
+	b := 2*o.X*d.X + 2*o.Y*d.Y
+	c := o.X*o.X + o.Y*o.Y - r*r
+	disc := b*b - 4*a*c
+	return (-b - math.Sqrt(disc)) / (2 * a)
+}

@@ -74,6 +74,8 @@
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
 //     is reported.
 //
+// A difference bounded from both sides, -tol < a-b && a-b < tol, is read
+// as |a-b| < tol (package tolerance), with no fix: tol is written twice.
 // A tolerance test is read through any absolute value (math.Abs, the Abs
 // of a float32 math library, a package's own helper; see package absval),
 // so float32 code through its own math library is judged against float32's

@@ -118,7 +118,7 @@ func run(pass *analysis.Pass) (any, error) {
 
 // comparison judges one ordered comparison that reads as a tolerance test.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
-	if c.aboveLargest(cur, n) {
+	if c.aboveLargest(cur, n) || c.read.InTwoSided(cur) {
 		return
 	}
 	t, ok := c.read.Recognize(n)

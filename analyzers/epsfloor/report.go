@@ -235,7 +235,7 @@ func (c *checker) relativeFix(cur inspector.Cursor, t tolerance.Test, f numeric.
 	if !types.Identical(c.pass.TypesInfo.TypeOf(t.A), f64) || !types.Identical(c.pass.TypesInfo.TypeOf(t.B), f64) {
 		return nil
 	}
-	if t.Scale != nil || !within(t.Tol, t.Cmp) || !c.repeatable(cur, t) || fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
+	if t.Scale != nil || t.TwoSided || !within(t.Tol, t.Cmp) || !c.repeatable(cur, t) || fixes.SaysExact(c.pass.Fset, fileOf(cur), cur) {
 		return nil
 	}
 	name, edits, ok := fixes.Import(c.pass.TypesInfo, fileOf(cur), t.Cmp.Pos(), "math")

@@ -266,7 +266,7 @@ func (c *checker) scaledFix(cur inspector.Cursor, t tolerance.Test, u use, v ver
 		}
 		return []fixes.Fix{fixes.Judgement("Use "+lit, fixes.Replace(t.Tol, lit))}
 	}
-	if t.Kind != tolerance.Absolute || !within(t.B, t.Cmp) || !fixes.Pure(c.pass.TypesInfo, t.B) ||
+	if t.Kind != tolerance.Absolute || t.TwoSided || !within(t.B, t.Cmp) || !fixes.Pure(c.pass.TypesInfo, t.B) ||
 		!types.Identical(c.pass.TypesInfo.TypeOf(t.B), types.Typ[types.Float64]) {
 		return nil
 	}

@@ -5,15 +5,19 @@
 // width scaled by a constant ((b-a)/2, 0.5*|b-a|), and, where the caller
 // knows them to be widths, a bare difference hi-lo or a variable that
 // shrinks each pass. Local variables assigned once are followed, so
-// d := math.Abs(a-b); if d < tol is seen whole. epsfloor and stoptol share
+// d := math.Abs(a-b); if d < tol is seen whole, and a difference bounded
+// from both sides, -tol < a-b && a-b < tol, is |a-b| < tol. epsfloor and stoptol share
 // it, so both read a test the same way.
 package tolerance
 
 import (
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"math"
+
+	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/absval"
 	"roundoff/internal/numeric"
@@ -46,6 +50,9 @@ type Test struct {
 	// (b-a)/2 < tol, which holds when |b-a| < tol/Factor. Recognize sets
 	// it, 1 when there is none.
 	Factor float64
+	// TwoSided marks -tol < a-b && a-b < tol, read as |a-b| < tol: Cmp is
+	// then the && and Tol the upper bound, one of two places tol is written.
+	TwoSided bool
 }
 
 // Reader reads tolerance tests in one package.
@@ -71,10 +78,13 @@ func Recognize(info *types.Info, decls map[types.Object]ast.Expr, cmp *ast.Binar
 	return Reader{Info: info, Decls: decls}.Recognize(cmp)
 }
 
-// Recognize reads cmp, an ordered comparison, as a tolerance test.
+// Recognize reads cmp, an ordered comparison or a two-sided one (a-b >
+// -tol && a-b < tol), as a tolerance test.
 func (r Reader) Recognize(cmp *ast.BinaryExpr) (Test, bool) {
 	switch cmp.Op {
 	case token.LSS, token.LEQ, token.GTR, token.GEQ:
+	case token.LAND:
+		return r.twoSided(cmp)
 	default:
 		return Test{}, false
 	}
@@ -85,6 +95,73 @@ func (r Reader) Recognize(cmp *ast.BinaryExpr) (Test, bool) {
 		}
 	}
 	return Test{}, false
+}
+
+// bound is one side of a two-sided test: m < t when upper, else m > t.
+type bound struct {
+	m, t  ast.Expr
+	upper bool
+}
+
+// bounds reads an ordered comparison both ways round: x < y bounds x
+// from above and y from below.
+func bounds(e ast.Expr) []bound {
+	c, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok {
+		return nil
+	}
+	switch c.Op {
+	case token.LSS, token.LEQ:
+		return []bound{{c.X, c.Y, true}, {c.Y, c.X, false}}
+	case token.GTR, token.GEQ:
+		return []bound{{c.X, c.Y, false}, {c.Y, c.X, true}}
+	}
+	return nil
+}
+
+// twoSided reads -tol < a-b && a-b < tol (in any order and orientation)
+// as |a-b| < tol: both sides bound one difference, by a tolerance and its
+// negation.
+func (r Reader) twoSided(and *ast.BinaryExpr) (Test, bool) {
+	for _, x := range bounds(and.X) {
+		for _, y := range bounds(and.Y) {
+			hi, lo := x, y
+			if !hi.upper {
+				hi, lo = y, x
+			}
+			if !hi.upper || lo.upper || types.ExprString(ast.Unparen(hi.m)) != types.ExprString(ast.Unparen(lo.m)) || !r.negation(lo.t, hi.t) {
+				continue
+			}
+			if d, ok := r.follow(hi.m).(*ast.BinaryExpr); ok && d.Op == token.SUB {
+				return Test{Cmp: and, Kind: Absolute, A: d.X, B: d.Y, Tol: hi.t, Factor: 1, TwoSided: true}, true
+			}
+		}
+	}
+	return Test{}, false
+}
+
+// InTwoSided reports whether the comparison at cur is one side of a
+// two-sided test, which is read whole at its &&.
+func (r Reader) InTwoSided(cur inspector.Cursor) bool {
+	for p := cur.Parent(); ; p = p.Parent() {
+		switch n := p.Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			_, ok := r.twoSided(n)
+			return n.Op == token.LAND && ok
+		}
+		return false
+	}
+}
+
+// negation reports whether neg is -t, written so or as constants.
+func (r Reader) negation(neg, t ast.Expr) bool {
+	if u, ok := ast.Unparen(neg).(*ast.UnaryExpr); ok && u.Op == token.SUB && types.ExprString(ast.Unparen(u.X)) == types.ExprString(ast.Unparen(t)) {
+		return true
+	}
+	a, b := r.Info.Types[neg].Value, r.Info.Types[t].Value
+	return a != nil && b != nil && constant.Compare(constant.UnaryOp(token.SUB, a, 0), token.EQL, b) && constant.Sign(b) > 0
 }
 
 // test reads m as a measure and tol as its tolerance.

@@ -245,3 +245,32 @@ func TestCopies(t *testing.T) {
 	assert.Empty(t, name("scaled"), "scaled: the tolerance tested is not the one given")
 	assert.Empty(t, name("mixed"), "two sources")
 }
+
+// TestTwoSided checks that a difference bounded from both sides by a
+// tolerance and its negation reads as |a-b| < tol (common practice:
+// -e < d && d < e is |d| < e, IEEE 754-2019 comparisons being exact).
+func TestTwoSided(t *testing.T) {
+	info, body := funcBody(t, `func f(a, b, e float64) []bool {
+	return []bool{
+		a-b > -e && a-b < e,
+		-1e-9 < a-b && a-b <= 1e-9,
+		a-b < e && -e < a-b,
+		a-b > -2*e && a-b < e,
+		-1e-9 < a-b && a-b < 1,
+	}
+}`)
+	elts := body.List[0].(*ast.ReturnStmt).Results[0].(*ast.CompositeLit).Elts
+	r := tolerance.Reader{Info: info}
+	for i, want := range []string{"e", "1e-9", "e", "", ""} {
+		test, ok := r.Recognize(elts[i].(*ast.BinaryExpr))
+		if want == "" {
+			assert.False(t, ok, i)
+			continue
+		}
+		require.True(t, ok, i)
+		assert.True(t, test.TwoSided, i)
+		assert.Equal(t, tolerance.Absolute, test.Kind, i)
+		assert.Equal(t, want, types.ExprString(test.Tol), i)
+		assert.Equal(t, "a", types.ExprString(test.A), i)
+	}
+}

@@ -353,3 +353,18 @@ func levelled(a, b float64) bool {
 func nudged(x float32) float32 {
 	return math.Nextafter32(x, x) // want `math.Nextafter32\(x, x\) steps toward its own value`
 }
+
+// straddles bounds a difference from both sides: |a-b| < 1e-20 written
+// without an absolute value.
+func straddles(a, b float64) bool {
+	return -1e-20 < a-b && a-b < 1e-20 // want `absolute tolerance 1e-20 is below float64 epsilon`
+}
+
+// inBand is a two-sided helper: its tolerance is its callers'.
+func inBand(a, b, e float64) bool { // want inBand:"parameter 2 is an absolute tolerance of float64 in inBand"
+	return a-b > -e && a-b < e
+}
+
+func callsInBand(a, b float64) bool {
+	return inBand(a, b, 1e-18) // want `1e-18, passed as e to inBand \(an absolute tolerance of float64 in inBand, tested at \w+\.go:\d+\), is below float64 epsilon`
+}

@@ -306,3 +306,9 @@ func halvedWidth(a float64) bool {
 func gapAbove(x float64) (float64, float64) {
 	return math.Nextafter(1, 2) - 1, math.Nextafter(x, math.Inf(1))
 }
+
+// inWindow bounds a difference between two different limits: a window,
+// not a tolerance around equality.
+func inWindow(a, b float64) bool {
+	return -1e-20 < a-b && a-b < 1
+}

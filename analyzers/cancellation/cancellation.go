@@ -84,6 +84,8 @@ type checker struct {
 	unbounded map[types.Object]bool       // fields the package takes as unbounded, by unboundedData
 	selectors map[*types.Func]bool        // the package's functions that return one of their parameters
 	used      map[string]bool             // math functions the package calls, by usesMath
+	taken     []taking                    // subtractions from sum fields, by noteUpdate
+	added     map[types.Object]bool       // sum fields added into, by noteUpdate
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -93,11 +95,10 @@ func run(pass *analysis.Pass) (any, error) {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
 			continue // a test's arguments come from its own table of cases
 		}
-		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.BlockStmt)(nil)) {
+		for cur := range file.Preorder((*ast.CallExpr)(nil), (*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil)) {
 			switch n := cur.Node().(type) {
-			case *ast.BlockStmt:
-				c.slidingSum(n)
 			case *ast.AssignStmt:
+				c.noteUpdate(cur, n)
 				c.shoelace(cur, n)
 				if n.Tok == token.QUO_ASSIGN && len(n.Lhs) == 1 {
 					c.expShare(cur, n.Lhs[0], n.Rhs[0], n)
@@ -123,6 +124,7 @@ func run(pass *analysis.Pass) (any, error) {
 			}
 		}
 	}
+	c.downdates()
 	return nil, nil
 }
 

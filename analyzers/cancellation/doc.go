@@ -189,15 +189,21 @@
 //     of size L, so a ring at distance X from the origin keeps only about
 //     log10(L/(u·X)) digits; coordinates relative to the first vertex
 //     (q.X - o.X) keep them all and are left alone;
-//   - a float field updated in one block both by x.f -= old and by
-//     x.f += new: a running sum over a sliding window kept in a value's
-//     state across an unbounded number of calls. Each update rounds at
+//   - a float field of a method's receiver, or an element of a slice
+//     field (r.f, r.f[i]), that the package's methods both take from
+//     (r.f -= e) and add into (r.f += e, r.f = r.f + e, or a local started
+//     from r.f, added to and stored back): a running sum or mean kept in a
+//     value's state across an unbounded number of calls, from which values
+//     that passed are taken out again (a sliding window, a reservoir, a
+//     reweighted total, a windowed Welford update). Each update rounds at
 //     the size of the sum at that time (Higham 2002, §4.2), so a large
 //     value that passes leaves its rounding, up to u·|value|, behind for
 //     good, and the sum of the small values that follow carries an error
-//     that never decays; recompute it from the window from time to time or
-//     keep a compensated sum. Sums in local variables last one call and
-//     are left alone, as are fields only ever added to;
+//     that never decays; recompute it from the values kept from time to
+//     time or keep a compensated sum. Sums in local variables, and fields
+//     of a local copy or a value receiver (a box moved by value), last one
+//     call and are left alone, as are fields only ever added to, or only
+//     taken from and reset to constants (a budget spent down);
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -7,46 +7,158 @@ import (
 	"go/types"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/fixes"
 )
 
-// slidingSum reports a float field updated in one block both by
-// x.f -= old and by x.f += new: a running sum over a sliding window kept
-// in the state of a value, across an unbounded number of calls. Each
-// update rounds at the size of the sum at that time (Higham 2002, §4.2),
-// so a large value that passes through leaves its rounding, up to
-// u·|value|, behind for good: once the window holds small values again
-// their sum carries an error that never decays. Recomputing the sum from
-// the window from time to time, or a compensated sum, removes it. Sums in
-// local variables last one call and are left alone.
-func (c *checker) slidingSum(block *ast.BlockStmt) {
-	subtracted := map[string]*ast.AssignStmt{}
-	for _, s := range block.List {
-		as, ok := s.(*ast.AssignStmt)
-		if !ok || len(as.Lhs) != 1 || !c.floatField(as.Lhs[0]) {
+// downdates reports a float field, or an element of a float slice or
+// array field, that the package's code both subtracts from (x.f -= e,
+// x.f[i] -= e, e not a constant) and adds into (x.f += e, or x.f = e where
+// e reads x.f, directly or through local variables): a running sum kept
+// in the state of a value, across an unbounded number of calls, from
+// which values that passed are taken out again (a sliding window, a
+// reservoir, a reweighted total). Each update rounds at the size of the
+// sum at that time (Higham 2002, §4.2), so a large value that passes
+// through leaves its rounding, up to u·|value|, behind for good: once the
+// sum holds small values again it carries an error that never decays.
+// Recomputing the sum from the values kept, or a compensated sum, removes
+// it. Sums in local variables last one call and are left alone. The
+// first subtraction of each such field is reported.
+func (c *checker) downdates() {
+	reported := map[types.Object]bool{}
+	for _, t := range c.taken {
+		sub, f := t.as, t.field
+		if !c.added[f] || reported[f] {
 			continue
 		}
-		key := types.ExprString(as.Lhs[0])
-		switch as.Tok {
-		case token.SUB_ASSIGN:
-			subtracted[key] = as
-		case token.ADD_ASSIGN:
-			if sub := subtracted[key]; sub != nil {
-				fixes.Report(c.pass, analysis.Diagnostic{
-					Pos: sub.Pos(), End: sub.End(), Category: catVariance,
-					Message: fmt.Sprintf("running window sum %s: each value removed leaves its rounding, up to u·|value| (u = %.3g), behind for good, so after a large value has passed the sum of small ones carries an error that never decays; recompute it from the window from time to time, or keep a compensated sum",
-						key, unitRoundoff),
-				})
-				delete(subtracted, key)
-			}
-		}
+		reported[f] = true
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: sub.Pos(), End: sub.End(), Category: catVariance,
+			Message: fmt.Sprintf("running sum or mean %s, taken from as well as added to: each value removed leaves its rounding, up to u·|value| (u = %.3g), behind for good, so after a large value has passed the sum of small ones carries an error that never decays; recompute it from the values kept from time to time, or keep a compensated sum",
+				fixes.Source(c.pass.Fset, sub.Lhs[0]), unitRoundoff),
+		})
 	}
 }
 
-// floatField reports whether e selects a float64 field.
-func (c *checker) floatField(e ast.Expr) bool {
-	sel, ok := e.(*ast.SelectorExpr)
-	s := c.pass.TypesInfo.Selections[sel]
-	return ok && s != nil && s.Kind() == types.FieldVal && isFloat64(s.Type())
+// taking is a subtraction from a sum field.
+type taking struct {
+	as    *ast.AssignStmt
+	field types.Object
+}
+
+// noteUpdate records an assignment that takes from a sum field or adds
+// into one (see downdates).
+func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
+	if len(as.Lhs) != 1 || len(as.Rhs) != 1 {
+		return
+	}
+	f := c.sumField(cur, as.Lhs[0])
+	switch {
+	case f == nil:
+	case as.Tok == token.SUB_ASSIGN && !c.isConst(as.Rhs[0]):
+		c.taken = append(c.taken, taking{as, f})
+	case as.Tok == token.ADD_ASSIGN && !c.isConst(as.Rhs[0]),
+		as.Tok == token.ASSIGN && c.addsInto(cur, as.Rhs[0], f):
+		if c.added == nil {
+			c.added = map[types.Object]bool{}
+		}
+		c.added[f] = true
+	}
+}
+
+// addsInto reports whether e, assigned to field f, adds to f's value: a
+// sum with a term that reads f (f = f + x, f = k*f + x), or a local
+// variable started from f and then added to (s := k*f; s += x; f = s).
+func (c *checker) addsInto(cur inspector.Cursor, e ast.Expr, f types.Object) bool {
+	if sum, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && (sum.Op == token.ADD || sum.Op == token.SUB) {
+		return c.readsField(sum.X, f) || c.readsField(sum.Y, f)
+	}
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	v, isVar := c.pass.TypesInfo.Uses[id].(*types.Var)
+	if !ok || !isVar {
+		return false
+	}
+	from, grows := false, false
+	for _, as := range c.assignsTo(cur, v) {
+		for i, l := range as.Lhs {
+			if id, ok := ast.Unparen(l).(*ast.Ident); ok && c.pass.TypesInfo.ObjectOf(id) == v && len(as.Lhs) == len(as.Rhs) {
+				from = from || c.readsField(as.Rhs[i], f)
+				grows = grows || as.Tok == token.ADD_ASSIGN
+			}
+		}
+	}
+	return from && grows
+}
+
+// sumField returns the float64 field that e selects, directly or as an
+// element of a slice or array field (x.f, x.f[i]), when it is state that
+// outlives the call: reached through the receiver of the method around
+// cur, a pointer, or by a value receiver through a slice it shares.
+// Otherwise, or for a local copy, it returns nil.
+func (c *checker) sumField(cur inspector.Cursor, e ast.Expr) types.Object {
+	info := c.pass.TypesInfo
+	if !isFloat64(info.TypeOf(e)) {
+		return nil
+	}
+	x, shared := ast.Unparen(e), false
+	if ix, ok := x.(*ast.IndexExpr); ok {
+		switch info.TypeOf(ix.X).Underlying().(type) {
+		case *types.Slice, *types.Map:
+			shared = true
+		}
+		x = ast.Unparen(ix.X)
+	}
+	sel, ok := x.(*ast.SelectorExpr)
+	if !ok {
+		return nil
+	}
+	s := info.Selections[sel]
+	recv, isID := ast.Unparen(sel.X).(*ast.Ident)
+	if s == nil || s.Kind() != types.FieldVal || !isID {
+		return nil
+	}
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		r := fd.Node().(*ast.FuncDecl).Recv
+		if r == nil || len(r.List) != 1 || len(r.List[0].Names) != 1 || info.Defs[r.List[0].Names[0]] != info.Uses[recv] {
+			return nil
+		}
+		if _, ptr := info.TypeOf(recv).(*types.Pointer); ptr || shared {
+			return s.Obj()
+		}
+	}
+	return nil
+}
+
+// readsField reports whether e reads field f.
+func (c *checker) readsField(e ast.Expr, f types.Object) bool {
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if sel, ok := n.(*ast.SelectorExpr); ok {
+			if s := c.pass.TypesInfo.Selections[sel]; s != nil && s.Obj() == f {
+				found = true
+			}
+		}
+		return !found
+	})
+	return found
+}
+
+// assignsTo returns the assignments to the local variable v in the
+// function around cur.
+func (c *checker) assignsTo(cur inspector.Cursor, v *types.Var) []*ast.AssignStmt {
+	var out []*ast.AssignStmt
+	for fn := range cur.Enclosing((*ast.FuncDecl)(nil), (*ast.FuncLit)(nil)) {
+		for n := range fn.Preorder((*ast.AssignStmt)(nil)) {
+			as := n.Node().(*ast.AssignStmt)
+			for _, l := range as.Lhs {
+				if id, ok := ast.Unparen(l).(*ast.Ident); ok && c.pass.TypesInfo.ObjectOf(id) == v {
+					out = append(out, as)
+					break
+				}
+			}
+		}
+		break
+	}
+	return out
 }

@@ -12,6 +12,65 @@ func (m *movingMean) push(v float64) {
 	gone := m.ring[m.next]
 	m.ring[m.next] = v
 	m.next = (m.next + 1) % len(m.ring)
-	m.total -= gone // want `running window sum m.total: each value removed leaves its rounding, up to u·\|value\| \(u = 1.11e-16\), behind for good`
+	m.total -= gone // want `running sum or mean m.total, taken from as well as added to: each value removed leaves its rounding, up to u·\|value\| \(u = 1.11e-16\), behind for good`
 	m.total += v
+}
+
+// A weighted pool whose per-bucket totals are raised by one method and
+// lowered by another, element by element.
+type pool struct {
+	weights []float64
+	totals  []float64
+}
+
+func (p *pool) add(i int, w float64) {
+	p.weights[i] += w
+	p.totals[i/8] = p.totals[i/8] + w
+}
+
+func (p *pool) drop(i int) {
+	w := p.weights[i]
+	p.weights[i] = 0
+	p.totals[i/8] -= w // want `running sum or mean p.totals\[i/8\], taken from as well as added to`
+}
+
+// A budget only ever spent, and reset to a constant: nothing passes
+// through it, so no large value leaves its rounding behind.
+type budget struct{ left float64 }
+
+func (b *budget) spend(x float64) { b.left -= x }
+func (b *budget) reset()          { b.left = 100 }
+
+// A windowed mean and second moment, updated in place as values enter and
+// leave: the sums are carried over from call to call.
+type windowMoments struct {
+	n        float64
+	mean, m2 float64
+}
+
+func (s *windowMoments) enter(x float64) {
+	s.n++
+	d := x - s.mean
+	s.mean += d / s.n
+	grown := s.m2
+	grown += d * (x - s.mean)
+	s.m2 = grown
+}
+
+func (s *windowMoments) leave(x float64) {
+	s.n--
+	d := x - s.mean
+	s.mean -= d / s.n        // want `running sum or mean s.mean, taken from as well as added to`
+	s.m2 -= d * (x - s.mean) // want `running sum or mean s.m2, taken from as well as added to`
+}
+
+// A box moved by value: the receiver is a copy, so nothing is kept from
+// call to call.
+type box struct{ lo, hi float64 }
+
+func (b box) shifted(d float64) box {
+	b.lo += d
+	b.hi -= d
+	b.hi += 2 * d
+	return b
 }

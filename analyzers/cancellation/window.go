@@ -12,19 +12,18 @@ import (
 	"roundoff/analyzers/internal/fixes"
 )
 
-// downdates reports a float field, or an element of a float slice or
-// array field, that the package's code both subtracts from (x.f -= e,
-// x.f[i] -= e, e not a constant) and adds into (x.f += e, or x.f = e where
-// e reads x.f, directly or through local variables): a running sum kept
-// in the state of a value, across an unbounded number of calls, from
-// which values that passed are taken out again (a sliding window, a
-// reservoir, a reweighted total). Each update rounds at the size of the
-// sum at that time (Higham 2002, §4.2), so a large value that passes
-// through leaves its rounding, up to u·|value|, behind for good: once the
-// sum holds small values again it carries an error that never decays.
-// Recomputing the sum from the values kept, or a compensated sum, removes
-// it. Sums in local variables last one call and are left alone. The
-// first subtraction of each such field is reported.
+// downdates reports a running sum or mean kept in a field of a method's
+// receiver, or in an element of a slice field (see sumField), that the
+// package's methods both take from (r.f -= e, e not a constant) and add
+// into (see noteUpdate): values that passed are taken out again (a
+// sliding window, a reservoir, a reweighted total, a windowed Welford
+// update). Each update rounds at the size of the sum at that time
+// (Higham 2002, §4.2), so a large value that passes through leaves its
+// rounding, up to u·|value|, behind for good: once the sum holds small
+// values again it carries an error that never decays. Recomputing the sum
+// from the values kept, or a compensated sum, removes it. Sums in local
+// variables last one call and are left alone. The first subtraction of
+// each such field is reported.
 func (c *checker) downdates() {
 	reported := map[types.Object]bool{}
 	for _, t := range c.taken {
@@ -48,7 +47,8 @@ type taking struct {
 }
 
 // noteUpdate records an assignment that takes from a sum field or adds
-// into one (see downdates).
+// into one: r.f += e (e not a constant), or r.f = e where e adds to r.f
+// (see addsInto).
 func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 	if len(as.Lhs) != 1 || len(as.Rhs) != 1 {
 		return
@@ -71,7 +71,7 @@ func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 // sum with a term that reads f (f = f + x, f = k*f + x), or a local
 // variable started from f and then added to (s := k*f; s += x; f = s).
 func (c *checker) addsInto(cur inspector.Cursor, e ast.Expr, f types.Object) bool {
-	if sum, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && (sum.Op == token.ADD || sum.Op == token.SUB) {
+	if sum, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && sum.Op == token.ADD {
 		return c.readsField(sum.X, f) || c.readsField(sum.Y, f)
 	}
 	id, ok := ast.Unparen(e).(*ast.Ident)

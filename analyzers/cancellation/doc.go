@@ -122,8 +122,9 @@
 //     subtraction;
 //   - math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z), the same operands
 //     squared, where an operand is computed by an operation that reaches
-//     such magnitudes from ordinary inputs (a quotient by a variable, an
-//     exponential, power, gamma, tangent or hyperbolic function, a
+//     such magnitudes from ordinary inputs (a quotient by a variable that
+//     may come near 0, not one bounded away from it by construction such
+//     as math.Sqrt(1-e2*s*s) with e2 < 1 and s a sine; an exponential, power, gamma, tangent or hyperbolic function, a
 //     constant beyond 1e100), or is made of fields the package itself
 //     takes as unbounded: fields it tests with math.IsInf (a validation
 //     that rejects only non-finite values, so every finite value is an

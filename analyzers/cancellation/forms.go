@@ -784,7 +784,9 @@ func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr)
 
 // farReaching reports whether e is computed by an operation that reaches
 // magnitudes beyond 1e154 or below 1e-154 from ordinary inputs: a quotient
-// by a variable (which may be small), an exponential, power, gamma,
+// by a variable that may be small (not one whose range by construction
+// excludes 0, such as math.Sqrt(1 - k*s*s) with k < 1 and s a sine), an
+// exponential, power, gamma,
 // tangent or hyperbolic function, or a constant already out there;
 // directly, through sums, products and signs, or through never-reassigned
 // variables, unless an enclosing condition at cur compares a variable on
@@ -815,12 +817,20 @@ func (c *checker) farReaching(cur inspector.Cursor, e ast.Expr, depth int) bool 
 	case *ast.UnaryExpr:
 		return c.farReaching(cur, e.X, depth-1)
 	case *ast.BinaryExpr:
-		if e.Op == token.QUO && !c.isConst(e.Y) {
-			return true
+		if e.Op == token.QUO && !c.isConst(e.Y) && !c.awayFromZeroRange(e.Y) {
+			return true // a divisor that may come near 0
 		}
 		return c.farReaching(cur, e.X, depth-1) || c.farReaching(cur, e.Y, depth-1)
 	}
 	return false
+}
+
+// awayFromZeroRange reports whether e's range by construction (rangeOf)
+// excludes 0: A/math.Sqrt(1 - k*s*s) with k < 1 and s a sine is at most
+// A/math.Sqrt(1-k), however the angle falls.
+func (c *checker) awayFromZeroRange(e ast.Expr) bool {
+	r, ok := c.rangeOf(e, 6)
+	return ok && (r.lo > 0 || r.hi < 0)
 }
 
 // computed reports whether e, at cur, directly or through variables (the

@@ -13,7 +13,7 @@ type interval struct{ lo, hi float64 }
 // rangeOf bounds e by construction, directly or through never-reassigned
 // variables: constants, the fractional part x - math.Floor(x) (in [0, 1]),
 // sines, cosines and other functions bounded by 1, and sums, differences,
-// products and quotients by ranges that exclude 0 of those.
+// products, square roots and quotients by ranges that exclude 0 of those.
 func (c *checker) rangeOf(e ast.Expr, depth int) (interval, bool) {
 	e, _ = c.through(e)
 	if v := c.pass.TypesInfo.Types[e].Value; v != nil {
@@ -28,6 +28,9 @@ func (c *checker) rangeOf(e ast.Expr, depth int) (interval, bool) {
 		switch c.mathFunc(e) {
 		case "Sin", "Cos", "Tanh", "Erf":
 			return interval{-1, 1}, true
+		case "Sqrt":
+			r, ok := c.rangeOf(e.Args[0], depth-1)
+			return interval{math.Sqrt(math.Max(r.lo, 0)), math.Sqrt(r.hi)}, ok && r.hi >= 0
 		}
 	case *ast.UnaryExpr:
 		r, ok := c.rangeOf(e.X, depth-1)

@@ -554,3 +554,17 @@ func echoMooring(s sonar, r float64) float64 {
 	disc := b*b - 4*a*c
 	return (-b - math.Sqrt(disc)) / (2 * a)
 }
+
+// stationRadius is a survey station's distance from the centre of an
+// ellipsoid: the radius of curvature a/sqrt(1 - e2·sin²φ) divides by a
+// root that stays within [sqrt(1-e2), sqrt(1+e2)], so it is at most
+// a/sqrt(1-e2), and the squares stay as far from overflow as the
+// station's height does.
+func stationRadius(lat, height float64) float64 {
+	const a, e2 = 6378137.0, 0.00669437999014
+	s, c := math.Sin(lat), math.Cos(lat)
+	n := a / math.Sqrt(1-e2*s*s)
+	p := (n + height) * c
+	z := (n*(1-e2) + height) * s
+	return math.Sqrt(p*p + z*z)
+}

@@ -51,8 +51,11 @@
 //   - math.Acos(x) of the cosine of an angle between vectors (a dot
 //     product over norms, the norms also from the package's own methods,
 //     a.Len() returning math.Sqrt(a.Dot(a)), and the ratio also returned
-//     by the package's own function, clamped or not) or of a great-circle
-//     distance (the spherical law of cosines; the message adds the NaN
+//     by the package's own function, clamped or not), of a great-circle
+//     distance (the spherical law of cosines), or of an angle from three
+//     sides (the planar law of cosines, (a*a + b*b - c*c) / (2*a*b), where
+//     the half-angle form on differences of the sides keeps every digit;
+//     the message adds the NaN
 //     that an unclamped ratio gives once rounding puts it beyond ±1): near ±1, where parallel vectors and nearby points put
 //     it, one rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;

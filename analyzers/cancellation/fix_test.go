@@ -217,3 +217,24 @@ func TestPowLookAlikes(t *testing.T) {
 		}
 	}
 }
+
+// TestSidesAngle checks the remedy the arc rule names for an angle from
+// three sides. For an isosceles triangle with legs a and base c the apex
+// angle is 2·asin(c/(2a)) (elementary trigonometry), accurate to a few
+// ulps; the law of cosines (a²+a²-c²)/(2a²) rounds to 1 once c/a is below
+// about sqrt(2u) and its arc is 0, while the half-angle form stays within
+// a few ulps of the reference down to c/a = 1e-12.
+func TestSidesAngle(t *testing.T) {
+	half := func(a, b, c float64) float64 {
+		return 2 * math.Atan(math.Sqrt(((a-b)+c)*(c-(a-b))/((a+(b+c))*((a-c)+b))))
+	}
+	for _, c := range []float64{0.5, 1e-3, 1e-6, 1e-9, 1e-12} {
+		a := 1.0
+		want := 2 * math.Asin(c/(2*a))
+		assert.InDelta(t, want, half(a, a, c), 8*math.Ldexp(want, -52), c)
+		law := math.Acos((a*a + a*a - c*c) / (2 * a * a))
+		if c <= 1e-9 {
+			assert.Equal(t, 0.0, law, c) // every digit lost
+		}
+	}
+}

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -496,18 +497,73 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 // integer conversion) is left alone.
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	x, clamped := c.unclamped(cur, call.Args[0])
-	if !c.normCosine(x) && !c.lawOfCosines(x) || c.counted(cur) {
+	sides := c.sidesCosine(x)
+	if !c.normCosine(x) && !c.lawOfCosines(x) && !sides || c.counted(cur) {
 		return
 	}
 	nan := ""
 	if _, fromFunc := x.(*ast.CallExpr); !clamped && !fromFunc {
 		nan = ", and returns NaN where rounding puts x just beyond ±1 (clamp it to [-1, 1] first)"
 	}
+	remedy := "compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)"
+	if sides {
+		remedy = "for an angle from three sides, use the half-angle form 2*math.Atan(math.Sqrt(((a-b)+c)*(c-(a-b))/((a+(b+c))*((a-c)+b)))), c the side opposite the angle and a ≥ b, which subtracts only the sides themselves"
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catArc,
-		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near 0 and π): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad%s; compute the angle with math.Atan2 of its sine and cosine parts (for vectors, the cross and dot products)",
-			name, binding("x", call.Args[0]), math.Sqrt(2*unitRoundoff), nan),
+		Message: fmt.Sprintf("math.%s(x)%s loses half the digits where x is near ±1 (angles near 0 and π): one rounding in x becomes an angle error of about sqrt(2u) ≈ %.3g rad%s; %s",
+			name, binding("x", call.Args[0]), math.Sqrt(2*unitRoundoff), nan, remedy),
 	})
+}
+
+// sidesCosine reports whether e is the planar law of cosines, the cosine
+// of an angle from three lengths: (a*a + b*b - c*c) / (2*a*b), the squares
+// also written math.Pow(x, 2), the terms in any order and signs, the
+// denominator a constant times the product of two of the lengths squared.
+func (c *checker) sidesCosine(e ast.Expr) bool {
+	q, ok := e.(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	var lengths []string
+	for _, t := range signedTerms(q.X) {
+		x, ok := c.lengthSquared(t)
+		if !ok {
+			return false
+		}
+		lengths = append(lengths, x)
+	}
+	den := c.factors(q.Y)
+	if len(lengths) != 3 || len(den) != 2 {
+		return false
+	}
+	a, b := types.ExprString(ast.Unparen(den[0])), types.ExprString(ast.Unparen(den[1]))
+	return a != b && slices.Contains(lengths, a) && slices.Contains(lengths, b)
+}
+
+// lengthSquared returns the source of x where e is x*x or math.Pow(x, 2).
+func (c *checker) lengthSquared(e ast.Expr) (string, bool) {
+	if call, ok := ast.Unparen(e).(*ast.CallExpr); ok && c.mathFunc2(call) == "Pow" {
+		v := c.pass.TypesInfo.Types[call.Args[1]].Value
+		return types.ExprString(ast.Unparen(call.Args[0])), v != nil && v.ExactString() == "2"
+	}
+	x, ok := c.square(e)
+	if !ok {
+		return "", false
+	}
+	return types.ExprString(ast.Unparen(x)), true
+}
+
+// signedTerms returns the terms of a sum or difference, signs dropped.
+func signedTerms(e ast.Expr) []ast.Expr {
+	e = ast.Unparen(e)
+	if u, ok := e.(*ast.UnaryExpr); ok && (u.Op == token.SUB || u.Op == token.ADD) {
+		return signedTerms(u.X)
+	}
+	if s, ok := e.(*ast.BinaryExpr); ok && (s.Op == token.ADD || s.Op == token.SUB) {
+		return append(signedTerms(s.X), signedTerms(s.Y)...)
+	}
+	return []ast.Expr{e}
 }
 
 // unclamped returns the value e at cur stands for, through variables (the

@@ -60,3 +60,17 @@ func tiltAngle(p, q panel) float64 {
 func bearingChange(ax, ay, bx, by float64) float64 {
 	return math.Acos((ax*bx + ay*by) / (math.Hypot(ax, ay) * math.Hypot(bx, by))) // want `≈ 1.49e-08 rad, and returns NaN where rounding puts x just beyond ±1 \(clamp it to \[-1, 1\] first\)`
 }
+
+// apexAngle is a mast's angle seen from two stays of lengths a and b
+// whose feet are c apart: for a slender mast the cosine is within an
+// ulp of 1 and the arc loses half its digits, all of them once c/a is
+// below about 1.5e-8.
+func apexAngle(a, b, c float64) float64 {
+	return math.Acos((a*a + b*b - c*c) / (2 * a * b)) // want `math.Acos\(x\) with x = \(a \* a \+ b \* b - c \* c\) / \(2 \* a \* b\) loses half the digits.*for an angle from three sides, use the half-angle form`
+}
+
+// sightAngle writes the squares as powers and the sides in another order.
+func sightAngle(near, far, gap float64) float64 {
+	cos := (math.Pow(near, 2) - math.Pow(gap, 2) + math.Pow(far, 2)) / (2 * far * near)
+	return math.Acos(cos) // want `math.Acos\(x\) with x = cos loses half the digits.*half-angle form`
+}

@@ -568,3 +568,9 @@ func stationRadius(lat, height float64) float64 {
 	z := (n*(1-e2) + height) * s
 	return math.Sqrt(p*p + z*z)
 }
+
+// stayCosine keeps the law of cosines as a cosine: a projection, not an
+// angle, whose absolute error is a few u.
+func stayCosine(a, b, c float64) float64 {
+	return a * (a*a + b*b - c*c) / (2 * a * b)
+}

@@ -49,7 +49,9 @@
 //     field that a caller may set too tight (category nocap); a cap in the
 //     loop condition beside an operand the loop does not change (for i :=
 //     0; max == 0 || i < max; i++) is off wherever that operand holds, and
-//     so caps nothing on that path; and
+//     so caps nothing on that path; a guard the loop does not change around
+//     an exit (if o.Tol != 0 { if d < o.Tol { break } }) selects the exit
+//     and ends nothing itself, so the exit is the test inside it; and
 //     backtracking loops that shrink a step until a sufficient-decrease test
 //     holds with neither a floor on the step nor a cap (category
 //     backtrack);

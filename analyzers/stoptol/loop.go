@@ -50,6 +50,7 @@ type loop struct {
 	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
 	capped  bool       // an integer comparison bounds the iterations
 	capOff  ast.Expr   // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
+	changed map[types.Object]bool // variables the body or post statement assigns
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
@@ -62,11 +63,12 @@ type loop struct {
 // for statement of function fn.
 func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
 	l := &loop{function: fn, stmt: stmt, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
-	l.capOff = invariantOr(info, stmt)
+	l.changed = changedIn(info, stmt)
+	l.capOff = l.invariantOr(info)
 	if stmt.Cond != nil && l.capOff == nil {
 		l.exits = append(l.exits, stmt.Cond)
 	}
-	l.walk(stmt.Body, nil)
+	l.walk(info, stmt.Body, nil)
 	l.shrunk = tolerance.Shrunk(info, stmt.Cond, stmt.Post, stmt.Body)
 	for _, n := range []ast.Node{stmt.Cond, stmt.Post, stmt.Body} {
 		if n != nil {
@@ -84,7 +86,7 @@ func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
 
 // walk finds the break and return statements that leave the loop, with the
 // conditions of the if statements around them.
-func (l *loop) walk(n ast.Node, conds []ast.Expr) {
+func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 	ast.Inspect(n, func(n ast.Node) bool {
 		switch n := n.(type) {
 		case *ast.FuncLit:
@@ -93,9 +95,13 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 			l.walkInner(n)
 			return false
 		case *ast.IfStmt:
-			l.walk(n.Body, append(conds[:len(conds):len(conds)], n.Cond))
+			if l.invariant(info, n.Cond) {
+				l.walk(info, n.Body, conds) // if o.Tol != 0 { ... }: it selects the exits inside, ending nothing itself
+			} else {
+				l.walk(info, n.Body, append(conds[:len(conds):len(conds)], n.Cond))
+			}
 			if n.Else != nil {
-				l.walkElse(n.Else, conds)
+				l.walkElse(info, n.Else, conds)
 			}
 			return false
 		case *ast.ReturnStmt:
@@ -138,9 +144,9 @@ func (l *loop) walkInner(n ast.Node) {
 }
 
 // walkElse treats exits in an else branch as exits stoptol does not read.
-func (l *loop) walkElse(n ast.Node, conds []ast.Expr) {
+func (l *loop) walkElse(info *types.Info, n ast.Node, conds []ast.Expr) {
 	before := len(l.exits)
-	l.walk(n, conds)
+	l.walk(info, n, conds)
 	if len(l.exits) > before {
 		l.exits = l.exits[:before]
 		l.other = true
@@ -296,11 +302,29 @@ func hasIntComparison(info *types.Info, e ast.Expr) bool {
 // holds the condition never fails, so on that path the loop has no
 // condition and the cap beside it caps nothing. It returns nil when there
 // is no such operand, or it is a constant.
-func invariantOr(info *types.Info, stmt *ast.ForStmt) ast.Expr {
-	or, ok := ast.Unparen(stmt.Cond).(*ast.BinaryExpr)
+func (l *loop) invariantOr(info *types.Info) ast.Expr {
+	or, ok := ast.Unparen(l.stmt.Cond).(*ast.BinaryExpr)
 	if !ok || or.Op != token.LOR {
 		return nil
 	}
+	for _, side := range []ast.Expr{or.X, or.Y} {
+		if l.invariant(info, side) {
+			return side
+		}
+	}
+	return nil
+}
+
+// invariant reports whether e, not a constant, reads nothing the loop
+// changes and calls nothing.
+func (l *loop) invariant(info *types.Info, e ast.Expr) bool {
+	return info.Types[e].Value == nil && !reads(info, e, l.changed)
+}
+
+// changedIn returns the variables (roots of fields and elements) that the
+// body or post statement of a loop assigns, increments, takes the address
+// of, or hands to a call as an argument or a receiver.
+func changedIn(info *types.Info, stmt *ast.ForStmt) map[types.Object]bool {
 	changed := map[types.Object]bool{}
 	for _, n := range []ast.Node{stmt.Post, stmt.Body} {
 		if n == nil {
@@ -318,16 +342,18 @@ func invariantOr(info *types.Info, stmt *ast.ForStmt) ast.Expr {
 				if n.Op == token.AND {
 					changed[rootObj(info, n.X)] = true
 				}
+			case *ast.CallExpr:
+				for _, a := range n.Args {
+					changed[rootObj(info, a)] = true // costs(r) may write r's elements
+				}
+				if sel, ok := ast.Unparen(n.Fun).(*ast.SelectorExpr); ok {
+					changed[rootObj(info, sel.X)] = true // s.Step() may change s
+				}
 			}
 			return true
 		})
 	}
-	for _, side := range []ast.Expr{or.X, or.Y} {
-		if tv := info.Types[side]; tv.Value == nil && !reads(info, side, changed) {
-			return side
-		}
-	}
-	return nil
+	return changed
 }
 
 // rootObj returns the variable at the root of x, x.f, x[i], *x.

@@ -46,10 +46,10 @@ type function struct {
 type loop struct {
 	*function
 	stmt    *ast.ForStmt
-	exits   []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
-	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
-	capped  bool       // an integer comparison bounds the iterations
-	capOff  ast.Expr   // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
+	exits   []ast.Expr            // conditions that end the loop when they hold (or, for the loop condition, fail)
+	other   bool                  // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
+	capped  bool                  // an integer comparison bounds the iterations
+	capOff  ast.Expr              // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
 	changed map[types.Object]bool // variables the body or post statement assigns
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted

@@ -207,7 +207,11 @@
 //     time or keep a compensated sum. Sums in local variables, and fields
 //     of a local copy or a value receiver (a box moved by value), last one
 //     call and are left alone, as are fields only ever added to, or only
-//     taken from and reset to constants (a budget spent down);
+//     taken from and reset to constants (a budget spent down), and a
+//     subtraction of what a parameter that is not a number holds (A.e[i]
+//     -= B.At(i, j), an elementwise combination with a second operand of
+//     the receiver's shape: one rounding per entry, nothing that passed
+//     through is taken out);
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -56,7 +56,7 @@ func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 	f := c.sumField(cur, as.Lhs[0])
 	switch {
 	case f == nil:
-	case as.Tok == token.SUB_ASSIGN && !c.isConst(as.Rhs[0]):
+	case as.Tok == token.SUB_ASSIGN && !c.isConst(as.Rhs[0]) && !c.readsOperand(cur, as.Rhs[0]):
 		c.taken = append(c.taken, taking{as, f})
 	case as.Tok == token.ADD_ASSIGN && !c.isConst(as.Rhs[0]),
 		as.Tok == token.ASSIGN && c.addsInto(cur, as.Rhs[0], f):
@@ -65,6 +65,34 @@ func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 		}
 		c.added[f] = true
 	}
+}
+
+// readsOperand reports whether e reads a parameter of the function around
+// cur that is not a number (a matrix, a vector, an interface holding one):
+// A.e[i] -= B.At(i, j) combines the receiver elementwise with a second
+// operand of its shape, one rounding per entry, and takes out nothing that
+// passed through it.
+func (c *checker) readsOperand(cur inspector.Cursor, e ast.Expr) bool {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		params := map[types.Object]bool{}
+		for _, f := range fd.Node().(*ast.FuncDecl).Type.Params.List {
+			for _, name := range f.Names {
+				if obj := c.pass.TypesInfo.Defs[name]; obj != nil {
+					_, number := obj.Type().Underlying().(*types.Basic)
+					params[obj] = !number
+				}
+			}
+		}
+		found := false
+		ast.Inspect(e, func(n ast.Node) bool {
+			if id, ok := n.(*ast.Ident); ok && params[c.pass.TypesInfo.Uses[id]] {
+				found = true
+			}
+			return !found
+		})
+		return found
+	}
+	return false
 }
 
 // addsInto reports whether e, assigned to field f, adds to f's value: a

@@ -74,3 +74,20 @@ func (b box) shifted(d float64) box {
 	b.hi += 2 * d
 	return b
 }
+
+// A grid of readings combined elementwise with another grid: each entry
+// is rounded once by the operation asked for, and nothing that entered
+// one grid leaves it again.
+type grid struct{ cells []float64 }
+
+func (g *grid) plus(h *grid) {
+	for i := range g.cells {
+		g.cells[i] += h.cells[i]
+	}
+}
+
+func (g *grid) minus(h *grid) {
+	for i := range g.cells {
+		g.cells[i] -= h.cells[i]
+	}
+}

@@ -62,7 +62,11 @@
 //     itself (equal constants, or the same variable): the call returns x
 //     unchanged (IEEE 754-2019 §5.3.1 steps toward a direction), so
 //     Nextafter(1, 1) - 1 is 0, not eps, and a tolerance made that way
-//     turns its test into exact equality;
+//     turns its test into exact equality; and a direction x+c or x-c with
+//     c a constant, which rounds to x once |x| reaches 2^53·|c| (2^24·|c|
+//     in float32): Nextafter(t, t+1) - t is 0 from t = 9.0e15 on, and the
+//     direction math.Inf(±1) gives the same neighbour wherever t+1 differs
+//     from t (fixed unattended);
 //   - constant tolerance arguments to well-known APIs (gonum's
 //     floats/scalar EqualWithinAbs, EqualWithinRel, EqualWithinAbsOrRel,
 //     floats.EqualApprox; testify's InDelta, InDeltaSlice, InEpsilon,

@@ -106,7 +106,7 @@ func run(pass *analysis.Pass) (any, error) {
 		case *ast.CallExpr:
 			c.call(cur, n)
 			c.helperCall(cur, n)
-			c.stepless(n)
+			c.stepless(cur, n)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:

@@ -217,3 +217,19 @@ func TestDataSize(t *testing.T) {
 	defer config.Use(config.Default(nil, ""))
 	analysistest.Run(t, analysistest.TestData(), epsfloor.Analyzer, "bigdata")
 }
+
+// TestOffsetDirection checks the numbers of the offset-direction rule
+// against IEEE 754-2019 (§5.3.1 nextUp; binary64 spacing 2^(e-52) in
+// [2^e, 2^(e+1))): t+1 is t itself from 2^54 on (and for even
+// significands from 2^53), so Nextafter(t, t+1) - t is 0 there, while
+// the direction math.Inf(1) gives the spacing; below, both agree.
+func TestOffsetDirection(t *testing.T) {
+	for _, x := range []float64{math.Ldexp(1, 53), math.Ldexp(1, 54), 1e17} {
+		assert.Equal(t, x, x+1, x)
+		assert.Equal(t, 0.0, math.Nextafter(x, x+1)-x, x)
+		assert.Equal(t, math.Ldexp(1, math.Ilogb(x)-52), math.Nextafter(x, math.Inf(1))-x, x)
+	}
+	for _, x := range []float64{-3, 0.5, 1, 1e15, math.Ldexp(1, 53) - 1} {
+		assert.Equal(t, math.Nextafter(x, math.Inf(1)), math.Nextafter(x, x+1), x)
+	}
+}

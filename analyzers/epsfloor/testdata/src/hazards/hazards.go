@@ -368,3 +368,15 @@ func inBand(a, b, e float64) bool { // want inBand:"parameter 2 is an absolute t
 func callsInBand(a, b float64) bool {
 	return inBand(a, b, 1e-18) // want `1e-18, passed as e to inBand \(an absolute tolerance of float64 in inBand, tested at \w+\.go:\d+\), is below float64 epsilon`
 }
+
+// clockUlp measures the spacing of floats at a simulation time t by
+// stepping toward t+1, which is t itself once t reaches 2^53.
+func clockUlp(t float64) float64 {
+	return math.Nextafter(t, t+1) - t // want `math.Nextafter\(t, t \+ 1\) steps toward t itself once \|t\| reaches 9.01e\+15 \(2\^53·1\): t \+ 1 rounds to t there`
+}
+
+// clockStep steps toward t plus a step the caller chose: no constant
+// whose absorption could be judged.
+func clockStep(t, h float64) float64 {
+	return math.Nextafter(t, t+h) - t
+}

@@ -45,11 +45,12 @@ type function struct {
 // loop holds what stoptol learns about one for statement.
 type loop struct {
 	*function
-	stmt    *ast.ForStmt
-	exits   []ast.Expr // conditions that end the loop when they hold (or, for the loop condition, fail)
-	other   bool       // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
-	capped  bool       // an integer comparison bounds the iterations
-	capOff  ast.Expr   // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
+	stmt    *ast.ForStmt // for a recursion, for { body } standing for its function
+	rec     *recursion   // the recursion read, or nil for a loop
+	exits   []ast.Expr   // conditions that end the loop when they hold (or, for the loop condition, fail)
+	other   bool         // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
+	capped  bool         // an integer comparison bounds the iterations
+	capOff  ast.Expr     // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
@@ -59,9 +60,9 @@ type loop struct {
 }
 
 // readLoop collects the exits, the cap, the variables and the class of a
-// for statement of function fn.
-func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
-	l := &loop{function: fn, stmt: stmt, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
+// for statement of function fn, or of recursion rec read as one.
+func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function, rec *recursion) *loop {
+	l := &loop{function: fn, stmt: stmt, rec: rec, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
 	l.capOff = invariantOr(info, stmt)
 	if stmt.Cond != nil && l.capOff == nil {
 		l.exits = append(l.exits, stmt.Cond)
@@ -99,7 +100,9 @@ func (l *loop) walk(n ast.Node, conds []ast.Expr) {
 			}
 			return false
 		case *ast.ReturnStmt:
-			l.exit(conds)
+			if l.ends(n) {
+				l.exit(conds)
+			}
 		case *ast.ExprStmt:
 			if call, ok := n.X.(*ast.CallExpr); ok && isPanic(call) {
 				l.exit(conds) // if n > maxIter { panic(...) } is a cap too
@@ -127,11 +130,11 @@ func isPanic(call *ast.CallExpr) bool {
 // stoptol does not read.
 func (l *loop) walkInner(n ast.Node) {
 	ast.Inspect(n, func(m ast.Node) bool {
-		switch m.(type) {
+		switch m := m.(type) {
 		case *ast.FuncLit:
 			return false
 		case *ast.ReturnStmt:
-			l.other = true
+			l.other = l.other || l.ends(m)
 		}
 		return true
 	})
@@ -387,7 +390,14 @@ func (l *loop) hasCounterComparison(info *types.Info, e ast.Expr) bool {
 func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 	v := tolerance.VarOf(info, x)
 	b := info.Types[bound].Value
-	if v == nil || b == nil || v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() || !provenance.IsFloat(v.Type()) {
+	if v == nil || b == nil || !provenance.IsFloat(v.Type()) {
+		return false
+	}
+	if l.rec != nil {
+		step, ok := l.rec.counterStep(info, v)
+		return ok && countsBelow(b, step)
+	}
+	if v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() {
 		return false
 	}
 	if v.Pos() >= l.stmt.Body.Pos() && v.Pos() < l.stmt.Body.End() {
@@ -434,8 +444,14 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 		}
 		return ok
 	})
-	limit, _ := constant.Float64Val(constant.ToFloat(b))
-	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && math.Abs(limit) < 0x1p52*minStep
+	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && countsBelow(b, minStep)
+}
+
+// countsBelow reports whether the constant bound lies below 2^52 times
+// step, where half the spacing of floats is below the step.
+func countsBelow(bound constant.Value, step float64) bool {
+	limit, _ := constant.Float64Val(constant.ToFloat(bound))
+	return math.Abs(limit) < 0x1p52*step
 }
 
 // constAssign reports whether as assigns v, if at all, a constant outside

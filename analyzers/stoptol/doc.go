@@ -63,7 +63,9 @@
 //     float test passes, read as the loop for { body } whose passes are the
 //     recursive calls, each assigning its arguments to the parameters, and
 //     whose exits are the returns that make and follow no recursive call,
-//     each guarded by the conditions of the ifs around it: judged as such
+//     each guarded by the conditions of the ifs around it (a function
+//     with no results whose body ends in if cond { ... recursive calls ... }
+//     is read as for cond { body }): judged as such
 //     a loop, it is reported at its first float base-case test when
 //     nothing bounds the depth (category nocap). A recursion that never
 //     ends is worse than a loop: every call holds a stack frame, and once
@@ -161,13 +163,11 @@
 //     integer comparison (a depth or count parameter, if n > 50 { return x }),
 //     or a base case on anything but floats (the length of the data); a
 //     recursion into other receivers (a tree's children), whose depth is the
-//     data's; a function with no results whose end is reached with no
-//     recursive call (its exit is no test stoptol reads); a recursion
-//     spreading a call over its parameters (rec(xs...)) passes nothing
-//     stoptol follows;
-//   - loops in test files, which run on the fixed inputs they were written
-//     for: one that never ended would hang the test; and constants written
-//     in test files, since each case runs on its one problem;
+//     data's;
+//   - loops and recursions in test files, which run on the fixed inputs
+//     they were written for: one that never ended would hang the test; and
+//     constants written in test files, since each case runs on its one
+//     problem;
 //   - loops it cannot classify, except for the missing cap.
 //
 // Fixes (all need review): in a minimization, the test becomes

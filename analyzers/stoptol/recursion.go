@@ -45,13 +45,21 @@ func newRecursion(info *types.Info, decl *ast.FuncDecl) *recursion {
 	return r
 }
 
-// read reads the recursion as a loop of function fn.
+// read reads the recursion as a loop of function fn. A function with no
+// results may end by reaching the end of its body with no recursive call:
+// when its body ends in if cond { ... recursive calls ... }, it is read as
+// for cond { body }, which ends when cond fails; any other such end is an
+// exit on no test stoptol reads.
 func (r *recursion) read(info *types.Info, fn *function) *loop {
-	endFollows := r.markBlock(r.decl.Body.List, false)
-	l := readLoop(info, &ast.ForStmt{For: r.decl.Name.Pos(), Body: r.decl.Body}, fn, r)
-	if !endFollows && r.decl.Type.Results == nil {
-		l.other = true // the end of the body, reached with no recursive call, ends it on no test stoptol reads
+	stmt := &ast.ForStmt{For: r.decl.Name.Pos(), Body: r.decl.Body}
+	open := !r.markBlock(r.decl.Body.List, false) && r.decl.Type.Results == nil
+	if list := r.decl.Body.List; open && len(list) > 0 {
+		if last, ok := list[len(list)-1].(*ast.IfStmt); ok && last.Init == nil && last.Else == nil && r.holds(last.Body, true) {
+			stmt.Cond, open = last.Cond, false
+		}
 	}
+	l := readLoop(info, stmt, fn, r)
+	l.other = l.other || open
 	return l
 }
 

@@ -56,3 +56,16 @@ func (p *path) refine(t0, t1, dev float64) {
 	p.refine(t0, tm, dev)
 	p.refine(tm, t1, dev)
 }
+
+// fill splits while the gap is wider than gap, read as for hi-lo > gap:
+// with gap below the spacing of floats near lo, once lo and hi are
+// adjacent mid rounds to one of them and fill(lo, hi) calls itself with
+// the same ends forever.
+func fill(out *[]float64, lo, hi, gap float64) {
+	if hi-lo > gap { // want `recursion may never end: its only base cases are float tests \(hi-lo > gap\) and nothing bounds the depth, so a recursion that stalls, oscillates or diverges keeps calling itself;`
+		mid := (lo + hi) / 2
+		fill(out, lo, mid, gap)
+		*out = append(*out, mid)
+		fill(out, mid, hi, gap)
+	}
+}

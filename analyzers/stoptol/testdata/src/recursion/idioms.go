@@ -89,3 +89,14 @@ func sumHalves(xs []float64) float64 {
 	}
 	return sumHalves(xs[:len(xs)/2]) + sumHalves(xs[len(xs)/2:])
 }
+
+// simpsonGuarded recurses only while depth is left: the return after the
+// guard ends it on an integer test, whatever the floats do.
+func simpsonGuarded(g func(float64) float64, a, b, tol, whole float64, depth int) float64 {
+	m := (a + b) / 2
+	left, right := simpson3(g, a, m), simpson3(g, m, b)
+	if depth > 0 && math.Abs(left+right-whole) > 15*tol { // a guard on the depth
+		return simpsonGuarded(g, a, m, tol/2, left, depth-1) + simpsonGuarded(g, m, b, tol/2, right, depth-1)
+	}
+	return left + right + (left+right-whole)/15
+}

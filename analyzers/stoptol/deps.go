@@ -696,8 +696,11 @@ func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
 
 // carriesFloats reports whether a value of type t can carry float work
 // from pass to pass: not an integer, a pointer, an interface, a map, a
-// channel or a function.
+// channel or a function; a type parameter does when its terms are floats.
 func carriesFloats(t types.Type) bool {
+	if _, ok := t.(*types.TypeParam); ok {
+		return provenance.IsFloat(t)
+	}
 	switch u := t.Underlying().(type) {
 	case *types.Basic:
 		return u.Info()&types.IsInteger == 0

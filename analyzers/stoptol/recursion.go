@@ -76,8 +76,15 @@ func selfCalls(info *types.Info, decl *ast.FuncDecl, obj *types.Func) []*ast.Cal
 		if isFuncLit(n) || !ok {
 			return !isFuncLit(n)
 		}
-		sel, isSel := ast.Unparen(call.Fun).(*ast.SelectorExpr)
-		if id, _ := ast.Unparen(call.Fun).(*ast.Ident); (id == nil || id.Name != obj.Name()) && (!isSel || sel.Sel.Name != obj.Name()) {
+		fun := ast.Unparen(call.Fun)
+		switch ix := fun.(type) {
+		case *ast.IndexExpr: // rec[T](x)
+			fun = ix.X
+		case *ast.IndexListExpr:
+			fun = ix.X
+		}
+		sel, isSel := fun.(*ast.SelectorExpr)
+		if id, _ := fun.(*ast.Ident); (id == nil || id.Name != obj.Name()) && (!isSel || sel.Sel.Name != obj.Name()) {
 			return true // cheap: not even the name
 		}
 		if callee, _ := typeutil.Callee(info, call).(*types.Func); callee == nil || callee.Origin() != obj {

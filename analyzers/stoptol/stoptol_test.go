@@ -100,7 +100,14 @@ func TestUnbounded(t *testing.T) {
 // that end for another reason: a depth or count cap, no float left between
 // the ends, a value scaled toward 0.
 func TestRecursion(t *testing.T) {
-	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "recursion")
+	for _, r := range analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "recursion") {
+		for _, d := range r.Diagnostics {
+			require.Len(t, d.Related, 1, "a recursion finding names its recursive call")
+			if position(r.Pass.Fset.Position(d.Pos)) == "hazards.go:14" {
+				assert.Equal(t, "hazards.go:18", position(r.Pass.Fset.Position(d.Related[0].Pos)))
+			}
+		}
+	}
 }
 
 // TestRecursionStalls runs the passes of testdata's crossing (bisection

@@ -160,8 +160,11 @@
 //     or against another variable (how far apart they start is the
 //     caller's);
 //   - recursions capped like loops: a base case or a panic guarded by an
-//     integer comparison (a depth or count parameter, if n > 50 { return x }),
-//     or a base case on anything but floats (the length of the data); a
+//     integer comparison of a depth or count that the recursive calls
+//     change (if n > 50 { return x } with n+1 passed on), or a base case on
+//     anything else the calls change (the length of the data); a test on
+//     values every call passes on as they are holds at every level or at
+//     none, and bounds nothing; a
 //     recursion into other receivers (a tree's children), whose depth is the
 //     data's;
 //   - loops and recursions in test files, which run on the fixed inputs

@@ -75,7 +75,7 @@ func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function, rec *recursion)
 		}
 	}
 	for _, e := range l.exits {
-		if hasIntComparison(info, e) || l.hasCounterComparison(info, e) {
+		if hasIntComparison(info, e) && (rec == nil || !rec.decided(info, e)) || l.hasCounterComparison(info, e) {
 			l.capped = true
 		}
 	}
@@ -304,8 +304,20 @@ func invariantOr(info *types.Info, stmt *ast.ForStmt) ast.Expr {
 	if !ok || or.Op != token.LOR {
 		return nil
 	}
+	changed := changedIn(info, stmt.Post, stmt.Body)
+	for _, side := range []ast.Expr{or.X, or.Y} {
+		if tv := info.Types[side]; tv.Value == nil && !reads(info, side, changed) {
+			return side
+		}
+	}
+	return nil
+}
+
+// changedIn returns the variables at the roots of what the nodes assign,
+// step or take the address of.
+func changedIn(info *types.Info, nodes ...ast.Node) map[types.Object]bool {
 	changed := map[types.Object]bool{}
-	for _, n := range []ast.Node{stmt.Post, stmt.Body} {
+	for _, n := range nodes {
 		if n == nil {
 			continue
 		}
@@ -325,12 +337,7 @@ func invariantOr(info *types.Info, stmt *ast.ForStmt) ast.Expr {
 			return true
 		})
 	}
-	for _, side := range []ast.Expr{or.X, or.Y} {
-		if tv := info.Types[side]; tv.Value == nil && !reads(info, side, changed) {
-			return side
-		}
-	}
-	return nil
+	return changed
 }
 
 // rootObj returns the variable at the root of x, x.f, x[i], *x.

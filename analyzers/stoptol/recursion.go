@@ -193,6 +193,26 @@ func (d *deps) recordCalls() {
 	}
 }
 
+// decided reports whether exit e reads nothing the recursion changes and
+// calls nothing: with the parameters passed on as they are (n, not n+1), it
+// holds at every level or at none, and bounds nothing.
+func (r *recursion) decided(info *types.Info, e ast.Expr) bool {
+	changed := changedIn(info, r.decl.Body)
+	for _, v := range r.params {
+		changed[v] = changed[v] || r.changed(info, v)
+	}
+	return !reads(info, e, changed)
+}
+
+// changed reports whether some recursive call passes parameter v on as
+// something other than itself.
+func (r *recursion) changed(info *types.Info, v *types.Var) bool {
+	i := slices.Index(r.params, v)
+	return i >= 0 && slices.ContainsFunc(r.calls, func(call *ast.CallExpr) bool {
+		return i < len(call.Args) && tolerance.VarOf(info, call.Args[i]) != v
+	})
+}
+
 // counterStep returns the smallest step of a float parameter v that every
 // recursive call passes on stepped by a nonzero constant, all of one sign
 // (k+1, k-0.5), and that the body never assigns: a counter, whose start

@@ -40,8 +40,8 @@ func (c *checker) unbounded(l *loop) {
 	d := newDeps(c.pass.TypesInfo, l)
 	for _, e := range l.exits {
 		switch {
-		case d.errorTest(e):
-			continue // a failure exit bounds nothing
+		case d.errorTest(e), l.rec != nil && l.rec.decided(c.pass.TypesInfo, e):
+			continue // a failure exit bounds nothing, nor does one decided on entry
 		case !d.floatTest(e):
 			return // an exit on something else: data, a state flag
 		}

@@ -82,3 +82,16 @@ func halfway[F float32 | float64](g func(F) F, x, tol F) F {
 	}
 	return halfway[F](g, y, tol)
 }
+
+// stuckCount compares a count that every call passes on as it is: n > 50
+// caps nothing, and the float test alone must end the recursion.
+func stuckCount(g, dg func(float64) float64, x float64, n int) float64 {
+	next := x - g(x)/dg(x)
+	if n > 50 {
+		return next
+	}
+	if math.Abs(next-x) <= 1e-15*math.Abs(next) { // want `recursion may never end: its only base cases are float tests`
+		return next
+	}
+	return stuckCount(g, dg, next, n)
+}

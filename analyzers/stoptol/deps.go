@@ -2,9 +2,11 @@ package stoptol
 
 import (
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"maps"
+	"math"
 	"slices"
 
 	"golang.org/x/tools/go/types/typeutil"
@@ -35,6 +37,7 @@ func newDeps(info *types.Info, l *loop) *deps {
 			ast.Inspect(n, d.record)
 		}
 	}
+	d.recordCalls()
 	return d
 }
 
@@ -52,15 +55,11 @@ func (d *deps) record(n ast.Node) bool {
 				rhs = n.Rhs[i : i+1]
 			}
 			for _, r := range rhs {
-				d.rhs[v], d.tokens[v] = append(d.rhs[v], r), append(d.tokens[v], n.Tok)
-				d.from[v] = append(d.from[v], d.reads(r)...)
-			}
-			if n.Tok != token.ASSIGN && n.Tok != token.DEFINE {
-				d.from[v] = append(d.from[v], v) // x op= e reads x
+				d.add(v, n.Tok, r)
 			}
 		}
 	case *ast.ExprStmt:
-		if call, ok := n.X.(*ast.CallExpr); ok && !d.info.Types[call.Fun].IsType() {
+		if call, ok := n.X.(*ast.CallExpr); ok && !d.info.Types[call.Fun].IsType() && !d.l.isPass(call) {
 			d.effects = true
 		}
 	case *ast.IncDecStmt:
@@ -70,6 +69,15 @@ func (d *deps) record(n ast.Node) bool {
 		}
 	}
 	return true
+}
+
+// add notes the assignment v tok r.
+func (d *deps) add(v *types.Var, tok token.Token, r ast.Expr) {
+	d.rhs[v], d.tokens[v] = append(d.rhs[v], r), append(d.tokens[v], tok)
+	d.from[v] = append(d.from[v], d.reads(r)...)
+	if tok != token.ASSIGN && tok != token.DEFINE {
+		d.from[v] = append(d.from[v], v) // x op= e reads x
+	}
 }
 
 // reads returns the variables and fields e reads, except through a
@@ -401,6 +409,104 @@ func (d *deps) scaledOnly(v *types.Var, invariant bool) bool {
 	return true
 }
 
+// recedes reports whether v is scaled by constant factors that all shrink
+// it (|c| < 1) and the exits read it only on the side that must be the
+// larger for them to hold (a tolerance halved at each level of a
+// recursion: |S2-S| <= 15*tol), or by factors that all grow it and they
+// read it only on the smaller side: as v tends to 0 or ±Inf the exits
+// move out of reach instead of passing.
+func (d *deps) recedes(v *types.Var) bool {
+	shrinks, grows := false, false
+	for i, r := range d.rhs[v] {
+		c, ok := d.factor(d.tokens[v][i], r, v)
+		if !ok || math.Abs(c) == 1 {
+			return false
+		}
+		shrinks, grows = shrinks || math.Abs(c) < 1, grows || math.Abs(c) > 1
+	}
+	var small, large bool
+	for _, t := range d.tests {
+		d.sides(t.e, !t.cond, v, &small, &large)
+	}
+	return shrinks && !grows && large && !small || grows && !shrinks && small && !large
+}
+
+// factor returns the constant c of an assignment v tok r that scales v by
+// c: v *= c, v /= c, v = v/2, v = 0.5*v.
+func (d *deps) factor(tok token.Token, r ast.Expr, v *types.Var) (float64, bool) {
+	switch tok {
+	case token.MUL_ASSIGN, token.QUO_ASSIGN:
+		c, n, ok := d.scaleIn(r, v)
+		if !ok || n != 0 || c == 0 {
+			return 0, false
+		}
+		if tok == token.QUO_ASSIGN {
+			c = 1 / c
+		}
+		return c, true
+	case token.ASSIGN:
+		c, n, ok := d.scaleIn(r, v)
+		return c, ok && n == 1
+	}
+	return 0, false
+}
+
+// scaleIn reads e as c·v^n, a product and quotient of constants and v.
+func (d *deps) scaleIn(e ast.Expr, v *types.Var) (c float64, n int, ok bool) {
+	e = ast.Unparen(e)
+	if tv := d.info.Types[e]; tv.Value != nil {
+		c, _ := constant.Float64Val(constant.ToFloat(tv.Value))
+		return c, 0, true
+	}
+	if tolerance.VarOf(d.info, e) == v {
+		return 1, 1, true
+	}
+	b, isBin := e.(*ast.BinaryExpr)
+	if !isBin || b.Op != token.MUL && b.Op != token.QUO {
+		return 0, 0, false
+	}
+	cx, nx, okx := d.scaleIn(b.X, v)
+	cy, ny, oky := d.scaleIn(b.Y, v)
+	if b.Op == token.QUO {
+		return cx / cy, nx - ny, okx && oky && cy != 0
+	}
+	return cx * cy, nx + ny, okx && oky
+}
+
+// sides notes on which side of the comparisons in e v stands: small for
+// the side that must be the smaller for e to equal holds, large for the
+// other; anywhere else (an equality, a call) counts as both.
+func (d *deps) sides(e ast.Expr, holds bool, v *types.Var, small, large *bool) {
+	in := func(e ast.Expr) bool { return mentionsAny(d.info, e, map[*types.Var]bool{v: true}) }
+	switch e := ast.Unparen(e).(type) {
+	case *ast.UnaryExpr:
+		if e.Op == token.NOT {
+			d.sides(e.X, !holds, v, small, large)
+			return
+		}
+	case *ast.BinaryExpr:
+		lo, hi := e.X, e.Y
+		switch e.Op {
+		case token.LAND, token.LOR:
+			d.sides(e.X, holds, v, small, large)
+			d.sides(e.Y, holds, v, small, large)
+			return
+		case token.GTR, token.GEQ:
+			lo, hi = hi, lo
+		}
+		if isOrdered(e.Op) {
+			if !holds {
+				lo, hi = hi, lo
+			}
+			*small, *large = *small || in(lo), *large || in(hi)
+			return
+		}
+	}
+	if in(e) {
+		*small, *large = true, true
+	}
+}
+
 // counted reports whether v is, or is computed in the loop from, an
 // integer counter the loop steps: each pass reads it at a new integer,
 // so no float stalls it.
@@ -590,8 +696,11 @@ func assignments(info *types.Info, body ast.Node, v *types.Var) []ast.Expr {
 
 // carriesFloats reports whether a value of type t can carry float work
 // from pass to pass: not an integer, a pointer, an interface, a map, a
-// channel or a function.
+// channel or a function; a type parameter does when its terms are floats.
 func carriesFloats(t types.Type) bool {
+	if _, ok := t.(*types.TypeParam); ok {
+		return provenance.IsFloat(t)
+	}
 	switch u := t.Underlying().(type) {
 	case *types.Basic:
 		return u.Info()&types.IsInteger == 0

@@ -61,6 +61,24 @@
 //     so does a NaN when every exit is false for NaN (d < tol breaks; d >
 //     tol as the loop condition does not); a series whose only exit tests
 //     the term, when a NaN term keeps it running;
+//   - a function that calls itself (a method, on its own receiver) until a
+//     float test passes, read as the loop for { body } whose passes are the
+//     recursive calls, each assigning its arguments to the parameters, and
+//     whose exits are the returns that make and follow no recursive call,
+//     each guarded by the conditions of the ifs around it (a function
+//     with no results whose body ends in if cond { ... recursive calls ... }
+//     is read as for cond { body }): judged as such
+//     a loop, it is reported at its first float base-case test when
+//     nothing bounds the depth (category nocap). A recursion that never
+//     ends is worse than a loop: every call holds a stack frame, and once
+//     the goroutine's stack passes its maximum (1 GB on 64-bit platforms,
+//     250 MB on 32-bit, per the doc of runtime/debug.SetMaxStack) the
+//     runtime aborts the program with a fatal error that recover cannot
+//     catch. Bisection to |f(m)| < 1e-17 on x²-2 never passes: f takes no
+//     value between 0 and about 4.4e-16 near √2, where floats are 2.22e-16
+//     apart, and m repeats once the ends are adjacent; adaptive Simpson
+//     quadrature that halves its tolerance at each level, with no depth
+//     limit, never passes once the halves are below rounding;
 //   - a range reduction by repeated addition, for x < 0 { x += 2*math.Pi },
 //     on a parameter of an exported function, which takes |x|/c passes and
 //     never ends once c is absorbed, from |x| = 2^56 ≈ 7.2e16 for 2π in
@@ -108,7 +126,11 @@
 //   - bisection until no float is left (m <= a || m >= b, or m == a ||
 //     m == b): m rounds to an end after at most about 2100 halvings;
 //   - values scaled each pass by a factor the loop does not change (h /= 3,
-//     b *= 1/safmin): they reach 0 or ±Inf in at most about 2100 passes;
+//     b *= 1/safmin): they reach 0 or ±Inf in at most about 2100 passes,
+//     unless the factor is a constant that moves the value away from
+//     passing (a tolerance halved each pass or at each level of a
+//     recursion, tested as |s2-s| <= 15*tol: as tol goes to 0 the test
+//     gets harder, not easier);
 //     series terms scaled by a changing factor and series that test the
 //     term, when a NaN ends the loop (|t| > tol as the loop condition);
 //   - tests on values drawn anew each pass (rejection sampling, polling)
@@ -139,9 +161,18 @@
 //     callers are the module's own, and a value within a few periods takes a pass or two)
 //     or against another variable (how far apart they start is the
 //     caller's);
-//   - loops in test files, which run on the fixed inputs they were written
-//     for: one that never ended would hang the test; and constants written
-//     in test files, since each case runs on its one problem;
+//   - recursions capped like loops: a base case or a panic guarded by an
+//     integer comparison of a depth or count that the recursive calls
+//     change (if n > 50 { return x } with n+1 passed on), or a base case on
+//     anything else the calls change (the length of the data); a test on
+//     values every call passes on as they are holds at every level or at
+//     none, and bounds nothing; a
+//     recursion into other receivers (a tree's children), whose depth is the
+//     data's;
+//   - loops and recursions in test files, which run on the fixed inputs
+//     they were written for: one that never ended would hang the test; and
+//     constants written in test files, since each case runs on its one
+//     problem;
 //   - loops it cannot classify, except for the missing cap.
 //
 // Fixes (all need review): in a minimization, the test becomes

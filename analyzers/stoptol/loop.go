@@ -45,12 +45,13 @@ type function struct {
 // loop holds what stoptol learns about one for statement.
 type loop struct {
 	*function
-	stmt    *ast.ForStmt
+	stmt    *ast.ForStmt          // for a recursion, for { body } standing for its function
+	rec     *recursion            // the recursion read, or nil for a loop
 	exits   []ast.Expr            // conditions that end the loop when they hold (or, for the loop condition, fail)
 	other   bool                  // some exit is not a condition stoptol reads (unconditional, labelled, in an else branch)
 	capped  bool                  // an integer comparison bounds the iterations
 	capOff  ast.Expr              // a loop-invariant operand of the loop condition's || that keeps it true: the cap beside it is off
-	changed map[types.Object]bool // variables the body or post statement assigns
+	changed map[types.Object]bool // variables the body or post statement changes (see changedIn)
 	class   class
 	xvars   map[*types.Var]bool // float variables assigned in the loop, function values excepted
 	steps   map[*types.Var]bool // variables added to or subtracted from an x variable
@@ -60,10 +61,10 @@ type loop struct {
 }
 
 // readLoop collects the exits, the cap, the variables and the class of a
-// for statement of function fn.
-func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
-	l := &loop{function: fn, stmt: stmt, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
-	l.changed = changedIn(info, stmt)
+// for statement of function fn, or of recursion rec read as one.
+func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function, rec *recursion) *loop {
+	l := &loop{function: fn, stmt: stmt, rec: rec, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
+	l.changed = changedIn(info, stmt.Post, stmt.Body)
 	l.capOff = l.invariantOr(info)
 	if stmt.Cond != nil && l.capOff == nil {
 		l.exits = append(l.exits, stmt.Cond)
@@ -76,7 +77,7 @@ func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function) *loop {
 		}
 	}
 	for _, e := range l.exits {
-		if hasIntComparison(info, e) || l.hasCounterComparison(info, e) {
+		if hasIntComparison(info, e) && (rec == nil || !rec.decided(info, e)) || l.hasCounterComparison(info, e) {
 			l.capped = true
 		}
 	}
@@ -95,25 +96,23 @@ func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 			l.walkInner(n)
 			return false
 		case *ast.IfStmt:
-			if l.invariant(info, n.Cond) {
-				l.walk(info, n.Body, conds) // if o.Tol != 0 { ... }: it selects the exits inside, ending nothing itself
-			} else {
-				l.walk(info, n.Body, append(conds[:len(conds):len(conds)], n.Cond))
-			}
+			l.walk(info, n.Body, append(conds[:len(conds):len(conds)], n.Cond))
 			if n.Else != nil {
 				l.walkElse(info, n.Else, conds)
 			}
 			return false
 		case *ast.ReturnStmt:
-			l.exit(conds)
+			if l.ends(n) {
+				l.exit(info, conds)
+			}
 		case *ast.ExprStmt:
 			if call, ok := n.X.(*ast.CallExpr); ok && isPanic(call) {
-				l.exit(conds) // if n > maxIter { panic(...) } is a cap too
+				l.exit(info, conds) // if n > maxIter { panic(...) } is a cap too
 			}
 		case *ast.BranchStmt:
 			switch {
 			case n.Tok == token.BREAK && n.Label == nil:
-				l.exit(conds)
+				l.exit(info, conds)
 			case n.Tok == token.GOTO || n.Label != nil && n.Tok == token.BREAK:
 				l.other = true
 			}
@@ -133,11 +132,11 @@ func isPanic(call *ast.CallExpr) bool {
 // stoptol does not read.
 func (l *loop) walkInner(n ast.Node) {
 	ast.Inspect(n, func(m ast.Node) bool {
-		switch m.(type) {
+		switch m := m.(type) {
 		case *ast.FuncLit:
 			return false
 		case *ast.ReturnStmt:
-			l.other = true
+			l.other = l.other || l.ends(m)
 		}
 		return true
 	})
@@ -154,12 +153,24 @@ func (l *loop) walkElse(info *types.Info, n ast.Node, conds []ast.Expr) {
 }
 
 // exit records an exit guarded by conds; an unguarded one is not a test.
-func (l *loop) exit(conds []ast.Expr) {
+// A guard the loop does not change beside others (if o.Tol != 0 { if d <
+// o.Tol { break } }) selects the exit and ends nothing itself: the others
+// are the exit.
+func (l *loop) exit(info *types.Info, conds []ast.Expr) {
 	if len(conds) == 0 {
 		l.other = true
 		return
 	}
-	l.exits = append(l.exits, conds...)
+	var varying []ast.Expr
+	for _, c := range conds {
+		if !l.invariant(info, c) {
+			varying = append(varying, c)
+		}
+	}
+	if len(varying) == 0 {
+		varying = conds
+	}
+	l.exits = append(l.exits, varying...)
 }
 
 // scan records the variables the loop assigns: function values, x
@@ -322,11 +333,12 @@ func (l *loop) invariant(info *types.Info, e ast.Expr) bool {
 }
 
 // changedIn returns the variables (roots of fields and elements) that the
-// body or post statement of a loop assigns, increments, takes the address
-// of, or hands to a call as an argument or a receiver.
-func changedIn(info *types.Info, stmt *ast.ForStmt) map[types.Object]bool {
+// nodes assign, step, take the address of, or hand to a call that may
+// change them (a pointer, slice, map, channel or interface argument; the
+// receiver of a pointer method).
+func changedIn(info *types.Info, nodes ...ast.Node) map[types.Object]bool {
 	changed := map[types.Object]bool{}
-	for _, n := range []ast.Node{stmt.Post, stmt.Body} {
+	for _, n := range nodes {
 		if n == nil {
 			continue
 		}
@@ -344,9 +356,11 @@ func changedIn(info *types.Info, stmt *ast.ForStmt) map[types.Object]bool {
 				}
 			case *ast.CallExpr:
 				for _, a := range n.Args {
-					changed[rootObj(info, a)] = true // costs(r) may write r's elements
+					if shares(info.TypeOf(a)) {
+						changed[rootObj(info, a)] = true // costs(r) may write r's elements
+					}
 				}
-				if sel, ok := ast.Unparen(n.Fun).(*ast.SelectorExpr); ok {
+				if sel, ok := ast.Unparen(n.Fun).(*ast.SelectorExpr); ok && (shares(info.TypeOf(sel.X)) || pointerMethod(info, sel)) {
 					changed[rootObj(info, sel.X)] = true // s.Step() may change s
 				}
 			}
@@ -354,6 +368,30 @@ func changedIn(info *types.Info, stmt *ast.ForStmt) map[types.Object]bool {
 		})
 	}
 	return changed
+}
+
+// shares reports whether a value of type t lets a callee change what the
+// caller holds: a pointer, slice, map, channel or interface.
+func shares(t types.Type) bool {
+	if t == nil {
+		return false
+	}
+	switch t.Underlying().(type) {
+	case *types.Pointer, *types.Slice, *types.Map, *types.Chan, *types.Interface:
+		return true
+	}
+	return false
+}
+
+// pointerMethod reports whether sel calls a method with a pointer
+// receiver, which may change the value it is called on.
+func pointerMethod(info *types.Info, sel *ast.SelectorExpr) bool {
+	s := info.Selections[sel]
+	if s == nil || s.Kind() != types.MethodVal {
+		return false
+	}
+	_, ptr := s.Obj().Type().(*types.Signature).Recv().Type().(*types.Pointer)
+	return ptr
 }
 
 // rootObj returns the variable at the root of x, x.f, x[i], *x.
@@ -413,7 +451,14 @@ func (l *loop) hasCounterComparison(info *types.Info, e ast.Expr) bool {
 func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 	v := tolerance.VarOf(info, x)
 	b := info.Types[bound].Value
-	if v == nil || b == nil || v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() || !provenance.IsFloat(v.Type()) {
+	if v == nil || b == nil || !provenance.IsFloat(v.Type()) {
+		return false
+	}
+	if l.rec != nil {
+		step, ok := l.rec.counterStep(info, v)
+		return ok && countsBelow(b, step)
+	}
+	if v.Pos() < l.body.Pos() || v.Pos() >= l.body.End() {
 		return false
 	}
 	if v.Pos() >= l.stmt.Body.Pos() && v.Pos() < l.stmt.Body.End() {
@@ -460,8 +505,14 @@ func (l *loop) countsTo(info *types.Info, x, bound ast.Expr) bool {
 		}
 		return ok
 	})
-	limit, _ := constant.Float64Val(constant.ToFloat(b))
-	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && math.Abs(limit) < 0x1p52*minStep
+	return ok && len(signs) == 1 && !math.IsInf(minStep, 1) && countsBelow(b, minStep)
+}
+
+// countsBelow reports whether the constant bound lies below 2^52 times
+// step, where half the spacing of floats is below the step.
+func countsBelow(bound constant.Value, step float64) bool {
+	limit, _ := constant.Float64Val(constant.ToFloat(bound))
+	return math.Abs(limit) < 0x1p52*step
 }
 
 // constAssign reports whether as assigns v, if at all, a constant outside

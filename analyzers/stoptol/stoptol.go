@@ -112,16 +112,29 @@ func run(pass *analysis.Pass) (any, error) {
 		if !holdsAny(floatTests, n) {
 			continue // every rule is about a loop ended by a float test
 		}
-		body := enclosingBody(cur)
-		if funcs[body] == nil {
-			funcs[body] = &function{body: body, decl: enclosingDecl(cur), fvals: FValues(pass.TypesInfo, body), flags: tolerance.Flags(pass.TypesInfo, body)}
-		}
-		l := readLoop(pass.TypesInfo, n, funcs[body])
+		l := readLoop(pass.TypesInfo, n, c.function(funcs, enclosingBody(cur), enclosingDecl(cur)), nil)
 		l.noise = c.objectiveNoise(l)
 		c.loop(cur, l)
 	}
+	for cur := range root.Preorder((*ast.FuncDecl)(nil)) {
+		n := cur.Node().(*ast.FuncDecl)
+		if n.Body == nil || !holdsAny(floatTests, n.Body) {
+			continue // a recursion is judged only when a float test may end it
+		}
+		if r := newRecursion(pass.TypesInfo, n); r != nil {
+			c.unbounded(r.read(pass.TypesInfo, c.function(funcs, n.Body, n)))
+		}
+	}
 	c.sites(root)
 	return nil, nil
+}
+
+// function returns what stoptol learns about a function body, once.
+func (c *checker) function(funcs map[ast.Node]*function, body ast.Node, decl *ast.FuncDecl) *function {
+	if funcs[body] == nil {
+		funcs[body] = &function{body: body, decl: decl, fvals: FValues(c.pass.TypesInfo, body), flags: tolerance.Flags(c.pass.TypesInfo, body)}
+	}
+	return funcs[body]
 }
 
 // isFloatPredicate reports whether call returns a bool from a float

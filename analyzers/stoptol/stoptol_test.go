@@ -3,6 +3,7 @@ package stoptol_test
 import (
 	"fmt"
 	"go/token"
+	"math"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -92,6 +93,43 @@ func TestMeasures(t *testing.T) {
 // end for other reasons.
 func TestUnbounded(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "unbounded", "unbounded/internal/turn")
+}
+
+// TestRecursion checks functions that call themselves until a float test
+// passes, read as loops whose passes are the recursive calls, and those
+// that end for another reason: a depth or count cap, no float left between
+// the ends, a value scaled toward 0.
+func TestRecursion(t *testing.T) {
+	for _, r := range analysistest.Run(t, analysistest.TestData(), stoptol.Analyzer, "recursion") {
+		for _, d := range r.Diagnostics {
+			require.Len(t, d.Related, 1, "a recursion finding names its recursive call")
+			if position(r.Pass.Fset.Position(d.Pos)) == "hazards.go:14" {
+				assert.Equal(t, "hazards.go:18", position(r.Pass.Fset.Position(d.Related[0].Pos)))
+			}
+		}
+	}
+}
+
+// TestRecursionStalls runs the passes of testdata's crossing (bisection
+// for x²-2 on [1, 2] until |f(mid)| < 1e-17) as a loop, 3000 of them: the
+// test never passes. IEEE 754-2019 binary64: near √2 floats are 2^-52
+// apart, so x*x rounds to 2-2^-51 or 2+2^-51 and never to 2, and |f|
+// takes no value below 2^-51 ≈ 4.4e-16; the ends become adjacent after
+// about 52 halvings and mid repeats from then on.
+func TestRecursionStalls(t *testing.T) {
+	f := func(x float64) float64 { return x*x - 2 }
+	lo, hi, least := 1.0, 2.0, math.Inf(1)
+	for range 3000 {
+		mid := (lo + hi) / 2
+		least = min(least, math.Abs(f(mid)))
+		if f(lo)*f(mid) < 0 {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	assert.Equal(t, 0x1p-51, least)
+	assert.Equal(t, math.Nextafter(lo, 3), hi, "the ends are adjacent floats")
 }
 
 // TestRelated checks that a finding whose value is written in one place

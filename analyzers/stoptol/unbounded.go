@@ -31,7 +31,8 @@ const (
 // for a reason in the package doc: bisection until no float is left,
 // values scaled each pass (they reach 0 or ±Inf), series whose test reads
 // the term, fresh draws (sampling, polling), values carried only by integer
-// counters or by walking data, and scans by a given step.
+// counters or by walking data, and scans by a given step. A recursion
+// read as a loop is judged the same way and reported as a recursion.
 func (c *checker) unbounded(l *loop) {
 	if l.capped || l.other || len(l.exits) == 0 || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
@@ -39,8 +40,8 @@ func (c *checker) unbounded(l *loop) {
 	d := newDeps(c.pass.TypesInfo, l)
 	for _, e := range l.exits {
 		switch {
-		case d.errorTest(e):
-			continue // a failure exit bounds nothing
+		case d.errorTest(e), l.rec != nil && l.rec.decided(c.pass.TypesInfo, e):
+			continue // a failure exit bounds nothing, nor does one decided on entry
 		case !d.floatTest(e):
 			return // an exit on something else: data, a state flag
 		}
@@ -55,7 +56,7 @@ func (c *checker) unbounded(l *loop) {
 	series := false
 	for v := range tested {
 		switch {
-		case d.scaled(v, true), !nanRuns && (d.scaled(v, false) || d.series(v)):
+		case !d.recedes(v) && (d.scaled(v, true) || !nanRuns && d.scaled(v, false)), !nanRuns && d.series(v):
 			return // it reaches 0 or ±Inf, or it is a term and NaN ends the loop
 		case !d.effects && d.fresh(v, 4), d.counted(v):
 			return // it is drawn anew, or read at a new integer each pass
@@ -65,6 +66,10 @@ func (c *checker) unbounded(l *loop) {
 	}
 	if !carried {
 		return // the tests read values the loop does not carry from pass to pass
+	}
+	if l.rec != nil {
+		c.reportRecursion(d, nanRuns)
+		return
 	}
 	if series {
 		c.reportLoop(d, catNoCap, fmt.Sprintf("series may never end: its only exits test the term (%s) and %s, so a NaN term, for which the test is false, or a sum that stalls keeps it running; add an iteration limit",
@@ -80,12 +85,17 @@ func (c *checker) unbounded(l *loop) {
 	if !nanRuns && c.sweep(d, tested) {
 		return // a sweep by fractions of what is left, reported where a fraction can be 0
 	}
-	nan := ""
-	if nanRuns {
-		nan = ", and so does a NaN, which fails every ordered comparison"
-	}
 	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and %s, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
-		c.exitText(d.tests[0].e), c.uncapped(l, "passes"), nan))
+		c.exitText(d.tests[0].e), c.uncapped(l, "passes"), nanClause(nanRuns)))
+}
+
+// nanClause says, for a message, that a NaN keeps the loop or recursion
+// going when it does.
+func nanClause(nanRuns bool) string {
+	if nanRuns {
+		return ", and so does a NaN, which fails every ordered comparison"
+	}
+	return ""
 }
 
 // uncapped says, for a message, that nothing caps the loop's passes (or

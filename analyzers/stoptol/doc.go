@@ -67,7 +67,10 @@
 //     whose exits are the returns that make and follow no recursive call,
 //     each guarded by the conditions of the ifs around it (a function
 //     with no results whose body ends in if cond { ... recursive calls ... }
-//     is read as for cond { body }): judged as such
+//     is read as for cond { body }; an exit standing after an if chain
+//     every branch of which leaves, if a { return m } else if b { return
+//     rec(...) }; return math.Inf(1), runs only where no condition of the
+//     chain held and is guarded by their negations, in loops too): judged as such
 //     a loop, it is reported at its first float base-case test when
 //     nothing bounds the depth (category nocap). A recursion that never
 //     ends is worse than a loop: every call holds a stack frame, and once

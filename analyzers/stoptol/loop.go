@@ -92,6 +92,9 @@ func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 		switch n := n.(type) {
 		case *ast.FuncLit:
 			return false
+		case *ast.BlockStmt:
+			l.walkBlock(info, n, conds)
+			return false
 		case *ast.ForStmt, *ast.RangeStmt, *ast.SwitchStmt, *ast.TypeSwitchStmt, *ast.SelectStmt:
 			l.walkInner(n)
 			return false
@@ -119,6 +122,82 @@ func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 		}
 		return true
 	})
+}
+
+// walkBlock walks the statements of a block in order. An exit that stands
+// unguarded after an if chain every branch of which leaves the pass
+// (returns, panics, breaks or continues) runs only where no condition of
+// the chain held, so the negations of those conditions guard it (if
+// |f(m)| < eps { return m } else if ... { return rec(...) }; return
+// math.Inf(1)).
+func (l *loop) walkBlock(info *types.Info, b *ast.BlockStmt, conds []ast.Expr) {
+	var negs []ast.Expr
+	for _, st := range b.List {
+		if len(conds) == 0 && len(negs) > 0 && l.leaves(st) {
+			l.exit(info, negs)
+			continue
+		}
+		l.walk(info, st, conds)
+		if ifs, ok := st.(*ast.IfStmt); ok {
+			if more, ok := chainLeaves(ifs); ok {
+				negs = append(negs, more...)
+			}
+		}
+	}
+}
+
+// leaves reports whether st is itself an exit of the loop: a return that
+// ends it, a panic, or an unlabelled break.
+func (l *loop) leaves(st ast.Stmt) bool {
+	switch s := st.(type) {
+	case *ast.ReturnStmt:
+		return l.ends(s)
+	case *ast.BranchStmt:
+		return s.Tok == token.BREAK && s.Label == nil
+	case *ast.ExprStmt:
+		call, ok := s.X.(*ast.CallExpr)
+		return ok && isPanic(call)
+	}
+	return false
+}
+
+// chainLeaves returns the negations of the conditions of an if chain
+// (if a {...} else if b {...}) with no final else, when every branch
+// leaves the pass.
+func chainLeaves(ifs *ast.IfStmt) ([]ast.Expr, bool) {
+	var negs []ast.Expr
+	for {
+		if ifs.Init != nil || !leavesPass(ifs.Body) {
+			return nil, false
+		}
+		negs = append(negs, &ast.UnaryExpr{OpPos: ifs.Cond.Pos(), Op: token.NOT, X: &ast.ParenExpr{Lparen: ifs.Cond.Pos(), X: ifs.Cond, Rparen: ifs.Cond.End()}})
+		switch e := ifs.Else.(type) {
+		case nil:
+			return negs, true
+		case *ast.IfStmt:
+			ifs = e
+		default:
+			return nil, false
+		}
+	}
+}
+
+// leavesPass reports whether a block ends by leaving the pass: a return, a
+// panic, a break or a continue.
+func leavesPass(b *ast.BlockStmt) bool {
+	if len(b.List) == 0 {
+		return false
+	}
+	switch s := b.List[len(b.List)-1].(type) {
+	case *ast.ReturnStmt:
+		return true
+	case *ast.BranchStmt:
+		return s.Tok == token.BREAK || s.Tok == token.CONTINUE
+	case *ast.ExprStmt:
+		call, ok := s.X.(*ast.CallExpr)
+		return ok && isPanic(call)
+	}
+	return false
 }
 
 // isPanic reports whether call is of the builtin panic.

@@ -95,3 +95,19 @@ func stuckCount(g, dg func(float64) float64, x float64, n int) float64 {
 	}
 	return stuckCount(g, dg, next, n)
 }
+
+// straddle bisects a sign change and gives up with +Inf when neither
+// half holds one: that last return runs only where no test of the chain
+// before it held, so it is an exit on float tests too, and nothing bounds
+// the depth.
+func straddle(g func(float64) float64, lo, hi, tol float64) float64 {
+	m := (lo + hi) / 2
+	if math.Abs(g(m)) < tol { // want `recursion may never end: its only base cases are float tests \(math.Abs\(g\(m\)\) < tol\)`
+		return m
+	} else if (g(lo) < 0) != (g(m) < 0) {
+		return straddle(g, lo, m, tol)
+	} else if (g(hi) < 0) != (g(m) < 0) {
+		return straddle(g, m, hi, tol)
+	}
+	return math.Inf(1)
+}

@@ -167,7 +167,7 @@ func (l *loop) leaves(st ast.Stmt) bool {
 func chainLeaves(ifs *ast.IfStmt) ([]ast.Expr, bool) {
 	var negs []ast.Expr
 	for {
-		if ifs.Init != nil || !leavesPass(ifs.Body) {
+		if ifs.Init != nil || !tolerance.Leaves(ifs.Body, true) {
 			return nil, false
 		}
 		negs = append(negs, &ast.UnaryExpr{OpPos: ifs.Cond.Pos(), Op: token.NOT, X: &ast.ParenExpr{Lparen: ifs.Cond.Pos(), X: ifs.Cond, Rparen: ifs.Cond.End()}})
@@ -180,24 +180,6 @@ func chainLeaves(ifs *ast.IfStmt) ([]ast.Expr, bool) {
 			return nil, false
 		}
 	}
-}
-
-// leavesPass reports whether a block ends by leaving the pass: a return, a
-// panic, a break or a continue.
-func leavesPass(b *ast.BlockStmt) bool {
-	if len(b.List) == 0 {
-		return false
-	}
-	switch s := b.List[len(b.List)-1].(type) {
-	case *ast.ReturnStmt:
-		return true
-	case *ast.BranchStmt:
-		return s.Tok == token.BREAK || s.Tok == token.CONTINUE
-	case *ast.ExprStmt:
-		call, ok := s.X.(*ast.CallExpr)
-		return ok && isPanic(call)
-	}
-	return false
 }
 
 // isPanic reports whether call is of the builtin panic.

@@ -202,13 +202,19 @@ func comparesObjs(info *types.Info, pair []ast.Expr, h, l types.Object) bool {
 }
 
 // leaves reports whether block ends by returning or panicking.
-func leaves(block *ast.BlockStmt) bool {
+func leaves(block *ast.BlockStmt) bool { return Leaves(block, false) }
+
+// Leaves reports whether block ends by returning or panicking, or, with
+// loops, by a break or continue that leaves the pass of the loop around.
+func Leaves(block *ast.BlockStmt, loops bool) bool {
 	if len(block.List) == 0 {
 		return false
 	}
 	switch s := block.List[len(block.List)-1].(type) {
 	case *ast.ReturnStmt:
 		return true
+	case *ast.BranchStmt:
+		return loops && (s.Tok == token.BREAK || s.Tok == token.CONTINUE)
 	case *ast.ExprStmt:
 		if call, ok := s.X.(*ast.CallExpr); ok {
 			id, ok := ast.Unparen(call.Fun).(*ast.Ident)

@@ -68,9 +68,12 @@
 //     each guarded by the conditions of the ifs around it (a function
 //     with no results whose body ends in if cond { ... recursive calls ... }
 //     is read as for cond { body }; an exit standing after an if chain
-//     every branch of which leaves, if a { return m } else if b { return
-//     rec(...) }; return math.Inf(1), runs only where no condition of the
-//     chain held and is guarded by their negations, in loops too): judged as such
+//     every branch of which leaves, one by a base case of its own, if a {
+//     return m } else if b { return rec(...) }; return math.Inf(1), runs
+//     only where no condition of the chain held and is guarded by their
+//     negations, in loops too, but not after a chain that only passes on,
+//     a reflection if x < 0 { return f(-x) } whose call leaves the
+//     guard's domain): judged as such
 //     a loop, it is reported at its first float base-case test when
 //     nothing bounds the depth (category nocap). A recursion that never
 //     ends is worse than a loop: every call holds a stack frame, and once

@@ -125,11 +125,12 @@ func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 }
 
 // walkBlock walks the statements of a block in order. An exit that stands
-// unguarded after an if chain every branch of which leaves the pass
-// (returns, panics, breaks or continues) runs only where no condition of
-// the chain held, so the negations of those conditions guard it (if
-// |f(m)| < eps { return m } else if ... { return rec(...) }; return
-// math.Inf(1)).
+// unguarded after an if chain every branch of which leaves the pass, one
+// of them by an exit of its own (if |f(m)| < eps { return m } else if ...
+// { return rec(...) }; return math.Inf(1)), runs only where no condition
+// of the chain held: it is a further exit, guarded by their negations. A
+// chain whose branches only pass on (a reflection, if x < 0 { return
+// f(-x) }, whose call leaves the guard's domain) is not read so.
 func (l *loop) walkBlock(info *types.Info, b *ast.BlockStmt, conds []ast.Expr) {
 	var negs []ast.Expr
 	for _, st := range b.List {
@@ -139,7 +140,7 @@ func (l *loop) walkBlock(info *types.Info, b *ast.BlockStmt, conds []ast.Expr) {
 		}
 		l.walk(info, st, conds)
 		if ifs, ok := st.(*ast.IfStmt); ok {
-			if more, ok := chainLeaves(ifs); ok {
+			if more, ok := l.chainLeaves(ifs); ok {
 				negs = append(negs, more...)
 			}
 		}
@@ -163,17 +164,19 @@ func (l *loop) leaves(st ast.Stmt) bool {
 
 // chainLeaves returns the negations of the conditions of an if chain
 // (if a {...} else if b {...}) with no final else, when every branch
-// leaves the pass.
-func chainLeaves(ifs *ast.IfStmt) ([]ast.Expr, bool) {
+// leaves the pass and one of them is an exit.
+func (l *loop) chainLeaves(ifs *ast.IfStmt) ([]ast.Expr, bool) {
 	var negs []ast.Expr
+	exit := false
 	for {
 		if ifs.Init != nil || !tolerance.Leaves(ifs.Body, true) {
 			return nil, false
 		}
+		exit = exit || l.leaves(ifs.Body.List[len(ifs.Body.List)-1])
 		negs = append(negs, &ast.UnaryExpr{OpPos: ifs.Cond.Pos(), Op: token.NOT, X: &ast.ParenExpr{Lparen: ifs.Cond.Pos(), X: ifs.Cond, Rparen: ifs.Cond.End()}})
 		switch e := ifs.Else.(type) {
 		case nil:
-			return negs, true
+			return negs, exit
 		case *ast.IfStmt:
 			ifs = e
 		default:

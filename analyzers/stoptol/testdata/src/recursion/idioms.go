@@ -100,3 +100,14 @@ func simpsonGuarded(g func(float64) float64, a, b, tol, whole float64, depth int
 	}
 	return left + right + (left+right-whole)/15
 }
+
+// wrapped brings a bearing into [0, 2π): a negative one is reflected once,
+// and 2π - b is positive for every negative b, so the call never comes
+// back to the test. A chain whose branches only pass on holds no base case
+// of its own, and the return after it is not read as one.
+func wrapped(b float64) float64 {
+	if b < 0 {
+		return wrapped(2*math.Pi - b)
+	}
+	return math.Mod(b, 2*math.Pi)
+}

@@ -5,9 +5,11 @@ import (
 	"go/ast"
 	"go/constant"
 	"go/token"
+	"go/types"
 	"slices"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/constval"
@@ -24,7 +26,7 @@ import (
 // k and the equality does not, so the two branches that should agree
 // part (the k case is skipped while int(x) says k). It reports whether
 // it reported.
-func (c *checker) wholeCount(n *ast.BinaryExpr, op token.Token, x, y operand) bool {
+func (c *checker) wholeCount(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) bool {
 	v, k := x, y
 	if !c.isWholeConst(k.expr) {
 		v, k = y, x
@@ -33,7 +35,8 @@ func (c *checker) wholeCount(n *ast.BinaryExpr, op token.Token, x, y operand) bo
 		}
 	}
 	val := provenance.Strip(v.val)
-	if !truncated(val) || !c.track.Computed(val) && !c.filledComputed(val) {
+	at := truncations(val)
+	if len(at) == 0 || !c.track.Computed(val) && !c.filledComputed(val) || c.settled(cur, op, v.expr, at) {
 		return false
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
@@ -60,24 +63,74 @@ func (c *checker) spacingAt(e ast.Expr) float64 {
 	return provenance.FormatOf(c.pass.TypesInfo.TypeOf(e)).Spacing(f)
 }
 
-// truncated reports whether v is converted to an integer type or passed
-// to math.Floor or math.Trunc.
-func truncated(v ssa.Value) bool {
+// truncations returns the positions where v is converted to an integer
+// type or passed to math.Floor or math.Trunc.
+func truncations(v ssa.Value) []token.Pos {
 	refs := v.Referrers()
 	if refs == nil {
-		return false
+		return nil
 	}
+	var at []token.Pos
 	for _, r := range *refs {
 		switch r := r.(type) {
 		case *ssa.Convert:
 			if isInteger(r.Type()) {
-				return true
+				at = append(at, r.Pos())
 			}
 		case *ssa.Call:
 			if integral(r) && slices.Contains(r.Call.Args, v) {
-				return true
+				at = append(at, r.Pos())
 			}
 		}
+	}
+	return at
+}
+
+// settled reports whether the equality at cur (op ==) is, alone or joined
+// by || to others of the same x with whole constants, the condition of an
+// if statement whose body holds every truncation: there x is one of those
+// constants, and int(x) is that constant exactly (if x == -1 || x == 1 {
+// return Inf(int(x)) }).
+func (c *checker) settled(cur inspector.Cursor, op token.Token, x ast.Expr, at []token.Pos) bool {
+	if op != token.EQL {
+		return false
+	}
+	for p := cur.Parent(); ; p = p.Parent() {
+		switch n := p.Node().(type) {
+		case *ast.ParenExpr:
+			continue
+		case *ast.BinaryExpr:
+			if n.Op == token.LOR {
+				continue
+			}
+		case *ast.IfStmt:
+			if !c.wholeChoices(n.Cond, x) {
+				return false
+			}
+			for _, pos := range at {
+				if !pos.IsValid() || pos < n.Body.Pos() || pos >= n.Body.End() {
+					return false
+				}
+			}
+			return true
+		}
+		return false
+	}
+}
+
+// wholeChoices reports whether cond is x == k, or such tests joined by ||,
+// each k a whole constant.
+func (c *checker) wholeChoices(cond, x ast.Expr) bool {
+	b, ok := ast.Unparen(cond).(*ast.BinaryExpr)
+	if !ok {
+		return false
+	}
+	switch b.Op {
+	case token.LOR:
+		return c.wholeChoices(b.X, x) && c.wholeChoices(b.Y, x)
+	case token.EQL:
+		src := types.ExprString(ast.Unparen(x))
+		return types.ExprString(ast.Unparen(b.X)) == src && c.isWholeConst(b.Y) || types.ExprString(ast.Unparen(b.Y)) == src && c.isWholeConst(b.X)
 	}
 	return false
 }

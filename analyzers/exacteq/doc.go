@@ -61,6 +61,9 @@
 //     it (int(df), math.Floor): the function treats it as a count, and a
 //     value an ulp above 1 (1+2.22e-16) is 1 to the truncation and not to
 //     the equality, so the special case and the counting branches part;
+//     not where every truncation runs inside the if the equality (alone
+//     or with others of x joined by ||) selects: if x == -1 || x == 1 {
+//     return Inf(int(x)) } truncates only the constants themselves;
 //   - in tests, testify's assert or require Equal (and its variants) compares
 //     floats under the same rules;
 //   - in tests, an exact comparison of a result the code under test

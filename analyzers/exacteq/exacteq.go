@@ -228,7 +228,7 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 // scalar applies the computed-value rules to a float comparison; n is nil
 // for a switch case, which gets no fix.
 func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
-	if n != nil && (c.sumTie(cur, n, op, x, y) || c.secondRoute(cur, n, op, x, y) || c.wholeCount(n, op, x, y)) || c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
+	if n != nil && (c.sumTie(cur, n, op, x, y) || c.secondRoute(cur, n, op, x, y) || c.wholeCount(cur, n, op, x, y)) || c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)

@@ -662,6 +662,14 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	if c.computed(cur, a) || c.computed(cur, b) {
 		return true // the operand's own rounding error already costs what the factorisation would save
 	}
+	if x := a; c.isOne(a) || c.isOne(b) {
+		if c.isOne(a) {
+			x = b
+		}
+		if c.guarded(cur, x, c.awayFromOne) {
+			return true // |x| kept away from 1: at most two digits go
+		}
+	}
 	if consume.Of(c.pass.TypesInfo, cur, 2) != consume.Relative {
 		return true // backward stable: an absolute error of u·a² shows only where relative accuracy is needed
 	}

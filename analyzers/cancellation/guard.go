@@ -5,6 +5,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"math"
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
@@ -134,6 +135,46 @@ func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bo
 		return sign > 0
 	case token.LSS, token.LEQ:
 		return sign < 0 && !abs
+	}
+	return false
+}
+
+// awayFromOne is the bound for 1 - x*x and x*x - 1: cond keeps x above
+// sqrt(100/99) ≈ 1.005 (or below its negation), or |x| below sqrt(0.99) ≈
+// 0.995 (x > 2 before math.Sqrt(x*x-1)), so a²/|a²-b²| stays within
+// boundedLoss and at most two digits go.
+func (c *checker) awayFromOne(cond ast.Expr, negated bool, x ast.Expr) bool {
+	switch e := ast.Unparen(cond).(type) {
+	case *ast.UnaryExpr:
+		return e.Op == token.NOT && c.awayFromOne(e.X, !negated, x)
+	case *ast.BinaryExpr:
+		switch {
+		case e.Op == token.LOR && !negated, e.Op == token.LAND && negated:
+			return c.awayFromOne(e.X, negated, x) && c.awayFromOne(e.Y, negated, x)
+		case e.Op == token.LAND, e.Op == token.LOR:
+			return c.awayFromOne(e.X, negated, x) || c.awayFromOne(e.Y, negated, x)
+		}
+		op, lhs, rhs := e.Op, e.X, e.Y
+		if !c.mentions(lhs, x) {
+			op, lhs, rhs = mirror(op), e.Y, e.X
+		}
+		if negated {
+			op = invert(op)
+		}
+		abs, ok := c.form(lhs, x)
+		v := c.pass.TypesInfo.Types[rhs].Value
+		if !ok || v == nil || v.Kind() != constant.Int && v.Kind() != constant.Float {
+			return false
+		}
+		k, _ := constant.Float64Val(constant.ToFloat(v))
+		outside := math.Sqrt(float64(boundedLoss) / (boundedLoss - 1)) // x²/(x²-1) ≤ 100 from here up
+		inside := math.Sqrt(1 - 1/float64(boundedLoss))                // 1/(1-x²) ≤ 100 from here down
+		switch op {
+		case token.GTR, token.GEQ:
+			return k >= outside
+		case token.LSS, token.LEQ:
+			return abs && k >= 0 && k <= inside || k <= -outside
+		}
 	}
 	return false
 }

@@ -574,3 +574,22 @@ func stationRadius(lat, height float64) float64 {
 func stayCosine(a, b, c float64) float64 {
 	return a * (a*a + b*b - c*c) / (2 * a * b)
 }
+
+// wideBranch takes the root only where x > 2: x²/(x²-1) ≤ 4/3 there, so
+// the subtraction costs less than a digit and the factorisation saves
+// nothing worth one.
+func wideBranch(x float64) float64 {
+	switch {
+	case x > 2:
+		return math.Sqrt(x*x - 1)
+	}
+	return 0
+}
+
+// smallBranch takes 1 - x² only for |x| below 0.5: 1/(1-x²) ≤ 4/3.
+func smallBranch(x float64) float64 {
+	if math.Abs(x) < 0.5 {
+		return 1 / math.Sqrt(1-x*x)
+	}
+	return 0
+}

@@ -91,25 +91,32 @@ func leaves(b *ast.BlockStmt) bool {
 // x < -0.5 || x > 0.5, math.Abs(x) > tiny, or the negation of
 // math.Abs(x) < 1e-5. A constant factor or a sign of x is looked through.
 func (c *checker) awayFromZero(cond ast.Expr, negated bool, x ast.Expr) bool {
-	x = c.core(x)
+	return c.clauses(cond, negated, c.core(x), c.comparisonAway)
+}
+
+// clauses reads cond, negated when asked, as a combination of comparisons
+// with && and || (and !), and reports whether it guarantees what leaf says
+// of each comparison it must hold: all of a disjunction's, one of a
+// conjunction's.
+func (c *checker) clauses(cond ast.Expr, negated bool, x ast.Expr, leaf func(e *ast.BinaryExpr, negated bool, x ast.Expr) bool) bool {
 	switch e := ast.Unparen(cond).(type) {
 	case *ast.UnaryExpr:
-		return e.Op == token.NOT && c.awayFromZero(e.X, !negated, x)
+		return e.Op == token.NOT && c.clauses(e.X, !negated, x, leaf)
 	case *ast.BinaryExpr:
 		switch {
 		case e.Op == token.LOR && !negated, e.Op == token.LAND && negated:
-			return c.awayFromZero(e.X, negated, x) && c.awayFromZero(e.Y, negated, x)
+			return c.clauses(e.X, negated, x, leaf) && c.clauses(e.Y, negated, x, leaf)
 		case e.Op == token.LAND, e.Op == token.LOR:
-			return c.awayFromZero(e.X, negated, x) || c.awayFromZero(e.Y, negated, x)
+			return c.clauses(e.X, negated, x, leaf) || c.clauses(e.Y, negated, x, leaf)
 		}
-		return c.comparisonAway(e, negated, x)
+		return leaf(e, negated, x)
 	}
 	return false
 }
 
-// comparisonAway reports whether the comparison e (negated when asked)
-// keeps x away from zero.
-func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+// oriented reads the comparison e (negated when asked) as x op rhs or
+// |x| op rhs (abs), x on the left, and reports whether x is its subject.
+func (c *checker) oriented(e *ast.BinaryExpr, negated bool, x ast.Expr) (op token.Token, abs bool, rhs ast.Expr, ok bool) {
 	op, lhs, rhs := e.Op, e.X, e.Y
 	if !c.mentions(lhs, x) {
 		op, lhs, rhs = mirror(op), e.Y, e.X
@@ -117,7 +124,14 @@ func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bo
 	if negated {
 		op = invert(op)
 	}
-	abs, ok := c.form(lhs, x)
+	abs, ok = c.form(lhs, x)
+	return op, abs, rhs, ok
+}
+
+// comparisonAway reports whether the comparison e (negated when asked)
+// keeps x away from zero.
+func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+	op, abs, rhs, ok := c.oriented(e, negated, x)
 	if !ok {
 		return false
 	}
@@ -144,37 +158,25 @@ func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bo
 // 0.995 (x > 2 before math.Sqrt(x*x-1)), so a²/|a²-b²| stays within
 // boundedLoss and at most two digits go.
 func (c *checker) awayFromOne(cond ast.Expr, negated bool, x ast.Expr) bool {
-	switch e := ast.Unparen(cond).(type) {
-	case *ast.UnaryExpr:
-		return e.Op == token.NOT && c.awayFromOne(e.X, !negated, x)
-	case *ast.BinaryExpr:
-		switch {
-		case e.Op == token.LOR && !negated, e.Op == token.LAND && negated:
-			return c.awayFromOne(e.X, negated, x) && c.awayFromOne(e.Y, negated, x)
-		case e.Op == token.LAND, e.Op == token.LOR:
-			return c.awayFromOne(e.X, negated, x) || c.awayFromOne(e.Y, negated, x)
-		}
-		op, lhs, rhs := e.Op, e.X, e.Y
-		if !c.mentions(lhs, x) {
-			op, lhs, rhs = mirror(op), e.Y, e.X
-		}
-		if negated {
-			op = invert(op)
-		}
-		abs, ok := c.form(lhs, x)
-		v := c.pass.TypesInfo.Types[rhs].Value
-		if !ok || v == nil || v.Kind() != constant.Int && v.Kind() != constant.Float {
-			return false
-		}
-		k, _ := constant.Float64Val(constant.ToFloat(v))
-		outside := math.Sqrt(float64(boundedLoss) / (boundedLoss - 1)) // x²/(x²-1) ≤ 100 from here up
-		inside := math.Sqrt(1 - 1/float64(boundedLoss))                // 1/(1-x²) ≤ 100 from here down
-		switch op {
-		case token.GTR, token.GEQ:
-			return k >= outside
-		case token.LSS, token.LEQ:
-			return abs && k >= 0 && k <= inside || k <= -outside
-		}
+	return c.clauses(cond, negated, x, c.comparisonAwayFromOne)
+}
+
+// comparisonAwayFromOne reports whether the comparison e (negated when
+// asked) keeps x away from ±1 (see awayFromOne).
+func (c *checker) comparisonAwayFromOne(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+	op, abs, rhs, ok := c.oriented(e, negated, x)
+	v := c.pass.TypesInfo.Types[rhs].Value
+	if !ok || v == nil || v.Kind() != constant.Int && v.Kind() != constant.Float {
+		return false
+	}
+	k, _ := constant.Float64Val(constant.ToFloat(v))
+	outside := math.Sqrt(float64(boundedLoss) / (boundedLoss - 1)) // x²/(x²-1) ≤ 100 from here up
+	inside := math.Sqrt(1 - 1/float64(boundedLoss))                // 1/(1-x²) ≤ 100 from here down
+	switch op {
+	case token.GTR, token.GEQ:
+		return k >= outside
+	case token.LSS, token.LEQ:
+		return abs && k >= 0 && k <= inside || k <= -outside
 	}
 	return false
 }

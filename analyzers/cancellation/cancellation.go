@@ -85,7 +85,7 @@ type checker struct {
 	selectors map[*types.Func]bool        // the package's functions that return one of their parameters
 	used      map[string]bool             // math functions the package calls, by usesMath
 	taken     []taking                    // subtractions from sum fields, by noteUpdate
-	added     map[types.Object]bool       // sum fields added into, by noteUpdate
+	added     map[types.Object]ast.Node   // sum fields added into, at their first addition, by noteUpdate
 }
 
 func run(pass *analysis.Pass) (any, error) {

@@ -28,12 +28,14 @@ func (c *checker) downdates() {
 	reported := map[types.Object]bool{}
 	for _, t := range c.taken {
 		sub, f := t.as, t.field
-		if !c.added[f] || reported[f] {
+		add := c.added[f]
+		if add == nil || reported[f] {
 			continue
 		}
 		reported[f] = true
 		fixes.Report(c.pass, analysis.Diagnostic{
 			Pos: sub.Pos(), End: sub.End(), Category: catVariance,
+			Related: []analysis.RelatedInformation{{Pos: add.Pos(), End: add.End(), Message: "added to here"}},
 			Message: fmt.Sprintf("running sum or mean %s, taken from as well as added to: each value removed leaves its rounding, up to u·|value| (u = %.3g), behind for good, so after a large value has passed the sum of small ones carries an error that never decays; recompute it from the values kept from time to time, or keep a compensated sum",
 				fixes.Source(c.pass.Fset, sub.Lhs[0]), unitRoundoff),
 		})
@@ -61,9 +63,11 @@ func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 	case as.Tok == token.ADD_ASSIGN && !c.isConst(as.Rhs[0]),
 		as.Tok == token.ASSIGN && c.addsInto(cur, as.Rhs[0], f):
 		if c.added == nil {
-			c.added = map[types.Object]bool{}
+			c.added = map[types.Object]ast.Node{}
 		}
-		c.added[f] = true
+		if c.added[f] == nil {
+			c.added[f] = as
+		}
 	}
 }
 

@@ -522,7 +522,6 @@ func (f frame) inner(g frame) float64 { return f.p*g.p + f.q*g.q }
 
 func frameArc(f, g frame) float64 { return math.Acos(f.inner(g)) }
 
-
 // sonar is a ping's straight path through still water, from origin at
 // heading: a buoy is a sphere and a mooring line a vertical cylinder.
 type sonar struct{ origin, heading pos3 }

@@ -85,6 +85,11 @@
 //     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
 //     below 1.11e-16 come out 0 and small ones lose digits; math.Erfc(x),
 //     0.5*math.Erfc(x), or a complementary function;
+//   - the one-pass covariance E[xy]-E[x]E[y]: sxy - sx*sy/n, n*sxy -
+//     sx*sy or sxy/n - mx*my, where sxy accumulates products x*y of data
+//     (not of deviations from means taken first) and sx, sy accumulate
+//     values: both terms are about n²·mean(x)·mean(y), and the difference
+//     keeps only about log10(|mean(x)·mean(y)/cov|) digits;
 //   - the one-pass variance E[x²]-E[x]²: s2/n - m*m, s2 - s1*s1/n or the
 //     weighted n*s2 - s1*s1 (Σw·Σwx² - (Σwx)²) where s2 accumulates squares
 //     of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a value squared in place

@@ -18,8 +18,10 @@ import (
 // updated: which accumulate squares of data (s2 += x*x, s2 = k*s2 +
 // w*(x*x)) and which only count (it++).
 type accumulation struct {
-	squares map[types.Object]bool
-	counts  map[types.Object]bool // false once a variable is set otherwise
+	squares  map[types.Object]bool
+	products map[types.Object]bool // accumulate products of two data values (sxy += x*y)
+	sums     map[types.Object]bool // accumulate values (sx += x)
+	counts   map[types.Object]bool // false once a variable is set otherwise
 }
 
 // target returns the variable or field e names.
@@ -38,7 +40,7 @@ func (c *checker) updates() *accumulation {
 	if c.acc != nil {
 		return c.acc
 	}
-	c.acc = &accumulation{squares: map[types.Object]bool{}, counts: map[types.Object]bool{}}
+	c.acc = &accumulation{squares: map[types.Object]bool{}, products: map[types.Object]bool{}, sums: map[types.Object]bool{}, counts: map[types.Object]bool{}}
 	inPlace := map[types.Object]bool{} // t *= t
 	for cur := range c.insp.Root().Preorder((*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil)) {
 		if s, ok := cur.Node().(*ast.AssignStmt); ok && s.Tok == token.MUL_ASSIGN && len(s.Lhs) == 1 && same(s.Lhs[0], s.Rhs[0]) {
@@ -65,6 +67,12 @@ func (c *checker) updates() *accumulation {
 				if s.Tok == token.ADD_ASSIGN && c.squareTerm(cur, s.Rhs[i], inPlace) ||
 					s.Tok == token.ASSIGN && c.recurrence(cur, s.Rhs[i], obj, inPlace) {
 					c.acc.squares[obj] = true
+				}
+				if s.Tok == token.ADD_ASSIGN && !c.isConst(s.Rhs[i]) {
+					c.acc.sums[obj] = true
+					if c.crossTerm(cur, s.Rhs[i]) {
+						c.acc.products[obj] = true
+					}
 				}
 			}
 		}
@@ -205,12 +213,72 @@ func (c *checker) variance(n *ast.BinaryExpr) bool {
 	if !c.accumulatesSquares(s2) {
 		return false
 	}
+	c.onePass(n, "variance %s - %s subtracts two values of about mean² and loses about log10(mean²/variance) digits (a spread of 1 at mean 1e4 leaves 8 of 16; u = %.3g), and can turn negative; accumulate squared deviations from the mean (Welford's update or two passes)")
+	return true
+}
+
+// onePass reports the one-pass moment n, a difference, with format
+// taking its two terms and the unit roundoff.
+func (c *checker) onePass(n *ast.BinaryExpr, format string) {
 	c.pass.Report(analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catVariance,
-		Message: fmt.Sprintf("one-pass variance %s - %s subtracts two values of about mean² and loses about log10(mean²/variance) digits (a spread of 1 at mean 1e4 leaves 8 of 16; u = %.3g), and can turn negative; accumulate squared deviations from the mean (Welford's update or two passes)",
-			fixes.Source(c.pass.Fset, ast.Unparen(n.X)), fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff),
+		Message: "one-pass " + fmt.Sprintf(format, fixes.Source(c.pass.Fset, ast.Unparen(n.X)), fixes.Source(c.pass.Fset, ast.Unparen(n.Y)), unitRoundoff),
 	})
+}
+
+// crossTerm reports whether e is a product of two different values, none
+// a deviation from a mean: x*y, the term of a sum of cross products.
+func (c *checker) crossTerm(cur inspector.Cursor, e ast.Expr) bool {
+	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL || same(m.X, m.Y) || c.isConst(m.X) || c.isConst(m.Y) {
+		return false
+	}
+	return !c.centred(cur, m.X, 6) && !c.centred(cur, m.Y, 6)
+}
+
+// covariance reports the one-pass covariance: sxy - sx*sy/n, n*sxy -
+// sx*sy, or sxy/n - mx*my, where sxy accumulates products x*y and sx, sy
+// accumulate values (mx, my their quotients by a count). Both terms are
+// about n²·mean(x)·mean(y), and the difference n²·cov keeps only about
+// log10(|mean(x)·mean(y)/cov|) digits, like the variance it generalises.
+func (c *checker) covariance(n *ast.BinaryExpr) bool {
+	prod, ok := ast.Unparen(n.Y).(*ast.BinaryExpr)
+	if ok && prod.Op == token.QUO {
+		prod, ok = ast.Unparen(prod.X).(*ast.BinaryExpr) // sx*sy/n
+	}
+	if !ok || prod.Op != token.MUL || same(prod.X, prod.Y) || !c.accumulatesSum(prod.X) || !c.accumulatesSum(prod.Y) {
+		return false
+	}
+	sxy, _ := c.through(n.X)
+	if q, ok := sxy.(*ast.BinaryExpr); ok && (q.Op == token.QUO || q.Op == token.MUL) {
+		sxy = q.X // sxy/n
+		if q.Op == token.MUL && c.accumulatesProducts(q.Y) {
+			sxy = q.Y // n*sxy
+		}
+	}
+	if !c.accumulatesProducts(sxy) {
+		return false
+	}
+	c.onePass(n, "covariance %s - %s subtracts two values of about mean(x)·mean(y) and loses about log10(|mean(x)·mean(y)/cov|) digits (8 of 16 at means 1e4 with unit spread; u = %.3g); accumulate products of deviations from the means (two passes or a co-moment update)")
 	return true
+}
+
+// accumulatesSum reports whether e, through variables, quotients by a
+// count and accessors, is a variable or field that accumulates values.
+func (c *checker) accumulatesSum(e ast.Expr) bool {
+	e, _ = c.through(e)
+	if q, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && q.Op == token.QUO {
+		e = q.X // the mean sx/n
+	}
+	obj := c.target(c.accessed(e))
+	return obj != nil && c.updates().sums[obj] && !c.updates().squares[obj] && !c.updates().products[obj]
+}
+
+// accumulatesProducts reports whether e, through variables and accessors,
+// is a variable or field that accumulates cross products of data.
+func (c *checker) accumulatesProducts(e ast.Expr) bool {
+	obj := c.target(c.accessed(e))
+	return obj != nil && c.updates().products[obj] && !c.updates().squares[obj]
 }
 
 // accumulatesSquares reports whether e, through variables and accessors, is a

@@ -66,3 +66,23 @@ func countSpread(xs []float64) float64 {
 	n := float64(len(xs))
 	return (n*s2 - s1*s1) / (n * n) // want `one-pass variance n \* s2 - s1 \* s1 subtracts`
 }
+
+// gaugePair correlates two river gauges read in metres above a datum of
+// 1e4: sums of raw readings and of their products, combined once.
+type gaugePair struct{ n, sx, sy, sxy, sxx, syy float64 }
+
+func (g *gaugePair) add(x, y float64) {
+	g.n++
+	g.sx += x
+	g.sy += y
+	g.sxy += x * y
+	g.sxx += x * x
+}
+
+func (g *gaugePair) cov() float64 {
+	return g.sxy/g.n - (g.sx/g.n)*(g.sy/g.n) // want `one-pass covariance g.sxy / g.n - \(g.sx / g.n\) \* \(g.sy / g.n\) subtracts two values of about mean\(x\)·mean\(y\)`
+}
+
+func (g *gaugePair) slope() float64 {
+	return (g.n*g.sxy - g.sx*g.sy) / (g.n*g.sxx - g.sx*g.sx) // want `one-pass covariance g.n \* g.sxy - g.sx \* g.sy` `one-pass variance`
+}

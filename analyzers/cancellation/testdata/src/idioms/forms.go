@@ -592,3 +592,17 @@ func smallBranch(x float64) float64 {
 	}
 	return 0
 }
+
+// centredPair sums products of deviations from means taken first: the
+// two-pass co-moment, whose terms are as small as the covariance itself.
+func centredPair(xs, ys []float64, mx, my float64) float64 {
+	var sxy, sx, sy float64
+	for i := range xs {
+		dx, dy := xs[i]-mx, ys[i]-my
+		sxy += dx * dy
+		sx += dx
+		sy += dy
+	}
+	n := float64(len(xs))
+	return sxy - sx*sy/n
+}

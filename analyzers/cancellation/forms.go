@@ -526,8 +526,8 @@ func (c *checker) sidesCosine(e ast.Expr) bool {
 		return false
 	}
 	var lengths []string
-	for _, t := range signedTerms(q.X) {
-		x, ok := c.lengthSquared(t)
+	for _, t := range c.addTerms(q.X, 1, nil) {
+		x, ok := c.lengthSquared(t.e)
 		if !ok {
 			return false
 		}
@@ -552,18 +552,6 @@ func (c *checker) lengthSquared(e ast.Expr) (string, bool) {
 		return "", false
 	}
 	return types.ExprString(ast.Unparen(x)), true
-}
-
-// signedTerms returns the terms of a sum or difference, signs dropped.
-func signedTerms(e ast.Expr) []ast.Expr {
-	e = ast.Unparen(e)
-	if u, ok := e.(*ast.UnaryExpr); ok && (u.Op == token.SUB || u.Op == token.ADD) {
-		return signedTerms(u.X)
-	}
-	if s, ok := e.(*ast.BinaryExpr); ok && (s.Op == token.ADD || s.Op == token.SUB) {
-		return append(signedTerms(s.X), signedTerms(s.Y)...)
-	}
-	return []ast.Expr{e}
 }
 
 // unclamped returns the value e at cur stands for, through variables (the

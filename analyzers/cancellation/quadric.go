@@ -89,7 +89,7 @@ func (c *checker) readDot(e ast.Expr) (dot, bool) {
 	}
 	var fields []string
 	var p, q string
-	for _, t := range terms(e) {
+	for _, t := range c.sumTerms(e) {
 		pair := c.factors(t)
 		if len(pair) != 2 {
 			return dot{}, false
@@ -115,12 +115,17 @@ func (c *checker) readDot(e ast.Expr) (dot, bool) {
 	return dot{"fields " + strings.Join(fields, ","), p, q}, len(fields) > 1
 }
 
-// terms returns the terms of a sum.
-func terms(e ast.Expr) []ast.Expr {
-	if s, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && s.Op == token.ADD {
-		return append(terms(s.X), terms(s.Y)...)
+// sumTerms returns the terms of e when all enter a sum with a plus sign
+// (a difference is no dot product of a definite form), else nil.
+func (c *checker) sumTerms(e ast.Expr) []ast.Expr {
+	var out []ast.Expr
+	for _, t := range c.addTerms(e, 1, nil) {
+		if t.sign < 0 {
+			return nil
+		}
+		out = append(out, t.e)
 	}
-	return []ast.Expr{ast.Unparen(e)}
+	return out
 }
 
 // productSum reports whether e is a sum of products.
@@ -128,7 +133,11 @@ func (c *checker) productSum(e ast.Expr) bool {
 	if e == nil {
 		return false
 	}
-	for _, t := range terms(e) {
+	ts := c.sumTerms(e)
+	if len(ts) == 0 {
+		return false
+	}
+	for _, t := range ts {
 		if len(c.factors(t)) != 2 {
 			return false
 		}

@@ -104,19 +104,11 @@ func (l *loop) walk(info *types.Info, n ast.Node, conds []ast.Expr) {
 				l.walkElse(info, n.Else, conds)
 			}
 			return false
-		case *ast.ReturnStmt:
-			if l.ends(n) {
-				l.exit(info, conds)
-			}
-		case *ast.ExprStmt:
-			if call, ok := n.X.(*ast.CallExpr); ok && isPanic(call) {
-				l.exit(info, conds) // if n > maxIter { panic(...) } is a cap too
-			}
-		case *ast.BranchStmt:
+		case *ast.ReturnStmt, *ast.ExprStmt, *ast.BranchStmt:
 			switch {
-			case n.Tok == token.BREAK && n.Label == nil:
-				l.exit(info, conds)
-			case n.Tok == token.GOTO || n.Label != nil && n.Tok == token.BREAK:
+			case l.leaves(n.(ast.Stmt)):
+				l.exit(info, conds) // a panic too: if n > maxIter { panic(...) } is a cap
+			case isJump(n):
 				l.other = true
 			}
 		}
@@ -145,6 +137,13 @@ func (l *loop) walkBlock(info *types.Info, b *ast.BlockStmt, conds []ast.Expr) {
 			}
 		}
 	}
+}
+
+// isJump reports whether n is a goto or a labelled break, which leave the
+// loop by a way stoptol does not read.
+func isJump(n ast.Node) bool {
+	b, ok := n.(*ast.BranchStmt)
+	return ok && (b.Tok == token.GOTO || b.Label != nil && b.Tok == token.BREAK)
 }
 
 // leaves reports whether st is itself an exit of the loop: a return that

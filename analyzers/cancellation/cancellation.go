@@ -53,6 +53,7 @@ const (
 	catBigFloat   = "bigfloat"
 	catMoments    = "moments"
 	catGammaRatio = "gammaratio"
+	catResidual   = "residual"
 )
 
 // The magnitudes the messages quote, derived from the binary64 format
@@ -164,7 +165,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.gram(cur, n) || c.squares(cur, n) || c.variance(n) || c.covariance(n) || c.share(cur, n) || c.logRatio(cur, n) || c.overlapComplement(cur, n) {
+	if c.gram(cur, n) || c.residual(cur, n) || c.squares(cur, n) || c.variance(n) || c.covariance(n) || c.share(cur, n) || c.logRatio(cur, n) || c.overlapComplement(cur, n) {
 		return
 	}
 	e, indirect := c.through(call)

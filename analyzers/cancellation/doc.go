@@ -94,7 +94,8 @@
 //     weighted n*s2 - s1*s1 (Σw·Σwx² - (Σwx)²) where s2 accumulates squares
 //     of data (s2 += x*x, s2 = k*s2 + w*(x*x), or a value squared in place
 //     first, w*x*x; also a field read through an accessor, d.SumWX2()), but
-//     not a product of two such sums (Σx²·Σy² - (Σxy)²), nor sums of data
+//     not a product of two such sums (Σx²·Σy² - (Σxy)², the residual rule
+//     above), nor sums of data
 //     centred before squaring (x = (v - mean)/sd, also through the
 //     package's own function), which hold no mean² to cancel: both terms are about mean², so the
 //     difference loses about log10(mean²/variance) digits and can turn
@@ -192,6 +193,21 @@
 //     log10(sin²θ/u) digits and may turn negative, while the squared
 //     norm of the cross product keeps them all; reported unless the
 //     consumer needs only absolute accuracy;
+//   - a difference whose second term is r² times its first, r the
+//     correlation of two data series: Syy - Sxy²/Sxx, Syy - b·Sxy with
+//     the slope b = Sxy/Sxx, Sxx·Syy - Sxy², 1 - Sxy²/(Sxx·Syy), where
+//     Sxx, Syy, Sxy are second moments (variables or fields that sum
+//     products of data, centred or not: sxy += dx*dy; or the one-pass
+//     variances and covariances built from them; also through variables
+//     and math.Pow(s, 2)). By Cauchy–Schwarz Sxy² ≤ Sxx·Syy, so the
+//     difference is Syy·(1 - r²) ≥ 0, the residual sum of squares of the
+//     least-squares line: as the fit improves the terms approach each
+//     other and log10(1/(1 - r²)) digits go, and on an exact line it
+//     comes out negative about half the time (NaN under math.Sqrt;
+//     TestFitResidual). Summing the squared residuals of the fitted line
+//     in a second pass keeps them; reported unless the consumer needs
+//     only absolute accuracy, and not where the cross moment pairs other
+//     series than the squares (no bound ties the terms);
 //   - s += (x1+x0)*(y1-y0) and s += x0*y1 - x1*y0 in a loop, with x0, x1
 //     (y0, y1) the same coordinate of two points taken as they are (p0.X
 //     and p1.X, r[i][0] and r[i+1][0]): the shoelace area of a ring. Each

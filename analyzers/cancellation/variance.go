@@ -6,6 +6,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -22,6 +23,7 @@ type accumulation struct {
 	products map[types.Object]bool // accumulate products of two data values (sxy += x*y)
 	sums     map[types.Object]bool // accumulate values (sx += x)
 	counts   map[types.Object]bool // false once a variable is set otherwise
+	factors  map[types.Object]pair // the factors of the products summed (sxy += x*y; zero when they differ)
 }
 
 // target returns the variable or field e names.
@@ -40,7 +42,7 @@ func (c *checker) updates() *accumulation {
 	if c.acc != nil {
 		return c.acc
 	}
-	c.acc = &accumulation{squares: map[types.Object]bool{}, products: map[types.Object]bool{}, sums: map[types.Object]bool{}, counts: map[types.Object]bool{}}
+	c.acc = &accumulation{squares: map[types.Object]bool{}, products: map[types.Object]bool{}, sums: map[types.Object]bool{}, counts: map[types.Object]bool{}, factors: map[types.Object]pair{}}
 	inPlace := map[types.Object]bool{} // t *= t
 	for cur := range c.insp.Root().Preorder((*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil)) {
 		if s, ok := cur.Node().(*ast.AssignStmt); ok && s.Tok == token.MUL_ASSIGN && len(s.Lhs) == 1 && same(s.Lhs[0], s.Rhs[0]) {
@@ -68,6 +70,9 @@ func (c *checker) updates() *accumulation {
 					s.Tok == token.ASSIGN && c.recurrence(cur, s.Rhs[i], obj, inPlace) {
 					c.acc.squares[obj] = true
 				}
+				if s.Tok == token.ADD_ASSIGN {
+					c.noteFactors(obj, s.Rhs[i])
+				}
 				if s.Tok == token.ADD_ASSIGN && !c.isConst(s.Rhs[i]) {
 					c.acc.sums[obj] = true
 					if c.crossTerm(cur, s.Rhs[i]) {
@@ -78,6 +83,22 @@ func (c *checker) updates() *accumulation {
 		}
 	}
 	return c.acc
+}
+
+// noteFactors records the two factors of a product e added into obj, by
+// their text in sorted order; an accumulator that sums anything else, or
+// products of other factors elsewhere, gets the zero pair.
+func (c *checker) noteFactors(obj types.Object, e ast.Expr) {
+	var p pair
+	if m, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && m.Op == token.MUL && !c.isConst(m.X) && !c.isConst(m.Y) &&
+		fixes.Pure(c.pass.TypesInfo, m.X) && fixes.Pure(c.pass.TypesInfo, m.Y) {
+		p = pair{fixes.Source(c.pass.Fset, ast.Unparen(m.X)), fixes.Source(c.pass.Fset, ast.Unparen(m.Y))}
+		slices.Sort(p[:])
+	}
+	if old, seen := c.acc.factors[obj]; seen && old != p {
+		p = pair{}
+	}
+	c.acc.factors[obj] = p
 }
 
 // recurrence reports whether e is a sum with a term that mentions obj and
@@ -188,12 +209,22 @@ func (c *checker) counts(e ast.Expr) bool {
 // of squared deviations from the mean (two passes, or Welford's update)
 // keeps them. It reports whether n had that form.
 func (c *checker) variance(n *ast.BinaryExpr) bool {
+	if _, ok := c.varianceOf(n); !ok {
+		return false
+	}
+	c.onePass(n, "variance %s - %s subtracts two values of about mean² and loses about log10(mean²/variance) digits (a spread of 1 at mean 1e4 leaves 8 of 16; u = %.3g), and can turn negative; accumulate squared deviations from the mean (Welford's update or two passes)")
+	return true
+}
+
+// varianceOf returns the accumulator of squares s2 when n is a one-pass
+// variance built from it.
+func (c *checker) varianceOf(n *ast.BinaryExpr) (ast.Expr, bool) {
 	sq := ast.Unparen(n.Y)
 	if q, ok := sq.(*ast.BinaryExpr); ok && q.Op == token.QUO {
 		sq = ast.Unparen(q.X) // s1*s1/n
 	}
 	if !c.squared(sq) {
-		return false
+		return nil, false
 	}
 	s2, _ := c.through(n.X)
 	if q, ok := s2.(*ast.BinaryExpr); ok && q.Op == token.QUO {
@@ -203,18 +234,14 @@ func (c *checker) variance(n *ast.BinaryExpr) bool {
 		// Σx²*Σy², a product of two sums of squares
 		x, y := c.accumulatesSquares(q.X), c.accumulatesSquares(q.Y)
 		if x == y {
-			return false
+			return nil, false
 		}
 		s2 = q.X
 		if y {
 			s2 = q.Y
 		}
 	}
-	if !c.accumulatesSquares(s2) {
-		return false
-	}
-	c.onePass(n, "variance %s - %s subtracts two values of about mean² and loses about log10(mean²/variance) digits (a spread of 1 at mean 1e4 leaves 8 of 16; u = %.3g), and can turn negative; accumulate squared deviations from the mean (Welford's update or two passes)")
-	return true
+	return s2, c.accumulatesSquares(s2)
 }
 
 // onePass reports the one-pass moment n, a difference, with format
@@ -242,12 +269,22 @@ func (c *checker) crossTerm(cur inspector.Cursor, e ast.Expr) bool {
 // about n²·mean(x)·mean(y), and the difference n²·cov keeps only about
 // log10(|mean(x)·mean(y)/cov|) digits, like the variance it generalises.
 func (c *checker) covariance(n *ast.BinaryExpr) bool {
+	if _, ok := c.covarianceOf(n); !ok {
+		return false
+	}
+	c.onePass(n, "covariance %s - %s subtracts two values of about mean(x)·mean(y) and loses about log10(|mean(x)·mean(y)/cov|) digits (8 of 16 at means 1e4 with unit spread; u = %.3g); accumulate products of deviations from the means (two passes or a co-moment update)")
+	return true
+}
+
+// covarianceOf returns the accumulator of products sxy when n is a
+// one-pass covariance built from it.
+func (c *checker) covarianceOf(n *ast.BinaryExpr) (ast.Expr, bool) {
 	prod, ok := ast.Unparen(n.Y).(*ast.BinaryExpr)
 	if ok && prod.Op == token.QUO {
 		prod, ok = ast.Unparen(prod.X).(*ast.BinaryExpr) // sx*sy/n
 	}
 	if !ok || prod.Op != token.MUL || same(prod.X, prod.Y) || !c.accumulatesSum(prod.X) || !c.accumulatesSum(prod.Y) {
-		return false
+		return nil, false
 	}
 	sxy, _ := c.through(n.X)
 	if q, ok := sxy.(*ast.BinaryExpr); ok && (q.Op == token.QUO || q.Op == token.MUL) {
@@ -256,11 +293,7 @@ func (c *checker) covariance(n *ast.BinaryExpr) bool {
 			sxy = q.Y // n*sxy
 		}
 	}
-	if !c.accumulatesProducts(sxy) {
-		return false
-	}
-	c.onePass(n, "covariance %s - %s subtracts two values of about mean(x)·mean(y) and loses about log10(|mean(x)·mean(y)/cov|) digits (8 of 16 at means 1e4 with unit spread; u = %.3g); accumulate products of deviations from the means (two passes or a co-moment update)")
-	return true
+	return sxy, c.accumulatesProducts(sxy)
 }
 
 // accumulatesSum reports whether e, through variables, quotients by a

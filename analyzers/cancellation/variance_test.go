@@ -2,6 +2,8 @@ package cancellation_test
 
 import (
 	"math"
+	"math/big"
+	"slices"
 	"testing"
 )
 
@@ -54,4 +56,104 @@ func TestNormalTailFix(t *testing.T) {
 	if plain, fixed := 1-0.5*math.Erfc(-9), 0.5*math.Erfc(9); plain != 0 || fixed <= 0 {
 		t.Errorf("x = 9: plain %v (want 0), fixed %v (want > 0)", plain, fixed)
 	}
+}
+
+// TestFitResidual checks the premise of the residual rule on data lying
+// on the line y = 3x + 0.1 up to the rounding of y, far from the origin.
+// With centred moments (two passes), Syy - Sxy²/Sxx equals the residual
+// sum of squares in exact arithmetic (Cauchy–Schwarz makes it ≥ 0); in
+// float64 it keeps only the rounding of its terms, an error of the order
+// u·Syy, and comes out negative on some data sets, while the squared
+// residuals of the fitted line, summed in a second pass, stay within a
+// rounding of each residual (Higham 2002, §3.1, bounds of that kind). The
+// exact residual sum comes from math/big at 400 bits.
+func TestFitResidual(t *testing.T) {
+	const u = 0x1p-53
+	negative := 0
+	for k := range 200 {
+		m := 1e3 * float64(k+1)
+		var xs, ys []float64
+		for i := range 10 {
+			x := m + 0.7*float64(i*i)
+			xs, ys = append(xs, x), append(ys, 3*x+0.1)
+		}
+		sxx, sxy, syy, mx, my := centred(xs, ys)
+		formula := syy - sxy*sxy/sxx
+		exact, spread := exactResidual(xs, ys)
+		if err := math.Abs(formula - exact); err > 8*u*syy {
+			t.Errorf("m = %g: Syy - Sxy²/Sxx off by %g, beyond 8u·Syy = %g", m, err, 8*u*syy)
+		}
+		if formula < 0 {
+			negative++
+		}
+		b := sxy / sxx
+		a := my - b*mx
+		var sse float64
+		for i := range xs {
+			r := ys[i] - a - b*xs[i]
+			sse += r * r
+		}
+		// Each residual is within 8u·max|y| of the exact one, whose sizes
+		// sum to spread.
+		d := 8 * u * slices.Max(ys)
+		if bound := float64(len(xs))*d*d + 2*d*spread; math.Abs(sse-exact) > bound {
+			t.Errorf("m = %g: second-pass residual sum off by %g, beyond %g", m, math.Abs(sse-exact), bound)
+		}
+	}
+	if negative == 0 {
+		t.Errorf("Syy - Sxy²/Sxx never negative on an exact line: the rule's premise fails")
+	}
+}
+
+// centred returns the two-pass second moments of xs and ys and their means.
+func centred(xs, ys []float64) (sxx, sxy, syy, mx, my float64) {
+	for i := range xs {
+		mx += xs[i]
+		my += ys[i]
+	}
+	mx /= float64(len(xs))
+	my /= float64(len(ys))
+	for i := range xs {
+		dx, dy := xs[i]-mx, ys[i]-my
+		sxx += dx * dx
+		sxy += dx * dy
+		syy += dy * dy
+	}
+	return sxx, sxy, syy, mx, my
+}
+
+// exactResidual returns the residual sum of squares of the least-squares
+// line through the float64 data, and the sum of the absolute residuals,
+// computed in math/big at 400 bits.
+func exactResidual(xs, ys []float64) (sse, spread float64) {
+	f := func(v float64) *big.Float { return new(big.Float).SetPrec(400).SetFloat64(v) }
+	n := f(float64(len(xs)))
+	mx, my := f(0), f(0)
+	for i := range xs {
+		mx.Add(mx, f(xs[i]))
+		my.Add(my, f(ys[i]))
+	}
+	mx.Quo(mx, n)
+	my.Quo(my, n)
+	sxx, sxy := f(0), f(0)
+	for i := range xs {
+		dx, dy := f(xs[i]), f(ys[i])
+		dx.Sub(dx, mx)
+		dy.Sub(dy, my)
+		sxy.Add(sxy, new(big.Float).Mul(dx, dy))
+		sxx.Add(sxx, new(big.Float).Mul(dx, dx))
+	}
+	b := new(big.Float).Quo(sxy, sxx)
+	a := new(big.Float).Sub(my, new(big.Float).Mul(b, mx))
+	total, abs := f(0), f(0)
+	for i := range xs {
+		r := f(ys[i])
+		r.Sub(r, a)
+		r.Sub(r, new(big.Float).Mul(b, f(xs[i])))
+		total.Add(total, new(big.Float).Mul(r, r))
+		abs.Add(abs, new(big.Float).Abs(r))
+	}
+	sse, _ = total.Float64()
+	spread, _ = abs.Float64()
+	return sse, spread
 }

@@ -1,5 +1,7 @@
 package hazards
 
+import "math"
+
 // gauge keeps running sums of readings.
 type gauge struct {
 	weight, total, totalSq float64
@@ -77,6 +79,7 @@ func (g *gaugePair) add(x, y float64) {
 	g.sy += y
 	g.sxy += x * y
 	g.sxx += x * x
+	g.syy += y * y
 }
 
 func (g *gaugePair) cov() float64 {
@@ -85,4 +88,52 @@ func (g *gaugePair) cov() float64 {
 
 func (g *gaugePair) slope() float64 {
 	return (g.n*g.sxy - g.sx*g.sy) / (g.n*g.sxx - g.sx*g.sx) // want `one-pass covariance g.n \* g.sxy - g.sx \* g.sy` `one-pass variance`
+}
+
+// A product of two sums of squares less a squared cross sum, Σx²·Σy² -
+// (Σxy)²: the Cauchy–Schwarz gap of two series, which vanishes as they
+// become proportional.
+func schwarzGap(xs, ys []float64) float64 {
+	var sxx, syy, sxy float64
+	for i := range xs {
+		sxx += xs[i] * xs[i]
+		syy += ys[i] * ys[i]
+		sxy += xs[i] * ys[i]
+	}
+	return sxx*syy - sxy*sxy // want `sxx \* syy - sxy \* sxy subtracts r² times the first term from it, r the correlation of xs\[i\] and ys\[i\]`
+}
+
+// calibration fits a line to paired readings with centred sums.
+type calibration struct{ sxx, sxy, syy float64 }
+
+func (c *calibration) add(x, y, mx, my float64) {
+	dx, dy := x-mx, y-my
+	c.sxx += dx * dx
+	c.sxy += dx * dy
+	c.syy += dy * dy
+}
+
+// The standard error of the slope from the residual Syy - Sxy²/Sxx.
+func (c *calibration) slopeError(n float64) float64 {
+	return math.Sqrt((c.syy - c.sxy*c.sxy/c.sxx) / (n - 2) / c.sxx) // want `c.syy - c.sxy \* c.sxy / c.sxx subtracts r² times the first term from it, r the correlation of dx and dy`
+}
+
+// The same residual through the slope, Syy - b·Sxy with b = Sxy/Sxx.
+func (c *calibration) residualSum() float64 {
+	slope := c.sxy / c.sxx
+	return c.syy - slope*c.sxy // want `c.syy - slope \* c.sxy subtracts r² times`
+}
+
+// 1 - r² from its moments, with the power written out.
+func (c *calibration) unexplained() float64 {
+	return 1 - math.Pow(c.sxy, 2)/(c.sxx*c.syy) // want `1 - math.Pow\(c.sxy, 2\) / \(c.sxx \* c.syy\) subtracts r² times`
+}
+
+// One-pass sums, as gaugePair keeps them: the moments are the one-pass
+// forms, reported themselves, and the residual built from them as well.
+func (g *gaugePair) residual() float64 {
+	ssxy := g.n*g.sxy - g.sx*g.sy // want `one-pass covariance`
+	ssxx := g.n*g.sxx - g.sx*g.sx // want `one-pass variance`
+	ssyy := g.n*g.syy - g.sy*g.sy // want `one-pass variance`
+	return ssyy - ssxy*ssxy/ssxx  // want `ssyy - ssxy \* ssxy / ssxx subtracts r² times the first term from it, r the correlation of x and y`
 }

@@ -480,17 +480,33 @@ func (s slab) fill(used float64) float64 { return used / (s.w * s.h) }
 
 func slabArc(s slab, used float64) float64 { return math.Acos(s.fill(used)) }
 
-// A product of two sums of squares less a squared cross sum, Σx²·Σy² -
-// (Σxy)²: the Cauchy-Schwarz gap of two series, not a variance, so the
-// variance rule leaves it to the rules about Gram determinants.
-func schwarzGap(xs, ys []float64) float64 {
-	var sxx, syy, sxy float64
+// A residual whose consumer needs only absolute accuracy: the Gaussian
+// likelihood of a fit, exp(-SSE/2σ²), moves by the absolute error of SSE.
+func fitLikelihood(syy, sxy, sxx, s2 float64) float64 {
+	return math.Exp(-0.5 * (syy - sxy*sxy/sxx) / s2)
+}
+
+// Σx²·Σz² - (Σxy)²: the cross sum pairs other series than the squares,
+// so no Cauchy–Schwarz bound ties the two terms together.
+func crossedMoments(xs, ys, zs []float64) float64 {
+	var sxx, szz, sxy float64
 	for i := range xs {
 		sxx += xs[i] * xs[i]
-		syy += ys[i] * ys[i]
+		szz += zs[i] * zs[i]
 		sxy += xs[i] * ys[i]
 	}
-	return sxx*syy - sxy*sxy
+	return sxx*szz - sxy*sxy
+}
+
+// The residual sum of squares summed from the fitted line in a second
+// pass: no difference of near-equal sums.
+func fitResidual(xs, ys []float64, a, b float64) float64 {
+	var sse float64
+	for i := range xs {
+		r := ys[i] - a - b*xs[i]
+		sse += r * r
+	}
+	return sse
 }
 
 // A least-squares slope on readings standardised first, through the

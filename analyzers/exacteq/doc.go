@@ -199,10 +199,14 @@
 // package it calls, or, by a fact, in those of another package. Every
 // other step (+ - * /, square root, a conversion between float formats)
 // is correctly rounded (IEEE 754-2019 §4.3, §5.4.2) and gives the same
-// bits from the same operands; where the computation leaves sight (an
-// interface method, a function value, a body not available, floats behind
-// an interface or a map handed to a call) before any cause shows, nothing
-// is known, and nothing is claimed.
+// bits from the same operands. An interface method is in sight where the
+// value it is called on has a concrete type the test gives (li :=
+// linear.New(); interpolate.WithSingle(li, x), whose helper calls
+// li.Interpolate, directly or through another helper, also across
+// packages); where the computation leaves sight (an interface method on a
+// value of unknown type, a function value, a body not available, floats
+// behind an interface or a map handed to a call) before any cause shows,
+// nothing is known, and nothing is claimed.
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
 // condition x != b with a constant step s in the loop's post statement

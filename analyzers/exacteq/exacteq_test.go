@@ -100,6 +100,15 @@ func TestCauseInSight(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/kiln")
 }
 
+// TestCauseThroughInterface checks that a method a helper invokes on an
+// interface parameter is judged as the method of the concrete type the
+// test hands it, across packages and through a second helper (a fusable
+// product shows; IEEE 754-2019 §5.4.1), and left alone where every step
+// is correctly rounded or the type is unknown.
+func TestCauseThroughInterface(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/pump/rotor")
+}
+
 // TestHelperAssertions checks equality assertions of a test suite's own
 // helpers against short decimals.
 func TestHelperAssertions(t *testing.T) {

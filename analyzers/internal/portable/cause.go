@@ -127,18 +127,27 @@ func (s *sighting) call(call *ssa.CallCommon, depth int) bool {
 	case provenance.Rounds:
 		return Libm(call) && !wholePow(call)
 	}
+	if depth <= 0 {
+		return false
+	}
+	if call.IsInvoke() {
+		return s.method(call.Value, call.Method.Name(), depth) // known where the value's type is
+	}
 	fn := call.StaticCallee()
-	if depth <= 0 || fn == nil {
-		return false // an interface method or a function value: out of sight
+	if fn == nil {
+		return false // a function value: out of sight
 	}
 	if fn.Origin() != nil {
 		fn = fn.Origin()
 	}
 	if fn.Package() != nil && fn.Package().Pkg == s.j.pass.Pkg {
-		return fn.Blocks != nil && s.j.causedBody(fn)
+		if fn.Blocks != nil && s.j.causedBody(fn) {
+			return true
+		}
+	} else if obj := fn.Object(); obj != nil && s.j.pass.ImportObjectFact(obj, new(CauseFact)) {
+		return true
 	}
-	obj := fn.Object()
-	return obj != nil && s.j.pass.ImportObjectFact(obj, new(CauseFact))
+	return s.dispatched(call, s.j.calleeInvokes(call), depth)
 }
 
 // wholePow reports whether call is math.Pow(x, n) with a whole constant n.

@@ -19,7 +19,11 @@
 // is exact, so fusing it changes nothing), by math.Sqrt and the exact math
 // functions (Abs, Floor, Trunc, Mod, Copysign...), and by calls of
 // functions that are themselves portable; a call through an interface or
-// a function value is unknown, hence not portable.
+// a function value is unknown, hence not portable. Where a caller hands a
+// function a value of a concrete type in place of an interface parameter,
+// the methods it invokes on that parameter (directly or through functions
+// it passes the parameter to; DispatchFact across packages) are known,
+// and a cause in them is a cause of the call (dispatch.go).
 //
 // Judge.OnInputs reads a value further, on the inputs its function gives
 // the calls it makes (exact.go): a product added to another value is
@@ -60,7 +64,7 @@ var Analyzer = &analysis.Analyzer{
 	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
-	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact)},
+	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact)},
 }
 
 // Fact marks a function whose float results are portable.
@@ -77,6 +81,12 @@ type Judge struct {
 	converted map[token.Pos]bool // products written inside float64(...), by operator position
 	bodies    map[*ssa.Function]bool
 	causes    map[*ssa.Function]bool // functions searched for a cause
+	invokes   map[*ssa.Function][]Invoked
+}
+
+// prog returns the SSA program of the package.
+func (j *Judge) prog() *ssa.Program {
+	return j.pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().Pkg.Prog
 }
 
 // Of returns the Judge of pass's package; the pass's analyzer must require
@@ -84,7 +94,7 @@ type Judge struct {
 func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
-	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}}
+	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
 	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
@@ -93,10 +103,13 @@ func run(pass *analysis.Pass) (any, error) {
 		if !ok || fn.Blocks == nil || fn.TypeParams().Len() != 0 {
 			continue
 		}
-		if j.Body(fn) {
+		switch calls := j.invoked(fn); {
+		case j.Body(fn):
 			pass.ExportObjectFact(obj, new(Fact))
-		} else if j.causedBody(fn) {
+		case j.causedBody(fn):
 			pass.ExportObjectFact(obj, new(CauseFact))
+		case len(calls) > 0:
+			pass.ExportObjectFact(obj, &DispatchFact{calls})
 		}
 	}
 	return j, nil

@@ -83,10 +83,6 @@ const hookScript = "#!/bin/sh\n" + hookMark + ": runs a hook it replaced, then l
 	"fi\n" +
 	"exec roundoff hook run\n"
 
-func shellQuote(s string) string {
-	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
-}
-
 // ours reports whether the hook at path was installed by roundoff.
 func ours(path string) (exists, mine bool, err error) {
 	data, err := os.ReadFile(path)

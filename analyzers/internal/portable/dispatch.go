@@ -108,9 +108,10 @@ func (s *sighting) method(v ssa.Value, name string, depth int) bool {
 	if types.IsInterface(t) {
 		return false
 	}
-	sel := types.NewMethodSet(t).Lookup(s.j.pass.Pkg, name)
+	ms := s.j.prog().MethodSets.MethodSet(t)
+	sel := ms.Lookup(s.j.pass.Pkg, name)
 	if sel == nil {
-		sel = types.NewMethodSet(t).Lookup(nil, name)
+		sel = ms.Lookup(nil, name)
 	}
 	if sel == nil {
 		return false

@@ -45,7 +45,12 @@
 //     -b + math.Sqrt(b*b-4*a*c), math.Sqrt(r*r+k) - r, and a radicand
 //     formed by the package's own dot product with u·u among its terms,
 //     dot3(b, a, 0, b, -c, 0)) when the sign of u is not known: for the sign that makes the terms subtract the result
-//     is about |c|/(2|u|) with relative error about 2u·u²/|c|;
+//     is about |c|/(2|u|) with relative error about 2u·u²/|c| (a sign
+//     is known for a value never negative: a modulus, root or exponential,
+//     also returned by the package's own function, cmplx.Abs(complex(re,
+//     im)) behind a helper, and sums, products and quotients of such
+//     values through the assignments that reach u; then the terms of u +
+//     math.Sqrt(u*u-1) have one sign and nothing cancels);
 //     math.Log(x + math.Sqrt(x*x+1)) is -Inf from x ≈ -1.34e8, where
 //     math.Asinh(x) is exact to an ulp;
 //   - math.Acos(x) of the cosine of an angle between vectors (a dot
@@ -173,7 +178,8 @@
 //     the share 0/0 = NaN and the log -Inf, though the share lies in [0, 1] and the log is about the
 //     largest y; subtracting the largest y before exponentiating keeps
 //     every term at most 1 and the sum at least 1. An exponent shifted by
-//     a value (y - m), not positive (-|z|) or constant is left alone, as
+//     a value (y - m), also in place before it is taken (lp[i] -= m),
+//     not positive (-|z|) or constant is left alone, as
 //     is a use under a condition that checks the sum (math.IsInf(s, 1));
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no

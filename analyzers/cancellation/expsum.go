@@ -129,6 +129,9 @@ func (c *checker) unshiftedExp(fn inspector.Cursor, call *ast.CallExpr) *ast.Cal
 		return nil
 	}
 	y, _ := c.through(call.Args[0])
+	if c.shiftedBefore(fn, y, call.Pos()) {
+		return nil
+	}
 	switch y := ast.Unparen(y).(type) {
 	case *ast.BinaryExpr:
 		if y.Op == token.SUB && !c.isConst(y.Y) {
@@ -141,4 +144,32 @@ func (c *checker) unshiftedExp(fn inspector.Cursor, call *ast.CallExpr) *ast.Cal
 		}
 	}
 	return call
+}
+
+// shiftedBefore reports whether fn, before pos, shifts in place the
+// variable or slice y reads by a value (y -= m, lp[i] -= m), as by the
+// largest exponent.
+func (c *checker) shiftedBefore(fn inspector.Cursor, y ast.Expr, pos token.Pos) bool {
+	base := ast.Unparen(y)
+	if ix, ok := base.(*ast.IndexExpr); ok {
+		base = ast.Unparen(ix.X)
+	}
+	obj := c.target(base)
+	if obj == nil {
+		return false
+	}
+	for a := range fn.Preorder((*ast.AssignStmt)(nil)) {
+		as := a.Node().(*ast.AssignStmt)
+		if as.Pos() >= pos || as.Tok != token.SUB_ASSIGN || len(as.Lhs) != 1 || c.isConst(as.Rhs[0]) {
+			continue
+		}
+		l := ast.Unparen(as.Lhs[0])
+		if ix, ok := l.(*ast.IndexExpr); ok {
+			l = ast.Unparen(ix.X)
+		}
+		if c.target(l) == obj {
+			return true
+		}
+	}
+	return false
 }

@@ -103,9 +103,12 @@ func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
 // is gone once u² exceeds |c|/u. This is math.Asinh's form (c = 1) and
 // the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
 func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
-	u, root, ok := c.rootSum(n)
+	u, root, minus, ok := c.rootSum(n)
 	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) || c.quadric(u, root) {
 		return
+	}
+	if minus {
+		root = &ast.UnaryExpr{Op: token.SUB, X: root} // u*u - c, for the message
 	}
 	if call, isLog := c.parentCall(cur); isLog && c.mathFunc(call) == "Log" && c.isOne(root) {
 		c.asinh(call, u)
@@ -155,10 +158,11 @@ func (c *checker) parentCall(cur inspector.Cursor) (*ast.CallExpr, bool) {
 
 // rootSum reads n as ±u ± math.Sqrt(u*u ± c), directly or through
 // never-reassigned variables, the radicand perhaps a call of the package's
-// own dot product with u·u among its terms, and returns u and c.
-func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
+// own dot product with u·u among its terms, and returns u and c, and
+// whether c is subtracted.
+func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, minus, ok bool) {
 	if n.Op != token.ADD && n.Op != token.SUB {
-		return nil, nil, false
+		return nil, nil, false, false
 	}
 	for _, pair := range [][2]ast.Expr{{n.X, n.Y}, {n.Y, n.X}} {
 		call, ok := ast.Unparen(pair[1]).(*ast.CallExpr)
@@ -176,7 +180,7 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 		}
 		if dot, isCall := arg.(*ast.CallExpr); isCall && fixes.Pure(c.pass.TypesInfo, other) {
 			if rest, ok := c.dotSquare(dot, other); ok {
-				return other, rest, true // the package's dot product with u·u among its terms
+				return other, rest, false, true // the package's dot product with u·u among its terms
 			}
 		}
 		sum, ok := arg.(*ast.BinaryExpr)
@@ -185,18 +189,18 @@ func (c *checker) rootSum(n *ast.BinaryExpr) (u, root ast.Expr, ok bool) {
 		}
 		for _, sq := range [][2]ast.Expr{{sum.X, sum.Y}, {sum.Y, sum.X}} {
 			if x, isSquare := c.square(sq[0]); isSquare && same(x, other) && (sum.Op == token.ADD || sq[0] == sum.X) {
-				return other, sq[1], true
+				return other, sq[1], sum.Op == token.SUB, true
 			}
 		}
 	}
-	return nil, nil, false
+	return nil, nil, false, false
 }
 
 // signKnown reports whether u cannot take both signs where cur runs: a
 // value never negative (nonNegative), a whole number, or a value an
 // enclosing condition compares.
 func (c *checker) signKnown(cur inspector.Cursor, u ast.Expr) bool {
-	return c.wholeNumber(u) || c.guarded(cur, u, c.compares) || c.nonNegative(cur, u, 5)
+	return c.wholeNumber(u) || c.guarded(cur, u, c.compares) || c.nonNegative(cur, u, 8)
 }
 
 // nonNegative reports whether e cannot be negative where cur runs: a
@@ -217,7 +221,8 @@ func (c *checker) nonNegative(cur inspector.Cursor, e ast.Expr, depth int) bool 
 		if tv := c.pass.TypesInfo.Types[e.Fun]; tv.IsType() && len(e.Args) == 1 {
 			return c.nonNegative(cur, e.Args[0], depth) // a conversion keeps the sign
 		}
-		return c.signedCall(e)
+		r := c.returned(e) // a function of the package returning such a value
+		return c.signedCall(e) || r != nil && c.nonNegative(cur, r, depth-1)
 	case *ast.BinaryExpr:
 		if _, sq := c.square(e); sq {
 			return true

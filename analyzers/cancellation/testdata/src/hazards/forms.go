@@ -29,7 +29,7 @@ func inverseSinh(x float64) float64 {
 
 func smallerRoot(b, c float64) float64 {
 	disc := b*b - c
-	return -b + math.Sqrt(disc) // want `u ± math.Sqrt\(u\*u\+c\) with u = b cancels for the sign of u that makes the terms subtract`
+	return -b + math.Sqrt(disc) // want `u ± math.Sqrt\(u\*u\+c\) with u = b, c = -c cancels for the sign of u that makes the terms subtract`
 }
 
 func excess(r, k float64) float64 {
@@ -150,6 +150,12 @@ func recurrenceRoot(p, q float64) float64 {
 	return k + math.Sqrt(k*k+1) // want `u ± math.Sqrt\(u\*u\+c\) with u = k, c = 1 cancels`
 }
 
+// The inverse hyperbolic cosine's radical on a value of either sign: the
+// constant is subtracted, and the message says so.
+func coshRoot(p float64) float64 {
+	return p + math.Sqrt(p*p-1) // want `u ± math.Sqrt\(u\*u\+c\) with u = p, c = -1 cancels` `a\*a - b\*b with a = p, b = 1 loses`
+}
+
 // The field also takes a value from the caller, which may be tiny.
 type bendGauge struct {
 	angle, sag float64
@@ -204,5 +210,5 @@ func beamEdge(ox, oy, oz, dx, dy, dz, k float64) float64 {
 	b := 2 * (ox*dx + oy*dy - k*oz*dz)
 	c := ox*ox + oy*oy - k*oz*oz
 	disc := b*b - 4*a*c
-	return (-b + math.Sqrt(disc)) / (2 * a) // want `u ± math.Sqrt\(u\*u\+c\) with u = b, c = 4 \* a \* c cancels`
+	return (-b + math.Sqrt(disc)) / (2 * a) // want `u ± math.Sqrt\(u\*u\+c\) with u = b, c = -4 \* a \* c cancels`
 }

@@ -416,6 +416,40 @@ func knot(x float64) float64 {
 	return u - math.Sqrt(u*u+2*k*2)
 }
 
+// modulus is the length of a complex number: never negative.
+func modulus(re, im float64) float64 { return math.Hypot(re, im) }
+
+// A radical on a value that is never negative, through the package's own
+// modulus and a chain of assignments: u + sqrt(u*u-1) adds two terms of
+// one sign, so nothing cancels.
+func growthRate(re, im float64) float64 {
+	az := modulus(re, im)
+	whole := int(az)
+	at := float64(whole) + 1
+	ratio := 1 / az
+	k := (at + 1) * ratio
+	return k + math.Sqrt(k*k-1)
+}
+
+// A log-partition whose scores are shifted in place by the largest before
+// the exponentials are taken: each is at most 1 and their sum at least 1.
+func shiftedInPlace(scores []float64) float64 {
+	top := math.Inf(-1)
+	for _, s := range scores {
+		top = math.Max(top, s)
+	}
+	weights := make([]float64, len(scores))
+	for i := range scores {
+		scores[i] -= top
+		weights[i] = math.Exp(scores[i])
+	}
+	total := 0.0
+	for _, w := range weights {
+		total += w
+	}
+	return top + math.Log(total)
+}
+
 // Shares and a log-partition computed with the largest score subtracted
 // first: every exponential is at most 1 and the total at least 1, so
 // nothing overflows and the log is finite (the shifted log-sum-exp,

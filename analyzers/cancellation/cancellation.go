@@ -314,6 +314,16 @@ func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x)
 }
 
+// boundedAway reports whether x's range by construction (rangeOf, as of
+// the golden-section ratio (3 - math.Sqrt(5))/2) keeps |x| at least
+// 1/boundedLoss, so log(1 ± x) and exp(x) - 1, which lose about
+// log10(1/|x|) digits, lose at most two.
+func (c *checker) boundedAway(x ast.Expr) bool {
+	r, ok := c.rangeOf(x, 6)
+	lo, _ := r.magnitude()
+	return ok && lo*boundedLoss >= 1
+}
+
 // addend reports whether the value at cur, carried through products,
 // quotients, signs and parentheses, is added to or subtracted from another
 // term, directly or (depth permitting) through a variable every use of

@@ -284,7 +284,10 @@
 // for math/rand/v2 draws, and small draws are as rare as they are small),
 // and no enclosing condition keeps it away from zero (if x < -0.5 ||
 // x > 0.5, a case math.Abs(x) > t, the code after an early return taken
-// when math.Abs(x) < 1e-5); and the value is not added to another term,
+// when math.Abs(x) < 1e-5), nor, for log(1 ± x) and exp(x) - 1, which
+// lose about log10(1/|x|) digits, its range by construction keeps |x| at
+// least 0.01 (two digits at most: the golden-section ratio (3 -
+// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); and the value is not added to another term,
 // directly, through +=, or through a variable used only as a term of a sum:
 // mu + s*math.Log(1-p) has the absolute error of one rounding, which is all
 // a sum can show. A term multiplied by a large coefficient is reported in a

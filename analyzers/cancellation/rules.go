@@ -29,7 +29,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) {
+	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(x) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
@@ -79,7 +79,7 @@ func negate(c *checker, x ast.Expr) string {
 // small x, and the subtraction leaves only its rounding error.
 func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
-	if !c.lossShows(cur, x) {
+	if !c.lossShows(cur, x) || c.boundedAway(x) {
 		return
 	}
 	text, form, use := qualifier(call)+".Expm1("+fixes.Source(c.pass.Fset, ast.Unparen(x))+")", "math.Exp(x)-1", "math.Expm1(x)"

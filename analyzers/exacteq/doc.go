@@ -124,7 +124,8 @@
 // not round (Abs, Floor, Max...) of inputs (Abs and Copysign of a computed
 // value carry its error) and of functions from other packages; an
 // operand derived from the other on purpose (the bisection stop m == a where
-// m := (a+b)/2, the overflow test x*c == x, x == math.Floor(x) for an x
+// m := (a+b)/2, also with the ends in fields read twice, m == b.lo, the
+// overflow test x*c == x, x == math.Floor(x) for an x
 // that is not a product or quotient); a value
 // against a merge that has it as an input (did the branch change it?);
 // copies of the same value shuffled through branches (the points a and c of

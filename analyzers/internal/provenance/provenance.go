@@ -421,7 +421,7 @@ func DependsOn(v, w ssa.Value) bool {
 }
 
 func dependsOn(v, w ssa.Value, depth int) bool {
-	if v == w {
+	if v == w || sameField(v, w) {
 		return true
 	}
 	if depth == 0 {
@@ -444,6 +444,25 @@ func dependsOn(v, w ssa.Value, depth int) bool {
 		if dependsOn(Strip(op), w, depth-1) {
 			return true
 		}
+	}
+	return false
+}
+
+// sameField reports whether v and w load one field of one struct value or
+// pointer (two reads of d.lo): the same variable read twice.
+func sameField(v, w ssa.Value) bool {
+	switch v := v.(type) {
+	case *ssa.Field:
+		w, ok := w.(*ssa.Field)
+		return ok && v.X == w.X && v.Field == w.Field
+	case *ssa.UnOp:
+		w, ok := w.(*ssa.UnOp)
+		if !ok || v.Op != token.MUL || w.Op != token.MUL {
+			return false
+		}
+		a, oka := v.X.(*ssa.FieldAddr)
+		b, okb := w.X.(*ssa.FieldAddr)
+		return oka && okb && a.X == b.X && a.Field == b.Field
 	}
 	return false
 }

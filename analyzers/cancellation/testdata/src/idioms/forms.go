@@ -416,6 +416,14 @@ func knot(x float64) float64 {
 	return u - math.Sqrt(u*u+2*k*2)
 }
 
+// The number of golden-section steps that shrink a bracket to tol: the
+// ratio is fixed by construction at 0.382, far from 0, so 1 - ratio
+// loses nothing.
+func goldenSteps(width, tol float64) int {
+	ratio := (3 - math.Sqrt(5)) / 2
+	return int(math.Ceil(math.Log(tol/width) / math.Log(1-ratio)))
+}
+
 // modulus is the length of a complex number: never negative.
 func modulus(re, im float64) float64 { return math.Hypot(re, im) }
 

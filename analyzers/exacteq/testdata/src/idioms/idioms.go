@@ -96,6 +96,15 @@ func bisectionStop(a, b float64) bool {
 	return m == a || m == b // no float left between a and b
 }
 
+// bracket keeps a root finder's ends in fields.
+type bracket struct{ lo, hi float64 }
+
+// The same stop on fields read twice: each read is the same variable.
+func (b *bracket) exhausted() bool {
+	m := (b.lo + b.hi) / 2
+	return m == b.lo || m == b.hi // no float left between the ends
+}
+
 func overflowTest(x, c float64) bool {
 	return x*c == x // the product is derived from x on purpose
 }

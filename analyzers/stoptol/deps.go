@@ -431,6 +431,42 @@ func (d *deps) recedes(v *types.Var) bool {
 	return shrinks && !grows && large && !small || grows && !shrinks && small && !large
 }
 
+// grows reports whether the loop only scales v by constant factors above
+// 1 in magnitude (eps *= 2): a search outward that reaches ±Inf within
+// about 2100 passes from any start but 0.
+func (d *deps) grows(v *types.Var) bool {
+	for i, r := range d.rhs[v] {
+		if c, ok := d.factor(d.tokens[v][i], r, v); !ok || math.Abs(c) <= 1 {
+			return false
+		}
+	}
+	return len(d.rhs[v]) > 0
+}
+
+// bounds reports whether an exit test compares v itself, or a function of
+// v alone such as its absolute value, with a constant (d != 0, d > 1e-300): such a test decides at 0
+// by itself, as the caller of a rescaling loop arranges, while a test of
+// what v feeds (f(x+d) <= 0) stays as it was when v stays at 0.
+func (d *deps) bounds(v *types.Var) bool {
+	found := false
+	for _, t := range d.tests {
+		ast.Inspect(t.e, func(n ast.Node) bool {
+			b, ok := n.(*ast.BinaryExpr)
+			if ok && (isOrdered(b.Op) || b.Op == token.EQL || b.Op == token.NEQ) {
+				for _, pair := range [][2]ast.Expr{{b.X, b.Y}, {b.Y, b.X}} {
+					x := ast.Unparen(pair[0])
+					if call, ok := x.(*ast.CallExpr); ok && len(call.Args) == 1 {
+						x = call.Args[0] // math.Abs(d), a function of d alone
+					}
+					found = found || subjectOf(d.info, x) == v && d.info.Types[pair[1]].Value != nil
+				}
+			}
+			return !found
+		})
+	}
+	return found
+}
+
 // factor returns the constant c of an assignment v tok r that scales v by
 // c: v *= c, v /= c, v = v/2, v = 0.5*v.
 func (d *deps) factor(tok token.Token, r ast.Expr, v *types.Var) (float64, bool) {

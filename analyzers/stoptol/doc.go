@@ -136,7 +136,13 @@
 //     unless the factor is a constant that moves the value away from
 //     passing (a tolerance halved each pass or at each level of a
 //     recursion, tested as |s2-s| <= 15*tol: as tol goes to 0 the test
-//     gets harder, not easier);
+//     gets harder, not easier, or unless a value grown by constant
+//     factors above 1 can start at 0, which no scaling moves: a search
+//     outward by d *= 2 from d := |math.Nextafter(x, 2*x) - x|, which is 0
+//     at x = 0, never ends, and is reported (category stall), unless an
+//     exit compares the value itself with a constant (w <= tiny && w !=
+//     0), which decides at 0 by itself; a value shrunk from 0 is where
+//     shrinking leads anyway);
 //     series terms scaled by a changing factor and series that test the
 //     term, when a NaN ends the loop (|t| > tol as the loop condition);
 //   - tests on values drawn anew each pass (rejection sampling, polling)

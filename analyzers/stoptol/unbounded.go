@@ -55,6 +55,12 @@ func (c *checker) unbounded(l *loop) {
 	carried := d.effects && d.readsState()
 	series := false
 	for v := range tested {
+		if r := d.vanishingStart(v); r != nil && d.grows(v) && !d.bounds(v) {
+			c.reportLoop(d, catStall, fmt.Sprintf("loop scales %s each pass and ends only on float tests, but %s can start at 0 (%s), which no scaling moves: the tests then never change and %s; start it away from 0, or add an iteration limit",
+				v.Name(), v.Name(), fixes.Source(c.pass.Fset, r), c.uncapped(l, "passes")),
+				analysis.RelatedInformation{Pos: r.Pos(), End: r.End(), Message: "the scaled value starts here and can be 0"})
+			return
+		}
 		switch {
 		case !d.recedes(v) && (d.scaled(v, true) || !nanRuns && d.scaled(v, false)), !nanRuns && d.series(v):
 			return // it reaches 0 or ±Inf, or it is a term and NaN ends the loop
@@ -213,6 +219,18 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	}
 	c.reportLoop(d, catStall, fmt.Sprintf("loop advances %s by the computed step %s and ends only on float tests: when the step rounds to 0, is NaN, or is below half the spacing of %s (%.3g·|%s| in %s), %s stops moving and %s; add an iteration limit",
 		x.Name(), fixes.Source(c.pass.Fset, step), x.Name(), f.U, x.Name(), f.Name, x.Name(), c.uncapped(l, "passes")), d.stepSource(step)...)
+}
+
+// vanishingStart returns the value v is given before the loop when it can
+// be 0 (a difference, |Nextafter(x, 2x) - x| at x = 0): a scaling keeps 0
+// at 0, so a v grown each pass (grows) never reaches ±Inf from there.
+func (d *deps) vanishingStart(v *types.Var) ast.Expr {
+	for _, r := range assignments(d.info, d.l.body, v) {
+		if r.Pos() < d.l.stmt.Pos() && d.canVanish(r, 4) {
+			return r
+		}
+	}
+	return nil
 }
 
 // stepSource names where a step variable is computed, when it is a

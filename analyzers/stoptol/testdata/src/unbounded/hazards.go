@@ -343,3 +343,14 @@ func tighten(next func(float64) float64, x float64) float64 {
 		x, tol = y, tol/2
 	}
 }
+
+// OutwardFrom doubles a probe offset from the spacing of floats at x until
+// the gauge turns positive: at x = 0 the spacing is Nextafter(0, 0) - 0 =
+// 0, which doubling keeps at 0, and the loop never ends.
+func OutwardFrom(gauge func(float64) float64, x float64) float64 {
+	d := math.Abs(math.Nextafter(x, 2*x) - x)
+	for gauge(x+d) <= 0 { // want `loop scales d each pass and ends only on float tests, but d can start at 0 \(math.Abs\(math.Nextafter\(x, 2\*x\) - x\)\), which no scaling moves`
+		d *= 2
+	}
+	return x + d
+}

@@ -15,6 +15,36 @@ func halve(h float64) int {
 	return n
 }
 
+// outward doubles an offset that starts away from 0 whatever x is: it
+// reaches +Inf within about 1100 doublings.
+func outward(gauge func(float64) float64, x float64) float64 {
+	d := 1e-8 * math.Max(1, math.Abs(x))
+	for gauge(x+d) <= 0 { // scaled each pass from a positive start
+		d *= 2
+	}
+	return x + d
+}
+
+// rescale grows a weight that can start at 0 into range, but its own test
+// excludes 0: at 0 the loop is never entered.
+func rescale(a, b float64) float64 {
+	w := a - b
+	for w <= 1e-100 && w != 0 { // compares the weight itself
+		w *= 1e50
+	}
+	return w
+}
+
+// narrowTo halves a width that starts as a difference: 0 is where halving
+// leads anyway, so a zero start changes nothing.
+func narrowTo(lo, hi float64) int {
+	n := 0
+	for w := hi - lo; w > 1e-9; w /= 2 {
+		n++
+	}
+	return n
+}
+
 // expSeries stops on the term of a series; the term is scaled each pass
 // by x/k, which tends to 0, and a NaN term fails the loop condition.
 func expSeries(x float64) float64 {

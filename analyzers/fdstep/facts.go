@@ -61,9 +61,12 @@ func (u use) format() numeric.Format {
 	return f
 }
 
-func (u use) scheme() *scheme {
+func (u use) scheme() *scheme { return schemeNamed(u.Scheme) }
+
+// schemeNamed returns the scheme called name, or nil.
+func schemeNamed(name string) *scheme {
 	for _, s := range schemes {
-		if s.name == u.Scheme {
+		if s.name == name {
 			return s
 		}
 	}
@@ -192,6 +195,7 @@ func worse(a, b verdict) bool {
 // pending constant.
 func (c *checker) propagate() {
 	for _, call := range c.imported {
+		c.gonumFD(call)
 		var fact stepFact
 		obj := call.Common().StaticCallee().Object()
 		if obj == nil || !c.pass.ImportObjectFact(obj, &fact) {

@@ -91,7 +91,7 @@ func run(pass *analysis.Pass) (any, error) {
 		names:    make(map[ast.Node]map[string]bool),
 		src:      make(map[*token.File][]byte),
 	}
-	if !c.hasQuotients() && !c.importsSteps() {
+	if !c.hasQuotients() && !c.importsSteps() && !importsFD(pass) {
 		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
 	}
 	c.indexSyntax()

@@ -20,6 +20,15 @@ func TestIdioms(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "idioms")
 }
 
+// TestGonumDefaults checks calls of gonum's diff/fd that leave the step to
+// the formula (its Forward, Central and Central2nd steps 2e-8, 6e-6 and
+// 1e-4, gonum v0.17.0 diff/fd/diff.go): a fixed step, judged as one
+// (Numerical Recipes 3rd ed. §5.7 for the scaled optimum), and left alone
+// where the caller gives a step or the point is of unit size.
+func TestGonumDefaults(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), fdstep.Analyzer, "fdclient")
+}
+
 // TestFacts checks that steps chosen in one package reach difference
 // quotients in another through facts: parameters and struct fields.
 func TestFacts(t *testing.T) {

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -311,7 +312,36 @@ func (c *checker) wholeNumber(e ast.Expr) bool {
 // depend on.
 func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
-		!c.addend(cur, 2) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x)
+		(!c.addend(cur, 2) || c.dividedByFactor(cur, x)) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x)
+}
+
+// dividedByFactor reports whether the value at cur, carried through
+// products, signs and parentheses, is divided by a factor of x: log(1+a·m)/a
+// and (exp(a·m)-1)/a tend to m as a shrinks, so the term is not small
+// while its rounding error, about u/|a|, grows: a sum does not hide it.
+func (c *checker) dividedByFactor(cur inspector.Cursor, x ast.Expr) bool {
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr, *ast.UnaryExpr:
+		case *ast.BinaryExpr:
+			if p.Op == token.QUO && p.X == cur.Node() {
+				return slices.ContainsFunc(factorsOf(x), func(f ast.Expr) bool { return same(f, p.Y) && !c.isConst(f) })
+			}
+			if p.Op != token.MUL {
+				return false
+			}
+		default:
+			return false
+		}
+	}
+}
+
+// factorsOf returns the factors of a product e (a*b*c: a, b, c).
+func factorsOf(e ast.Expr) []ast.Expr {
+	if m, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && m.Op == token.MUL {
+		return append(factorsOf(m.X), factorsOf(m.Y)...)
+	}
+	return []ast.Expr{ast.Unparen(e)}
 }
 
 // boundedAway reports whether x's range by construction (rangeOf, as of

@@ -290,7 +290,10 @@
 // math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); and the value is not added to another term,
 // directly, through +=, or through a variable used only as a term of a sum:
 // mu + s*math.Log(1-p) has the absolute error of one rounding, which is all
-// a sum can show. A term multiplied by a large coefficient is reported in a
+// a sum can show. A term divided by a factor of its small argument,
+// log(1+a·m)/a or (exp(a·m)-1)/a, tends to m as a shrinks, so it is not
+// small while its rounding error, about u/|a|, grows: reported in a sum
+// too. A term multiplied by a large coefficient is reported in a
 // sum too: a constant of at least 100 in magnitude (two digits of the
 // term's error show) or a count converted from an integer
 // (float64(n-k)*math.Log(1-p) in a log-likelihood), which grows with the

@@ -137,3 +137,12 @@ func growthRatio(a, t float64) float64 {
 	slope := math.Exp(t) - 1 // want `math.Exp\(x\)-1 with x = t`
 	return a / slope
 }
+
+// An overdispersed count's log-likelihood term, log(1+a·m)/a: it tends to
+// m as the dispersion a shrinks, so it is not small in the sum, while the
+// rounding of 1+a·m, divided by a, grows as u/a.
+func overdispersed(y, a, m float64) float64 {
+	v := y * math.Log(a*m)
+	v -= math.Log(1+a*m) / a // want `math.Log\(1\+x\) with x = a \* m returns 0`
+	return v
+}

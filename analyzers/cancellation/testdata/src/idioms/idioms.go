@@ -89,6 +89,12 @@ func addedToLarger(mu, scale, p float64) float64 {
 	return mu + scale*math.Log(1-p) // the absolute error of a small term added to mu is what counts
 }
 
+// A term of a sum divided by something other than a factor of its small
+// argument stays small, and the sum hides its relative error.
+func spreadTerm(mu, a, m, n float64) float64 {
+	return mu + math.Log(1+a*m)/n
+}
+
 func logLikelihood(ps []float64, base float64) float64 {
 	ll := base
 	for _, p := range ps {

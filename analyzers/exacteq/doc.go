@@ -40,7 +40,9 @@
 //     passes 20 times, not 21: the 21st value is 1.0000000000000002);
 //   - a zero test of a difference of computed values (the cross product
 //     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
-//     difference, also through a package function): the difference is 0
+//     difference, a sum of such differences accumulated over a loop, as a
+//     signed area summed edge by edge, also through a package function):
+//     the difference is 0
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few
 //     ulps; the same when a three-way split by sign (v > 0, v < 0, then

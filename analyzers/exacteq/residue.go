@@ -165,8 +165,32 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 			return c.cancels(v.Common().Args[0], depth-1) // |d| == 0 exactly when d == 0
 		}
 		return c.returnsCancelling(v.Common(), depth-1)
+	case *ssa.Phi:
+		// A sum accumulated over a loop (s += t, a signed area summed
+		// edge by edge) cancels where a term does.
+		for _, e := range v.Edges {
+			b, ok := provenance.Strip(e).(*ssa.BinOp)
+			if !ok || b.Op != token.ADD && b.Op != token.SUB {
+				continue
+			}
+			if t := accumulated(b, v); t != nil && c.cancels(t, depth-1) {
+				return true
+			}
+		}
 	}
 	return false
+}
+
+// accumulated returns the term t of b = acc + t (or acc - t, t + acc),
+// or nil when acc is not an operand.
+func accumulated(b *ssa.BinOp, acc ssa.Value) ssa.Value {
+	switch {
+	case provenance.Strip(b.X) == acc:
+		return b.Y
+	case provenance.Strip(b.Y) == acc && b.Op == token.ADD:
+		return b.X
+	}
+	return nil
 }
 
 // recurrent reports whether v feeds a merge, as a term of a recurrence

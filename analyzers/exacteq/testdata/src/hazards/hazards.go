@@ -223,3 +223,15 @@ func meet(ux, uy, vx, vy, wx, wy float64) float64 {
 }
 
 func overlapLength(ux, uy, wx, wy float64) float64 { return math.Hypot(ux-wx, uy-wy) }
+
+// turning sums the cross products of a polygon's edges and calls the
+// points collinear when the sum is exactly 0: each term carries rounding
+// of its products, so collinear points rarely sum to 0 exactly.
+func turning(xs, ys []float64) bool {
+	sum, j := 0.0, len(xs)-1
+	for i := range xs {
+		sum += xs[j]*ys[i] - xs[i]*ys[j]
+		j = i
+	}
+	return sum == 0 // want `exact == 0 on sum, a difference of computed float64 values`
+}

@@ -45,7 +45,15 @@
 //     the difference is 0
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few
-//     ulps; the same when a three-way split by sign (v > 0, v < 0, then
+//     ulps; a zero test of a spread of data about their computed mean (a
+//     sum of squared deviations (x-m)*(x-m) over a loop, scaled, or its
+//     square root, also returned by a function of the package) is
+//     reported even where it guards a division: for constant data the
+//     mean rounds away from the value unless every partial sum is exact
+//     (three readings of 0.1 have the mean 0.10000000000000002), so the
+//     spread is a few ulps of the data and the guard misses the case it
+//     is for, and the deviations divided by it are of order 1, not 0
+//     (TestConstantSpread); the same when a three-way split by sign (v > 0, v < 0, then
 //     whatever follows, as an orientation test leaves collinear to its
 //     default) leaves the exact zero to the rest;
 //   - a tie test chained by else to an ordered test of the same pair (if

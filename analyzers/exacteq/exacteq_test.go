@@ -160,3 +160,43 @@ func TestExactInputs(t *testing.T) {
 	cube := new(big.Int).Exp(big.NewInt(6), big.NewInt(3), nil)
 	assert.Equal(t, cube.String(), new(big.Float).SetFloat64(math.Pow(6, 3)).Text('f', 0))
 }
+
+// TestConstantSpread checks the premise of the spread rule: the standard
+// deviation of constant data is exactly 0 in exact arithmetic (math/big at
+// 200 bits here), but in float64 the mean of three readings of 0.1 rounds
+// to 0.10000000000000002 (each addition rounds, IEEE 754-2019 §4.3), so
+// the spread is a few ulps of the data, not 0, while readings that sum
+// exactly (whole numbers) give an exact 0.
+func TestConstantSpread(t *testing.T) {
+	spread := func(xs []float64) float64 {
+		m := 0.0
+		for _, x := range xs {
+			m += x
+		}
+		m /= float64(len(xs))
+		s := 0.0
+		for _, x := range xs {
+			s += (x - m) * (x - m)
+		}
+		return math.Sqrt(s / float64(len(xs)))
+	}
+	exact := func(xs []float64) *big.Float {
+		m := new(big.Float).SetPrec(200)
+		for _, x := range xs {
+			m.Add(m, big.NewFloat(x))
+		}
+		m.Quo(m, big.NewFloat(float64(len(xs))))
+		s := new(big.Float).SetPrec(200)
+		for _, x := range xs {
+			d := new(big.Float).SetPrec(200).Sub(big.NewFloat(x), m)
+			s.Add(s, d.Mul(d, d))
+		}
+		return s
+	}
+	tenths := []float64{0.1, 0.1, 0.1}
+	assert.Zero(t, exact(tenths).Sign(), "exact spread of constant data")
+	sd := spread(tenths)
+	assert.NotZero(t, sd, "float64 spread of three readings of 0.1")
+	assert.Less(t, sd, 4*0x1p-53*0.1, "a few ulps of the data")
+	assert.Zero(t, spread([]float64{5, 5, 5}), "whole readings sum exactly")
+}

@@ -40,11 +40,19 @@ func (c *checker) residue(cur inspector.Cursor, n *ast.BinaryExpr, op token.Toke
 		}
 		other = y
 	}
+	t := c.pass.TypesInfo.TypeOf(other.expr)
+	f := provenance.FormatOf(t)
+	if n != nil && c.spread(other.val, 6) {
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: n.Pos(), End: n.End(), Category: catResidue,
+			Message: fmt.Sprintf("exact %s 0 on %s, a spread of data about their computed mean: for constant data the mean is off by rounding (a third of 0.1+0.1+0.1 is 0.10000000000000002), so the spread is a few ulps of the data (%.3g relative each), not 0, and the test misses the case it is meant to catch; test whether every value equals the first, or compare the spread with a tolerance scaled by the mean",
+				op, fixes.Source(c.pass.Fset, other.expr), f.U),
+		})
+		return true
+	}
 	if n == nil || !c.cancels(other.val, 4) || divides(other.val) && c.constantBranch(cur, n, op) {
 		return true
 	}
-	t := c.pass.TypesInfo.TypeOf(other.expr)
-	f := provenance.FormatOf(t)
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catResidue,
 		Message: fmt.Sprintf("exact %s 0 on %s, a difference of computed %s values: it is 0 only when both terms round to the same float, so inputs that make it 0 in exact arithmetic (collinear points, a point on a line) usually leave a residue of a few ulps of the terms (%.3g relative each); compare its magnitude with a tolerance scaled by the terms",
@@ -227,17 +235,28 @@ var wholeMath = map[string]bool{"Floor": true, "Ceil": true, "Trunc": true, "Rou
 // returnsCancelling reports whether the callee, a function of this package
 // with one result, returns a cancelling difference on every path.
 func (c *checker) returnsCancelling(call *ssa.CallCommon, depth int) bool {
+	if fn := call.StaticCallee(); fn == nil || fn.Signature.Results().Len() != 1 {
+		return false
+	}
+	return c.everyReturn(call, 0, false, func(v ssa.Value) bool { return c.cancels(v, depth) })
+}
+
+// everyReturn reports whether the function call names, of this package,
+// returns as its result i a value for which ok holds on every path, the
+// paths returning a constant, NaN or an infinity aside when special is
+// set (the answers for empty or invalid data).
+func (c *checker) everyReturn(call *ssa.CallCommon, i int, special bool, ok func(ssa.Value) bool) bool {
 	fn := call.StaticCallee()
-	if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg || fn.Signature.Results().Len() != 1 {
+	if fn == nil || fn.Blocks == nil || fn.Package() == nil || fn.Package().Pkg != c.pass.Pkg {
 		return false
 	}
 	seen := false
 	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
+		ret, isRet := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
+		if !isRet || i >= len(ret.Results) || special && isSpecial(ret.Results[i]) {
 			continue
 		}
-		if !c.cancels(ret.Results[0], depth) {
+		if !ok(ret.Results[i]) {
 			return false
 		}
 		seen = true

@@ -235,3 +235,41 @@ func turning(xs, ys []float64) bool {
 	}
 	return sum == 0 // want `exact == 0 on sum, a difference of computed float64 values`
 }
+
+// meanOf is the mean of readings.
+func meanOf(xs []float64) float64 {
+	total := 0.0
+	for _, x := range xs {
+		total += x
+	}
+	return total / float64(len(xs))
+}
+
+// spreadOf is the standard deviation of readings about their mean.
+func spreadOf(xs []float64) (float64, error) {
+	if len(xs) == 0 {
+		return math.NaN(), nil
+	}
+	m, s := meanOf(xs), 0.0
+	for _, x := range xs {
+		s += (x - m) * (x - m)
+	}
+	return math.Sqrt(s / float64(len(xs))), nil
+}
+
+// standardise scales readings to unit spread, leaving constant readings
+// at 0: but three readings of 0.1 have a mean of 0.10000000000000002 and
+// a spread of about 1.4e-17, so the guard is skipped and each reading
+// comes out near -0.7 instead of 0.
+func standardise(xs []float64) []float64 {
+	sd, _ := spreadOf(xs)
+	out := make([]float64, len(xs))
+	if sd == 0 { // want `exact == 0 on sd, a spread of data about their computed mean: for constant data the mean is off by rounding`
+		return out
+	}
+	m := meanOf(xs)
+	for i, x := range xs {
+		out[i] = (x - m) / sd
+	}
+	return out
+}

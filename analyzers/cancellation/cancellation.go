@@ -135,7 +135,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 	c.bigProducts(cur, call)
 	switch name := c.mathFunc(call); name {
 	case "Log", "Log10", "Log2":
-		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) {
+		if name != "Log" || !c.logSumExp(cur, call) && !c.atanh(cur, call) && !c.logistic(cur, call) {
 			c.log1p(cur, call, name)
 		}
 		c.logOfRatio(cur, call, name)

@@ -181,6 +181,14 @@
 //     a value (y - m), also in place before it is taken (lp[i] -= m),
 //     not positive (-|z|) or constant is left alone, as
 //     is a use under a condition that checks the sum (math.IsInf(s, 1));
+//   - math.Log(σ(z)) and math.Log(1 - σ(z)) of the logistic σ(z) =
+//     1/(1+math.Exp(-z)) or math.Exp(z)/(1+math.Exp(z)), written out, held
+//     in a variable or returned by the package's own function (the
+//     log-loss of a classifier): σ(z) rounds to 1 for z above 36.7, where
+//     log(1-σ(z)) is -Inf though about -z, and to 0 for z below -709.8,
+//     where log σ(z) is -Inf though about z; Log1p(-σ(z)) does not help,
+//     σ(z) being 1 already. The softplus forms log σ(z) = -softplus(-z)
+//     and log(1-σ(z)) = -softplus(z) stay finite (TestLogisticLoss);
 //   - math.Log(1+math.Exp(y)) (softplus): +Inf for y above 709.78, where
 //     the result is about y, also as a term of a sum, which hides no
 //     infinity; math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)));

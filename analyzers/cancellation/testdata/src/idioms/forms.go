@@ -664,3 +664,10 @@ func centredPair(xs, ys []float64, mx, my float64) float64 {
 	n := float64(len(xs))
 	return sxy - sx*sy/n
 }
+
+// The log-loss in its softplus form: log σ(z) = -softplus(-z) and
+// log(1-σ(z)) = -softplus(z), finite for every z.
+func softLoss(label, z float64) float64 {
+	sp := func(y float64) float64 { return math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y))) }
+	return label*sp(-z) + (1-label)*sp(z)
+}

@@ -142,17 +142,7 @@ func (c *checker) squareTerm(cur inspector.Cursor, e ast.Expr, inPlace map[types
 // side-effect-free value, not a deviation, among its factors twice:
 // w*x*x, parsed (w*x)*x.
 func (c *checker) repeatedFactor(cur inspector.Cursor, e *ast.BinaryExpr) bool {
-	var factors []ast.Expr
-	var flatten func(x ast.Expr)
-	flatten = func(x ast.Expr) {
-		if m, ok := ast.Unparen(x).(*ast.BinaryExpr); ok && m.Op == token.MUL {
-			flatten(m.X)
-			flatten(m.Y)
-			return
-		}
-		factors = append(factors, x)
-	}
-	flatten(e)
+	factors := factorsOf(e)
 	for i, f := range factors {
 		for _, g := range factors[i+1:] {
 			if same(f, g) && fixes.Pure(c.pass.TypesInfo, f) && !c.isConst(f) && !c.centred(cur, f, 6) {

@@ -214,10 +214,20 @@
 // value it is called on has a concrete type the test gives (li :=
 // linear.New(); interpolate.WithSingle(li, x), whose helper calls
 // li.Interpolate, directly or through another helper, also across
-// packages); where the computation leaves sight (an interface method on a
-// value of unknown type, a function value, a body not available, floats
-// behind an interface or a map handed to a call) before any cause shows,
-// nothing is known, and nothing is claimed.
+// packages), or where the value is made in sight (a constructor of the
+// package returning &T{...} behind an interface, directly or through
+// another: each concrete type it can return is searched). A getter that
+// reads a field through a pointer (s.Level() returning s.level, or its
+// bits through atomic.LoadUint64 and math.Float64frombits) returns what
+// the methods called before it stored there, so the values the package
+// stores into that field are searched: a running update l += w*(x-l) in
+// Feed is a cause of the pinned Level(). Where the computation leaves
+// sight (an interface method on a value of unknown type, a function value,
+// a body not available, floats behind an interface or a map handed to a
+// call) before any cause shows, nothing is known, and nothing is claimed.
+// A string that quotes the pinned digits marks a round trip only where it
+// can be parsed into the value: the message of a test's Errorf, or of
+// fmt's and log's printing, is printed from it.
 //
 // Fixes. A math.NaN() comparison becomes math.IsNaN(x). A float loop
 // condition x != b with a constant step s in the loop's post statement

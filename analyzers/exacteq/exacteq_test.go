@@ -200,3 +200,13 @@ func TestConstantSpread(t *testing.T) {
 	assert.Less(t, sd, 4*0x1p-53*0.1, "a few ulps of the data")
 	assert.Zero(t, spread([]float64{5, 5, 5}), "whole readings sum exactly")
 }
+
+// TestCauseInState checks pins of values a getter reads from a field: the
+// field holds what the package stored there, so a fusable product in a
+// store (IEEE 754-2019 §5.4.1) is a cause of the read, also through bits
+// kept atomically and behind an interface a constructor makes in sight; a
+// mean built by correctly rounded steps (IEEE 754-2019 §4.3) and a value
+// of a type out of sight are left alone.
+func TestCauseInState(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/gauge")
+}

@@ -15,6 +15,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -64,7 +65,7 @@ func (c *checker) pinned(cur inspector.Cursor, node ast.Node, what string, x, y 
 			continue
 		}
 		p, ok := c.printed(exp)
-		if !ok || roundTrip(fn, p) || c.passedThrough(fn, p) || c.judge.OnInputs(got.val) || !c.judge.Cause(got.val) {
+		if !ok || c.roundTrip(fn, p) || c.passedThrough(fn, p) || c.judge.OnInputs(got.val) || !c.judge.Cause(got.val) {
 			continue
 		}
 		var fs []fixes.Fix
@@ -277,19 +278,41 @@ func shortestDigits(x float64, f numeric.Format) string {
 
 // roundTrip reports whether a string literal in fn holds the digits of the
 // pinned value: the value under test was then parsed or printed from them,
-// exact by correct rounding (IEEE 754-2019 §5.12).
-func roundTrip(fn ast.Node, p pin) bool {
+// exact by correct rounding (IEEE 754-2019 §5.12). A message (an argument
+// of a test's Error or Fatal, or of fmt's and log's printing functions)
+// that quotes the value is printed from it, not parsed into it.
+func (c *checker) roundTrip(fn ast.Node, p pin) bool {
 	if fn == nil {
 		return false
 	}
 	found := false
 	ast.Inspect(fn, func(n ast.Node) bool {
-		if s, ok := n.(*ast.BasicLit); ok && s.Kind == token.STRING && strings.Contains(strings.ReplaceAll(s.Value, ".", ""), p.digits) {
-			found = true
+		switch n := n.(type) {
+		case *ast.CallExpr:
+			return !c.message(n)
+		case *ast.BasicLit:
+			found = n.Kind == token.STRING && strings.Contains(strings.ReplaceAll(n.Value, ".", ""), p.digits)
 		}
 		return !found
 	})
 	return found
+}
+
+// message reports whether call prints its arguments as a message: a
+// function or method of package testing, log or errors, or a function of
+// fmt other than the scanning ones.
+func (c *checker) message(call *ast.CallExpr) bool {
+	fn := typeutil.Callee(c.pass.TypesInfo, call)
+	if fn == nil || fn.Pkg() == nil {
+		return false
+	}
+	switch fn.Pkg().Path() {
+	case "testing", "log", "errors":
+		return true
+	case "fmt":
+		return !strings.Contains(strings.ToLower(fn.Name()), "scan")
+	}
+	return false
 }
 
 // passedThrough reports whether the pinned value also appears in fn among

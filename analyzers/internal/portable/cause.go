@@ -3,6 +3,7 @@ package portable
 import (
 	"go/constant"
 	"go/token"
+	"strings"
 
 	"golang.org/x/tools/go/ssa"
 
@@ -64,6 +65,9 @@ func (s *sighting) value(v ssa.Value, depth int) bool {
 
 // step searches v's operation and operands.
 func (s *sighting) step(v ssa.Value, depth int) bool {
+	if s.storedCause(v, depth) {
+		return true
+	}
 	switch v := v.(type) {
 	case *ssa.Alloc:
 		return s.stored(v, depth)
@@ -88,11 +92,13 @@ func (s *sighting) step(v ssa.Value, depth int) bool {
 }
 
 // args searches the arguments of a call that hold floats, by value or
-// through slices and pointers: an interface or a map given to the callee
-// leads to floats read by methods or lookups out of sight.
+// through slices and pointers, and the bits math.Float64frombits reads:
+// an interface or a map given to the callee leads to floats read by
+// methods or lookups out of sight.
 func (s *sighting) args(call *ssa.CallCommon, depth int) bool {
+	bits := provenance.MathRounding(call) == provenance.Exact && strings.HasSuffix(call.StaticCallee().Name(), "frombits")
 	for _, a := range call.Args {
-		if provenance.HoldsFloat(a.Type(), true) && s.value(a, depth) {
+		if (bits || provenance.HoldsFloat(a.Type(), true)) && s.value(a, depth) {
 			return true
 		}
 	}

@@ -102,12 +102,23 @@ func (s *sighting) dispatched(call *ssa.CallCommon, calls []Invoked, depth int) 
 }
 
 // method reports whether the method name of the concrete type v holds
-// shows a cause; an interface value's type is not known.
+// shows a cause; an interface value's types are known only where it is
+// made in sight (see concrete).
 func (s *sighting) method(v ssa.Value, name string, depth int) bool {
 	t := provenance.Strip(v).Type()
-	if types.IsInterface(t) {
-		return false
+	if !types.IsInterface(t) {
+		return s.methodOf(t, name)
 	}
+	for _, t := range s.j.concrete(v, depth) {
+		if s.methodOf(t, name) {
+			return true
+		}
+	}
+	return false
+}
+
+// methodOf reports whether the method name of type t shows a cause.
+func (s *sighting) methodOf(t types.Type, name string) bool {
 	ms := s.j.prog().MethodSets.MethodSet(t)
 	sel := ms.Lookup(s.j.pass.Pkg, name)
 	if sel == nil {

@@ -89,6 +89,9 @@ func (w *walk) step(v ssa.Value, depth int) bool {
 	case *ssa.Alloc:
 		return w.filled(v, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
+		if !w.storedPortable(v, depth) {
+			return false
+		}
 		for _, op := range v.(ssa.Instruction).Operands(nil) {
 			if *op != nil && !w.value(*op, depth-1) {
 				return false

@@ -82,6 +82,7 @@ type Judge struct {
 	bodies    map[*ssa.Function]bool
 	causes    map[*ssa.Function]bool // functions searched for a cause
 	invokes   map[*ssa.Function][]Invoked
+	stored    map[*types.Var][]ssa.Value // values stored into the package's fields (fields.go)
 }
 
 // prog returns the SSA program of the package.

@@ -244,11 +244,17 @@
 //     time or keep a compensated sum. Sums in local variables, and fields
 //     of a local copy or a value receiver (a box moved by value), last one
 //     call and are left alone, as are fields only ever added to, or only
-//     taken from and reset to constants (a budget spent down), and a
+//     taken from and reset to constants (a budget spent down), a
 //     subtraction of what a parameter that is not a number holds (A.e[i]
 //     -= B.At(i, j), an elementwise combination with a second operand of
 //     the receiver's shape: one rounding per entry, nothing that passed
-//     through is taken out);
+//     through is taken out), a subtraction worked out from the field's own
+//     value and constants alone (r.a -= 2π·⌊r.a/2π⌋, a range reduction or
+//     decay of what it holds now; a mean's downdate r.m -= (x - r.m)/n
+//     also reads the value x that leaves, and stays a hazard), and one in
+//     a function that first sets the field to a constant (r.i = 0; r.i +=
+//     parts; r.i -= m·d², the sum rebuilt on each call, so its rounding
+//     lasts until the next);
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -8,10 +8,10 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
 )
 
 // overlapComplement reports 1 - s where s accumulates math.Sqrt(p*q)
@@ -86,18 +86,6 @@ func (c *checker) sumsRootProducts(v types.Object, body ast.Node) bool {
 // declOf returns the declaration of the package's own function that call
 // calls, or nil.
 func (c *checker) declOf(call *ast.CallExpr) *ast.FuncDecl {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() != c.pass.Pkg {
-		return nil
-	}
-	for _, f := range c.pass.Files {
-		if f.FileStart <= fn.Pos() && fn.Pos() < f.FileEnd {
-			for _, d := range f.Decls {
-				if fd, ok := d.(*ast.FuncDecl); ok && fd.Name.Pos() == fn.Pos() {
-					return fd
-				}
-			}
-		}
-	}
-	return nil
+	fd, _ := provenance.CalleeDecl(c.pass.TypesInfo, c.pass.Files, c.pass.Pkg, call)
+	return fd
 }

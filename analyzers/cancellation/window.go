@@ -58,7 +58,7 @@ func (c *checker) noteUpdate(cur inspector.Cursor, as *ast.AssignStmt) {
 	f := c.sumField(cur, as.Lhs[0])
 	switch {
 	case f == nil:
-	case as.Tok == token.SUB_ASSIGN && !c.isConst(as.Rhs[0]) && !c.readsOperand(cur, as.Rhs[0]):
+	case as.Tok == token.SUB_ASSIGN && !c.isConst(as.Rhs[0]) && !c.readsOperand(cur, as.Rhs[0]) && !c.reduces(cur, as.Rhs[0], f) && !c.rebuilt(cur, as, f):
 		c.taken = append(c.taken, taking{as, f})
 	case as.Tok == token.ADD_ASSIGN && !c.isConst(as.Rhs[0]),
 		as.Tok == token.ASSIGN && c.addsInto(cur, as.Rhs[0], f):
@@ -95,6 +95,63 @@ func (c *checker) readsOperand(cur inspector.Cursor, e ast.Expr) bool {
 			return !found
 		})
 		return found
+	}
+	return false
+}
+
+// reduces reports whether e, taken from field f, is worked out from f's
+// own value and constants alone, directly or through local variables
+// (d := 2π·⌊a/2π⌋; r.a -= d): a range reduction or a decay of what the
+// sum holds now, not a value that passed through it. A downdate of a
+// mean, r.m -= (x - r.m)/n, also reads a value that passed, and is not one.
+func (c *checker) reduces(cur inspector.Cursor, e ast.Expr, f types.Object) bool {
+	ok, seen := c.onlyFrom(cur, e, f, 4)
+	return ok && seen
+}
+
+// onlyFrom reports whether every value e reads is field f, a constant or
+// a local variable assigned only such values, and whether f is among them.
+func (c *checker) onlyFrom(cur inspector.Cursor, e ast.Expr, f types.Object, depth int) (ok, seen bool) {
+	if depth <= 0 {
+		return false, false
+	}
+	ok = true
+	ast.Inspect(e, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.SelectorExpr:
+			if s := c.pass.TypesInfo.Selections[n]; s != nil {
+				ok, seen = ok && s.Obj() == f, seen || s.Obj() == f
+				return false
+			}
+		case *ast.Ident:
+			if v, isVar := c.pass.TypesInfo.Uses[n].(*types.Var); isVar {
+				assigns := c.assignsTo(cur, v)
+				ok = ok && len(assigns) > 0
+				for _, as := range assigns {
+					for _, r := range as.Rhs {
+						rok, rseen := c.onlyFrom(cur, r, f, depth-1)
+						ok, seen = ok && rok, seen || rseen
+					}
+				}
+			}
+		}
+		return ok
+	})
+	return ok, seen
+}
+
+// rebuilt reports whether the function around cur sets field f to a
+// constant before the subtraction as: the sum is rebuilt from nothing on
+// each call (r.i = 0; r.i += parts; r.i -= shift), so a rounding left by
+// the subtraction lasts until the next call, not for good.
+func (c *checker) rebuilt(cur inspector.Cursor, as *ast.AssignStmt, f types.Object) bool {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		for n := range fd.Preorder((*ast.AssignStmt)(nil)) {
+			a := n.Node().(*ast.AssignStmt)
+			if a.Pos() < as.Pos() && a.Tok == token.ASSIGN && len(a.Lhs) == 1 && len(a.Rhs) == 1 && c.isConst(a.Rhs[0]) && c.readsField(a.Lhs[0], f) {
+				return true
+			}
+		}
 	}
 	return false
 }

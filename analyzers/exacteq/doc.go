@@ -166,7 +166,10 @@
 // NaN; a residue in its place gives a large finite quotient, which the
 // code goes on to judge, as a ratio far outside [0, 1] for near-parallel
 // segments; a zero branch that handles a case of its own, such as
-// overlapping parallel segments, stays a hazard, since a residue skips it);
+// overlapping parallel segments, stays a hazard, since a residue skips it;
+// an assertion of the package given the nonzero test, require(det != 0),
+// which panics on false or, in a release build, ignores it, is such a
+// guard);
 // a loop variable tested against an infinity that grows geometrically
 // toward it (multiplied by a constant above 1, or stepped by a step so
 // multiplied, x += d; d *= 2): it overflows onto the infinity exactly

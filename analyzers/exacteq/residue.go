@@ -5,8 +5,10 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
+	"strings"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 	"golang.org/x/tools/go/types/typeutil"
@@ -50,7 +52,7 @@ func (c *checker) residue(cur inspector.Cursor, n *ast.BinaryExpr, op token.Toke
 		})
 		return true
 	}
-	if n == nil || !c.cancels(other.val, 4) || divides(other.val) && c.constantBranch(cur, n, op) {
+	if n == nil || !c.cancels(other.val, 4) || divides(other.val) && (c.constantBranch(cur, n, op) || op == token.NEQ && c.asserted(cur)) {
 		return true
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
@@ -106,6 +108,52 @@ func (c *checker) constantBranch(cur inspector.Cursor, n *ast.BinaryExpr, op tok
 		}
 	}
 	return true
+}
+
+// asserted reports whether the test at cur is an argument of an assertion:
+// a function of this package that panics when that argument is false (if
+// !ok { panic(...) }) or ignores it (a release build's empty stub). The
+// zero case then ends the program or passes unseen, as a zero branch that
+// panics does, and computes no answer of its own.
+func (c *checker) asserted(cur inspector.Cursor) bool {
+	call, ok := cur.Parent().Node().(*ast.CallExpr)
+	if !ok || cur.ParentEdgeKind() != edge.CallExpr_Args {
+		return false
+	}
+	decl, fn := provenance.CalleeDecl(c.pass.TypesInfo, c.pass.Files, c.pass.Pkg, call)
+	i := cur.ParentEdgeIndex()
+	if decl == nil || decl.Body == nil || i >= fn.Signature().Params().Len() {
+		return false
+	}
+	p := fn.Signature().Params().At(i)
+	body := decl.Body.List
+	if len(body) == 0 || p.Name() == "_" {
+		return true
+	}
+	ifs, ok := body[0].(*ast.IfStmt)
+	if len(body) != 1 || !ok || ifs.Init != nil || ifs.Else != nil || len(ifs.Body.List) != 1 {
+		return false
+	}
+	not, ok := ast.Unparen(ifs.Cond).(*ast.UnaryExpr)
+	id, isID := ast.Unparen(not.X).(*ast.Ident)
+	stop, isCall := ifs.Body.List[0].(*ast.ExprStmt)
+	return ok && not.Op == token.NOT && isID && c.pass.TypesInfo.Uses[id] == p && isCall && c.stops(stop.X)
+}
+
+// stops reports whether e is a call of panic or of log's Fatal and Panic
+// functions.
+func (c *checker) stops(e ast.Expr) bool {
+	call, ok := ast.Unparen(e).(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	switch fn := typeutil.Callee(c.pass.TypesInfo, call).(type) {
+	case *types.Builtin:
+		return fn.Name() == "panic"
+	case *types.Func:
+		return fn.Pkg() != nil && fn.Pkg().Path() == "log" && (strings.HasPrefix(fn.Name(), "Fatal") || strings.HasPrefix(fn.Name(), "Panic"))
+	}
+	return false
 }
 
 // inert reports whether e, assigned or returned in a zero branch, is no

@@ -185,6 +185,9 @@
 //     they were written for: one that never ended would hang the test; and
 //     constants written in test files, since each case runs on its one
 //     problem;
+//   - a for block written for its breaks (for { ...; break }): its body
+//     ends in an unguarded break, return or panic and no continue goes
+//     back to the top, so every path leaves on the first pass;
 //   - loops it cannot classify, except for the missing cap.
 //
 // Fixes (all need review): in a minimization, the test becomes

@@ -34,7 +34,7 @@ const (
 // counters or by walking data, and scans by a given step. A recursion
 // read as a loop is judged the same way and reported as a recursion.
 func (c *checker) unbounded(l *loop) {
-	if l.capped || l.other || len(l.exits) == 0 || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
+	if l.capped || l.other || len(l.exits) == 0 || l.once() || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
 	d := newDeps(c.pass.TypesInfo, l)
@@ -93,6 +93,15 @@ func (c *checker) unbounded(l *loop) {
 	}
 	c.reportLoop(d, catNoCap, fmt.Sprintf("iteration may never end: its only exits are float tests (%s) and %s, so an iteration that stalls, oscillates or diverges keeps it running%s; add an iteration limit",
 		c.exitText(d.tests[0].e), c.uncapped(l, "passes"), nanClause(nanRuns)))
+}
+
+// once reports whether the loop's body leaves on its first pass by every
+// path: it ends in an unguarded break, return or panic, and no continue
+// goes back to the top (a for { ...; break } block written for its
+// breaks). It is no iteration.
+func (l *loop) once() bool {
+	list := l.stmt.Body.List
+	return l.rec == nil && len(list) > 0 && l.leaves(list[len(list)-1]) && !hasContinue(l.stmt.Body)
 }
 
 // nanClause says, for a message, that a NaN keeps the loop or recursion

@@ -16,6 +16,7 @@ import (
 	"strings"
 
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/internal/numeric"
 )
@@ -569,4 +570,23 @@ func ifaceTerms(iface *types.Interface, pred func(*types.Basic) bool) bool {
 		seen = true
 	}
 	return seen
+}
+
+// CalleeDecl returns the declaration in files of the function of package
+// pkg that call calls, with the function, or nil.
+func CalleeDecl(info *types.Info, files []*ast.File, pkg *types.Package, call *ast.CallExpr) (*ast.FuncDecl, *types.Func) {
+	fn, ok := typeutil.Callee(info, call).(*types.Func)
+	if !ok || fn.Pkg() != pkg {
+		return nil, nil
+	}
+	for _, f := range files {
+		if f.FileStart <= fn.Pos() && fn.Pos() < f.FileEnd {
+			for _, d := range f.Decls {
+				if fd, ok := d.(*ast.FuncDecl); ok && fd.Name.Pos() == fn.Pos() {
+					return fd, fn
+				}
+			}
+		}
+	}
+	return nil, nil
 }

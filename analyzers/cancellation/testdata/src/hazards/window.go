@@ -1,5 +1,7 @@
 package hazards
 
+import "math"
+
 // A moving average over a stream: the sum is only ever corrected by the
 // value leaving the window.
 type movingMean struct {
@@ -90,4 +92,40 @@ func (g *grid) minus(h *grid) {
 	for i := range g.cells {
 		g.cells[i] -= h.cells[i]
 	}
+}
+
+// A heading kept in [0, 2π): the wrap takes out a multiple of 2π worked
+// out from the heading alone, a range reduction of what it holds now.
+type rudder struct{ heading, turned float64 }
+
+func (r *rudder) turn(by float64) {
+	r.heading += by
+	r.turned += by
+}
+
+func (r *rudder) wrap() {
+	d := 2 * math.Pi * math.Floor(r.heading/(2*math.Pi))
+	r.heading -= d
+}
+
+// The moment of inertia of a hull about its centre: rebuilt from zero on
+// each call, the parts added and the shift to the centre taken out once.
+type hull struct{ mass, inertia, arm float64 }
+
+func (h *hull) settle(parts []float64) {
+	h.inertia = 0
+	for _, p := range parts {
+		h.inertia += p
+	}
+	h.inertia -= h.mass * h.arm * h.arm
+}
+
+// A windowed mean downdated as a reading leaves: the removal reads the
+// reading as well as the mean, so what passed is taken out again.
+type meanWindow struct{ n, mean float64 }
+
+func (m *meanWindow) enter(x float64) { m.n++; m.mean += (x - m.mean) / m.n }
+func (m *meanWindow) leave(x float64) {
+	m.n--
+	m.mean -= (x - m.mean) / m.n // want `running sum or mean m.mean, taken from as well as added to`
 }

@@ -414,6 +414,30 @@ func (m frame2) inverse() (*frame2, error) {
 	return &frame2{m[3] * k, -m[1] * k, -m[2] * k, m[0] * k}, nil
 }
 
+// A determinant asserted nonzero before the division by it: the package's
+// assertion panics on false, as a zero branch that panics would.
+func require(ok bool, msg string) {
+	if !ok {
+		panic(msg)
+	}
+}
+
+func (m frame2) solve(b0, b1 float64) (float64, float64) {
+	det := m[0]*m[3] - m[1]*m[2]
+	require(det != 0, "frame2: singular")
+	k := 1 / det
+	return (m[3]*b0 - m[1]*b1) * k, (m[0]*b1 - m[2]*b0) * k
+}
+
+// The same under a release build, whose assertion ignores its argument.
+func check(_ bool, _ ...any) {}
+
+func (m frame2) det() float64 {
+	d := m[0]*m[3] - m[1]*m[2]
+	check(d != 0)
+	return 1 / d
+}
+
 // A field filled by a function and compared with that function's result:
 // the same function gives the same bits for the same inputs, so the test
 // asks whether the default is still in use.

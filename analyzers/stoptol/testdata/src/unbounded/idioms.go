@@ -285,3 +285,30 @@ func settleBounded(next func(float64) float64, x, tol float64, max int) float64 
 	}
 	return x
 }
+
+// pair tries two cases in a for block written for its breaks: every path
+// through the body leaves on the first pass, so it never repeats.
+type vec struct{ X, Y float64 }
+
+func (v vec) neg() vec           { return vec{-v.X, -v.Y} }
+func scale(k float64, v vec) vec { return vec{k * v.X, k * v.Y} }
+
+type pair struct{ v vec }
+
+func (p *pair) add(d vec) { p.v.X += d.X; p.v.Y += d.Y }
+
+func (p *pair) resolve(k float64) {
+	for {
+		x := scale(k, p.v).neg()
+		if x.X >= 0 && x.Y >= 0 {
+			p.add(x)
+			break
+		}
+		x = scale(2*k, p.v)
+		if x.X >= 0 {
+			p.add(x)
+			break
+		}
+		break
+	}
+}

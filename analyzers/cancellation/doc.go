@@ -346,7 +346,8 @@
 // at most two, as in Cardano's formula on the fractional part of a
 // logarithm. It is silent on a ray meeting a quadric of definite form,
 // the quadratic a·t² + b·t + c with a = d·d, b = 2·d·o and c = o·o - w in
-// one dot product (a package method, or products of the same fields): c
+// one dot product (a package method p.Dot(q), a package function
+// Dot(p, q), or products of the same fields): c
 // is itself a difference, off by about u·o·o whichever way the roots are
 // formed, and (d·o)² ≤ (d·d)(o·o) (Cauchy–Schwarz) bounds b²/4a by o·o,
 // so the cancellation adds an error of the same order and the stable

@@ -69,8 +69,8 @@ func (c *checker) factors(e ast.Expr) []ast.Expr {
 }
 
 // readDot reads e, through variables and constant factors, as a dot
-// product: a call p.M(q) of a method of the package that returns a sum of
-// products, or a sum of products p.F*q.F of the same fields (each term
+// product: a call p.M(q) of a method of the package, or Dot(p, q) of a
+// function of it, that returns a sum of products, or a sum of products p.F*q.F of the same fields (each term
 // perhaps scaled by a constant).
 func (c *checker) readDot(e ast.Expr) (dot, bool) {
 	e, _ = c.through(e)
@@ -80,12 +80,18 @@ func (c *checker) readDot(e ast.Expr) (dot, bool) {
 	}
 	e = fs[0]
 	if call, ok := e.(*ast.CallExpr); ok {
-		sel, isSel := call.Fun.(*ast.SelectorExpr)
 		fn, isFunc := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-		if !isSel || !isFunc || len(call.Args) != 1 || fn.Signature().Recv() == nil || !c.productSum(c.returned(call)) {
+		if !isFunc || !c.productSum(c.returned(call)) {
 			return dot{}, false
 		}
-		return dot{fn.FullName(), types.ExprString(sel.X), types.ExprString(call.Args[0])}, true
+		sel, isSel := call.Fun.(*ast.SelectorExpr)
+		switch {
+		case fn.Signature().Recv() != nil && isSel && len(call.Args) == 1:
+			return dot{fn.FullName(), types.ExprString(sel.X), types.ExprString(call.Args[0])}, true
+		case fn.Signature().Recv() == nil && len(call.Args) == 2:
+			return dot{fn.FullName(), types.ExprString(call.Args[0]), types.ExprString(call.Args[1])}, true
+		}
+		return dot{}, false
 	}
 	var fields []string
 	var p, q string

@@ -612,6 +612,19 @@ func echoMooring(s sonar, r float64) float64 {
 	return (-b - math.Sqrt(disc)) / (2 * a)
 }
 
+// echoFloat meets a floating sphere through the package's dot function
+// rather than a method: the same Cauchy–Schwarz bound holds.
+func dot3(p, q pos3) float64 { return p.X*q.X + p.Y*q.Y + p.Z*q.Z }
+
+func echoFloat(s sonar, centre pos3, r float64) float64 {
+	o := s.origin.Sub(centre)
+	c := dot3(o, o) - r*r
+	b := dot3(o, s.heading)
+	a := dot3(s.heading, s.heading)
+	sigma := b*b - a*c
+	return -(b + math.Sqrt(sigma)) / a
+}
+
 // stationRadius is a survey station's distance from the centre of an
 // ellipsoid: the radius of curvature a/sqrt(1 - e2·sin²φ) divides by a
 // root that stays within [sqrt(1-e2), sqrt(1+e2)], so it is at most

@@ -10,6 +10,8 @@ import (
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // A bound reports whether condition cond, or its negation when negated,
@@ -186,7 +188,7 @@ func (c *checker) comparisonAwayFromOne(e *ast.BinaryExpr, negated bool, x ast.E
 func (c *checker) compares(cond ast.Expr, _ bool, x ast.Expr) bool {
 	found := false
 	ast.Inspect(cond, func(n ast.Node) bool {
-		if b, ok := n.(*ast.BinaryExpr); ok && isOrder(b.Op) {
+		if b, ok := n.(*ast.BinaryExpr); ok && provenance.Ordered(b.Op) {
 			found = found || c.mentions(b.X, x) || c.mentions(b.Y, x)
 		}
 		return !found
@@ -273,10 +275,6 @@ func (c *checker) scaled(x ast.Expr) bool {
 	}
 	q, ok := ast.Unparen(c.decls[c.pass.TypesInfo.Uses[id]]).(*ast.BinaryExpr)
 	return ok && q.Op == token.QUO && !c.isConst(q.Y)
-}
-
-func isOrder(op token.Token) bool {
-	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
 }
 
 // mirror returns the operator that holds with the operands swapped.

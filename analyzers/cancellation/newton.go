@@ -7,6 +7,8 @@ import (
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // newtonSlope reports whether the value at cur is only the slope of a
@@ -129,7 +131,7 @@ func (c *checker) stopTest(cur inspector.Cursor) bool {
 		cur = cur.Parent()
 	}
 	b, ok := cur.Parent().Node().(*ast.BinaryExpr)
-	return ok && isOrder(b.Op)
+	return ok && provenance.Ordered(b.Op)
 }
 
 // isVar reports whether obj is a variable.

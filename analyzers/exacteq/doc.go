@@ -115,8 +115,9 @@
 // x != x; an equality joined to an exact zero test of one of its operands
 // (x == y && y == 0 holds exactly when both are 0, as b != a || a != 0
 // before math.Atan2(b, a) asks); the tie test of an ordering (x < y ||
-// x == y && k, or a three-way comparator's branch that returns 0 on
-// x == y): a tie missed by an ulp orders the two by the primary key, whose
+// x == y && k, a three-way comparator's branch that returns 0 on x == y,
+// or if x == y { x, y = p, q } swapping in secondary keys before the
+// statement after it orders x and y): a tie missed by an ulp orders the two by the primary key, whose
 // values differ by that ulp, a consistent order that departs from exact
 // arithmetic only between values that agree to rounding; a computed
 // value against a field into which the package stores the same

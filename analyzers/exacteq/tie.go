@@ -7,6 +7,8 @@ import (
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // zeroPartner reports whether x == y is joined by && to an exact zero test
@@ -64,15 +66,44 @@ func sameExpr(a, b ast.Expr) bool {
 }
 
 // tieBreak reports whether x == y decides a tie in an ordering: in a
-// lexicographic choice x < y || x == y && k (or with >), or in a
-// three-way comparator (a function of two values of one type, or a method
-// and a value of its receiver's type, returning an int) whose branch on
-// the equality returns 0. A tie missed by an ulp then orders the two
+// lexicographic choice x < y || x == y && k (or with >), in a three-way
+// comparator (a function of two values of one type, or a method and a
+// value of its receiver's type, returning an int) whose branch on the
+// equality returns 0, or where the equality swaps in secondary keys
+// before the two are ordered (see rekeyed). A tie missed by an ulp then orders the two
 // values by the primary key, whose values differ by that ulp: a
 // consistent order, which departs from exact arithmetic only between
 // values that agree to rounding.
 func (c *checker) tieBreak(cur inspector.Cursor, n *ast.BinaryExpr) bool {
-	return n.Op == token.EQL && (c.lexicographic(cur, n) || c.comparatorTie(cur))
+	return n.Op == token.EQL && (c.lexicographic(cur, n) || c.comparatorTie(cur) || rekeyed(cur, n))
+}
+
+// rekeyed reports whether x == y is the condition of an if statement whose
+// body gives x and y new values (secondary keys) before the statement
+// after it orders them (if y < x): if x == y { x, y = p(a), p(b) }.
+func rekeyed(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	ifs, ok := cur.Parent().Node().(*ast.IfStmt)
+	if !ok || cur.ParentEdgeKind() != edge.IfStmt_Cond || ifs.Init != nil || ifs.Else != nil {
+		return false
+	}
+	set := map[string]bool{}
+	for _, st := range ifs.Body.List {
+		if as, ok := st.(*ast.AssignStmt); ok && as.Tok == token.ASSIGN {
+			for _, l := range as.Lhs {
+				set[types.ExprString(l)] = true
+			}
+		}
+	}
+	next, ok := cur.Parent().NextSibling()
+	if !ok || !set[types.ExprString(ast.Unparen(n.X))] || !set[types.ExprString(ast.Unparen(n.Y))] {
+		return false
+	}
+	after, ok := next.Node().(*ast.IfStmt)
+	if !ok {
+		return false
+	}
+	ord, ok := ast.Unparen(after.Cond).(*ast.BinaryExpr)
+	return ok && provenance.Ordered(ord.Op) && (sameExpr(ord.X, n.X) && sameExpr(ord.Y, n.Y) || sameExpr(ord.X, n.Y) && sameExpr(ord.Y, n.X))
 }
 
 // lexicographic reports whether n is the tie clause of x < y || x == y && k.

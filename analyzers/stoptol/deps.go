@@ -452,7 +452,7 @@ func (d *deps) bounds(v *types.Var) bool {
 	for _, t := range d.tests {
 		ast.Inspect(t.e, func(n ast.Node) bool {
 			b, ok := n.(*ast.BinaryExpr)
-			if ok && (isOrdered(b.Op) || b.Op == token.EQL || b.Op == token.NEQ) {
+			if ok && (provenance.Ordered(b.Op) || b.Op == token.EQL || b.Op == token.NEQ) {
 				for _, pair := range [][2]ast.Expr{{b.X, b.Y}, {b.Y, b.X}} {
 					x := ast.Unparen(pair[0])
 					if call, ok := x.(*ast.CallExpr); ok && len(call.Args) == 1 {
@@ -530,7 +530,7 @@ func (d *deps) sides(e ast.Expr, holds bool, v *types.Var, small, large *bool) {
 		case token.GTR, token.GEQ:
 			lo, hi = hi, lo
 		}
-		if isOrdered(e.Op) {
+		if provenance.Ordered(e.Op) {
 			if !holds {
 				lo, hi = hi, lo
 			}
@@ -671,7 +671,7 @@ func (d *deps) noFloatLeft() bool {
 	for _, t := range d.tests {
 		ast.Inspect(t.e, func(n ast.Node) bool {
 			b, ok := n.(*ast.BinaryExpr)
-			if !ok || !isOrdered(b.Op) && b.Op != token.EQL {
+			if !ok || !provenance.Ordered(b.Op) && b.Op != token.EQL {
 				return !found // m == a tests the same landing on an end as m <= a
 			}
 			x, y := subjectOf(d.info, b.X), subjectOf(d.info, b.Y)

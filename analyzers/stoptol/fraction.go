@@ -48,7 +48,7 @@ func (c *checker) sweep(d *deps, tested map[*types.Var]bool) bool {
 func (d *deps) boundTest(x *types.Var) (string, bool) {
 	for _, t := range d.tests {
 		b, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
-		if !ok || !isOrdered(b.Op) {
+		if !ok || !provenance.Ordered(b.Op) {
 			continue
 		}
 		for _, pair := range [][2]ast.Expr{{b.X, b.Y}, {b.Y, b.X}} {

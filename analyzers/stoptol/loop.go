@@ -361,7 +361,7 @@ func isFValue(info *types.Info, e ast.Expr) bool {
 func hasIntComparison(info *types.Info, e ast.Expr) bool {
 	found := false
 	ast.Inspect(e, func(n ast.Node) bool {
-		if b, ok := n.(*ast.BinaryExpr); ok && isOrdered(b.Op) {
+		if b, ok := n.(*ast.BinaryExpr); ok && provenance.Ordered(b.Op) {
 			if t, ok := info.TypeOf(b.X).Underlying().(*types.Basic); ok && t.Info()&types.IsInteger != 0 {
 				found = true
 			}
@@ -496,7 +496,7 @@ func reads(info *types.Info, e ast.Expr, vars map[types.Object]bool) bool {
 func (l *loop) hasCounterComparison(info *types.Info, e ast.Expr) bool {
 	found := false
 	ast.Inspect(e, func(n ast.Node) bool {
-		if b, ok := n.(*ast.BinaryExpr); ok && isOrdered(b.Op) {
+		if b, ok := n.(*ast.BinaryExpr); ok && provenance.Ordered(b.Op) {
 			found = found || l.countsTo(info, b.X, b.Y) || l.countsTo(info, b.Y, b.X)
 		}
 		return !found
@@ -628,10 +628,6 @@ func hasContinue(body ast.Node) bool {
 	return found
 }
 
-func isOrdered(op token.Token) bool {
-	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
-}
-
 // classify tells a root finding from a minimization. Sign tests make a
 // root finding even when the loop also compares |f(a)| with |f(b)|, as a
 // zero finder does; comparisons of function values make a minimization even
@@ -749,7 +745,7 @@ func (l *loop) parabolaTerm(info *types.Info, b *ast.BinaryExpr) bool {
 // decreaseTest reports whether b orders two function values, possibly one
 // plus a term: fc < fd, f(u) <= fx, f(x+t*d) > fx + c*t*g (sufficient decrease).
 func (l *loop) decreaseTest(info *types.Info, b *ast.BinaryExpr) bool {
-	if !isOrdered(b.Op) {
+	if !provenance.Ordered(b.Op) {
 		return false
 	}
 	shifted := func(e ast.Expr) bool {
@@ -762,7 +758,7 @@ func (l *loop) decreaseTest(info *types.Info, b *ast.BinaryExpr) bool {
 // signTest reports whether b tests the sign of a product of function
 // values (fa*fm < 0) or compares two signs ((fa > 0) == (fb > 0)).
 func (l *loop) signTest(info *types.Info, b *ast.BinaryExpr) bool {
-	if isOrdered(b.Op) && isZero(info, b.Y) {
+	if provenance.Ordered(b.Op) && isZero(info, b.Y) {
 		if m, ok := ast.Unparen(b.X).(*ast.BinaryExpr); ok && m.Op == token.MUL && l.fvalue(info, m.X) && l.fvalue(info, m.Y) {
 			return true
 		}
@@ -770,7 +766,7 @@ func (l *loop) signTest(info *types.Info, b *ast.BinaryExpr) bool {
 	if b.Op == token.EQL || b.Op == token.NEQ {
 		x, ok1 := ast.Unparen(b.X).(*ast.BinaryExpr)
 		y, ok2 := ast.Unparen(b.Y).(*ast.BinaryExpr)
-		return ok1 && ok2 && isOrdered(x.Op) && isOrdered(y.Op) && isZero(info, x.Y) && isZero(info, y.Y)
+		return ok1 && ok2 && provenance.Ordered(x.Op) && provenance.Ordered(y.Op) && isZero(info, x.Y) && isZero(info, y.Y)
 	}
 	return false
 }

@@ -590,3 +590,8 @@ func CalleeDecl(info *types.Info, files []*ast.File, pkg *types.Package, call *a
 	}
 	return nil, nil
 }
+
+// Ordered reports whether op is one of the ordered comparisons < <= > >=.
+func Ordered(op token.Token) bool {
+	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
+}

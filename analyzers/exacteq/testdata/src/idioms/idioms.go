@@ -377,6 +377,25 @@ func sameTone(a, b shade) bool {
 	return tone(a) == tone(b)
 }
 
+// A choice between two bins by a primary cost, with a tie swapping in a
+// secondary cost before the order is taken: a tie missed by an ulp leaves
+// the primary costs, which differ by that ulp, to choose.
+type bin struct{ w, h, fill float64 }
+
+func (b bin) area() float64 { return b.w * b.h }
+
+func pickBin(p, q bin, add float64) bin {
+	costP := q.area() + (p.w+add)*p.h
+	costQ := p.area() + (q.w+add)*q.h
+	if costP == costQ {
+		costP, costQ = p.fill, q.fill
+	}
+	if costQ < costP {
+		return q
+	}
+	return p
+}
+
 // An extra pass runs at 0.9999999999999999, within the range w < 1 admits.
 func extraPass() int {
 	n := 0

@@ -117,6 +117,7 @@ func run(pass *analysis.Pass) (any, error) {
 				case token.ADD:
 					c.sums(cur, n)
 					c.roundTrip(cur, n)
+					c.lowerTail(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)
 					c.expRatio(cur, n)

@@ -89,7 +89,12 @@
 //     function) and 1 - F(x) for a function or method F named CDF, also
 //     scaled (2 - 2*F(x), a two-sided tail): upper-tail probabilities
 //     below 1.11e-16 come out 0 and small ones lose digits; math.Erfc(x),
-//     0.5*math.Erfc(x), or a complementary function;
+//     0.5*math.Erfc(x), or a complementary function; and the lower tail
+//     1 + math.Erf(x), also scaled (0.5*(1 + math.Erf(z)), 0.5 +
+//     0.5*math.Erf(z)), for x not known to be non-negative: erf tends to
+//     -1, so the sum is 0 below x ≈ -5.92 and off by 1.5e-5 relative at
+//     x = -5 (TestLowerTail, against Abramowitz & Stegun 7.1.23);
+//     math.Erfc(-x);
 //   - the one-pass covariance E[xy]-E[x]E[y]: sxy - sx*sy/n, n*sxy -
 //     sx*sy or sxy/n - mx*my, where sxy accumulates products x*y of data
 //     (not of deviations from means taken first) and sx, sy accumulate

@@ -717,6 +717,52 @@ func (c *checker) upperTail(n *ast.BinaryExpr, e ast.Expr) bool {
 	return true
 }
 
+// lowerTail reports 1 + math.Erf(x) and k + k*math.Erf(x), the normal
+// distribution function 0.5*(1 + erf(z)) among them, for x not known to
+// be non-negative: erf tends to -1 as x falls, so the sum keeps only its
+// rounding, is 0 below x ≈ -5.92 and loses about log10(1/(1+erf x))
+// digits above (1.5e-5 relative at x = -5); math.Erfc(-x) is the same
+// value computed directly.
+func (c *checker) lowerTail(cur inspector.Cursor, n *ast.BinaryExpr) {
+	for _, pair := range [][2]ast.Expr{{n.X, n.Y}, {n.Y, n.X}} {
+		k := c.pass.TypesInfo.Types[pair[0]].Value
+		e, scale := ast.Unparen(pair[1]), ""
+		if m, ok := e.(*ast.BinaryExpr); ok && m.Op == token.MUL && k != nil {
+			if v := c.pass.TypesInfo.Types[m.X].Value; v != nil && constant.Compare(v, token.EQL, k) {
+				e, scale = ast.Unparen(m.Y), fixes.Source(c.pass.Fset, m.X)+" * "
+			}
+		}
+		if scale == "" && !c.isOne(pair[0]) {
+			continue
+		}
+		inner, indirect := c.through(e)
+		call, ok := inner.(*ast.CallExpr)
+		if !ok || c.mathFunc(call) != "Erf" || c.nonNegative(cur, call.Args[0], 8) {
+			continue
+		}
+		text := scale + qualifier(call) + ".Erfc(" + negate(c, call.Args[0]) + ")"
+		d := analysis.Diagnostic{
+			Pos: n.Pos(), End: n.End(), Category: catTail,
+			Message: fmt.Sprintf("%s returns 0 where math.Erf(x) rounds to -1 (x below %.3g) and loses about log10(1/(1+erf x)) digits for negative x (%.2g relative at x = -5); use %smath.Erfc(-x)",
+				fixes.Source(c.pass.Fset, n), lowestErf, erfLossAt5, scale),
+		}
+		if indirect {
+			fixes.Report(c.pass, d) // the error function is stored in a variable: x may have changed since
+			return
+		}
+		fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+		return
+	}
+}
+
+// lowestErf is where 1 + math.Erf(x) becomes 0 in float64, and erfLossAt5
+// the relative error of 1 + math.Erf(-5) against math.Erfc(5)
+// (TestLowerTail).
+const (
+	lowestErf  = -5.92
+	erfLossAt5 = 1.5e-5
+)
+
 func (c *checker) reportTail(n *ast.BinaryExpr, use string, fix []fixes.Fix) {
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catTail,

@@ -90,6 +90,15 @@ func upperNormal(z float64) float64 {
 	return 0.5 * (1 - math.Erf(z/math.Sqrt2)) // want `1 - math.Erf\(z / math.Sqrt2\) returns 0 where the probability rounds to 1 \(upper tails below 1.11e-16\).*use math.Erfc\(x\)`
 }
 
+func lowerNormal(x, mu, sigma float64) float64 {
+	z := (x - mu) / (sigma * math.Sqrt2)
+	return 0.5 * (1 + math.Erf(z)) // want `1 \+ math.Erf\(z\) returns 0 where math.Erf\(x\) rounds to -1 \(x below -5.92\).*use math.Erfc\(-x\)`
+}
+
+func lowerNormalSplit(z float64) float64 {
+	return 0.5 + 0.5*math.Erf(z) // want `0.5 \+ 0.5\*math.Erf\(z\) returns 0 where math.Erf\(x\) rounds to -1.*use 0.5 \* math.Erfc\(-x\)`
+}
+
 type logisticLaw struct{ mu, s float64 }
 
 func (d logisticLaw) CDF(x float64) float64 { return 1 / (1 + math.Exp(-(x-d.mu)/d.s)) }

@@ -186,6 +186,12 @@ func (s *stepper) update(g float64) float64 {
 	return s.avg / (1 - math.Pow(s.decay, s.step))
 }
 
+// A lower tail of a value never negative: 1 + erf(x) lies in [1, 2) and
+// cancels nothing.
+func aboveMedian(d float64) float64 {
+	return 0.5 * (1 + math.Erf(math.Abs(d)))
+}
+
 // upperDirect forms the tail itself: 0.5*math.Erfc(z) is small where z is
 // large, so 1 minus it is near 1 and cancels nothing there.
 func upperDirect(z float64) float64 {

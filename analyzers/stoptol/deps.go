@@ -19,6 +19,7 @@ import (
 // slice is computed from.
 type deps struct {
 	info    *types.Info
+	files   []*ast.File // the package's files, where the functions it calls are read
 	l       *loop
 	tests   []exitTest                  // the float exit tests
 	effects bool                        // the loop calls functions for their effects
@@ -30,8 +31,8 @@ type deps struct {
 	inFlag  map[*types.Var]bool // flags being read, for flags that read themselves
 }
 
-func newDeps(info *types.Info, l *loop) *deps {
-	d := &deps{info: info, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}, inFlag: map[*types.Var]bool{}}
+func newDeps(info *types.Info, files []*ast.File, l *loop) *deps {
+	d := &deps{info: info, files: files, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}, inFlag: map[*types.Var]bool{}}
 	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
 		if n != nil {
 			ast.Inspect(n, d.record)
@@ -316,7 +317,7 @@ func (d *deps) stepIn(v *types.Var, tok token.Token, rhs ast.Expr) (ast.Expr, bo
 // such a value; followed through the variables of the function. A
 // constant, a parameter, a value loaded from data, or a span divided by a
 // count is the caller's step.
-func (d *deps) canVanish(e ast.Expr, depth int) bool {
+func (d *deps) canVanish(e ast.Expr, depth int, closed bool) bool {
 	if depth == 0 || e == nil {
 		return false
 	}
@@ -327,36 +328,36 @@ func (d *deps) canVanish(e ast.Expr, depth int) bool {
 	switch e := e.(type) {
 	case *ast.Ident:
 		v := tolerance.VarOf(d.info, e)
-		for _, r := range append(assignments(d.info, d.l.body, v), d.rhs[v]...) {
-			if tolerance.VarOf(d.info, r) != v && d.canVanish(r, depth-1) {
+		for _, r := range append(d.valuesOf(v), d.rhs[v]...) {
+			if tolerance.VarOf(d.info, r) != v && d.canVanish(r, depth-1, closed) {
 				return true
 			}
 		}
 	case *ast.UnaryExpr:
-		return d.canVanish(e.X, depth)
+		return d.canVanish(e.X, depth, closed)
 	case *ast.BinaryExpr:
 		switch e.Op {
 		case token.ADD, token.SUB:
 			return true
 		case token.MUL:
-			return d.canVanish(e.X, depth) || d.canVanish(e.Y, depth)
+			return d.canVanish(e.X, depth, closed) || d.canVanish(e.Y, depth, closed)
 		case token.QUO:
-			if q, ok := ast.Unparen(e.X).(*ast.BinaryExpr); ok && q.Op == token.SUB && d.info.Types[e.Y].Value == nil {
-				return false // (hi-lo)/n: zero only for an empty span, which the scan does not enter
+			if q, ok := ast.Unparen(e.X).(*ast.BinaryExpr); ok && q.Op == token.SUB && d.info.Types[e.Y].Value == nil && !closed {
+				return false // (hi-lo)/n: zero only for an empty span, which a scan to x < hi does not enter
 			}
-			return d.canVanish(e.X, depth)
+			return d.canVanish(e.X, depth, closed)
 		}
 	case *ast.CallExpr:
 		if d.info.Types[e.Fun].IsType() {
-			return len(e.Args) == 1 && d.canVanish(e.Args[0], depth)
+			return len(e.Args) == 1 && d.canVanish(e.Args[0], depth, closed)
 		}
 		if fn, ok := typeutil.Callee(d.info, e).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
-			if vanishing[fn.Name()] {
-				return true
+			if f, ok := vanishing[fn.Name()]; ok {
+				return !d.constantNonZero(f, e.Args)
 			}
 		}
 		for _, a := range e.Args {
-			if d.canVanish(a, depth-1) {
+			if d.canVanish(a, depth-1, closed) {
 				return true
 			}
 		}
@@ -364,9 +365,99 @@ func (d *deps) canVanish(e ast.Expr, depth int) bool {
 	return false
 }
 
+// valuesOf returns the expressions assigned to v in the function that
+// declares it; for v := f(...) among several results of a function of the
+// package with one return statement, the result f returns there.
+func (d *deps) valuesOf(v *types.Var) []ast.Expr {
+	body := d.l.body
+	if fd := d.declaring(v.Pos()); fd != nil {
+		body = fd.Body
+	}
+	out := assignments(d.info, body, v)
+	ast.Inspect(body, func(n ast.Node) bool {
+		as, ok := n.(*ast.AssignStmt)
+		if !ok || len(as.Rhs) != 1 || len(as.Lhs) < 2 {
+			return true
+		}
+		call, isCall := ast.Unparen(as.Rhs[0]).(*ast.CallExpr)
+		for i, lhs := range as.Lhs {
+			if isCall && tolerance.VarOf(d.info, lhs) == v {
+				if r := d.soleResult(call, i); r != nil {
+					out = append(out, r)
+				}
+			}
+		}
+		return true
+	})
+	return out
+}
+
+// soleResult returns result i of the one return statement of the
+// package's function that call calls, or nil.
+func (d *deps) soleResult(call *ast.CallExpr, i int) ast.Expr {
+	fn, ok := typeutil.Callee(d.info, call).(*types.Func)
+	if !ok {
+		return nil
+	}
+	fd := d.declaring(fn.Pos())
+	if fd == nil || fd.Name.Pos() != fn.Pos() || fd.Body == nil {
+		return nil
+	}
+	var rets []*ast.ReturnStmt
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		if r, ok := n.(*ast.ReturnStmt); ok {
+			rets = append(rets, r)
+		}
+		_, lit := n.(*ast.FuncLit)
+		return !lit
+	})
+	if len(rets) != 1 || i >= len(rets[0].Results) {
+		return nil
+	}
+	return rets[0].Results[i]
+}
+
+// declaring returns the function declaration of the package around pos.
+func (d *deps) declaring(pos token.Pos) *ast.FuncDecl {
+	for _, f := range d.files {
+		if f.FileStart <= pos && pos < f.FileEnd {
+			for _, decl := range f.Decls {
+				if fd, ok := decl.(*ast.FuncDecl); ok && fd.Pos() <= pos && pos < fd.End() {
+					return fd
+				}
+			}
+		}
+	}
+	return nil
+}
+
 // vanishing lists math functions that return 0 at a float argument
-// other than 0 itself, or whose result can be 0 for arguments that are not.
-var vanishing = map[string]bool{"Acos": true, "Log": true, "Log2": true, "Log10": true, "Mod": true, "Remainder": true, "Sin": true, "Tan": true, "Floor": true, "Trunc": true, "Round": true}
+// other than 0 itself, or whose result can be 0 for arguments that are
+// not, with the function itself to evaluate at constant arguments.
+var vanishing = map[string]func(...float64) float64{
+	"Acos": one(math.Acos), "Log": one(math.Log), "Log2": one(math.Log2), "Log10": one(math.Log10),
+	"Sin": one(math.Sin), "Tan": one(math.Tan), "Floor": one(math.Floor), "Trunc": one(math.Trunc), "Round": one(math.Round),
+	"Mod":       func(x ...float64) float64 { return math.Mod(x[0], x[1]) },
+	"Remainder": func(x ...float64) float64 { return math.Remainder(x[0], x[1]) },
+}
+
+func one(f func(float64) float64) func(...float64) float64 {
+	return func(x ...float64) float64 { return f(x[0]) }
+}
+
+// constantNonZero reports whether every argument is a constant and f of
+// them is not 0: math.Sin(60*math.Pi/180) is a fixed 0.866.
+func (d *deps) constantNonZero(f func(...float64) float64, args []ast.Expr) bool {
+	xs := make([]float64, len(args))
+	for i, a := range args {
+		v := d.info.Types[a].Value
+		if v == nil {
+			return false
+		}
+		xs[i], _ = constant.Float64Val(constant.ToFloat(v))
+	}
+	return f(xs...) != 0
+}
 
 // scaled reports whether the loop only ever multiplies or divides v by
 // something (v *= r, v = v*a*b, v /= b), by factors the loop does not
@@ -774,4 +865,19 @@ func isBoolType(t types.Type) bool {
 		b, ok = t.Underlying().(*types.Basic)
 	}
 	return ok && b.Info()&types.IsBoolean != 0
+}
+
+// closed reports whether an exit test compares x with <= or >= (a scan
+// for x := lo; x <= hi): such a loop enters a span of width 0, where a
+// step made from the width is 0.
+func (d *deps) closed(x *types.Var) bool {
+	found := false
+	for _, t := range d.tests {
+		ast.Inspect(t.e, func(n ast.Node) bool {
+			b, ok := n.(*ast.BinaryExpr)
+			found = found || ok && (b.Op == token.LEQ || b.Op == token.GEQ) && (tolerance.VarOf(d.info, b.X) == x || tolerance.VarOf(d.info, b.Y) == x)
+			return !found
+		})
+	}
+	return found
 }

@@ -161,7 +161,10 @@
 //   - scans by a constant step from a constant start, by a step the caller
 //     gives (a parameter, a field, data), by a span divided by a count
 //     ((hi-lo)/n, zero only when the span is, and then x < hi fails at
-//     once), or by a step that cannot round to zero (1/slope); and a
+//     once; a closed scan x <= hi enters a span of width 0 and never moves,
+//     and is reported, also where the step comes back from a function of
+//     the package with one return statement), or by a step that cannot
+//     round to zero (1/slope); and a
 //     bracket end pushed away from the other end by the bracket's own
 //     width (lo -= hi - lo, hi += hi - lo, the other end fixed in the
 //     loop): the width doubles each pass, so a step that is not 0 on entry

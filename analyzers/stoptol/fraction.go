@@ -28,7 +28,7 @@ func (c *checker) sweep(d *deps, tested map[*types.Var]bool) bool {
 	for _, x := range d.near(tested) {
 		bound, ok := d.boundTest(x)
 		if !ok || len(d.rhs[x]) != 1 || d.tokens[x][0] != token.ASSIGN && d.tokens[x][0] != token.DEFINE ||
-			slices.Contains(d.from[x], x) || !d.cuts(x) || d.canVanish(d.rhs[x][0], 4) {
+			slices.Contains(d.from[x], x) || !d.cuts(x) || d.canVanish(d.rhs[x][0], 4, false) {
 			continue
 		}
 		if p := c.zeroFactor(d, d.rhs[x][0], 4); p != nil {

@@ -37,7 +37,7 @@ func (c *checker) unbounded(l *loop) {
 	if l.capped || l.other || len(l.exits) == 0 || l.once() || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
-	d := newDeps(c.pass.TypesInfo, l)
+	d := newDeps(c.pass.TypesInfo, c.pass.Files, l)
 	for _, e := range l.exits {
 		switch {
 		case d.errorTest(e), l.rec != nil && l.rec.decided(c.pass.TypesInfo, e):
@@ -220,7 +220,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 			what, x.Name(), abs(h), x.Name(), f.AbsorbingMagnitude(h), abs(h)))
 		return
 	}
-	if isConst || !d.canVanish(step, 4) {
+	if isConst || !d.canVanish(step, 4, d.closed(x)) {
 		return // a scan: the caller chose the step and the bounds
 	}
 	if d.doubling(x) {
@@ -235,7 +235,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 // at 0, so a v grown each pass (grows) never reaches ±Inf from there.
 func (d *deps) vanishingStart(v *types.Var) ast.Expr {
 	for _, r := range assignments(d.info, d.l.body, v) {
-		if r.Pos() < d.l.stmt.Pos() && d.canVanish(r, 4) {
+		if r.Pos() < d.l.stmt.Pos() && d.canVanish(r, 4, false) {
 			return r
 		}
 	}
@@ -247,7 +247,7 @@ func (d *deps) vanishingStart(v *types.Var) ast.Expr {
 func (d *deps) stepSource(step ast.Expr) []analysis.RelatedInformation {
 	for _, v := range d.reads(step) {
 		for _, r := range assignments(d.info, d.l.body, v) {
-			if r.Pos() < d.l.stmt.Pos() && d.canVanish(r, 4) {
+			if r.Pos() < d.l.stmt.Pos() && d.canVanish(r, 4, false) {
 				return []analysis.RelatedInformation{{Pos: r.Pos(), End: r.End(), Message: "the step is computed here and can round to 0"}}
 			}
 		}

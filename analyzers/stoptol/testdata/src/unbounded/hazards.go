@@ -354,3 +354,28 @@ func OutwardFrom(gauge func(float64) float64, x float64) float64 {
 	}
 	return x + d
 }
+
+// spreadClosed divides a closed span by a count and scans it to x <= hi:
+// for hi == lo the loop is entered and the step is 0, so x never moves.
+func spreadClosed(lo, hi float64, n int, mark func(float64)) {
+	dx := (hi - lo) / float64(n)
+	for x := lo; x <= hi; x += dx { // want `loop advances x by the computed step dx and ends only on float tests: when the step rounds to 0`
+		mark(x)
+	}
+}
+
+// gridOf returns a span and the step that divides it.
+func gridOf(w []float64, n int) (lo, hi, step float64) {
+	lo, hi = w[0], w[len(w)-1]
+	step = (hi - lo) / float64(n)
+	return lo, hi, step
+}
+
+// scanGrid takes the step from the package's own function: the same
+// closed span of width 0 stops it.
+func scanGrid(w []float64, n int, mark func(float64)) {
+	lo, hi, step := gridOf(w, n)
+	for x := lo; x <= hi; x += step { // want `loop advances x by the computed step step`
+		mark(x)
+	}
+}

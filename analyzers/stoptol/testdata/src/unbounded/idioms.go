@@ -312,3 +312,16 @@ func (p *pair) resolve(k float64) {
 		break
 	}
 }
+
+// rows steps by a fixed fraction of the caller's spacing: the sine of a
+// constant angle is a constant 0.866, never 0.
+func rows(y0, y1, spacing float64, mark func(float64)) {
+	d := spacing * math.Sin(60*math.Pi/180)
+	mark(y0)
+	fill := func() {
+		for y := y0; y <= y1; y += 2 * d { // the caller's spacing, scaled
+			mark(y)
+		}
+	}
+	fill()
+}

@@ -257,9 +257,12 @@
 //     value and constants alone (r.a -= 2π·⌊r.a/2π⌋, a range reduction or
 //     decay of what it holds now; a mean's downdate r.m -= (x - r.m)/n
 //     also reads the value x that leaves, and stays a hazard), and one in
-//     a function that first sets the field to a constant (r.i = 0; r.i +=
-//     parts; r.i -= m·d², the sum rebuilt on each call, so its rounding
-//     lasts until the next);
+//     a function that first sets the field to a constant and adds into it
+//     only values that read no state of the receiver (r.i = 0; r.i +=
+//     part.i; r.i -= m·d², the sum rebuilt from the values kept on each
+//     call, so its rounding lasts until the next; a sum restarted from
+//     another running sum, r.next = 0; r.next += r.sums[k], carries that
+//     sum's history and stays a hazard);
 //   - 1 - a/(a+b), the complement of a share of a sum (also through
 //     variables): where |b| is small against |a| the quotient is within
 //     a rounding of 1, so about log10(|a|/|b|) digits go and |b| < u·|a|

@@ -141,19 +141,48 @@ func (c *checker) onlyFrom(cur inspector.Cursor, e ast.Expr, f types.Object, dep
 }
 
 // rebuilt reports whether the function around cur sets field f to a
-// constant before the subtraction as: the sum is rebuilt from nothing on
-// each call (r.i = 0; r.i += parts; r.i -= shift), so a rounding left by
-// the subtraction lasts until the next call, not for good.
+// constant before the subtraction as and adds into it only values that
+// read no state of the receiver: the sum is then rebuilt from the values
+// kept on each call (r.i = 0; r.i += part.i; r.i -= shift), so a rounding
+// left by the subtraction lasts until the next call. A sum restarted from
+// another running sum (r.next = 0; r.next += r.sums[k]) carries that
+// sum's history on.
 func (c *checker) rebuilt(cur inspector.Cursor, as *ast.AssignStmt, f types.Object) bool {
 	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		reset := false
 		for n := range fd.Preorder((*ast.AssignStmt)(nil)) {
 			a := n.Node().(*ast.AssignStmt)
-			if a.Pos() < as.Pos() && a.Tok == token.ASSIGN && len(a.Lhs) == 1 && len(a.Rhs) == 1 && c.isConst(a.Rhs[0]) && c.readsField(a.Lhs[0], f) {
-				return true
+			if len(a.Lhs) != 1 || len(a.Rhs) != 1 || !c.readsField(a.Lhs[0], f) {
+				continue
+			}
+			switch {
+			case a.Tok == token.ASSIGN && c.isConst(a.Rhs[0]):
+				reset = reset || a.Pos() < as.Pos()
+			case a.Tok == token.ADD_ASSIGN && c.readsState(fd.Node().(*ast.FuncDecl), a.Rhs[0]):
+				return false
 			}
 		}
+		return reset
 	}
 	return false
+}
+
+// readsState reports whether e reads a field through the receiver of fd.
+func (c *checker) readsState(fd *ast.FuncDecl, e ast.Expr) bool {
+	if fd.Recv == nil || len(fd.Recv.List) != 1 || len(fd.Recv.List[0].Names) != 1 {
+		return false
+	}
+	recv := c.pass.TypesInfo.Defs[fd.Recv.List[0].Names[0]]
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if sel, ok := n.(*ast.SelectorExpr); ok {
+			if id, isID := ast.Unparen(sel.X).(*ast.Ident); isID && recv != nil && c.pass.TypesInfo.Uses[id] == recv {
+				found = true
+			}
+		}
+		return !found
+	})
+	return found
 }
 
 // addsInto reports whether e, assigned to field f, adds to f's value: a

@@ -129,3 +129,16 @@ func (m *meanWindow) leave(x float64) {
 	m.n--
 	m.mean -= (x - m.mean) / m.n // want `running sum or mean m.mean, taken from as well as added to`
 }
+
+// A scratch sum restarted each call from the kept running sum: it carries
+// that sum's history on, so the value taken out leaves its rounding there.
+type coMoments struct{ sums, next []float64 }
+
+func (m *coMoments) add(k int, x float64) { m.sums[k] += x }
+
+func (m *coMoments) leave(k int, x float64) {
+	m.next[k] = 0
+	m.next[k] += m.sums[k]
+	m.next[k] -= x // want `running sum or mean m.next\[k\], taken from as well as added to`
+	m.sums, m.next = m.next, m.sums
+}

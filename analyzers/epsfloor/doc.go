@@ -29,9 +29,15 @@
 //     least it (the difference is exact, Goldberg 1991 Thm 11), and a
 //     smaller tolerance is equality (1e-16 at 0.75, where the gap is
 //     1.11e-16);
-//   - the smallest positive float used as a tolerance, and x < it (no
-//     float lies between 0 and it, so for x ≥ 0 the test is x == 0; the
-//     smallest normal value, 0x1p-1022, catches subnormal values);
+//   - the smallest positive float used as a tolerance, and x < it or
+//     x > it (no float lies between 0 and it, so for x ≥ 0 the test is
+//     x == 0, or x > 0; the smallest normal value, 0x1p-1022, catches
+//     subnormal values); the same for any positive threshold that is
+//     subnormal in x's format (10*math.SmallestNonzeroFloat64 = 4.9e-323)
+//     or positive as written but 0 there (math.SmallestNonzeroFloat64
+//     squared, 2.4e-647, which Go rounds to 0), on a value the function
+//     computes (a parameter or a field of one, read as given, carries no
+//     residue of this code, and a test of its sign is exact on purpose);
 //   - x > math.MaxFloat64 (or >=, and the float32 analogue): no finite
 //     value exceeds the largest one, so the test is x == +Inf, and an
 //     overflow of a negative value, -Inf, passes unseen (math.IsInf(x, 0)
@@ -176,8 +182,8 @@
 // on purpose; a tiny constant added to a run-time value with no constant
 // beside it (x + 1e-300 keeps a logarithm finite at x = 0); constant sums
 // whose addends together change the rounded result (1 + 1e-16 + 1e-16 is
-// 1 + 2^-52); constants at or below 2^-511 ≈ 1.5e-154, which guard against underflow
-// (safe minimum), never tolerances; single magnitudes compared with tiny
+// 1 + 2^-52); normal constants at or below 2^-511 ≈ 1.5e-154, which
+// guard against underflow (safe minimum), never tolerances; single magnitudes compared with tiny
 // constants before a division (|d| < 1e-300); thresholds on squared
 // quantities, squared distances against tol² (degree 2 on both sides:
 // consistent at every size); mixed tests atol + rtol·scale; a predicate

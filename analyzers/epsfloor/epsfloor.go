@@ -125,7 +125,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !ok {
 		c.bare(cur, n)
 	}
-	if (!ok || t.Kind == tolerance.Magnitude) && c.belowSmallest(n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
+	if (!ok || t.Kind == tolerance.Magnitude) && c.zeroThreshold(cur, n) || !ok || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(t.A)) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(t.A))

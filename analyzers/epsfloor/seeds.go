@@ -3,6 +3,7 @@ package epsfloor
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"math"
@@ -194,21 +195,42 @@ func assignsFrom(info *types.Info, block *ast.BlockStmt, v *types.Var, x ast.Exp
 	return false
 }
 
-// belowSmallest reports x < s (or s > x, or <=) where s is the smallest
-// positive value of x's format: no float lies strictly between 0 and s, so
-// for x ≥ 0 the test is x == 0, and a threshold meant to catch subnormal
-// values catches none but 0. It reports whether it reported.
-func (c *checker) belowSmallest(n *ast.BinaryExpr) bool {
-	_, s, v, f, ok := c.boundTest(n, token.LSS)
-	if !ok || v != f.Smallest {
-		return false
+// zeroThreshold reports x < s or x > s (or <=, >=, mirrored) where the
+// constant s is positive as written but, in x's format, rounds to 0
+// (math.SmallestNonzeroFloat64 squared is 2.5e-647, 0 in float64) or is
+// subnormal (the smallest positive value, or a small multiple of it): no
+// computed value other than 0 and a few subnormals lies below it, so for
+// x ≥ 0 the test is x == 0 (x > 0 the other way), and a threshold meant
+// to catch tiny values catches none but 0. Beyond x < smallest, only a
+// computed x is judged: a value read as the caller gave it (a parameter,
+// a field of one) carries no residue of this code, and a test of its sign
+// is exact on purpose. It reports whether it reported.
+func (c *checker) zeroThreshold(cur inspector.Cursor, n *ast.BinaryExpr) bool {
+	for _, dir := range []token.Token{token.LSS, token.GTR} {
+		x, s, v, f, ok := c.boundTest(n, dir)
+		exact, _ := constval.Exact(c.pass.TypesInfo, c.decls, s)
+		if !ok || exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v >= floatOf(smallestNormal[f]) {
+			continue
+		}
+		if (dir != token.LSS || v != f.Smallest) && !c.computed(cur, x) {
+			return false // a value as the caller gave it: a positivity check is exact on purpose
+		}
+		as := map[token.Token]string{token.LSS: "x == 0", token.GTR: "x > 0"}[dir]
+		what := fmt.Sprintf("is subnormal (%.2g): no %s but 0 and a few subnormal values lies below it", v, f.Name)
+		switch {
+		case v == 0:
+			what = fmt.Sprintf("is %s as written but rounds to 0 in %s, being at most half its smallest positive value (%.2g)", constant.ToFloat(exact), f.Name, f.Smallest)
+		case v == f.Smallest:
+			what = fmt.Sprintf("is the smallest positive %s (%.2g): no %[1]s lies between it and 0", f.Name, f.Smallest)
+		}
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: n.Pos(), End: n.End(), Category: catSubnormal,
+			Message: fmt.Sprintf("%s %s, so for x ≥ 0 this is a test for %s; write that if it is meant, or compare with the smallest normal %s, %s (%.2g), to catch subnormal values",
+				fixes.Source(c.pass.Fset, s), what, as, f.Name, smallestNormal[f], floatOf(smallestNormal[f])),
+		})
+		return true
 	}
-	fixes.Report(c.pass, analysis.Diagnostic{
-		Pos: n.Pos(), End: n.End(), Category: catSubnormal,
-		Message: fmt.Sprintf("%s is the smallest positive %s (%.2g): no %[2]s lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal %[2]s, %[4]s (%.2[5]g), to catch subnormal values",
-			fixes.Source(c.pass.Fset, s), f.Name, f.Smallest, smallestNormal[f], floatOf(smallestNormal[f])),
-	})
-	return true
+	return false
 }
 
 // smallestNormal writes the smallest positive normal value of each format
@@ -245,4 +267,11 @@ func (c *checker) boundTest(n *ast.BinaryExpr, dir token.Token) (x, bound ast.Ex
 	val, ok := constval.Exact(c.pass.TypesInfo, c.decls, bound)
 	f = provenance.FormatOf(t)
 	return x, bound, f.Value(val), f, ok
+}
+
+// computed reports whether x, at cur, is worked out by the function
+// rather than read as its caller gave it (see degree.Reader.Rounds).
+func (c *checker) computed(cur inspector.Cursor, x ast.Expr) bool {
+	fd := enclosingDecl(cur)
+	return fd != nil && c.degrees().Rounds(fd, x)
 }

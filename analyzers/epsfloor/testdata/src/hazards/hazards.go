@@ -265,6 +265,24 @@ func denormal(x, y float64) bool {
 	return x*x+y*y < math.SmallestNonzeroFloat64 // want `math.SmallestNonzeroFloat64 is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x == 0; write that if it is meant, or compare with the smallest normal float64, 0x1p-1022 \(2.2e-308\)`
 }
 
+// A crane's tolerance defined as the smallest positive float, squared and
+// scaled: the square rounds to 0 and ten of it is still subnormal.
+const slack = math.SmallestNonzeroFloat64
+
+func apart(dx, dy float64) bool {
+	return dx*dx+dy*dy > slack*slack // want `slack \* slack is 2.44101e-647 as written but rounds to 0 in float64, being at most half its smallest positive value \(4.9e-324\), so for x ≥ 0 this is a test for x > 0`
+}
+
+func touching(a, b float64) bool {
+	gap := b - a
+	return gap < 10*slack // want `10 \* slack is subnormal \(4.9e-323\): no float64 but 0 and a few subnormal values lies below it, so for x ≥ 0 this is a test for x == 0`
+}
+
+func solid(ax, ay, bx, by float64) bool {
+	area := ax*by - ay*bx
+	return area > slack // want `slack is the smallest positive float64 \(4.9e-324\): no float64 lies between it and 0, so for x ≥ 0 this is a test for x > 0`
+}
+
 // A coefficient times the value beside it is a relative tolerance, held
 // to the unit roundoff like any other.
 const lens = 3.5e-19

@@ -312,3 +312,14 @@ func gapAbove(x float64) (float64, float64) {
 func inWindow(a, b float64) bool {
 	return -1e-20 < a-b && a-b < 1
 }
+
+// A ratio checked for sign as the caller gave it: it carries no residue
+// of this code, so the smallest positive float as its floor is a
+// positivity test on purpose.
+func gearRatio(r float64) float64 {
+	if !(r > math.SmallestNonzeroFloat64) {
+		panic("ratio must be positive")
+	}
+	return 1 / r
+}
+

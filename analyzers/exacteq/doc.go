@@ -91,7 +91,8 @@
 //     them) of a result with a printed value: a constant whose shortest
 //     decimal form has 16 or more significant digits (8 for float32) and
 //     that its type stores inexactly, written in the comparison, named, or
-//     read from a table of cases (tc.want). Such a test pins the last bits
+//     read from a table of cases (tc.want, also where the table names a
+//     variable given the value: want: far with far := 43.88496325622251). Such a test pins the last bits
 //     of a computation, which change with the order of operations and with
 //     fused multiply-add, so it fails on other platforms;
 //   - in tests, an equality assertion of the suite's own helpers (a

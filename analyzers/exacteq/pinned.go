@@ -184,6 +184,9 @@ func (c *checker) printed(e ast.Expr) (pin, bool) {
 		}
 	}
 	for _, v := range vals {
+		if id, ok := ast.Unparen(v).(*ast.Ident); ok && c.decls[c.pass.TypesInfo.Uses[id]] != nil {
+			v = c.decls[c.pass.TypesInfo.Uses[id]] // want: wantResult, a variable given the printed value
+		}
 		var found pin
 		ast.Inspect(v, func(n ast.Node) bool {
 			if lit, ok := n.(*ast.BasicLit); ok {

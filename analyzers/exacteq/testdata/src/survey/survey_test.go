@@ -203,3 +203,18 @@ func TestPaceSettled(t *testing.T) {
 		t.Errorf("got %v", got)
 	}
 }
+
+// The expected value held in a variable that the table then names.
+func TestPaceHeld(t *testing.T) {
+	far := 43.88496325622251
+	for _, tc := range []struct {
+		from, to Stake
+		want     float64
+	}{
+		{from: Stake{-40.3, 7.1}, to: Stake{3.2, 12.9}, want: far},
+	} {
+		if got := Pace(tc.from, tc.to); got != tc.want { // want `pins a computed result to 43.88496325622251`
+			t.Errorf("want %v, got %v", tc.want, got)
+		}
+	}
+}

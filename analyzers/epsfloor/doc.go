@@ -32,9 +32,11 @@
 //   - the smallest positive float used as a tolerance, and x < it or
 //     x > it (no float lies between 0 and it, so for x ≥ 0 the test is
 //     x == 0, or x > 0; the smallest normal value, 0x1p-1022, catches
-//     subnormal values); the same for any positive threshold that is
-//     subnormal in x's format (10*math.SmallestNonzeroFloat64 = 4.9e-323)
-//     or positive as written but 0 there (math.SmallestNonzeroFloat64
+//     subnormal values); the same for any positive threshold below 1024
+//     times that value (10*math.SmallestNonzeroFloat64 = 4.9e-323: only 0
+//     and nine subnormal values lie below it; a larger subnormal constant
+//     such as 1/math.MaxFloat64 is an underflow guard) or positive as
+//     written but 0 there (math.SmallestNonzeroFloat64
 //     squared, 2.4e-647, which Go rounds to 0), on a value the function
 //     computes (a parameter or a field of one, read as given, carries no
 //     residue of this code, and a test of its sign is exact on purpose);

@@ -197,9 +197,9 @@ func assignsFrom(info *types.Info, block *ast.BlockStmt, v *types.Var, x ast.Exp
 
 // zeroThreshold reports x < s or x > s (or <=, >=, mirrored) where the
 // constant s is positive as written but, in x's format, rounds to 0
-// (math.SmallestNonzeroFloat64 squared is 2.5e-647, 0 in float64) or is
-// subnormal (the smallest positive value, or a small multiple of it): no
-// computed value other than 0 and a few subnormals lies below it, so for
+// (math.SmallestNonzeroFloat64 squared is 2.4e-647, 0 in float64) or is
+// the smallest positive value or a small multiple of it (see
+// fewSubnormals): no value other than 0 and a few subnormals lies below it, so for
 // x ≥ 0 the test is x == 0 (x > 0 the other way), and a threshold meant
 // to catch tiny values catches none but 0. Beyond x < smallest, only a
 // computed x is judged: a value read as the caller gave it (a parameter,
@@ -209,14 +209,14 @@ func (c *checker) zeroThreshold(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	for _, dir := range []token.Token{token.LSS, token.GTR} {
 		x, s, v, f, ok := c.boundTest(n, dir)
 		exact, _ := constval.Exact(c.pass.TypesInfo, c.decls, s)
-		if !ok || exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v >= floatOf(smallestNormal[f]) {
+		if !ok || exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v > fewSubnormals*f.Smallest {
 			continue
 		}
 		if (dir != token.LSS || v != f.Smallest) && !c.computed(cur, x) {
 			return false // a value as the caller gave it: a positivity check is exact on purpose
 		}
 		as := map[token.Token]string{token.LSS: "x == 0", token.GTR: "x > 0"}[dir]
-		what := fmt.Sprintf("is subnormal (%.2g): no %s but 0 and a few subnormal values lies below it", v, f.Name)
+		what := fmt.Sprintf("is subnormal (%.2g, %.0f times the smallest positive %s): no %[3]s but 0 and that many subnormal values lies below it", v, v/f.Smallest, f.Name)
 		switch {
 		case v == 0:
 			what = fmt.Sprintf("is %s as written but rounds to 0 in %s, being at most half its smallest positive value (%.2g)", constant.ToFloat(exact), f.Name, f.Smallest)
@@ -268,6 +268,12 @@ func (c *checker) boundTest(n *ast.BinaryExpr, dir token.Token) (x, bound ast.Ex
 	f = provenance.FormatOf(t)
 	return x, bound, f.Value(val), f, ok
 }
+
+// fewSubnormals bounds the thresholds read as zero tests: below 1024
+// times the smallest positive value lie only 0 and 1023 subnormal values.
+// A larger tiny constant (1/math.MaxFloat64, 5.6e-309, with 2^50
+// subnormal values below it) is an underflow guard.
+const fewSubnormals = 1024
 
 // computed reports whether x, at cur, is worked out by the function
 // rather than read as its caller gave it (see degree.Reader.Rounds).

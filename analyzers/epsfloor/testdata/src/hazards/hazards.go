@@ -275,7 +275,7 @@ func apart(dx, dy float64) bool {
 
 func touching(a, b float64) bool {
 	gap := b - a
-	return gap < 10*slack // want `10 \* slack is subnormal \(4.9e-323\): no float64 but 0 and a few subnormal values lies below it, so for x ≥ 0 this is a test for x == 0`
+	return gap < 10*slack // want `10 \* slack is subnormal \(4.9e-323, 10 times the smallest positive float64\): no float64 but 0 and that many subnormal values lies below it, so for x ≥ 0 this is a test for x == 0`
 }
 
 func solid(ax, ay, bx, by float64) bool {

@@ -323,3 +323,14 @@ func gearRatio(r float64) float64 {
 	return 1 / r
 }
 
+
+// An underflow guard at the reciprocal of the largest float (5.6e-309,
+// with 2^50 subnormal values below it): the quotient 1/t stays finite
+// above it, which is what the guard asks.
+func safeInverse(a, b float64) float64 {
+	t := 2 * a * b
+	if t > 1/math.MaxFloat64 {
+		return 1 / t
+	}
+	return math.MaxFloat64
+}

@@ -15,9 +15,10 @@ import (
 // whatever the package last stored there: the value a test compares was
 // computed by the methods it called first (Add, Tick), not by the getter.
 // So a read of a field of a struct this package declares, through a
-// pointer, is judged by the values the package stores into that field: portable when every one is,
-// with a cause when one shows a cause. A field no function stores into
-// holds what the caller put there, an input. An interface value made in
+// pointer, is judged by the values the package stores into that field:
+// portable when every one is, with a cause when one shows a cause. A
+// field no function stores into holds what the caller put there, an
+// input. An interface value made in
 // sight (a constructor that returns &T{} behind an interface, directly or
 // through another constructor of the package) has the concrete types it
 // is made from, whose methods are then known.

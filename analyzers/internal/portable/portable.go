@@ -23,7 +23,10 @@
 // function a value of a concrete type in place of an interface parameter,
 // the methods it invokes on that parameter (directly or through functions
 // it passes the parameter to; DispatchFact across packages) are known,
-// and a cause in them is a cause of the call (dispatch.go).
+// and a cause in them is a cause of the call (dispatch.go). A field read
+// through a pointer is judged by what the package stores into it, and an
+// interface value a constructor of the package makes has the concrete
+// types it is made from (fields.go).
 //
 // Judge.OnInputs reads a value further, on the inputs its function gives
 // the calls it makes (exact.go): a product added to another value is

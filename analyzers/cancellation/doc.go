@@ -306,7 +306,9 @@
 // for math/rand/v2 draws, and small draws are as rare as they are small),
 // and no enclosing condition keeps it away from zero (if x < -0.5 ||
 // x > 0.5, a case math.Abs(x) > t, the code after an early return taken
-// when math.Abs(x) < 1e-5), nor, for log(1 ± x) and exp(x) - 1, which
+// when math.Abs(x) < 1e-5, or after a chain if s < 1 { return ... } else
+// if s <= 20 { return ... } every branch of which returns, past which
+// s > 20), nor, for log(1 ± x) and exp(x) - 1, which
 // lose about log10(1/|x|) digits, its range by construction keeps |x| at
 // least 0.01 (two digits at most: the golden-section ratio (3 -
 // math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); and the value is not added to another term,

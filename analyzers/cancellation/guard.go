@@ -6,6 +6,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
@@ -61,13 +62,20 @@ func (c *checker) caseGuards(clause inspector.Cursor, cc *ast.CaseClause, x ast.
 }
 
 // earlyExit reports whether a statement before stmts[i] of block is an if
-// without else whose body leaves the block and whose negated condition
-// satisfies ok.
+// chain (if a { ... } else if b { ... }) with no final else, every branch
+// of which leaves the block, one of whose negated conditions satisfies
+// ok: past the chain none of its conditions held.
 func (c *checker) earlyExit(block *ast.BlockStmt, i int, x ast.Expr, ok bound) bool {
 	for _, s := range block.List[:max(i, 0)] {
-		ifs, isIf := s.(*ast.IfStmt)
-		if isIf && ifs.Else == nil && leaves(ifs.Body) && ok(ifs.Cond, true, x) {
-			return true
+		var conds []ast.Expr
+		for ifs, isIf := s.(*ast.IfStmt); isIf && leaves(ifs.Body); ifs, isIf = ifs.Else.(*ast.IfStmt) {
+			conds = append(conds, ifs.Cond)
+			if ifs.Else == nil {
+				if slices.ContainsFunc(conds, func(cond ast.Expr) bool { return ok(cond, true, x) }) {
+					return true
+				}
+				break
+			}
 		}
 	}
 	return false

@@ -690,3 +690,26 @@ func softLoss(label, z float64) float64 {
 	sp := func(y float64) float64 { return math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y))) }
 	return label*sp(-z) + (1-label)*sp(z)
 }
+
+// lnOnePlus returns in a chain of branches for |x| < 0.5; past the chain
+// |x| ≥ 0.5, where 1 + x is no closer to 1 than 0.5 and the logarithm
+// loses nothing.
+func lnOnePlus(x float64) float64 {
+	if x == 0 {
+		return 0
+	} else if math.Abs(x) < 0.5 {
+		return x - x*x/2 + x*x*x/3
+	}
+	return math.Log(1 + x)
+}
+
+// dampedRest returns for exponents up to 20 in a chain; past it the power
+// 2^-s is below 1e-6 and 1 minus it is no difference of near equals.
+func dampedRest(s float64) float64 {
+	if s < 1 {
+		return 0
+	} else if s <= 20 {
+		return s
+	}
+	return 1 - math.Pow(2, -s)
+}

@@ -53,7 +53,10 @@
 //     as 4.9e-324;
 //   - tolerance tests on an iterate instead of on its change
 //     (math.Abs(x) < 1e-16 inside a loop that updates x from itself), which
-//     never pass for a root away from zero;
+//     never pass for a root away from zero; not a floor that assigns the
+//     iterate in its branch (the modified Lentz method's if |d| < 1e-30
+//     { d = 1e-30 }), which keeps it off zero before a division and ends
+//     nothing;
 //   - absorbed addends: an addend of a constant sum without which the sum
 //     rounds to the same value (1 - math.SmallestNonzeroFloat64 is exactly
 //     1; math.Nextafter was meant). Go evaluates a constant expression

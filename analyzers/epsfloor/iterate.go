@@ -5,8 +5,10 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/fixes"
@@ -26,7 +28,7 @@ func (c *checker) iterate(cur inspector.Cursor, t tolerance.Test, f numeric.Form
 		return
 	}
 	v, ok := c.pass.TypesInfo.Uses[id].(*types.Var)
-	if !ok || !updatedFromItself(c.pass.TypesInfo, cur, v) {
+	if !ok || !updatedFromItself(c.pass.TypesInfo, cur, v) || floored(c.pass.TypesInfo, cur, v) {
 		return
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
@@ -34,6 +36,29 @@ func (c *checker) iterate(cur inspector.Cursor, t tolerance.Test, f numeric.Form
 		Message: fmt.Sprintf("tolerance %s tests the iterate %s itself, not its change: |%[2]s| < %.3g holds only for a root within %.3g of zero, and below %s epsilon (%.3g) nothing else can pass; test the step between iterates",
 			fixes.Source(c.pass.Fset, t.Tol), id.Name, tol, tol, f.Name, f.Eps),
 	})
+}
+
+// floored reports whether the test at cur is the condition of an if
+// statement whose body assigns v (the modified Lentz method's
+// if math.Abs(d) < tiny { d = tiny }): it keeps the iterate off zero
+// before a division and ends nothing, so it is no convergence test.
+func floored(info *types.Info, cur inspector.Cursor, v *types.Var) bool {
+	for cur.ParentEdgeKind() == edge.ParenExpr_X {
+		cur = cur.Parent()
+	}
+	ifs, ok := cur.Parent().Node().(*ast.IfStmt)
+	if !ok || cur.ParentEdgeKind() != edge.IfStmt_Cond {
+		return false
+	}
+	for _, st := range ifs.Body.List {
+		if as, ok := st.(*ast.AssignStmt); ok && slices.ContainsFunc(as.Lhs, func(l ast.Expr) bool {
+			id, isID := ast.Unparen(l).(*ast.Ident)
+			return isID && info.ObjectOf(id) == v
+		}) {
+			return true
+		}
+	}
+	return false
 }
 
 // updatedFromItself reports whether a loop enclosing cur assigns v from an

@@ -323,7 +323,6 @@ func gearRatio(r float64) float64 {
 	return 1 / r
 }
 
-
 // An underflow guard at the reciprocal of the largest float (5.6e-309,
 // with 2^50 subnormal values below it): the quotient 1/t stays finite
 // above it, which is what the guard asks.
@@ -333,4 +332,32 @@ func safeInverse(a, b float64) float64 {
 		return 1 / t
 	}
 	return math.MaxFloat64
+}
+
+// cfRatio evaluates a continued fraction by the modified Lentz method: the
+// floors keep C and D off zero before they divide, and end nothing, so
+// they are no convergence tests of the iterates.
+func cfRatio(a, b func(int) float64) float64 {
+	const tiny = 1e-30
+	f, C, D := b(0), b(0), 0.0
+	if f == 0 {
+		f, C = tiny, tiny
+	}
+	for k := 1; k < 500; k++ {
+		D = b(k) + a(k)*D
+		if math.Abs(D) < tiny {
+			D = tiny
+		}
+		C = b(k) + a(k)/C
+		if math.Abs(C) < tiny {
+			C = tiny
+		}
+		D = 1 / D
+		delta := C * D
+		f *= delta
+		if math.Abs(delta-1) < 1e-15 {
+			break
+		}
+	}
+	return f
 }

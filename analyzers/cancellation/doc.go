@@ -82,7 +82,9 @@
 //     through products, odd functions such as sin, and local variables:
 //     each square carries a rounding error of about u·a², all of the
 //     difference where |a| and |b| are close; (a-b)*(a+b) forms the
-//     difference exactly first; not where an enclosing condition keeps
+//     difference exactly first; not where both operands hold constants
+//     (through variables never reassigned) whose loss, a²/|a²-b²|, is a
+//     fixed number within 100, nor where an enclosing condition keeps
 //     the x of 1 - x*x or x*x - 1 above sqrt(100/99) ≈ 1.005 or its |x|
 //     below sqrt(0.99) ≈ 0.995 (case x > 2:), where at most two digits go;
 //   - 1 - math.Erf(x), 1 - 0.5*math.Erfc(-x) (the normal distribution

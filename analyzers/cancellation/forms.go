@@ -14,6 +14,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/consume"
 	"roundoff/analyzers/internal/fixes"
 )
@@ -649,7 +650,7 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	default:
 		return false
 	}
-	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) {
+	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) || c.fixedLoss(a, b) {
 		return true // known, or whole numbers whose squares are exact
 	}
 	if c.computed(cur, a) || c.computed(cur, b) {
@@ -678,6 +679,22 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	// different last bits.
 	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
 	return true
+}
+
+// fixedLoss reports whether a and b hold constants, written or through
+// variables never reassigned (r := 1.3125; h := 0.75), whose difference
+// of squares loses at most two digits: a²/|a²-b²| is then a fixed number
+// within boundedLoss.
+func (c *checker) fixedLoss(a, b ast.Expr) bool {
+	va, oka := constval.Exact(c.pass.TypesInfo, c.decls, a)
+	vb, okb := constval.Exact(c.pass.TypesInfo, c.decls, b)
+	if !oka || !okb {
+		return false
+	}
+	x, _ := constant.Float64Val(constant.ToFloat(va))
+	y, _ := constant.Float64Val(constant.ToFloat(vb))
+	big := max(x*x, y*y)
+	return big <= boundedLoss*math.Abs(x*x-y*y)
 }
 
 // upperTail reports 1 - math.Erf(x) and 1 - F(x) for a method or function

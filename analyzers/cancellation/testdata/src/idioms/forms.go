@@ -713,3 +713,11 @@ func dampedRest(s float64) float64 {
 	}
 	return 1 - math.Pow(2, -s)
 }
+
+// lugOffset places a lug on a circle of fixed radius at a fixed height:
+// 1.3125² against 0.75², a ratio of 1.5, costs under a fifth of a digit.
+func lugOffset() float64 {
+	r := 1.3125
+	h := 0.75
+	return -math.Sqrt(r*r - h*h)
+}

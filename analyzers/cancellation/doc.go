@@ -313,8 +313,12 @@
 // s > 20), nor, for log(1 ± x) and exp(x) - 1, which
 // lose about log10(1/|x|) digits, its range by construction keeps |x| at
 // least 0.01 (two digits at most: the golden-section ratio (3 -
-// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); and the value is not added to another term,
-// directly, through +=, or through a variable used only as a term of a sum:
+// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); the value does not only
+// meet a comparison with a nonzero constant (math.Abs(math.Exp(y)-1) >
+// 0.5 choosing a series: a rounding of 1 moves the choice only within
+// that rounding of the threshold, where either side serves); and the
+// value is not added to another term, directly, through +=, or through a
+// variable used only as a term of a sum:
 // mu + s*math.Log(1-p) has the absolute error of one rounding, which is all
 // a sum can show. A term divided by a factor of its small argument,
 // log(1+a·m)/a or (exp(a·m)-1)/a, tends to m as a shrinks, so it is not

@@ -229,4 +229,3 @@ func shimOffset() float64 {
 	h := 1.0
 	return math.Sqrt(r*r - h*h) // want `a\*a - b\*b with a = r, b = h loses`
 }
-

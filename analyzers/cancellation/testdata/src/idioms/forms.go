@@ -721,3 +721,14 @@ func lugOffset() float64 {
 	h := 0.75
 	return -math.Sqrt(r*r - h*h)
 }
+
+// seriesChoice only compares e^y - 1 with a threshold of 0.5: a rounding
+// of 1 moves the choice only for values within it of 0.5, where either
+// series serves.
+func seriesChoice(y float64) int {
+	w := math.Exp(y)
+	if math.Abs(w-1) > 0.5 {
+		return 1
+	}
+	return 2
+}

@@ -19,7 +19,7 @@ import (
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
-	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/consume"
 	"roundoff/internal/numeric"
 )
 
@@ -314,43 +314,7 @@ func (c *checker) wholeNumber(e ast.Expr) bool {
 // depend on.
 func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
-		(!c.addend(cur, 2) || c.dividedByFactor(cur, x)) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x) && !c.threshold(cur)
-}
-
-// threshold reports whether the value at cur, through signs, parentheses,
-// math.Abs and constant factors, only meets a comparison with a nonzero
-// constant (math.Abs(math.Exp(y)-1) > 0.5 picking a series): its absolute
-// error, a rounding of 1, moves the decision only for values within that
-// error of the threshold, where either side serves.
-func (c *checker) threshold(cur inspector.Cursor) bool {
-	for ; ; cur = cur.Parent() {
-		switch p := cur.Parent().Node().(type) {
-		case *ast.ParenExpr:
-		case *ast.UnaryExpr:
-			if p.Op != token.SUB && p.Op != token.ADD {
-				return false
-			}
-		case *ast.CallExpr:
-			if _, isAbs := c.absArg(p); !isAbs {
-				return false
-			}
-		case *ast.BinaryExpr:
-			other := p.X
-			if other == cur.Node() {
-				other = p.Y
-			}
-			v := c.pass.TypesInfo.Types[other].Value
-			switch {
-			case p.Op == token.MUL && v != nil:
-			case provenance.Ordered(p.Op) || p.Op == token.EQL || p.Op == token.NEQ:
-				return v != nil && v.Kind() != constant.Unknown && constant.Sign(v) != 0
-			default:
-				return false
-			}
-		default:
-			return false
-		}
-	}
+		(!c.addend(cur, 2) || c.dividedByFactor(cur, x)) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x) && !consume.Threshold(c.pass.TypesInfo, cur)
 }
 
 // dividedByFactor reports whether the value at cur, carried through

@@ -24,6 +24,8 @@ import (
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // Use is how a value is consumed.
@@ -57,25 +59,50 @@ const passOn Use = -1
 // relative error, and through local variables it is assigned to (depth
 // levels deep) into every use the assignment reaches.
 func Of(info *types.Info, cur inspector.Cursor, depth int) Use {
+	u, _ := consumer(info, cur, depth)
+	return u
+}
+
+// Threshold reports whether the value at cur, followed as Of follows it
+// (not through variables), meets an ordered or equality comparison with a
+// nonzero constant: only its absolute error near that threshold can move
+// the decision.
+func Threshold(info *types.Info, cur inspector.Cursor) bool {
+	_, n := consumer(info, cur, 0)
+	b, ok := n.(*ast.BinaryExpr)
+	if !ok || !provenance.Ordered(b.Op) && b.Op != token.EQL && b.Op != token.NEQ {
+		return false
+	}
+	for _, side := range []ast.Expr{b.X, b.Y} {
+		if v := info.Types[side].Value; v != nil && v.Kind() != constant.Unknown && constant.Sign(v) != 0 {
+			return true
+		}
+	}
+	return false
+}
+
+// consumer returns how the value at cur is used and the node that decides
+// it (nil where nothing does).
+func consumer(info *types.Info, cur inspector.Cursor, depth int) (Use, ast.Node) {
 	for ; ; cur = cur.Parent() {
 		switch p := cur.Parent().Node().(type) {
 		case *ast.ParenExpr:
 		case *ast.UnaryExpr:
 			if p.Op != token.SUB && p.Op != token.ADD {
-				return Unknown
+				return Unknown, nil
 			}
 		case *ast.BinaryExpr:
 			if u, done := binary(info, p, cur.ParentEdgeKind()); done {
-				return u
+				return u, p
 			}
 		case *ast.CallExpr:
 			if u, done := call(info, p, cur.ParentEdgeIndex()); done {
-				return u
+				return u, p
 			}
 		case *ast.AssignStmt:
-			return assigned(info, cur, p, depth)
+			return assigned(info, cur, p, depth), p
 		default:
-			return Unknown
+			return Unknown, nil
 		}
 	}
 }

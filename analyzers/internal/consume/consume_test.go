@@ -28,7 +28,7 @@ func sign(p, q float64) bool       { return p*p-q*q < 0 }
 func term(p, q, r float64) float64 { return r + 3*(p*p-q*q) }
 func flat(p, q float64) float64    { return math.Cos(p*p - q*q) }
 func odd(p, q float64) float64     { return math.Log(math.Sin(p*p - q*q)) }
-func level(p, q float64) bool      { return p*p-q*q > 4 }
+func level(p, q float64) bool      { return math.Abs(p*p-q*q) > 4 }
 func returned(p, q float64) float64 { return p*p - q*q }
 
 func viaVar(p, q, r float64) float64 {
@@ -65,6 +65,7 @@ func TestOf(t *testing.T) {
 		for sub := range fn.Preorder((*ast.BinaryExpr)(nil)) {
 			if b := sub.Node().(*ast.BinaryExpr); b.Op == token.SUB && strings.Contains(types.ExprString(b), "p*p") {
 				assert.Equal(t, want[name], consume.Of(info, sub, 2), name)
+				assert.Equal(t, name == "level", consume.Threshold(info, sub), name) // only level meets a nonzero constant
 				break
 			}
 		}

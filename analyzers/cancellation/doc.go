@@ -75,7 +75,8 @@
 //     distances below about 1e-8 are lost, while 0.5·Σ(√p-√q)² keeps
 //     them. A complement only returned or stored is left alone, as for
 //     the squares;
-//   - a*a - b*b, 1 - x*x and x*x - 1 where the difference is consumed
+//   - a*a - b*b, 1 - x*x and x*x - 1 (a square also held in a variable
+//     never reassigned: x2 := x*x; 1 - x2) where the difference is consumed
 //     to relative accuracy: under a square root (a radicand near
 //     tangency, where sqrt turns an absolute error d into sqrt(d)), in a
 //     logarithm, as a divisor, or in a test of its sign against 0, also

@@ -639,8 +639,10 @@ func (c *checker) isZero(e ast.Expr) bool {
 // the difference exactly (Sterbenz) before one rounded product. It reports
 // whether n had that form.
 func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
-	a, oka := c.square(n.X)
-	b, okb := c.square(n.Y)
+	x, _ := c.through(n.X) // x2 := x*x; 1 - x2
+	y, _ := c.through(n.Y)
+	a, oka := c.square(x)
+	b, okb := c.square(y)
 	switch {
 	case oka && okb:
 	case oka && c.isOne(n.Y):

@@ -234,6 +234,5 @@ func shimOffset() float64 {
 // loses about log10(1/|1-x²|) digits near |x| = 1.
 func coneFactor(x, mu float64) float64 {
 	x2 := x * x
-	return math.Pow(0.5*math.Sqrt(1 - x2), mu) // want `a\*a - b\*b with a = 1, b = x loses`
+	return math.Pow(0.5*math.Sqrt(1-x2), mu) // want `a\*a - b\*b with a = 1, b = x loses`
 }
-

@@ -19,7 +19,8 @@ import (
 // slice is computed from.
 type deps struct {
 	info    *types.Info
-	files   []*ast.File // the package's files, where the functions it calls are read
+	files   []*ast.File    // the package's files, where the functions it calls are read
+	pkg     *types.Package // the package
 	l       *loop
 	tests   []exitTest                  // the float exit tests
 	effects bool                        // the loop calls functions for their effects
@@ -31,8 +32,8 @@ type deps struct {
 	inFlag  map[*types.Var]bool // flags being read, for flags that read themselves
 }
 
-func newDeps(info *types.Info, files []*ast.File, l *loop) *deps {
-	d := &deps{info: info, files: files, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}, inFlag: map[*types.Var]bool{}}
+func newDeps(info *types.Info, files []*ast.File, pkg *types.Package, l *loop) *deps {
+	d := &deps{info: info, files: files, pkg: pkg, l: l, from: map[*types.Var][]*types.Var{}, rhs: map[*types.Var][]ast.Expr{}, tokens: map[*types.Var][]token.Token{}, memo: map[*types.Var]bool{}, onStack: map[*types.Var]bool{}, inFlag: map[*types.Var]bool{}}
 	for _, n := range []ast.Node{l.stmt.Cond, l.stmt.Post, l.stmt.Body} {
 		if n != nil {
 			ast.Inspect(n, d.record)
@@ -395,12 +396,8 @@ func (d *deps) valuesOf(v *types.Var) []ast.Expr {
 // soleResult returns result i of the one return statement of the
 // package's function that call calls, or nil.
 func (d *deps) soleResult(call *ast.CallExpr, i int) ast.Expr {
-	fn, ok := typeutil.Callee(d.info, call).(*types.Func)
-	if !ok {
-		return nil
-	}
-	fd := d.declaring(fn.Pos())
-	if fd == nil || fd.Name.Pos() != fn.Pos() || fd.Body == nil {
+	fd, _ := provenance.CalleeDecl(d.info, d.files, d.pkg, call)
+	if fd == nil || fd.Body == nil {
 		return nil
 	}
 	var rets []*ast.ReturnStmt

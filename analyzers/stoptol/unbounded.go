@@ -37,7 +37,7 @@ func (c *checker) unbounded(l *loop) {
 	if l.capped || l.other || len(l.exits) == 0 || l.once() || provenance.InTestFile(c.pass.Fset, l.stmt.Pos()) {
 		return // a test runs its loops on the fixed inputs it was written for: one that never ended would hang it
 	}
-	d := newDeps(c.pass.TypesInfo, c.pass.Files, l)
+	d := newDeps(c.pass.TypesInfo, c.pass.Files, c.pass.Pkg, l)
 	for _, e := range l.exits {
 		switch {
 		case d.errorTest(e), l.rec != nil && l.rec.decided(c.pass.TypesInfo, e):

@@ -164,7 +164,8 @@
 //     once; a closed scan x <= hi enters a span of width 0 and never moves,
 //     and is reported, also where the step comes back from a function of
 //     the package with one return statement), or by a step that cannot
-//     round to zero (1/slope); and a
+//     round to zero (1/slope; a math function of constant arguments is
+//     evaluated: spacing·sin(60°) is never 0); and a
 //     bracket end pushed away from the other end by the bracket's own
 //     width (lo -= hi - lo, hi += hi - lo, the other end fixed in the
 //     loop): the width doubles each pass, so a step that is not 0 on entry

@@ -308,11 +308,7 @@ func roundsRepeatedly(fn *ssa.Function, depth int) bool {
 // one arithmetic operation on parameters and constants.
 func oneStep(fn *ssa.Function) bool {
 	found := false
-	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
-			continue
-		}
+	for ret := range provenance.Returns(fn) {
 		for _, r := range ret.Results {
 			op, ok := provenance.Strip(r).(*ssa.BinOp)
 			if !ok || !provenance.IsFloat(op.Type()) || !leaf(op.X) || !leaf(op.Y) {

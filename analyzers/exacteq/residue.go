@@ -299,9 +299,8 @@ func (c *checker) everyReturn(call *ssa.CallCommon, i int, special bool, ok func
 		return false
 	}
 	seen := false
-	for _, b := range fn.Blocks {
-		ret, isRet := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !isRet || i >= len(ret.Results) || special && isSpecial(ret.Results[i]) {
+	for ret := range provenance.Returns(fn) {
+		if i >= len(ret.Results) || special && isSpecial(ret.Results[i]) {
 			continue
 		}
 		if !ok(ret.Results[i]) {

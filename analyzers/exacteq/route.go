@@ -89,10 +89,8 @@ func (c *checker) underTest(v ssa.Value) (*ssa.Function, []ssa.Value) {
 // returned lists the values fn returns as its result i.
 func returned(fn *ssa.Function, i int) []ssa.Value {
 	var out []ssa.Value
-	for _, b := range fn.Blocks {
-		if ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return); ok {
-			out = append(out, ret.Results[i])
-		}
+	for ret := range provenance.Returns(fn) {
+		out = append(out, ret.Results[i])
 	}
 	return out
 }

@@ -8,6 +8,7 @@ import (
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/lazyssa"
+	"roundoff/analyzers/internal/provenance"
 )
 
 // State. A method that returns a field (s.Mean() returning s.mean, or its
@@ -146,14 +147,12 @@ func (j *Judge) concrete(v ssa.Value, depth int) []types.Type {
 			return nil
 		}
 		var out []types.Type
-		for _, b := range fn.Blocks {
-			if ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return); ok {
-				ts := j.concrete(ret.Results[0], depth-1)
-				if ts == nil {
-					return nil
-				}
-				out = append(out, ts...)
+		for ret := range provenance.Returns(fn) {
+			ts := j.concrete(ret.Results[0], depth-1)
+			if ts == nil {
+				return nil
 			}
+			out = append(out, ts...)
 		}
 		return out
 	}

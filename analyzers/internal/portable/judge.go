@@ -151,11 +151,7 @@ func (w *walk) body(fn *ssa.Function, depth int) bool {
 // of the floats fn computes, or badCall of one of the calls it makes
 // (builtins aside).
 func someFloat(fn *ssa.Function, bad func(ssa.Value) bool, badCall func(*ssa.CallCommon) bool) bool {
-	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
-			continue
-		}
+	for ret := range provenance.Returns(fn) {
 		for _, r := range ret.Results {
 			if !provenance.IsFloat(r.Type()) {
 				return someComputed(fn, bad, badCall)

@@ -11,6 +11,7 @@ import (
 	"go/constant"
 	"go/token"
 	"go/types"
+	"iter"
 	"math"
 	"path/filepath"
 	"strings"
@@ -202,11 +203,7 @@ func (t *Tracker) fieldComputed(c *ssa.Call, i int) bool {
 	if fn == nil || fn.Blocks == nil || fn.Package() != t.pkg || inTestFile(c.Parent()) && !inTestFile(fn) || fn.Signature.Results().Len() != 1 {
 		return false
 	}
-	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
-			continue
-		}
+	for ret := range Returns(fn) {
 		load, ok := ret.Results[0].(*ssa.UnOp)
 		if !ok || load.Op != token.MUL || load.X.Referrers() == nil {
 			continue
@@ -316,11 +313,7 @@ func (t *Tracker) resultComputed(fn *ssa.Function) []bool {
 	n := fn.Signature.Results().Len()
 	res := make([]bool, n)
 	t.returns[fn] = res // recursion sees "not computed" until finished
-	for _, b := range fn.Blocks {
-		ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return)
-		if !ok {
-			continue
-		}
+	for ret := range Returns(fn) {
 		for i, r := range ret.Results {
 			res[i] = res[i] || t.Computed(r)
 		}
@@ -594,4 +587,16 @@ func CalleeDecl(info *types.Info, files []*ast.File, pkg *types.Package, call *a
 // Ordered reports whether op is one of the ordered comparisons < <= > >=.
 func Ordered(op token.Token) bool {
 	return op == token.LSS || op == token.LEQ || op == token.GTR || op == token.GEQ
+}
+
+// Returns yields the return statements of fn, one per block that ends in
+// one.
+func Returns(fn *ssa.Function) iter.Seq[*ssa.Return] {
+	return func(yield func(*ssa.Return) bool) {
+		for _, b := range fn.Blocks {
+			if ret, ok := b.Instrs[len(b.Instrs)-1].(*ssa.Return); ok && !yield(ret) {
+				return
+			}
+		}
+	}
 }

@@ -38,3 +38,18 @@ func TestLowerTail(t *testing.T) {
 	assert.NotZero(t, 1+math.Erf(-5.91), "1 + math.Erf(-5.91)")
 	assert.InEpsilon(t, erfcAsymptotic(5.93), math.Erfc(5.93), 1e-9, "math.Erfc(5.93)")
 }
+
+// TestLowerTailFix checks the fix's form 0.5*math.Erfc(-x) against the
+// form it replaces, 0.5*(1 + math.Erf(x)): within a few ulps where the
+// lower tail is not small (erfc(-x) = 1 + erf(x), algebra), and against
+// the asymptotic series (Abramowitz & Stegun 7.1.23) at x = -9, where
+// the plain form is 0.
+func TestLowerTailFix(t *testing.T) {
+	for _, x := range []float64{-2, -0.5, 0, 0.5, 1, 2} {
+		plain, fixed := 0.5*(1+math.Erf(x)), 0.5*math.Erfc(-x)
+		assert.InDelta(t, plain, fixed, 4*0x1p-53, "x = %g", x)
+	}
+	assert.Zero(t, 0.5*(1+math.Erf(-9)), "plain form at x = -9")
+	assert.InEpsilon(t, 0.5*erfcAsymptotic(9), 0.5*math.Erfc(9), 1e-9, "fixed form at x = -9")
+}
+

@@ -20,6 +20,7 @@ import (
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/consume"
+	"roundoff/analyzers/internal/span"
 	"roundoff/internal/numeric"
 )
 
@@ -78,6 +79,7 @@ type checker struct {
 	insp  *inspector.Inspector
 	decls map[types.Object]ast.Expr // never-reassigned variables and their initial values
 	abs   *absval.Known             // absolute-value functions, by meaning
+	spans *span.Reader              // ranges of values, from construction and conditions
 	acc   *accumulation             // how variables are updated, scanned when first needed
 
 	wrappers  map[*types.Func]string      // the package's own wrappers of math functions, by mathName
@@ -94,6 +96,7 @@ type checker struct {
 func run(pass *analysis.Pass) (any, error) {
 	insp := pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
 	c := &checker{pass: pass, insp: insp, decls: constval.DeclsOf(pass), abs: absval.Of(pass)}
+	c.spans = span.New(pass.TypesInfo, insp, c.decls, c.abs)
 	for file := range insp.Root().Children() {
 		if strings.HasSuffix(pass.Fset.File(file.Node().Pos()).Name(), "_test.go") {
 			continue // a test's arguments come from its own table of cases
@@ -346,14 +349,16 @@ func factorsOf(e ast.Expr) []ast.Expr {
 	return []ast.Expr{ast.Unparen(e)}
 }
 
-// boundedAway reports whether x's range by construction (rangeOf, as of
-// the golden-section ratio (3 - math.Sqrt(5))/2) keeps |x| at least
-// 1/boundedLoss, so log(1 ± x) and exp(x) - 1, which lose about
-// log10(1/|x|) digits, lose at most two.
-func (c *checker) boundedAway(x ast.Expr) bool {
-	r, ok := c.rangeOf(x, 6)
-	lo, _ := r.magnitude()
-	return ok && lo*boundedLoss >= 1
+// boundedAway reports whether x's range at cur (span.Reader.At: by
+// construction, as of the golden-section ratio (3 - math.Sqrt(5))/2, by
+// the conditions under which cur runs, as in the else branch of
+// if x < 0.05, or by every call of its function) keeps |x| at or above
+// least: 1/boundedLoss for log(1 ± x) and exp(x) - 1, which lose about
+// log10(1/|x|) digits, so that they lose at most two.
+func (c *checker) boundedAway(cur inspector.Cursor, x ast.Expr, least float64) bool {
+	r, _ := c.spans.At(cur, x)
+	lo, _ := r.Magnitude()
+	return lo >= least
 }
 
 // addend reports whether the value at cur, carried through products,

@@ -312,9 +312,20 @@
 // when math.Abs(x) < 1e-5, or after a chain if s < 1 { return ... } else
 // if s <= 20 { return ... } every branch of which returns, past which
 // s > 20), nor, for log(1 ± x) and exp(x) - 1, which
-// lose about log10(1/|x|) digits, its range by construction keeps |x| at
+// lose about log10(1/|x|) digits, its range keeps |x| at
 // least 0.01 (two digits at most: the golden-section ratio (3 -
-// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); the value does not only
+// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); the same holds for
+// b·ln a in a^b - 1, for x in 1 - cos(x), which loses about log10(2/x²)
+// digits, from |x| = sqrt(0.02) ≈ 0.141 up, and for y in log(1+e^y)
+// inside [-ln 100, 709.78], where e^y keeps two digits and cannot
+// overflow. A range is read (package span) by interval arithmetic from
+// constants, functions of bounded range, variables never reassigned, the
+// conditions under which the code runs on such variables (if s > -19 {
+// return } leaves 1-s at least 20, so 2^-(1-s) at most 2^-20; the else
+// branch of if x*x < 0.0025 leaves |x| at least 0.05), and, for a
+// parameter of an unexported function used only by direct calls, the
+// arguments of all those calls, each read where it is passed (a function
+// called only past if s < 15 { return } sees s ≥ 15); the value does not only
 // meet a comparison with a nonzero constant (math.Abs(math.Exp(y)-1) >
 // 0.5 choosing a series: a rounding of 1 moves the choice only within
 // that rounding of the threshold, where either side serves); and the

@@ -38,13 +38,25 @@ func (c *checker) through(e ast.Expr) (ast.Expr, bool) {
 	return ast.Unparen(e), indirect
 }
 
+// powAway reports whether the ranges of a and b at cur keep |b·ln a|, on
+// which a^b - 1 loses about log10(1/|b·ln a|) digits, at least
+// 1/boundedLoss: a constant base, or one whose range is one value, and an
+// exponent bounded away from 0, as 2^-s behind if s > 20.
+func (c *checker) powAway(cur inspector.Cursor, a, b ast.Expr) bool {
+	ra, _ := c.spans.At(cur, a)
+	if ra.Lo != ra.Hi || !(ra.Lo > 0) {
+		return false
+	}
+	return c.boundedAway(cur, b, 1/(boundedLoss*math.Abs(math.Log(ra.Lo))))
+}
+
 // powm1 reports math.Pow(a, b)-1 and 1-math.Pow(a, b) with an exponent
 // that is not a constant: a^b is near 1 when b·ln a is small (a short time
 // step, a probability near 0 raised to a count), and the difference keeps
 // only the rounding error of the power.
 func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	a, b := call.Args[0], call.Args[1]
-	if c.isConst(b) || !c.lossShows(cur, b) {
+	if c.isConst(b) || !c.lossShows(cur, b) || c.powAway(cur, a, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
 	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(cur, a) || c.counts(b)) {
@@ -105,7 +117,7 @@ func (c *checker) onePlus(e ast.Expr) (x ast.Expr, neg, ok bool) {
 // the quadratic formula's (-b + math.Sqrt(b*b - 4*a*c)).
 func (c *checker) radical(cur inspector.Cursor, n *ast.BinaryExpr) {
 	u, root, minus, ok := c.rootSum(n)
-	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(u, root) || c.quadric(u, root) {
+	if !ok || c.isConst(u) || c.signKnown(cur, u) || c.smallLoss(cur, u, root) || c.quadric(u, root) {
 		return
 	}
 	if minus {
@@ -131,14 +143,11 @@ const boundedLoss = 100
 // (rangeOf), keep u²/|c|, and with it the digits u ± math.Sqrt(u*u+c)
 // loses (about log10(u²/|c|)), within two digits: c away from 0 and u
 // bounded, as in Cardano's formula on a fractional part.
-func (c *checker) smallLoss(u, root ast.Expr) bool {
-	ru, oku := c.rangeOf(u, 6)
-	rc, okc := c.rangeOf(root, 6)
-	if !oku || !okc {
-		return false
-	}
-	_, uMax := ru.magnitude()
-	cMin, _ := rc.magnitude()
+func (c *checker) smallLoss(cur inspector.Cursor, u, root ast.Expr) bool {
+	ru, _ := c.spans.At(cur, u)
+	rc, _ := c.spans.At(cur, root)
+	_, uMax := ru.Magnitude()
+	cMin, _ := rc.Magnitude()
 	return cMin > 0 && uMax*uMax <= boundedLoss*cMin
 }
 
@@ -662,7 +671,7 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 		if c.isOne(a) {
 			x = b
 		}
-		if c.guarded(cur, x, c.awayFromOne) {
+		if c.guarded(cur, x, c.awayFromOne) || c.rangeAwayFromOne(cur, x) {
 			return true // |x| kept away from 1: at most two digits go
 		}
 	}
@@ -861,7 +870,7 @@ func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
 	if !okx || !oky || neg == negy || !same(x, y) {
 		return false
 	}
-	if !c.lossShows(cur, x) {
+	if !c.lossShows(cur, x) || c.boundedAway(cur, x, 1.0/boundedLoss) {
 		return true
 	}
 	text := "2*" + qualifier(call) + ".Atanh(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ")"
@@ -883,8 +892,13 @@ func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
 // above 709.78, where the result is about y, and 1+e^y rounds to 1 for y
 // below ln(u) ≈ -36.7, where the result is about e^y; a sum does not hide
 // an infinity, so the rule ignores the terms around it. The shifted form
-// max(y,0) + log1p(e^-|y|) is accurate for every y.
+// max(y,0) + log1p(e^-|y|) is accurate for every y. Where y's range at
+// cur lies within [-ln(boundedLoss), 709.78] neither happens, and 1+e^y
+// loses at most two digits of e^y.
 func (c *checker) softplus(cur inspector.Cursor, call *ast.CallExpr, y ast.Expr) {
+	if r, _ := c.spans.At(cur, y); r.Lo >= -math.Log(boundedLoss) && r.Hi <= expOverflow {
+		return // e^y at least 1/boundedLoss: log(1+e^y) loses at most two digits, and cannot overflow
+	}
 	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catLogSumExp,
 		Message: fmt.Sprintf("math.Log(1+math.Exp(y))%s overflows to +Inf for y above %.6g, where the result is about y, and returns 0 for y below %.3g, where 1+e^y rounds to 1; use math.Max(y, 0) + math.Log1p(math.Exp(-math.Abs(y)))",
@@ -939,7 +953,7 @@ func (c *checker) farReaching(cur inspector.Cursor, e ast.Expr, depth int) bool 
 	case *ast.UnaryExpr:
 		return c.farReaching(cur, e.X, depth-1)
 	case *ast.BinaryExpr:
-		if e.Op == token.QUO && !c.isConst(e.Y) && !c.awayFromZeroRange(e.Y) {
+		if e.Op == token.QUO && !c.isConst(e.Y) && !c.awayFromZeroRange(cur, e.Y) {
 			return true // a divisor that may come near 0
 		}
 		return c.farReaching(cur, e.X, depth-1) || c.farReaching(cur, e.Y, depth-1)
@@ -950,9 +964,9 @@ func (c *checker) farReaching(cur inspector.Cursor, e ast.Expr, depth int) bool 
 // awayFromZeroRange reports whether e's range by construction (rangeOf)
 // excludes 0: A/math.Sqrt(1 - k*s*s) with k < 1 and s a sine is at most
 // A/math.Sqrt(1-k), however the angle falls.
-func (c *checker) awayFromZeroRange(e ast.Expr) bool {
-	r, ok := c.rangeOf(e, 6)
-	return ok && (r.lo > 0 || r.hi < 0)
+func (c *checker) awayFromZeroRange(cur inspector.Cursor, e ast.Expr) bool {
+	r, _ := c.spans.At(cur, e)
+	return r.Lo > 0 || r.Hi < 0
 }
 
 // computed reports whether e, at cur, directly or through variables (the

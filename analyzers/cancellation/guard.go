@@ -6,13 +6,12 @@ import (
 	"go/token"
 	"go/types"
 	"math"
-	"slices"
 
-	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/span"
 )
 
 // A bound reports whether condition cond, or its negation when negated,
@@ -20,78 +19,14 @@ import (
 type bound func(cond ast.Expr, negated bool, x ast.Expr) bool
 
 // guarded reports whether the code at cur runs only where an enclosing
-// condition satisfies ok for x: the then branch of an if or a case of a
-// tagless switch (the condition holds), the else branch of an if, or the
-// statements after an if whose body leaves the block (the condition fails).
+// condition satisfies ok for x (span.Conditions: the branches of an if,
+// the case of a tagless switch, the statements after an if chain every
+// branch of which leaves the block).
 func (c *checker) guarded(cur inspector.Cursor, x ast.Expr, ok bound) bool {
-	for ; ; cur = cur.Parent() {
-		switch parent := cur.Parent().Node().(type) {
-		case nil, *ast.FuncDecl, *ast.FuncLit:
-			return false // the conditions of callers are not seen
-		case *ast.IfStmt:
-			switch cur.ParentEdgeKind() {
-			case edge.IfStmt_Body:
-				if ok(parent.Cond, false, x) {
-					return true
-				}
-			case edge.IfStmt_Else:
-				if ok(parent.Cond, true, x) {
-					return true
-				}
-			}
-		case *ast.CaseClause:
-			if cur.ParentEdgeKind() == edge.CaseClause_Body && c.caseGuards(cur.Parent(), parent, x, ok) {
-				return true
-			}
-		case *ast.BlockStmt:
-			if c.earlyExit(parent, cur.ParentEdgeIndex(), x, ok) {
-				return true
-			}
+	for cond, holds := range span.Conditions(cur) {
+		if ok(cond, !holds, x) {
+			return true
 		}
-	}
-}
-
-// caseGuards reports whether one of the expressions of a case clause of a
-// tagless switch satisfies ok.
-func (c *checker) caseGuards(clause inspector.Cursor, cc *ast.CaseClause, x ast.Expr, ok bound) bool {
-	sw, isSwitch := clause.Parent().Parent().Node().(*ast.SwitchStmt)
-	if !isSwitch || sw.Tag != nil || len(cc.List) != 1 {
-		return false // a tagged or type switch, a default, or a list of cases
-	}
-	return ok(cc.List[0], false, x)
-}
-
-// earlyExit reports whether a statement before stmts[i] of block is an if
-// chain (if a { ... } else if b { ... }) with no final else, every branch
-// of which leaves the block, one of whose negated conditions satisfies
-// ok: past the chain none of its conditions held.
-func (c *checker) earlyExit(block *ast.BlockStmt, i int, x ast.Expr, ok bound) bool {
-	for _, s := range block.List[:max(i, 0)] {
-		var conds []ast.Expr
-		for ifs, isIf := s.(*ast.IfStmt); isIf && leaves(ifs.Body); ifs, isIf = ifs.Else.(*ast.IfStmt) {
-			conds = append(conds, ifs.Cond)
-			if ifs.Else == nil {
-				if slices.ContainsFunc(conds, func(cond ast.Expr) bool { return ok(cond, true, x) }) {
-					return true
-				}
-				break
-			}
-		}
-	}
-	return false
-}
-
-// leaves reports whether a block ends in a return, a panic or a branch.
-func leaves(b *ast.BlockStmt) bool {
-	if len(b.List) == 0 {
-		return false
-	}
-	switch s := b.List[len(b.List)-1].(type) {
-	case *ast.ReturnStmt, *ast.BranchStmt:
-		return true
-	case *ast.ExprStmt:
-		call, ok := s.X.(*ast.CallExpr)
-		return ok && types.ExprString(call.Fun) == "panic"
 	}
 	return false
 }
@@ -180,15 +115,29 @@ func (c *checker) comparisonAwayFromOne(e *ast.BinaryExpr, negated bool, x ast.E
 		return false
 	}
 	k, _ := constant.Float64Val(constant.ToFloat(v))
-	outside := math.Sqrt(float64(boundedLoss) / (boundedLoss - 1)) // x²/(x²-1) ≤ 100 from here up
-	inside := math.Sqrt(1 - 1/float64(boundedLoss))                // 1/(1-x²) ≤ 100 from here down
 	switch op {
 	case token.GTR, token.GEQ:
-		return k >= outside
+		return k >= oneOutside
 	case token.LSS, token.LEQ:
-		return abs && k >= 0 && k <= inside || k <= -outside
+		return abs && k >= 0 && k <= oneInside || k <= -oneOutside
 	}
 	return false
+}
+
+// The magnitudes that keep 1 - x² within boundedLoss of x² or of 1:
+// x²/(x²-1) ≤ 100 from oneOutside up, 1/(1-x²) ≤ 100 from oneInside down.
+var (
+	oneOutside = math.Sqrt(float64(boundedLoss) / (boundedLoss - 1))
+	oneInside  = math.Sqrt(1 - 1/float64(boundedLoss))
+)
+
+// rangeAwayFromOne reports whether x's range at cur (span.Reader.At)
+// keeps |x| where awayFromOne's conditions do: above sqrt(100/99) or below
+// sqrt(0.99).
+func (c *checker) rangeAwayFromOne(cur inspector.Cursor, x ast.Expr) bool {
+	r, _ := c.spans.At(cur, x)
+	lo, hi := r.Magnitude()
+	return lo >= oneOutside || hi <= oneInside
 }
 
 // compares is the bound for the overflow rule: cond compares x, or its

@@ -29,7 +29,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(x) {
+	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(cur, x, 1.0/boundedLoss) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
@@ -79,7 +79,7 @@ func negate(c *checker, x ast.Expr) string {
 // small x, and the subtraction leaves only its rounding error.
 func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
-	if !c.lossShows(cur, x) || c.boundedAway(x) {
+	if !c.lossShows(cur, x) || c.boundedAway(cur, x, 1.0/boundedLoss) {
 		return
 	}
 	text, form, use := qualifier(call)+".Expm1("+fixes.Source(c.pass.Fset, ast.Unparen(x))+")", "math.Exp(x)-1", "math.Expm1(x)"
@@ -103,10 +103,11 @@ func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 }
 
 // cosine reports 1-math.Cos(x) and math.Cos(x)-1: cos(x) is 1-x²/2 near 0,
-// so the difference keeps only the rounding error of the cosine.
+// so the difference keeps only the rounding error of the cosine, losing
+// about log10(2/x²) digits: at most two where |x| ≥ sqrt(2/boundedLoss).
 func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
-	if !c.lossShows(cur, x) || c.turnFraction(x, 4) {
+	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
 		return
 	}
 	q := qualifier(call)

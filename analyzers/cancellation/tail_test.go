@@ -52,4 +52,3 @@ func TestLowerTailFix(t *testing.T) {
 	assert.Zero(t, 0.5*(1+math.Erf(-9)), "plain form at x = -9")
 	assert.InEpsilon(t, 0.5*erfcAsymptotic(9), 0.5*math.Erfc(9), 1e-9, "fixed form at x = -9")
 }
-

@@ -1,0 +1,39 @@
+package hazards
+
+import "math"
+
+// Ranges that leave the argument free: the form is reported.
+
+// Tail's own callers are outside the package, and nothing bounds s.
+func Tail(s float64) float64 {
+	return 1 - math.Pow(2, -s) // want `1-math.Pow\(a, b\) with a = 2, b = -s returns 0`
+}
+
+// shrink is called once with a value that can be small.
+func shrink(s float64) float64 {
+	return 1 - math.Pow(3, -s) // want `1-math.Pow\(a, b\) with a = 3, b = -s returns 0`
+}
+
+func Shrunk(s float64) float64 {
+	if s > 15 {
+		return shrink(s)
+	}
+	return shrink(s / 1e9)
+}
+
+// Bend's branch keeps t below 0.5 but not away from 0.
+func Bend(t float64) float64 {
+	if t < 0.5 {
+		return 1 - math.Cos(t) // want `1-math.Cos\(x\) with x = t returns 0`
+	}
+	return 0
+}
+
+// Ramp is reassigned after its test, which then says nothing.
+func Ramp(y float64) float64 {
+	if y < -4 || y > 10 {
+		return 0
+	}
+	y = y * 1e3
+	return math.Log(1 + math.Exp(y)) // want `math.Log\(1\+math.Exp\(y\)\) overflows`
+}

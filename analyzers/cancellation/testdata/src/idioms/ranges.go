@@ -1,0 +1,71 @@
+package idioms
+
+import "math"
+
+// Ranges known from the conditions around a form, or from every call of
+// its function, keep the small-argument forms away from the argument
+// where they lose digits.
+
+// dampedTail takes 1 - 2^-(1-s) only once s <= -19, where the power is at
+// most 2^-20: nothing near 1 to lose.
+func dampedTail(s float64) float64 {
+	if s > -19 {
+		return 0
+	}
+	return 1 - math.Pow(2, -(1-s))
+}
+
+// largeOrder is called only past s >= 15 (orderSum), so 3^-s is below
+// 7e-8 there.
+func largeOrder(s float64) float64 {
+	return 1 / (1 - math.Pow(3, -s))
+}
+
+func OrderSum(s float64) float64 {
+	if s <= 5 {
+		return 0
+	} else if s < 15 {
+		return 1
+	}
+	return largeOrder(s) + largeOrder(2*s)
+}
+
+// HalfRatio uses a series where x*x is small and the logarithm only where
+// |x| >= 0.05, which loses at most 1.3 digits.
+func HalfRatio(x float64) float64 {
+	if x*x < 0.0025 {
+		return x + x*x*x/3
+	} else if x < 1 {
+		return 0.5 * math.Log((1+x)/(1-x))
+	}
+	return math.Inf(1)
+}
+
+// SoftStep takes log(1+e^y) only for y in [-4, 10): no overflow, and e^y
+// at least 0.018.
+func SoftStep(y float64) float64 {
+	if y < -4 {
+		return math.Exp(y)
+	} else if y < 10 {
+		return math.Log(1 + math.Exp(y))
+	}
+	return y
+}
+
+// Sag takes 1 - cos(t) only for |t| >= 0.5, where it loses under a digit.
+func Sag(t float64) float64 {
+	if math.Abs(t) < 0.5 {
+		return t * t / 2
+	}
+	return 1 - math.Cos(t)
+}
+
+// narrow is called with sines scaled by 0.9, so |x| <= 0.9 and
+// 1/(1-x²) <= 5.3.
+func narrow(x float64) float64 {
+	return math.Sqrt(1 - x*x)
+}
+
+func Chord(t float64) float64 {
+	return narrow(0.9 * math.Sin(t))
+}

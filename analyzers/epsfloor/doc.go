@@ -202,7 +202,12 @@
 // rounding, so these are bounded by 1 whatever the caller's units, and
 // their rounding error is about eps, not eps·s^d); tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the
-// tolerance reaches the gap between floats just under that magnitude.
+// tolerance reaches the gap between floats just under that magnitude; in
+// a test file, a tolerance below the resolution of what it compares,
+// passed with or applied to the difference of values that are constants
+// or computed the same way, bit for bit, on every platform (package
+// portable): the check is then exact equality, which holds everywhere it
+// holds once (exacteq's standard for pinned results).
 //
 // Fixes (all need review, so go fix does not apply them): a relative
 // tolerance below u becomes 4 ulps of the type, written exactly as

@@ -11,11 +11,14 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/degree"
+	"roundoff/analyzers/internal/lazyssa"
+	"roundoff/analyzers/internal/portable"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
@@ -29,7 +32,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "epsfloor",
 	Doc:       analyzerdoc.Extract(doc, "epsfloor"),
 	URL:       "docs/epsfloor.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer, lazyssa.Analyzer, portable.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }
@@ -76,8 +79,9 @@ type checker struct {
 	tested map[use]token.Pos // this package's tolerance tests, by use
 	fields map[types.Object][]ast.Expr
 
-	deg     *degree.Reader         // made on first use (see degrees)
-	helpers map[*types.Func]helper // predicates comparing two parameters (see atScale)
+	deg     *degree.Reader                // made on first use (see degrees)
+	instrs  map[token.Pos]ssa.Instruction // the package's SSA calls and operations, indexed on first use (see ssaAt)
+	helpers map[*types.Func]helper        // predicates comparing two parameters (see atScale)
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -100,7 +104,7 @@ func run(pass *analysis.Pass) (any, error) {
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		n := cur.Node()
 		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, 0, how, besideOf(n))
+			c.site(val, u, 0, how, n)
 		})
 		switch n := n.(type) {
 		case *ast.CallExpr:

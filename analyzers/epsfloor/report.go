@@ -39,7 +39,7 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 		c.atScale(cur, scaleTest{node: t.Cmp, a: t.A, b: t.B, tol: tol, f: f, test: &t})
 		return
 	}
-	if res == tolerance.Resolvable {
+	if res == tolerance.Resolvable || t.Kind == tolerance.Absolute && c.differenceSameEverywhere(cur, t) {
 		return
 	}
 	var fix []fixes.Fix

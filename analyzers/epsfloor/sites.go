@@ -73,7 +73,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 	for _, p := range apiParams(fn) {
 		if p.index < len(call.Args) {
 			u := use{Kind: p.kind, Where: fn.Name()}
-			c.site(call.Args[p.index], u, c.apiMagnitude(cur, call, p), fmt.Sprintf("passed to %s.%s", fn.Pkg().Name(), fn.Name()), call.Args)
+			c.site(call.Args[p.index], u, c.apiMagnitude(cur, call, p), fmt.Sprintf("passed to %s.%s", fn.Pkg().Name(), fn.Name()), call)
 		}
 	}
 }
@@ -91,10 +91,11 @@ func (c *checker) apiMagnitude(cur inspector.Cursor, call *ast.CallExpr, p apiPa
 	return 0
 }
 
-// site reports a constant val that reaches a tolerance of the given use;
-// beside holds the other arguments or fields given with it, among them
-// the compared values.
-func (c *checker) site(val ast.Expr, u use, mag float64, how string, beside []ast.Expr) {
+// site reports a constant val that reaches a tolerance of the given use
+// in n, the call or literal that gives it (nil: a default), whose other
+// arguments or fields are among them the compared values.
+func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node) {
+	beside := besideOf(n)
 	kind := u.Kind
 	if coef, w, ok := c.coefficientOf(val, beside); ok && kind == tolerance.Absolute {
 		val, kind, mag = coef, tolerance.Relative, 0
@@ -107,7 +108,7 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string, beside []as
 	f := u.format()
 	tol := f.Value(v)
 	res := judge(kind, tol, f, mag)
-	if res == tolerance.Resolvable {
+	if res == tolerance.Resolvable || (res == tolerance.BelowEpsilon || res == tolerance.BelowSpacing) && c.sameEverywhere(n, val) {
 		return
 	}
 	src := fixes.Source(c.pass.Fset, val)

@@ -17,7 +17,9 @@
 //     is 0, and loses about log10(1/|x|) digits for larger small x;
 //     math.Log1p(x) keeps them all (divided by math.Ln10 or math.Ln2);
 //     also where a variable holds the sum (g := 1 + r; math.Log(g)),
-//     with no fix, since r may have changed since;
+//     with no fix, since r may have changed since (not x * math.Log(g) /
+//     (g - 1) from the same g: log(g)/(g-1) varies slowly near 1, and the
+//     product gives log(1+x) to a few ulps, Goldberg 1991, Theorem 4);
 //     math.Log((1+x)/(1-x)) likewise, where 2*math.Atanh(x) keeps them;
 //   - math.Log(a) - math.Log(b) (also Log10, Log2, through variables)
 //     consumed to relative accuracy (a divisor, a root, a logarithm, a

@@ -29,7 +29,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(cur, x, 1.0/boundedLoss) {
+	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(cur, x, 1.0/boundedLoss) || c.roundedBack(cur, call.Args[0]) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
@@ -65,6 +65,34 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		return
 	}
 	fixes.Report(c.pass, d, fix)
+}
+
+// roundedBack reports whether the logarithm at cur of y, a variable
+// holding 1+x, is divided by y-1 computed from the same y, as in
+// x * math.Log(y) / (y - 1): log(y)/(y-1) varies slowly near y = 1, so
+// evaluating it at the rounded y and multiplying by x gives log(1+x) to a
+// few ulps (Goldberg 1991, Theorem 4): the rounding of 1+x cancels out.
+func (c *checker) roundedBack(cur inspector.Cursor, y ast.Expr) bool {
+	id, ok := ast.Unparen(y).(*ast.Ident)
+	if !ok || c.decls[c.pass.TypesInfo.Uses[id]] == nil {
+		return false
+	}
+	for ; ; cur = cur.Parent() {
+		switch p := cur.Parent().Node().(type) {
+		case *ast.ParenExpr:
+		case *ast.BinaryExpr:
+			if p.Op == token.QUO && p.X == cur.Node() {
+				d, _ := c.through(p.Y)
+				sub, ok := d.(*ast.BinaryExpr)
+				return ok && sub.Op == token.SUB && same(sub.X, id) && c.isOne(sub.Y)
+			}
+			if p.Op != token.MUL {
+				return false
+			}
+		default:
+			return false
+		}
+	}
 }
 
 // negate returns the source of -x.

@@ -103,7 +103,9 @@
 // the source fixes it exactly:
 //
 //   - a constant operand;
-//   - a value read from a table of constants (tc.want): the largest of them;
+//   - a value read from a table of constants (tc.want): the largest of them
+//     that reach the test (not a sentinel row an enclosing condition sends
+//     elsewhere: the else branch of if tc.want == fail);
 //   - inside a loop over a literal table of cases, a value worked out from
 //     each case's constants (want := tc.mu + tc.k*(tc.x[0]-tc.x[1])),
 //     evaluated exactly for every case: the largest (the program's value

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
@@ -15,6 +16,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/span"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
 )
@@ -115,12 +117,34 @@ func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) flo
 		c.fields = constval.Fields(c.pass.TypesInfo, c.pass.Files)
 	}
 	size := 0.0
+	skip := c.excluded(cur, e)
 	for _, val := range c.fields[field] {
-		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && v.Kind() != constant.Complex {
+		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && v.Kind() != constant.Complex && !skip(v) {
 			size = max(size, math.Abs(f.Value(v)))
 		}
 	}
 	return size
+}
+
+// excluded returns a test of the constants that e cannot hold at cur: an
+// enclosing condition says e != k (the else branch of if e == k, a sentinel
+// row sent elsewhere), so no case with that value reaches cur.
+func (c *checker) excluded(cur inspector.Cursor, e ast.Expr) func(constant.Value) bool {
+	var out []constant.Value
+	for cond, holds := range span.Conditions(cur) {
+		b, ok := ast.Unparen(cond).(*ast.BinaryExpr)
+		if !ok || b.Op == token.EQL == holds || b.Op != token.EQL && b.Op != token.NEQ {
+			continue
+		}
+		for _, pair := range [][2]ast.Expr{{b.X, b.Y}, {b.Y, b.X}} {
+			if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, pair[1]); ok && types.ExprString(ast.Unparen(pair[0])) == types.ExprString(ast.Unparen(e)) {
+				out = append(out, v)
+			}
+		}
+	}
+	return func(v constant.Value) bool {
+		return slices.ContainsFunc(out, func(k constant.Value) bool { return constant.Compare(v, token.EQL, k) })
+	}
 }
 
 // rowSize returns the largest |e| over the cases of the table that the
@@ -136,12 +160,15 @@ func (c *checker) rowSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) fl
 			continue
 		}
 		size := 0.0
+		skip := c.excluded(cur, e)
 		for _, k := range cases {
 			v, ok := constval.InRow(info, c.decls, e, row, k)
 			if !ok {
 				return 0
 			}
-			size = max(size, math.Abs(f.Value(v)))
+			if !skip(v) {
+				size = max(size, math.Abs(f.Value(v)))
+			}
 		}
 		return size
 	}

@@ -69,3 +69,15 @@ func narrow(x float64) float64 {
 func Chord(t float64) float64 {
 	return narrow(0.9 * math.Sin(t))
 }
+
+// GrowthRate takes log(1+x) through the rounded sum and divides by what
+// the sum rounded x to: log(w)/(w-1) varies slowly near 1, so the
+// product recovers log(1+x) to a few ulps (Goldberg 1991, Theorem 4).
+func GrowthRate(x float64) float64 {
+	w := 1 + x
+	d := w - 1
+	if d == 0 {
+		return x
+	}
+	return x * math.Log(w) / d
+}

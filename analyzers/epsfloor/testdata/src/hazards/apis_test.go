@@ -37,3 +37,24 @@ func TestMoments(t *testing.T) {
 		}
 	}
 }
+
+// faulty marks readings the parser must refuse.
+const faulty = math.MaxFloat32
+
+var gauges = []struct {
+	text string
+	deg  float64
+}{
+	{"12d30m", 12.5},
+	{"bogus", faulty},
+}
+
+func parseGauge(s string) float64 { return math.Cbrt(float64(len(s))) }
+
+// Nothing sends the sentinel rows elsewhere: at 3.4e38 float64 values are
+// 4.2e22 apart, and 1e-9 is exact equality there.
+func TestGauges(t *testing.T) {
+	for _, r := range gauges {
+		assert.InDelta(t, r.deg, parseGauge(r.text), 1e-9) // want `1e-9, passed to assert.InDelta \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 3.40282`
+	}
+}

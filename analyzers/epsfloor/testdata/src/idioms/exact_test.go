@@ -25,3 +25,30 @@ func TestTally(t *testing.T) {
 		t.Error("mean of the tally")
 	}
 }
+
+// rejected marks readings the parser must refuse; no angle is that large.
+const rejected = math.MaxFloat32
+
+var readings = []struct {
+	text string
+	deg  float64
+}{
+	{"12d30m", 12.5},
+	{"135d", 135},
+	{"bogus", rejected},
+}
+
+func parseAngle(s string) float64 { return math.Cbrt(float64(len(s))) }
+
+// The sentinel rows go to another branch: the angles that reach the
+// tolerance are at most 135 degrees, where float64 values are 2.8e-14
+// apart, and 1e-9 is far above that.
+func TestReadings(t *testing.T) {
+	for _, r := range readings {
+		got := parseAngle(r.text)
+		if r.deg == rejected {
+			continue
+		}
+		assert.InDelta(t, r.deg, got, 1e-9)
+	}
+}

@@ -146,6 +146,7 @@ func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
 		c.logOfRatio(cur, call, name)
 		if name == "Log" {
 			c.logExpSum(cur, call)
+			c.logCosine(cur, call)
 		}
 	case "Sqrt":
 		c.hypot(cur, call)

@@ -861,12 +861,15 @@ func (c *checker) complement(n *ast.BinaryExpr) (ast.Expr, bool) {
 // only about log10(1/|x|) fewer digits than x has; 2*math.Atanh(x) keeps
 // them. It reports whether the call had that shape.
 func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
-	q, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
+	arg, indirect := c.through(call.Args[0])
+	q, ok := arg.(*ast.BinaryExpr)
 	if !ok || q.Op != token.QUO {
 		return false
 	}
-	x, neg, okx := c.onePlus(q.X)
-	y, negy, oky := c.onePlus(q.Y)
+	num, viaNum := c.through(q.X) // div := 1 + x; math.Log((1-x)/div)
+	den, viaDen := c.through(q.Y)
+	x, neg, okx := c.onePlus(num)
+	y, negy, oky := c.onePlus(den)
 	if !okx || !oky || neg == negy || !same(x, y) {
 		return false
 	}
@@ -880,11 +883,16 @@ func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
 	if _, inOperation := cur.Parent().Node().(*ast.BinaryExpr); inOperation {
 		text = "(" + text + ")"
 	}
-	fixes.Report(c.pass, analysis.Diagnostic{
+	d := analysis.Diagnostic{
 		Pos: call.Pos(), End: call.End(), Category: catLog1p,
 		Message: fmt.Sprintf("math.Log((1+x)/(1-x))%s returns 0 for |x| below %.3g, where the ratio rounds to 1, and loses about log10(1/|x|) digits for small x; use 2*math.Atanh(x)",
 			binding("x", x), unitRoundoff/2),
-	}, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+	}
+	if indirect || viaNum || viaDen {
+		fixes.Report(c.pass, d) // a term is held in a variable: x may have changed since
+		return true
+	}
+	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
 	return true
 }
 

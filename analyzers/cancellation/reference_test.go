@@ -75,6 +75,15 @@ func oneMinusCosRef(x float64) *big.Float {
 	})
 }
 
+// logCosRef returns log(cos x) = log(1 - w), w = 1 - cos x by its
+// Taylor series, and log(1 - w) = -Σ_{k>=1} w^k/k (Taylor series).
+func logCosRef(x float64) *big.Float {
+	w := oneMinusCosRef(x)
+	return series(newF().Neg(w), func(k int, t *big.Float) {
+		t.Mul(t, w).Mul(t, big.NewFloat(float64(k))).Quo(t, big.NewFloat(float64(k+1)))
+	})
+}
+
 // hypotRef returns sqrt(x² + y²), squares and sum exact at prec bits.
 func hypotRef(x, y float64) *big.Float {
 	s := newF().Add(newF().Mul(bf(x), bf(x)), newF().Mul(bf(y), bf(y)))

@@ -37,3 +37,17 @@ func Ramp(y float64) float64 {
 	y = y * 1e3
 	return math.Log(1 + math.Exp(y)) // want `math.Log\(1\+math.Exp\(y\)\) overflows`
 }
+
+// Sag is the log of a cosine of a small zenith offset: log(cos(t)) is
+// about -t²/2, and cos(t) rounds to 1 below 1.05e-8.
+func Sag(t float64) float64 {
+	return -math.Log(math.Cos(t)) / 2 // want `math.Log\(math.Cos\(x\)\) with x = t returns 0`
+}
+
+// Mercator divides through a held term: log((1-c)/(1+c)) with c small near
+// the equator.
+func Mercator(e, sinphi float64) float64 {
+	c := e * sinphi
+	div := 1 + c
+	return math.Log((1 - c) / div) // want `math.Log\(\(1\+x\)/\(1-x\)\) with x = c returns 0`
+}

@@ -201,10 +201,11 @@ func assignsFrom(info *types.Info, block *ast.BlockStmt, v *types.Var, x ast.Exp
 // the smallest positive value or a small multiple of it (see
 // fewSubnormals): no value other than 0 and a few subnormals lies below it, so for
 // x ≥ 0 the test is x == 0 (x > 0 the other way), and a threshold meant
-// to catch tiny values catches none but 0. Beyond x < smallest, only a
-// computed x is judged: a value read as the caller gave it (a parameter,
-// a field of one) carries no residue of this code, and a test of its sign
-// is exact on purpose. It reports whether it reported.
+// to catch tiny values catches none but 0. Only a computed x is judged: a
+// value read as the caller gave it (a parameter, a field of one) carries
+// no residue of this code, and a test of its sign is exact on purpose
+// (if phi < math.SmallestNonzeroFloat64 { return 0 } after phi < 0 was
+// rejected). It reports whether it reported.
 func (c *checker) zeroThreshold(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	for _, dir := range []token.Token{token.LSS, token.GTR} {
 		x, s, v, f, ok := c.boundTest(n, dir)
@@ -212,7 +213,7 @@ func (c *checker) zeroThreshold(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 		if !ok || exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v > fewSubnormals*f.Smallest {
 			continue
 		}
-		if (dir != token.LSS || v != f.Smallest) && !c.computed(cur, x) {
+		if !c.computed(cur, x) {
 			return false // a value as the caller gave it: a positivity check is exact on purpose
 		}
 		as := map[token.Token]string{token.LSS: "x == 0", token.GTR: "x > 0"}[dir]

@@ -323,6 +323,19 @@ func gearRatio(r float64) float64 {
 	return 1 / r
 }
 
+// An arc length checked for zero as the caller gave it, after negative
+// values were refused: below the smallest positive float lies only 0,
+// which is what the test means.
+func arcFraction(phi, k float64) float64 {
+	if phi < 0 {
+		panic("negative arc")
+	}
+	if phi < math.SmallestNonzeroFloat64 {
+		return 0
+	}
+	return phi * k
+}
+
 // An underflow guard at the reciprocal of the largest float (5.6e-309,
 // with 2^50 subnormal values below it): the quotient 1/t stays finite
 // above it, which is what the guard asks.

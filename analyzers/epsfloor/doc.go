@@ -208,8 +208,10 @@
 // a test file, a tolerance below the resolution of what it compares,
 // passed with or applied to the difference of values that are constants
 // or computed the same way, bit for bit, on every platform (package
-// portable): the check is then exact equality, which holds everywhere it
-// holds once (exacteq's standard for pinned results).
+// portable; a helper that computes what it compares is judged with what
+// it computes, and a slice handed to another call first is out of sight):
+// the check is then exact equality, which holds everywhere it holds once
+// (exacteq's standard for pinned results).
 //
 // Fixes (all need review, so go fix does not apply them): a relative
 // tolerance below u becomes 4 ulps of the type, written exactly as

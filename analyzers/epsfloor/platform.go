@@ -3,9 +3,11 @@ package epsfloor
 import (
 	"go/ast"
 	"go/token"
+	"go/types"
 
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/portable"
@@ -21,7 +23,10 @@ import (
 // not correctly rounded). Such a tolerance makes the check exact equality,
 // and exact equality of values that cannot differ between platforms holds
 // everywhere it holds once; the test pins nothing that another platform
-// could change.
+// could change. A well-known check (sites.go) compares what it is given,
+// so its arguments are judged; a helper of the project's may compute what
+// it compares from them, so the whole call is (Judge.Call). A slice or
+// pointer given to the check must hold only what the judge can see.
 func (c *checker) sameEverywhere(n ast.Node, tol ast.Expr) bool {
 	call, ok := n.(*ast.CallExpr)
 	if !ok || !provenance.InTestFile(c.pass.Fset, call.Pos()) {
@@ -37,11 +42,88 @@ func (c *checker) sameEverywhere(n ast.Node, tol ast.Expr) bool {
 	}
 	var compared []ssa.Value
 	for i, a := range call.Args {
-		if a != tol && i < len(args) && provenance.HoldsFloat(c.pass.TypesInfo.TypeOf(a), false) {
+		if a != tol && i < len(args) && provenance.HoldsFloat(c.pass.TypesInfo.TypeOf(a), true) {
 			compared = append(compared, args[i])
 		}
 	}
-	return len(compared) > 0 && c.portable(compared...)
+	for _, v := range compared {
+		if !provenance.IsFloat(v.Type()) && filledElsewhere(v, sc, 4) {
+			return false // what the call stored there is out of sight
+		}
+	}
+	if len(compared) == 0 {
+		return false
+	}
+	if fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func); ok && len(apiParams(fn)) > 0 {
+		return c.portable(compared...) // a known check compares what it is given
+	}
+	return portable.Of(c.pass).Call(sc.Common()) // a helper may compute what it compares
+}
+
+// filledElsewhere reports whether v, a slice, array, pointer or value
+// that holds one, may hold what no judge sees: it is read from a
+// variable, a field or a parameter, or it, or a reference the call that
+// made it was given, is handed to a call other than except (and other
+// than one that only prints), which may store anything through it.
+func filledElsewhere(v ssa.Value, except ssa.Instruction, depth int) bool {
+	root := provenance.Strip(v)
+	if provenance.IsFloat(root.Type()) {
+		return false // a number, boxed for an interface parameter
+	}
+	for {
+		if s, ok := root.(*ssa.Slice); ok {
+			root = s.X
+		} else if e, ok := root.(*ssa.Extract); ok {
+			root = e.Tuple // one of several results of a call
+		} else {
+			break
+		}
+	}
+	switch r := root.(type) {
+	case *ssa.Const:
+		return false
+	case *ssa.MakeSlice, *ssa.Alloc:
+		return handedOut(r, except, map[ssa.Value]bool{})
+	case *ssa.Call:
+		if depth == 0 || handedOut(r, except, map[ssa.Value]bool{}) {
+			return true
+		}
+		for _, a := range r.Common().Args { // m.Col(0): the matrix it reads
+			if !provenance.IsFloat(a.Type()) && filledElsewhere(a, r, depth-1) {
+				return true
+			}
+		}
+		return false
+	}
+	return true
+}
+
+// handedOut reports whether x, or a view of it, is given to a call other
+// than except that may write through it, or stored away.
+func handedOut(x ssa.Value, except ssa.Instruction, seen map[ssa.Value]bool) bool {
+	if seen[x] || x.Referrers() == nil {
+		return false
+	}
+	seen[x] = true
+	for _, r := range *x.Referrers() {
+		switch r := r.(type) {
+		case *ssa.Call:
+			if r != except && !portable.ReadOnly(r) {
+				return true
+			}
+		case *ssa.Go, *ssa.Defer:
+			return true
+		case *ssa.Store:
+			if r.Val == x {
+				return true // kept elsewhere, where anything may write through it
+			}
+		case *ssa.Slice, *ssa.ChangeType, *ssa.Convert, *ssa.MakeInterface:
+			if handedOut(r.(ssa.Value), except, seen) {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // differenceSameEverywhere is sameEverywhere for a test |a-b| < tol in a
@@ -66,11 +148,17 @@ func (c *checker) differenceSameEverywhere(cur inspector.Cursor, t tolerance.Tes
 }
 
 // portable reports whether every value is a constant or computed the same
-// way on every platform, as package portable judges it.
+// way on every platform, as package portable judges it. A slice or other
+// reference is judged by the causes in sight only (Judge.Cause, which
+// follows the calls that fill it): Judge.Value takes what a call stores
+// through a reference as an input.
 func (c *checker) portable(vals ...ssa.Value) bool {
 	judge := portable.Of(c.pass)
 	for _, v := range vals {
-		if _, isConst := v.(*ssa.Const); !isConst && !judge.Value(v) && !judge.OnInputs(v) && judge.Cause(v) {
+		if _, isConst := v.(*ssa.Const); isConst {
+			continue
+		}
+		if judge.Cause(v) && (!provenance.IsFloat(v.Type()) || !judge.Value(v) && !judge.OnInputs(v)) {
 			return false
 		}
 	}

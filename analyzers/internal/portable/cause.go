@@ -28,6 +28,8 @@ import (
 // is not correctly rounded, in v's own function or in the functions it
 // calls (of this package read, of another package by fact).
 func (j *Judge) Cause(v ssa.Value) bool {
+	j.mu.Lock()
+	defer j.mu.Unlock()
 	return (&sighting{j, map[ssa.Value]bool{}}).value(v, maxDepth)
 }
 

@@ -27,6 +27,8 @@ func Libm(c *ssa.CallCommon) bool {
 // Value reports whether v is computed the same way, bit for bit, on every
 // platform (see the package documentation).
 func (j *Judge) Value(v ssa.Value) bool {
+	j.mu.Lock()
+	defer j.mu.Unlock()
 	return j.walk(nil).value(v, maxDepth)
 }
 
@@ -37,7 +39,19 @@ func (j *Judge) Value(v ssa.Value) bool {
 // passed to them. It costs a reading per call, so callers ask it only
 // where Value says no.
 func (j *Judge) OnInputs(v ssa.Value) bool {
+	j.mu.Lock()
+	defer j.mu.Unlock()
 	return j.walk(&site{shared: &reading{entered: map[ssa.Instruction]*site{}, written: map[*ssa.Alloc]bool{}}}).value(v, maxDepth)
+}
+
+// Call reports whether call computes the same way, bit for bit, on every
+// platform: its callee is portable (read in this package, by fact from
+// another) and so is every argument it is given. A check that a test
+// passes its values to is judged so, with what it computes inside.
+func (j *Judge) Call(call *ssa.CallCommon) bool {
+	j.mu.Lock()
+	defer j.mu.Unlock()
+	return j.walk(nil).call(call, maxDepth)
 }
 
 // walk is one reading of values: seen holds the values judged or in
@@ -86,7 +100,7 @@ func (w *walk) step(v ssa.Value, depth int) bool {
 	switch v := v.(type) {
 	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global:
 		return true
-	case *ssa.Alloc:
+	case *ssa.Alloc, *ssa.MakeSlice:
 		return w.filled(v, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
 		if !w.storedPortable(v, depth) {
@@ -199,9 +213,12 @@ func (w *walk) call(call *ssa.CallCommon, depth int) bool {
 }
 
 // callee reports whether the function a call names is portable. The
-// builtins (len, min, max, real, complex...) do not round.
+// builtins (len, min, max, real, complex...) do not round, and fmt, log
+// and testing only format what they are given to print or report it (a
+// float parsed back, by fmt's scanning, is correctly rounded, IEEE
+// 754-2019 §5.12).
 func (w *walk) callee(call *ssa.CallCommon, depth int) bool {
-	if _, ok := call.Value.(*ssa.Builtin); ok {
+	if _, ok := call.Value.(*ssa.Builtin); ok || readOnly(call) {
 		return true
 	}
 	switch provenance.MathRounding(call) {

@@ -52,6 +52,7 @@ import (
 	"go/token"
 	"go/types"
 	"reflect"
+	"sync"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ssa"
@@ -80,6 +81,7 @@ func (*Fact) String() string { return "portable" }
 
 // Judge decides whether values of one package are portable.
 type Judge struct {
+	mu        sync.Mutex // analyzers that require this one may ask from several goroutines at once
 	pass      *analysis.Pass
 	converted map[token.Pos]bool // products written inside float64(...), by operator position
 	bodies    map[*ssa.Function]bool

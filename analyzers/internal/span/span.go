@@ -386,7 +386,6 @@ func exits(stmts []ast.Stmt, yield func(ast.Expr, bool) bool) bool {
 	return true
 }
 
-
 // constrain bounds v where cond holds (or fails): comparisons of v or |v|
 // with values of known range, combined by &&, || and !. NaN, for which
 // every comparison fails, is left aside: it carries no digits to lose.

@@ -58,3 +58,25 @@ func TestGauges(t *testing.T) {
 		assert.InDelta(t, r.deg, parseGauge(r.text), 1e-9) // want `1e-9, passed to assert.InDelta \(an absolute tolerance of float64 in [A-Za-z]+\), is below half the spacing of float64 values at 3.40282`
 	}
 }
+
+func scale(dst []float64, k float64) {
+	for i := range dst {
+		dst[i] *= math.Cbrt(k)
+	}
+}
+
+func checkAll(t *testing.T, got, want []float64, tol float64) { // want checkAll:"parameter 3 is an absolute tolerance of float64 in checkAll"
+	for i := range got {
+		if math.Abs(got[i]-want[i]) > tol {
+			t.Errorf("element %d: got %v, want %v", i, got[i], want[i])
+		}
+	}
+}
+
+// A slice filled by another call holds what no reading of this function
+// sees: the check stays reported.
+func TestScaled(t *testing.T) {
+	v := []float64{1, 2}
+	scale(v, 8)
+	checkAll(t, v, []float64{2, 4}, 1e-17) // want `1e-17, passed as tol to checkAll`
+}

@@ -52,3 +52,17 @@ func TestReadings(t *testing.T) {
 		assert.InDelta(t, r.deg, got, 1e-9)
 	}
 }
+
+func near(t *testing.T, got, want []float64, tol float64) { // want near:"parameter 3 is an absolute tolerance of float64 in near"
+	for i := range got {
+		if math.Abs(got[i]-want[i]) > tol {
+			t.Errorf("element %d: got %v, want %v", i, got[i], want[i])
+		}
+	}
+}
+
+// The project's own helper compares what it is given, whole counts the
+// test sets itself: exact equality that holds everywhere.
+func TestCounts(t *testing.T) {
+	near(t, []float64{3, 4}, []float64{3, 4}, 1e-17)
+}

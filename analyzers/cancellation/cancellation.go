@@ -183,6 +183,12 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if p, ok := c.complement(n); ok && c.upperTail(n, p) {
 		return
 	}
+	if q, isQuo := e.(*ast.BinaryExpr); isQuo && q.Op == token.QUO && c.isOne(q.X) && c.isOne(one) {
+		if cos, isCall := ast.Unparen(q.Y).(*ast.CallExpr); isCall && c.mathFunc(cos) == "Cos" {
+			c.secant(cur, n, cos, one == n.X, indirect)
+		}
+		return
+	}
 	inner, ok := e.(*ast.CallExpr)
 	if !ok || !c.isOne(one) {
 		return // not a difference with the constant 1

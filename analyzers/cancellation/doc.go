@@ -146,7 +146,8 @@
 //     1.05e-8 and the difference loses about 2·log10(1/|x|) digits;
 //     2*math.Sin(x/2)*math.Sin(x/2) is the same quantity without a
 //     subtraction; math.Log(math.Cos(x)) likewise, about -x²/2 for small
-//     x, where math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2)) keeps the digits;
+//     x, where math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2)) keeps the digits,
+//     and 1/math.Cos(x) - 1, where the same square over math.Cos(x) does;
 //   - math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z), the same operands
 //     squared, where an operand is computed by an operation that reaches
 //     such magnitudes from ordinary inputs (a quotient by a variable that

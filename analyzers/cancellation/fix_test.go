@@ -43,6 +43,7 @@ func TestFixedProgramRuns(t *testing.T) {
 		"expm1":     expm1Ref(bf(h)),      // Taylor series
 		"cosm1":     oneMinusCosRef(c),    // Taylor series
 		"logcos":    logCosRef(c),         // Taylor series of 1-cos and of log(1-w)
+		"secm1":     secm1Ref(c),          // (1-cos x)/cos x, 1-cos by its Taylor series
 		"hypot":     hypotRef(big1, big1), // exact squares, math/big Sqrt
 		"logsumexp": lse,
 		"log10p":    newF().Quo(log1pRef(x), ln10Ref()), // log10(1+x) = log(1+x)/ln 10
@@ -55,8 +56,8 @@ func TestFixedProgramRuns(t *testing.T) {
 		// The fixed forms are within one ulp of the 200-bit value; Go's
 		// Log1p, Expm1, Sin and Hypot are accurate to about an ulp. The
 		// power's fix rounds a product before Expm1, the cosine's a square
-		// of a sine before Log1p: two ulps.
-		bound := map[string]float64{"powm1": 2, "logcos": 2}[name]
+		// of a sine before Log1p or a division: two ulps.
+		bound := map[string]float64{"powm1": 2, "logcos": 2, "secm1": 2}[name]
 		assert.LessOrEqual(t, ulps(after[name], ref), max(bound, 1), "fixed %s = %g, reference %g", name, after[name], f64(ref))
 	}
 	// The naive forms lose everything there: 1+1e-17 and cos(1e-8) round
@@ -66,6 +67,7 @@ func TestFixedProgramRuns(t *testing.T) {
 	assert.Equal(t, 0.0, before["log1p"])
 	assert.Equal(t, 0.0, before["cosm1"])
 	assert.Equal(t, 0.0, before["logcos"])
+	assert.Equal(t, 0.0, before["secm1"])
 	assert.True(t, math.IsInf(before["hypot"], 1))
 	assert.True(t, math.IsInf(before["logsumexp"], 1))
 	assert.Equal(t, 0.0, before["log10p"])

@@ -84,6 +84,13 @@ func logCosRef(x float64) *big.Float {
 	})
 }
 
+// secm1Ref returns sec x - 1 = w/(1 - w), w = 1 - cos x by its Taylor
+// series.
+func secm1Ref(x float64) *big.Float {
+	w := oneMinusCosRef(x)
+	return newF().Quo(w, newF().Sub(big.NewFloat(1), w))
+}
+
 // hypotRef returns sqrt(x² + y²), squares and sum exact at prec bits.
 func hypotRef(x, y float64) *big.Float {
 	s := newF().Add(newF().Mul(bf(x), bf(x)), newF().Mul(bf(y), bf(y)))

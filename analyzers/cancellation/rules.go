@@ -157,6 +157,37 @@ func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.Call
 	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(n, text)))
 }
 
+// secant reports 1/math.Cos(x) - 1 and 1 - 1/math.Cos(x): sec x is
+// 1 + x²/2 near 0, and the difference keeps only the rounding of the
+// quotient, losing about 2·log10(1/|x|) digits like 1 - cos x;
+// 2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x) is the same quantity without
+// a subtraction.
+func (c *checker) secant(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
+	x := call.Args[0]
+	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
+		return
+	}
+	q := qualifier(call)
+	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
+	text := "2*" + q + ".Sin(" + half + ")*" + q + ".Sin(" + half + ")/" + q + ".Cos(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ")"
+	form, use := "1/math.Cos(x)-1", "2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)"
+	if oneFirst {
+		text, form, use = "-"+text, "1-1/math.Cos(x)", "-2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)"
+	}
+	d := analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catCosine,
+		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
+			form, binding("x", x), cosFlat, use),
+	}
+	if indirect || !fixes.Pure(c.pass.TypesInfo, x) {
+		fixes.Report(c.pass, d) // stored first (x may have changed since), or the fix would evaluate x twice
+		return
+	}
+	// Needs review: far from 0 both forms round about equally, in different
+	// last bits.
+	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+}
+
 // logCosine reports math.Log(math.Cos(x)), also through a variable
 // holding the cosine: cos(x) = 1 - 2sin²(x/2) rounds to 1 for |x| below
 // 1.05e-8, where the logarithm is 0 instead of about -x²/2, and keeps only

@@ -81,3 +81,12 @@ func GrowthRate(x float64) float64 {
 	}
 	return x * math.Log(w) / d
 }
+
+// Stretch takes sec(t) - 1 only for |t| >= 0.5, where it loses under a
+// digit.
+func Stretch(t float64) float64 {
+	if math.Abs(t) < 0.5 {
+		return t * t / 2
+	}
+	return 1/math.Cos(t) - 1
+}

@@ -13,6 +13,7 @@ func main() {
 	fmt.Printf("log1p %.17g\n", math.Log(1+x))                         // want `math.Log\(1\+x\) returns 0`
 	fmt.Printf("expm1 %.17g\n", math.Exp(h)-1)                         // want `math.Exp\(x\)-1 with x = h returns 0`
 	fmt.Printf("cosm1 %.17g\n", 1-math.Cos(t))                         // want `1-math.Cos\(x\) with x = t returns 0`
+	fmt.Printf("secm1 %.17g\n", 1/math.Cos(t)-1)                       // want `1/math.Cos\(x\)-1 with x = t returns 0`
 	fmt.Printf("logcos %.17g\n", math.Log(math.Cos(t)))                // want `math.Log\(math.Cos\(x\)\) with x = t returns 0`
 	fmt.Printf("hypot %.17g\n", math.Sqrt(big*big+big*big))            // want `math.Sqrt\(x\*x\+y\*y\) with x = big, y = big overflows`
 	fmt.Printf("logsumexp %.17g\n", math.Log(math.Exp(a)+math.Exp(a))) // want `math.Log\(math.Exp\(a\)\+math.Exp\(b\)\) with b = a overflows`

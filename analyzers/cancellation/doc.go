@@ -405,7 +405,9 @@
 // and its consumer is not seen. The squares rule is also silent for constants
 // and whole numbers, whose squares are exact, and for operands computed in
 // the function (c := z/r; 1 - c*c, also when the value last assigned to
-// c, or every value assigned to it, is computed): a computed c carries a
+// c, or every value assigned to it, is computed, or a constant whose
+// square is exact, as c = 1 on one branch, where both forms are exact):
+// a computed c carries a
 // rounding of its own, so 1 - c² has an absolute error of about 2u near |c| = 1 however it
 // is formed, and the factorisation gains only for exact inputs. Code in
 // _test.go files is not checked: a test's arguments come from its own

@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"math/big"
 	"slices"
 	"strings"
 
@@ -664,7 +665,7 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) || c.fixedLoss(a, b) {
 		return true // known, or whole numbers whose squares are exact
 	}
-	if c.computed(cur, a) || c.computed(cur, b) {
+	if c.computedOrSquare(cur, a) || c.computedOrSquare(cur, b) {
 		return true // the operand's own rounding error already costs what the factorisation would save
 	}
 	if x := a; c.isOne(a) || c.isOne(b) {
@@ -983,22 +984,41 @@ func (c *checker) awayFromZeroRange(cur inspector.Cursor, e ast.Expr) bool {
 // relative error of a rounding, so 1 - c*c has an absolute error of about
 // 2u near |c| = 1 however it is formed: (1-c)*(1+c) gains only for exact
 // inputs.
-func (c *checker) computed(cur inspector.Cursor, e ast.Expr) bool { return c.computedDepth(cur, e, 3) }
+func (c *checker) computed(cur inspector.Cursor, e ast.Expr) bool {
+	return c.computedDepth(cur, e, 3, nil)
+}
 
-func (c *checker) computedDepth(cur inspector.Cursor, e ast.Expr, depth int) bool {
+// computedOrSquare is computed, with a constant whose square is exact
+// (1.0, 0.5, 3) also accepted among the values a variable is given: on
+// that path a*a - b*b and (a-b)*(a+b) are both exact, so the
+// factorisation gains nothing there either (sa = 1 on one branch, a
+// computed sa on the other).
+func (c *checker) computedOrSquare(cur inspector.Cursor, e ast.Expr) bool {
+	return c.computedDepth(cur, e, 3, squareExact)
+}
+
+// squareExact reports whether the float64 square of the constant v is
+// exact.
+func squareExact(v constant.Value) bool {
+	f, _ := constant.Float64Val(constant.ToFloat(v))
+	exact := new(big.Float).SetPrec(106).SetFloat64(f)
+	return exact.Mul(exact, exact).Cmp(new(big.Float).SetFloat64(f*f)) == 0
+}
+
+func (c *checker) computedDepth(cur inspector.Cursor, e ast.Expr, depth int, exactSquare func(constant.Value) bool) bool {
 	e, _ = c.through(e)
 	switch e := e.(type) {
 	case *ast.BinaryExpr, *ast.CallExpr:
 		return !c.isConst(e)
 	case *ast.UnaryExpr:
-		return depth > 0 && c.computedDepth(cur, e.X, depth-1)
+		return depth > 0 && c.computedDepth(cur, e.X, depth-1, exactSquare)
 	case *ast.Ident:
 		if v, ok := c.pass.TypesInfo.Uses[e].(*types.Var); ok && depth > 0 {
 			if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
-				return c.computedDepth(rhs, rhs.Node().(ast.Expr), depth-1)
+				return c.computedDepth(rhs, rhs.Node().(ast.Expr), depth-1, exactSquare) || c.accepted(rhs.Node().(ast.Expr), exactSquare)
 			}
 		}
-		return depth > 0 && c.assignedComputed(e, depth-1)
+		return depth > 0 && c.assignedComputed(e, depth-1, exactSquare)
 	}
 	return false
 }
@@ -1006,7 +1026,7 @@ func (c *checker) computedDepth(cur inspector.Cursor, e ast.Expr, depth int) boo
 // assignedComputed reports whether the local variable id is assigned, and
 // every value assigned to it in its function is computed (ack = (at+1)*raz
 // in one place, ack = ... in another).
-func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
+func (c *checker) assignedComputed(id *ast.Ident, depth int, exactSquare func(constant.Value) bool) bool {
 	v, ok := c.pass.TypesInfo.Uses[id].(*types.Var)
 	if !ok || v.Parent() == nil || v.Parent() == c.pass.Pkg.Scope() {
 		return false
@@ -1026,7 +1046,7 @@ func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
 				if len(as.Rhs) != len(as.Lhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
 					return false
 				}
-				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computedDepth(a, as.Rhs[i], depth) {
+				if _, isIdent := ast.Unparen(as.Rhs[i]).(*ast.Ident); isIdent || !c.computedDepth(a, as.Rhs[i], depth, exactSquare) && !c.accepted(as.Rhs[i], exactSquare) {
 					return false
 				}
 				n++
@@ -1035,6 +1055,13 @@ func (c *checker) assignedComputed(id *ast.Ident, depth int) bool {
 		break
 	}
 	return n > 0
+}
+
+// accepted reports whether e is a constant that accept, if given, takes
+// for a computed value.
+func (c *checker) accepted(e ast.Expr, accept func(constant.Value) bool) bool {
+	v := c.pass.TypesInfo.Types[e].Value
+	return accept != nil && v != nil && v.Kind() != constant.Complex && accept(v)
 }
 
 // turnFraction reports whether x is built only from constants and whole

@@ -90,3 +90,16 @@ func Stretch(t float64) float64 {
 	}
 	return 1/math.Cos(t) - 1
 }
+
+// Reduced squares a sine ratio that is computed on one branch and exactly
+// 1 on the other: there both forms of 1 - s² are exact, and on the
+// computed branch s carries its own rounding, which (1-s)*(1+s) keeps.
+func Reduced(s0, sx, sy float64) float64 {
+	var s float64
+	if sy == 0 {
+		s = 1
+	} else {
+		s = s0 * sx / sy
+	}
+	return math.Sqrt(1 - s*s)
+}

@@ -55,7 +55,9 @@
 //     is for, and the deviations divided by it are of order 1, not 0
 //     (TestConstantSpread); the same when a three-way split by sign (v > 0, v < 0, then
 //     whatever follows, as an orientation test leaves collinear to its
-//     default) leaves the exact zero to the rest;
+//     default) leaves the exact zero to the rest, unless the rest only
+//     chooses among the signed branches' own outcomes by further keys (a
+//     lexicographic choice, whose ties any branch may take);
 //   - a tie test chained by else to an ordered test of the same pair (if
 //     c < best {...} else if c == best {...}, or best-c == 0) where one is
 //     a sum of two variable terms, the cost of a path: sums equal in exact

@@ -207,3 +207,41 @@ func edgeSign(x float64) int {
 }
 
 func callsEdge(a, b float64) int { return edgeSign(a / b) }
+
+// crate is a bin of a packing heuristic.
+type crate struct{ load, room float64 }
+
+func (k *crate) put(w float64) { k.load += w }
+
+// placeBy puts a parcel in the crate whose fill grows least, then the
+// emptier one, then the first: the zero case only chooses between the
+// same two placements by the next key, so a tie that rounding sends to a
+// signed branch gets a placement the tie-break could have given it.
+func placeBy(a, b *crate, w float64) {
+	if d := (a.load+w)/a.room - (b.load+w)/b.room; d < 0 {
+		a.put(w)
+		return
+	} else if d > 0 {
+		b.put(w)
+		return
+	}
+	if d := a.load - b.load; d <= 0 {
+		a.put(w)
+		return
+	}
+	b.put(w)
+}
+
+// placeOrSplit does something of its own in the zero case: it halves the
+// parcel, which only an exact tie of the two fills asks for.
+func placeOrSplit(a, b *crate, w float64) {
+	if d := (a.load+w)/a.room - (b.load+w)/b.room; d < 0 { // want `the tests d > 0 and d < 0 leave exact 0`
+		a.put(w)
+		return
+	} else if d > 0 {
+		b.put(w)
+		return
+	}
+	a.put(w / 2)
+	b.put(w / 2)
+}

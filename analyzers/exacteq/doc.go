@@ -97,6 +97,10 @@
 //     variable given the value: want: far with far := 43.88496325622251). Such a test pins the last bits
 //     of a computation, which change with the order of operations and with
 //     fused multiply-add, so it fails on other platforms;
+//   - in tests, two floats compared to a number of digits by truncating
+//     both to integers, int(a*d) == int(b*d): a result one rounding below
+//     a decimal grid point (1.4999999999999998 for 1.5) truncates a whole
+//     step lower (math.Round, or a tolerance, states the digits);
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
 //     such a function, as So(x, ShouldEqual, 2.9), unless it takes a third

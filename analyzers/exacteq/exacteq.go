@@ -48,6 +48,7 @@ const (
 	catWhole    = "whole"
 	catTie      = "tie"
 	catRoute    = "route"
+	catGrid     = "grid"
 )
 
 // checker holds what one run needs.
@@ -99,6 +100,7 @@ func run(pass *analysis.Pass) (any, error) {
 			switch n.Op {
 			case token.EQL, token.NEQ:
 				c.comparison(cur, n)
+				c.truncGrid(n)
 			case token.LSS, token.LEQ, token.GTR, token.GEQ:
 				c.orderedLoop(cur, n)
 				c.signSplit(cur, n)
@@ -121,7 +123,8 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	info := pass.TypesInfo
 	switch n := cur.Node().(type) {
 	case *ast.BinaryExpr:
-		return provenance.IsFloatComparison(info, n, true)
+		_, _, grid := truncatedScales(info, constval.DeclsOf(pass), pass.Fset, n)
+		return grid || provenance.IsFloatComparison(info, n, true)
 	case *ast.CaseClause:
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))

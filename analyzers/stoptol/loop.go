@@ -66,8 +66,8 @@ func readLoop(info *types.Info, stmt *ast.ForStmt, fn *function, rec *recursion)
 	l := &loop{function: fn, stmt: stmt, rec: rec, xvars: map[*types.Var]bool{}, steps: map[*types.Var]bool{}, stepped: map[*types.Var]bool{}}
 	l.changed = changedIn(info, stmt.Post, stmt.Body)
 	l.capOff = l.invariantOr(info)
-	if stmt.Cond != nil && l.capOff == nil {
-		l.exits = append(l.exits, stmt.Cond)
+	if tv := info.Types[stmt.Cond]; stmt.Cond != nil && l.capOff == nil && !(tv.Value != nil && constant.BoolVal(tv.Value)) {
+		l.exits = append(l.exits, stmt.Cond) // for true { ... } is for { ... }: a condition that never fails ends nothing
 	}
 	l.walk(info, stmt.Body, nil)
 	l.shrunk = tolerance.Shrunk(info, stmt.Cond, stmt.Post, stmt.Body)

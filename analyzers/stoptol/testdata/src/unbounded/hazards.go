@@ -379,3 +379,17 @@ func scanGrid(w []float64, n int, mark func(float64)) {
 		mark(x)
 	}
 }
+
+// trackBearing is written with for true, as code ported from C often is:
+// the condition never fails, so the loop is as unbounded as for { }.
+func trackBearing(y0, d float64) float64 {
+	y := y0
+	for true {
+		c := y
+		y = y0 + d*math.Sin(c)
+		if math.Abs(y-c) <= 5e-14 { // want `iteration may never end: its only exits are float tests \(math.Abs\(y-c\) <= 5e-14\)`
+			break
+		}
+	}
+	return y
+}

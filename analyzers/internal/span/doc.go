@@ -3,7 +3,8 @@
 // on interval analysis): constants; functions of bounded range (sine,
 // cosine, tanh, erf between -1 and 1, atan within ±π/2) and monotone ones
 // (sqrt, exp, log, a constant base to a power); sums, differences,
-// products, quotients by ranges that exclude 0, and squares of one value;
+// products, quotients by ranges that exclude 0 (and, by a divisor that
+// may be 0, the sign of the quotient), and squares of one value;
 // variables never reassigned, through their values; the conditions under
 // which the code runs, on such variables (the branches of an if, a case
 // of a tagless switch and the failed ones before it, and the if chains

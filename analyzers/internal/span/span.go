@@ -230,7 +230,7 @@ func arith(op token.Token, x, y Interval) Interval {
 		r.Away = math.Max(r.Away, xlo*ylo) // |x·y| ≥ |x|·|y| at their smallest
 		return r
 	case token.QUO:
-		r := all
+		r := signs(x, y) // a divisor that may be 0 still leaves the sign
 		if y.Lo > 0 || y.Hi < 0 {
 			r = hull(x.Lo/y.Lo, x.Lo/y.Hi, x.Hi/y.Lo, x.Hi/y.Hi)
 		}
@@ -241,6 +241,19 @@ func arith(op token.Token, x, y Interval) Interval {
 			r = r.meet(Interval{Lo: -xhi / ylo, Hi: xhi / ylo}) // |x/y| ≤ max|x| / min|y|
 		}
 		return r
+	}
+	return all
+}
+
+// signs returns what the signs of x and y alone say of x/y: a quotient of
+// two values of known sign has the sign of their product, whatever their
+// sizes (0/0 is NaN, left aside).
+func signs(x, y Interval) Interval {
+	switch {
+	case x.Lo >= 0 && y.Lo >= 0, x.Hi <= 0 && y.Hi <= 0:
+		return Interval{Lo: 0, Hi: math.Inf(1)}
+	case x.Lo >= 0 && y.Hi <= 0, x.Hi <= 0 && y.Lo >= 0:
+		return Interval{Lo: math.Inf(-1), Hi: 0}
 	}
 	return all
 }

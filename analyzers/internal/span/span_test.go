@@ -95,6 +95,14 @@ func built(t float64) {
 	probe(t - math.Floor(t)) // [0, 1]
 }
 
+func ratio(x, nu float64) {
+	if x <= 0 || nu <= 0 {
+		return
+	}
+	z := x / nu
+	probe(z) // [0, +Inf]: a quotient of positives
+}
+
 func gone(x float64) {
 	if x < 0 {
 		goto out
@@ -116,6 +124,7 @@ func TestRanges(t *testing.T) {
 		{Lo: 0, Hi: math.Pow(2, -15)},
 		{Lo: -inf, Hi: inf}, {Lo: 2, Hi: inf, Away: 2}, {Lo: 0, Hi: 0.5}, {Lo: -inf, Hi: inf},
 		{Lo: 3, Hi: 4, Away: 3}, {Lo: 0, Hi: 1},
+		{Lo: 0, Hi: inf},
 		{Lo: -inf, Hi: inf},
 	}
 	fset := token.NewFileSet()

@@ -103,3 +103,21 @@ func Reduced(s0, sx, sy float64) float64 {
 	}
 	return math.Sqrt(1 - s*s)
 }
+
+// olverTerm is called only with z = x/nu for positive x and nu, so z is
+// not negative, and its branch keeps z below 0.98: 1 - z² is at least
+// 0.0396, a loss of 1.4 digits at most.
+func olverTerm(z float64) float64 {
+	if z < 0.98 {
+		return 1 / math.Sqrt(1-z*z)
+	}
+	return 0
+}
+
+func Zone(x, nu float64) float64 {
+	if x <= 0 || nu <= 0 {
+		return 0
+	}
+	z := x / nu
+	return olverTerm(z)
+}

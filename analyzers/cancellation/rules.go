@@ -134,90 +134,75 @@ func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallE
 // so the difference keeps only the rounding error of the cosine, losing
 // about log10(2/x²) digits: at most two where |x| ≥ sqrt(2/boundedLoss).
 func (c *checker) cosine(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
-	x := call.Args[0]
-	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
-		return
-	}
-	q := qualifier(call)
-	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
-	text := "2*" + q + ".Sin(" + half + ")*" + q + ".Sin(" + half + ")"
-	form, use := "1-math.Cos(x)", "2*math.Sin(x/2)*math.Sin(x/2)"
+	f := halfAngle{form: "1-math.Cos(x)", use: "2*math.Sin(x/2)*math.Sin(x/2)", fix: func(_, sq string) string { return sq }, safe: true}
 	if !oneFirst {
-		text, form, use = "-"+text, "math.Cos(x)-1", "-2*math.Sin(x/2)*math.Sin(x/2)"
+		f = halfAngle{form: "math.Cos(x)-1", use: "-2*math.Sin(x/2)*math.Sin(x/2)", fix: func(_, sq string) string { return "-" + sq }, safe: true}
 	}
-	d := analysis.Diagnostic{
-		Pos: n.Pos(), End: n.End(), Category: catCosine,
-		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
-			form, binding("x", x), cosFlat, use),
-	}
-	if indirect || !fixes.Pure(c.pass.TypesInfo, x) {
-		fixes.Report(c.pass, d) // stored first (x may have changed since), or the fix would evaluate x twice
-		return
-	}
-	fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(n, text)))
+	c.cosineLoss(cur, n, call, indirect, f)
 }
 
 // secant reports 1/math.Cos(x) - 1 and 1 - 1/math.Cos(x): sec x is
 // 1 + x²/2 near 0, and the difference keeps only the rounding of the
-// quotient, losing about 2·log10(1/|x|) digits like 1 - cos x;
+// quotient, losing digits as 1 - cos x does;
 // 2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x) is the same quantity without
 // a subtraction.
 func (c *checker) secant(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
-	x := call.Args[0]
-	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
-		return
-	}
-	q := qualifier(call)
-	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
-	text := "2*" + q + ".Sin(" + half + ")*" + q + ".Sin(" + half + ")/" + q + ".Cos(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ")"
-	form, use := "1/math.Cos(x)-1", "2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)"
+	x := fixes.Source(c.pass.Fset, ast.Unparen(call.Args[0]))
+	f := halfAngle{form: "1/math.Cos(x)-1", use: "2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)", fix: func(q, sq string) string { return sq + "/" + q + ".Cos(" + x + ")" }}
 	if oneFirst {
-		text, form, use = "-"+text, "1-1/math.Cos(x)", "-2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)"
+		f = halfAngle{form: "1-1/math.Cos(x)", use: "-2*math.Sin(x/2)*math.Sin(x/2)/math.Cos(x)", fix: func(q, sq string) string { return "-" + sq + "/" + q + ".Cos(" + x + ")" }}
 	}
-	d := analysis.Diagnostic{
-		Pos: n.Pos(), End: n.End(), Category: catCosine,
-		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
-			form, binding("x", x), cosFlat, use),
-	}
-	if indirect || !fixes.Pure(c.pass.TypesInfo, x) {
-		fixes.Report(c.pass, d) // stored first (x may have changed since), or the fix would evaluate x twice
-		return
-	}
-	// Needs review: far from 0 both forms round about equally, in different
-	// last bits.
-	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+	c.cosineLoss(cur, n, call, indirect, f)
 }
 
 // logCosine reports math.Log(math.Cos(x)), also through a variable
-// holding the cosine: cos(x) = 1 - 2sin²(x/2) rounds to 1 for |x| below
-// 1.05e-8, where the logarithm is 0 instead of about -x²/2, and keeps only
-// the cosine's rounding beyond that, losing about 2·log10(1/|x|) digits;
-// math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2)) keeps them.
+// holding the cosine: the logarithm is 0 where the cosine rounds to 1
+// instead of about -x²/2, and keeps only the cosine's rounding beyond
+// that; math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2)) keeps the digits.
 func (c *checker) logCosine(cur inspector.Cursor, call *ast.CallExpr) {
 	arg, indirect := c.through(call.Args[0])
 	cos, ok := arg.(*ast.CallExpr)
 	if !ok || c.mathFunc(cos) != "Cos" {
 		return
 	}
+	c.cosineLoss(cur, call, cos, indirect, halfAngle{form: "math.Log(math.Cos(x))", use: "math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2))", fix: func(q, sq string) string { return q + ".Log1p(-" + sq + ")" }})
+}
+
+// halfAngle is a form that holds 1 - cos(x) in disguise, and its
+// accurate rewriting through the square 2*sin(x/2)*sin(x/2).
+type halfAngle struct {
+	form, use string                        // as written and as it should be, for the message
+	fix       func(q, square string) string // the rewriting, from the math package's name and the square
+	safe      bool                          // the rewriting keeps behaviour (else it needs review)
+}
+
+// cosineLoss reports node, a form f of the cosine cos: cos(x) rounds to 1
+// for |x| below 1.05e-8, and the form keeps only its rounding, losing
+// about 2·log10(1/|x|) digits, at most two where |x| ≥ sqrt(2/boundedLoss).
+func (c *checker) cosineLoss(cur inspector.Cursor, node ast.Node, cos *ast.CallExpr, indirect bool, f halfAngle) {
 	x := cos.Args[0]
 	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
 		return
 	}
-	q := qualifier(call)
-	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
-	text := q + ".Log1p(-2*" + q + ".Sin(" + half + ")*" + q + ".Sin(" + half + "))"
 	d := analysis.Diagnostic{
-		Pos: call.Pos(), End: call.End(), Category: catCosine,
-		Message: fmt.Sprintf("math.Log(math.Cos(x))%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2))",
-			binding("x", x), cosFlat),
+		Pos: node.Pos(), End: node.End(), Category: catCosine,
+		Message: fmt.Sprintf("%s%s returns 0 for |x| below %.3g, where math.Cos(x) rounds to 1, and loses about 2·log10(1/|x|) digits for small x; use %s",
+			f.form, binding("x", x), cosFlat, f.use),
 	}
 	if indirect || !fixes.Pure(c.pass.TypesInfo, x) {
 		fixes.Report(c.pass, d) // stored first (x may have changed since), or the fix would evaluate x twice
 		return
 	}
+	q := qualifier(cos)
+	half := fixes.Operand(c.pass.Fset, x, token.MUL.Precedence()) + "/2"
+	text := f.fix(q, "2*"+q+".Sin("+half+")*"+q+".Sin("+half+")")
+	if f.safe {
+		fixes.Report(c.pass, d, fixes.Safe("Replace with "+text, fixes.Replace(node, text)))
+		return
+	}
 	// Needs review: far from 0 both forms round about equally, in different
 	// last bits.
-	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(call, text)))
+	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(node, text)))
 }
 
 // hypot reports math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z): the

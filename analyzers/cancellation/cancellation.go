@@ -328,16 +328,23 @@ func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
 }
 
 // dividedByFactor reports whether the value at cur, carried through
-// products, signs and parentheses, is divided by a factor of x: log(1+a·m)/a
-// and (exp(a·m)-1)/a tend to m as a shrinks, so the term is not small
-// while its rounding error, about u/|a|, grows: a sum does not hide it.
+// products, signs and parentheses, is divided by a factor of x, or by a
+// function that vanishes like it (sin, tan, their inverses and hyperbolic
+// kin, expm1, log1p of a factor, also held in a variable): log(1+a·m)/a,
+// (exp(a·m)-1)/a and log(cos x)/tan(x) stay of the size of m or x as a or
+// x shrinks, so the term is not small while its rounding error, about
+// u/|a|, grows: a sum does not hide it.
 func (c *checker) dividedByFactor(cur inspector.Cursor, x ast.Expr) bool {
 	for ; ; cur = cur.Parent() {
 		switch p := cur.Parent().Node().(type) {
 		case *ast.ParenExpr, *ast.UnaryExpr:
 		case *ast.BinaryExpr:
 			if p.Op == token.QUO && p.X == cur.Node() {
-				return slices.ContainsFunc(factorsOf(x), func(f ast.Expr) bool { return same(f, p.Y) && !c.isConst(f) })
+				by, _ := c.through(p.Y)
+				if call, ok := by.(*ast.CallExpr); ok && vanishesLinearly[c.mathFunc(call)] {
+					by = call.Args[0] // tan(x) ~ x near 0
+				}
+				return slices.ContainsFunc(factorsOf(x), func(f ast.Expr) bool { return (same(f, p.Y) || same(f, by)) && !c.isConst(f) })
 			}
 			if p.Op != token.MUL {
 				return false
@@ -347,6 +354,10 @@ func (c *checker) dividedByFactor(cur inspector.Cursor, x ast.Expr) bool {
 		}
 	}
 }
+
+// vanishesLinearly lists the math functions f with f(0) = 0 and f'(0) ≠ 0:
+// near 0 they are proportional to their argument.
+var vanishesLinearly = map[string]bool{"Sin": true, "Tan": true, "Sinh": true, "Tanh": true, "Asin": true, "Atan": true, "Asinh": true, "Atanh": true, "Expm1": true, "Log1p": true}
 
 // factorsOf returns the factors of a product e (a*b*c: a, b, c).
 func factorsOf(e ast.Expr) []ast.Expr {

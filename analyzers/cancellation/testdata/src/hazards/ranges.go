@@ -51,3 +51,11 @@ func Mercator(e, sinphi float64) float64 {
 	div := 1 + c
 	return math.Log((1 - c) / div) // want `math.Log\(\(1\+x\)/\(1-x\)\) with x = c returns 0`
 }
+
+// Krho divides the log of a cosine by the tangent of the same small
+// angle: log(cos p)/tan(p) is about -p/2, not small beside t*cb, while
+// its rounding error grows as u/p, so the sum does not hide it.
+func Krho(p, cb float64) float64 {
+	t := math.Tan(p)
+	return -2 * (math.Log(math.Cos(p))/t + t*cb) // want `math.Log\(math.Cos\(x\)\) with x = p returns 0`
+}

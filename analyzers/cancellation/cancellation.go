@@ -67,6 +67,8 @@ const (
 var (
 	unitRoundoff  = numeric.Float64.U
 	cosFlat       = math.Sqrt(numeric.Float64.U)
+	halfDigits    = cosFlat                   // |x| from which log(1+x), e^x - 1 and kin keep half their digits
+	cosHalfDigits = math.Sqrt(2 * halfDigits) // the same for 1 - cos x, about x²/2
 	squareMax     = math.Sqrt(math.MaxFloat64)
 	squareNormal  = math.Sqrt(0x1p-1022)
 	expOverflow   = math.Log(math.MaxFloat64)
@@ -317,14 +319,22 @@ func (c *checker) wholeNumber(e ast.Expr) bool {
 
 // lossShows reports whether the digits that the expression at cur loses
 // when its argument x is small can reach a result: x may be small (it is
-// not a constant, a whole number or a uniform random draw, and no
-// enclosing condition keeps it away from zero), and the value is not added
+// not a constant, a whole number or a uniform random draw; its range, by
+// construction, conditions or calls, does not keep |x| at or above least,
+// the size from which the form loses at most two digits (boundedAway;
+// none for least 0, where the rule judges the range itself); and no
+// enclosing condition splits the range at split or above, or at a
+// threshold held in a variable: an author who handles small x apart has
+// judged the loss above the split, but not one that leaves more than half
+// the digits to it, as a split at 1e-10 before 1 - cos x does, where the
+// cosine rounds to 1), and the value is not added
 // to another term, which hides a relative error in a small value, nor only
 // the slope of a Newton update of x (newtonSlope), which the root does not
 // depend on.
-func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr) bool {
+func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr, least, split float64) bool {
 	return !c.isConst(x) && !c.wholeNumber(x) && !c.uniformDraw(cur, x) &&
-		(!c.addend(cur, 2) || c.dividedByFactor(cur, x)) && !c.guarded(cur, x, c.awayFromZero) && !c.newtonSlope(cur, x) && !consume.Threshold(c.pass.TypesInfo, cur)
+		(!c.addend(cur, 2) || c.dividedByFactor(cur, x)) && !c.guarded(cur, x, c.awayBy(split)) && !(least > 0 && c.boundedAway(cur, x, least)) &&
+		!c.newtonSlope(cur, x) && !consume.Threshold(c.pass.TypesInfo, cur)
 }
 
 // dividedByFactor reports whether the value at cur, carried through

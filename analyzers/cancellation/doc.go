@@ -315,7 +315,10 @@
 // x > 0.5, a case math.Abs(x) > t, the code after an early return taken
 // when math.Abs(x) < 1e-5, or after a chain if s < 1 { return ... } else
 // if s <= 20 { return ... } every branch of which returns, past which
-// s > 20), nor, for log(1 ± x) and exp(x) - 1, which
+// s > 20; a split at a constant counts where the form keeps at least
+// half its digits beyond it, |x| ≥ sqrt(u) ≈ 1.05e-8, or 1.45e-4 for the
+// forms of 1 - cos x: a split at 1e-10 before math.Log(math.Cos(x))
+// leaves x where the cosine still rounds to 1), nor, for log(1 ± x) and exp(x) - 1, which
 // lose about log10(1/|x|) digits, its range keeps |x| at
 // least 0.01 (two digits at most: the golden-section ratio (3 -
 // math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); the same holds for

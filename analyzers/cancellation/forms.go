@@ -57,7 +57,7 @@ func (c *checker) powAway(cur inspector.Cursor, a, b ast.Expr) bool {
 // only the rounding error of the power.
 func (c *checker) powm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	a, b := call.Args[0], call.Args[1]
-	if c.isConst(b) || !c.lossShows(cur, b) || c.powAway(cur, a, b) {
+	if c.isConst(b) || !c.lossShows(cur, b, 0, 0) || c.powAway(cur, a, b) {
 		return // a fixed power (x^2-1 is a difference of squares), or a value far from 1
 	}
 	if _, _, onePlus := c.onePlus(a); !onePlus && (c.computed(cur, a) || c.counts(b)) {
@@ -874,7 +874,7 @@ func (c *checker) atanh(cur inspector.Cursor, call *ast.CallExpr) bool {
 	if !okx || !oky || neg == negy || !same(x, y) {
 		return false
 	}
-	if !c.lossShows(cur, x) || c.boundedAway(cur, x, 1.0/boundedLoss) {
+	if !c.lossShows(cur, x, 1.0/boundedLoss, halfDigits) {
 		return true
 	}
 	text := "2*" + qualifier(call) + ".Atanh(" + fixes.Source(c.pass.Fset, ast.Unparen(x)) + ")"

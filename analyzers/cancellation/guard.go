@@ -31,12 +31,17 @@ func (c *checker) guarded(cur inspector.Cursor, x ast.Expr, ok bound) bool {
 	return false
 }
 
-// awayFromZero is the bound for the small-argument rules: cond (or its
-// negation) keeps x at least some distance from zero, as in
-// x < -0.5 || x > 0.5, math.Abs(x) > tiny, or the negation of
-// math.Abs(x) < 1e-5. A constant factor or a sign of x is looked through.
-func (c *checker) awayFromZero(cond ast.Expr, negated bool, x ast.Expr) bool {
-	return c.clauses(cond, negated, c.core(x), c.comparisonAway)
+// awayBy returns the bound for the small-argument rules: cond (or its
+// negation) keeps x at least least from zero, as x < -0.5 || x > 0.5 or
+// the negation of math.Abs(x) < 1e-5 do for least = 1.05e-8, or above a
+// threshold held in a variable (|x| > t: the author split the range). A
+// constant factor or a sign of x is looked through.
+func (c *checker) awayBy(least float64) bound {
+	return func(cond ast.Expr, negated bool, x ast.Expr) bool {
+		return c.clauses(cond, negated, c.core(x), func(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+			return c.comparisonAway(e, negated, x, least)
+		})
+	}
 }
 
 // clauses reads cond, negated when asked, as a combination of comparisons
@@ -74,8 +79,8 @@ func (c *checker) oriented(e *ast.BinaryExpr, negated bool, x ast.Expr) (op toke
 }
 
 // comparisonAway reports whether the comparison e (negated when asked)
-// keeps x away from zero.
-func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bool {
+// keeps x at least least from zero.
+func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr, least float64) bool {
 	op, abs, rhs, ok := c.oriented(e, negated, x)
 	if !ok {
 		return false
@@ -88,12 +93,12 @@ func (c *checker) comparisonAway(e *ast.BinaryExpr, negated bool, x ast.Expr) bo
 	if v.Kind() != constant.Int && v.Kind() != constant.Float {
 		return false
 	}
-	sign := constant.Sign(v)
+	k, _ := constant.Float64Val(constant.ToFloat(v))
 	switch op {
 	case token.GTR, token.GEQ:
-		return sign > 0
+		return k >= least && k > 0
 	case token.LSS, token.LEQ:
-		return sign < 0 && !abs
+		return k <= -least && k < 0 && !abs
 	}
 	return false
 }

@@ -121,7 +121,7 @@ func (c *checker) isParam(call *ast.CallExpr, e ast.Expr) bool {
 // the rounded 1-p is the result's; the sum hides nothing. p must not be a
 // constant nor kept away from 0 by an enclosing condition.
 func (c *checker) failureTerm(cur inspector.Cursor, name string, p ast.Expr) bool {
-	if c.isConst(p) || c.guarded(cur, p, c.awayFromZero) {
+	if c.isConst(p) || c.guarded(cur, p, c.awayBy(halfDigits)) {
 		return false
 	}
 	term, ok := cur.Parent().Node().(*ast.BinaryExpr)

@@ -29,7 +29,7 @@ func (c *checker) log1p(cur inspector.Cursor, call *ast.CallExpr, name string) {
 		c.softplus(cur, call, e.Args[0])
 		return
 	}
-	if !c.lossShows(cur, x) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(cur, x, 1.0/boundedLoss) || c.roundedBack(cur, call.Args[0]) {
+	if !c.lossShows(cur, x, 1.0/boundedLoss, halfDigits) && !(neg && c.failureTerm(cur, name, x)) || c.boundedAway(cur, x, 1.0/boundedLoss) || c.roundedBack(cur, call.Args[0]) {
 		return
 	}
 	form, arg, use := "1+x", fixes.Source(c.pass.Fset, ast.Unparen(x)), "math.Log1p(x)"
@@ -107,7 +107,7 @@ func negate(c *checker, x ast.Expr) string {
 // small x, and the subtraction leaves only its rounding error.
 func (c *checker) expm1(cur inspector.Cursor, n *ast.BinaryExpr, call *ast.CallExpr, oneFirst, indirect bool) {
 	x := call.Args[0]
-	if !c.lossShows(cur, x) || c.boundedAway(cur, x, 1.0/boundedLoss) {
+	if !c.lossShows(cur, x, 1.0/boundedLoss, halfDigits) {
 		return
 	}
 	text, form, use := qualifier(call)+".Expm1("+fixes.Source(c.pass.Fset, ast.Unparen(x))+")", "math.Exp(x)-1", "math.Expm1(x)"
@@ -181,7 +181,7 @@ type halfAngle struct {
 // about 2·log10(1/|x|) digits, at most two where |x| ≥ sqrt(2/boundedLoss).
 func (c *checker) cosineLoss(cur inspector.Cursor, node ast.Node, cos *ast.CallExpr, indirect bool, f halfAngle) {
 	x := cos.Args[0]
-	if !c.lossShows(cur, x) || c.turnFraction(x, 4) || c.boundedAway(cur, x, math.Sqrt(2.0/boundedLoss)) {
+	if !c.lossShows(cur, x, math.Sqrt(2.0/boundedLoss), cosHalfDigits) || c.turnFraction(x, 4) {
 		return
 	}
 	d := analysis.Diagnostic{

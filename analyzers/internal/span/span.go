@@ -451,7 +451,7 @@ func (r *Reader) compare(e *ast.BinaryExpr, holds bool, v *types.Var, depth int)
 	if abs {
 		return Interval{-got.Hi, got.Hi, math.Max(got.Lo, 0)} // |v| above a bound: v on either side of 0
 	}
-	return got
+	return spread(got.Lo, got.Hi)
 }
 
 // form reports whether e is v, |v| (abs) or v*v (abs and sq).

@@ -7,7 +7,8 @@
 // may be 0, the sign of the quotient), and squares of one value;
 // variables never reassigned, through their values; the conditions under
 // which the code runs, on such variables (the branches of an if, a case
-// of a tagless switch and the failed ones before it, and the if chains
+// of a tagless switch and the failed ones before it, unless a case before
+// it falls through, and the if chains
 // earlier in a block every branch of which returns, breaks or continues:
 // past them none of their conditions held); and, for a parameter of an
 // unexported function used only by direct calls and never assigned, the

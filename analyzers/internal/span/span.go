@@ -362,17 +362,26 @@ func caseConditions(clause inspector.Cursor, yield func(ast.Expr, bool) bool) bo
 	if !ok || sw.Tag != nil || sw.Init != nil {
 		return true
 	}
+	var conds []ast.Expr
 	for _, s := range sw.Body.List {
 		cc := s.(*ast.CaseClause)
 		if len(cc.List) != 1 {
 			return true // a default, or a list of cases
 		}
 		if cc == clause.Node() {
+			for _, c := range conds {
+				if !yield(c, false) {
+					return false
+				}
+			}
 			return yield(cc.List[0], true)
 		}
-		if !yield(cc.List[0], false) {
-			return false
+		if n := len(cc.Body); n > 0 {
+			if b, ok := cc.Body[n-1].(*ast.BranchStmt); ok && b.Tok == token.FALLTHROUGH {
+				return true // the next case may be entered from this one, whose test held
+			}
 		}
+		conds = append(conds, cc.List[0])
 	}
 	return true
 }

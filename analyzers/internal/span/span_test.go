@@ -103,6 +103,15 @@ func ratio(x, nu float64) {
 	probe(z) // [0, +Inf]: a quotient of positives
 }
 
+func through(n int) {
+	switch {
+	case n < 0:
+		fallthrough
+	case n < 4:
+		probe(float64(n)) // nothing: entered from the case before too
+	}
+}
+
 func gone(x float64) {
 	if x < 0 {
 		goto out
@@ -125,6 +134,7 @@ func TestRanges(t *testing.T) {
 		{Lo: -inf, Hi: inf}, {Lo: 2, Hi: inf, Away: 2}, {Lo: 0, Hi: 0.5}, {Lo: -inf, Hi: inf},
 		{Lo: 3, Hi: 4, Away: 3}, {Lo: 0, Hi: 1},
 		{Lo: 0, Hi: inf},
+		{Lo: -inf, Hi: inf},
 		{Lo: -inf, Hi: inf},
 	}
 	fset := token.NewFileSet()

@@ -56,7 +56,9 @@
 //     holds with neither a floor on the step nor a cap (category
 //     backtrack);
 //   - any other loop with no cap (for { }, or for true { } as ported code
-//     writes it: a condition that never fails ends nothing) whose only exits are float tests on values
+//     writes it: a condition that never fails ends nothing) whose only
+//     exits are float tests (a three-way comparator of floats tested
+//     against 0, cmp(x, p, tol) != 0, is one: its 0 says the two agree) on values
 //     it carries from pass to pass by float work (category nocap): an
 //     iteration that stalls, oscillates or diverges keeps it running, and
 //     so does a NaN when every exit is false for NaN (d < tol breaks; d >

@@ -101,6 +101,8 @@ func run(pass *analysis.Pass) (any, error) {
 		if n, ok := cur.Node().(*ast.BinaryExpr); ok && provenance.IsFloatComparison(pass.TypesInfo, n, false) {
 			floatTests = append(floatTests, n.OpPos)
 			c.gradient(cur, n)
+		} else if ok && tolerance.Comparator(pass.TypesInfo, n) {
+			floatTests = append(floatTests, n.OpPos)
 		} else if n, ok := cur.Node().(*ast.CallExpr); ok && isFloatPredicate(pass.TypesInfo, n) {
 			floatTests = append(floatTests, n.Lparen)
 		}

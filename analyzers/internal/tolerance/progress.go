@@ -237,13 +237,54 @@ func Flags(info *types.Info, n ast.Node) map[*types.Var][]ast.Expr {
 		}
 		for i, lhs := range as.Lhs {
 			v := VarOf(info, lhs)
-			if b, ok := ast.Unparen(as.Rhs[i]).(*ast.BinaryExpr); ok && v != nil && isBool(v.Type()) && b.Op != token.EQL && b.Op != token.NEQ {
+			if b, ok := ast.Unparen(as.Rhs[i]).(*ast.BinaryExpr); ok && v != nil && isBool(v.Type()) && (b.Op != token.EQL && b.Op != token.NEQ || Comparator(info, b)) {
 				out[v] = append(out[v], b)
 			}
 		}
 		return true
 	})
 	return out
+}
+
+// Comparator reports whether e compares with 0 the integer result of a
+// call with two or more float operands (the receiver included), as
+// cmp(x, p, tol) != 0 does with a three-way comparison of x and p within
+// a tolerance: 0 says they are equal to it, so the test is a float test
+// whatever integer carries it.
+func Comparator(info *types.Info, e *ast.BinaryExpr) bool {
+	if e.Op != token.EQL && e.Op != token.NEQ {
+		return false
+	}
+	for _, pair := range [][2]ast.Expr{{e.X, e.Y}, {e.Y, e.X}} {
+		call, isCall := ast.Unparen(pair[0]).(*ast.CallExpr)
+		zero := info.Types[pair[1]].Value
+		if !isCall || zero == nil || zero.Kind() != constant.Int || constant.Sign(zero) != 0 || !basicIs(info.TypeOf(call), types.IsInteger) {
+			continue
+		}
+		args := call.Args
+		if sel, ok := ast.Unparen(call.Fun).(*ast.SelectorExpr); ok && info.Selections[sel] != nil {
+			args = append([]ast.Expr{sel.X}, args...)
+		}
+		n := 0
+		for _, a := range args {
+			if basicIs(info.TypeOf(a), types.IsFloat) {
+				n++
+			}
+		}
+		if n >= 2 {
+			return true
+		}
+	}
+	return false
+}
+
+// basicIs reports whether t is a basic type of the kind info says.
+func basicIs(t types.Type, info types.BasicInfo) bool {
+	if t == nil {
+		return false
+	}
+	b, ok := t.Underlying().(*types.Basic)
+	return ok && b.Info()&info != 0
 }
 
 // VarOf returns the variable (not a field) an expression names, or nil.

@@ -393,3 +393,28 @@ func trackBearing(y0, d float64) float64 {
 	}
 	return y
 }
+
+// compare is a three-way comparison within a relative tolerance: 0 when
+// x and y agree to rel of the larger.
+func compare(x, y, rel float64) int {
+	d := x - y
+	scale := rel * math.Max(math.Abs(x), math.Abs(y))
+	switch {
+	case d > scale:
+		return 1
+	case d < -scale:
+		return -1
+	}
+	return 0
+}
+
+// settleLevel repeats a damped map until two passes compare equal through
+// the comparator: its zero is a float test, and nothing caps the passes.
+func settleLevel(y float64) float64 {
+	p, prev := 1.0, 0.0
+	for ok := true; ok; ok = compare(prev, p, 1e-12) != 0 { // want `iteration may never end: its only exits are float tests \(ok\)`
+		prev = p
+		p = y * math.Cos(p)
+	}
+	return p
+}

@@ -325,3 +325,13 @@ func rows(y0, y1, spacing float64, mark func(float64)) {
 	}
 	fill()
 }
+
+// settleCapped stops on the comparator or after 100 passes.
+func settleCapped(y float64) float64 {
+	p, prev := 1.0, 0.0
+	for i := 0; i < 100 && compare(prev, p, 1e-12) != 0; i++ {
+		prev = p
+		p = y * math.Cos(p)
+	}
+	return p
+}

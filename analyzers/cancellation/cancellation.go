@@ -340,7 +340,8 @@ func (c *checker) lossShows(cur inspector.Cursor, x ast.Expr, least, split float
 // dividedByFactor reports whether the value at cur, carried through
 // products, signs and parentheses, is divided by a factor of x, or by a
 // function that vanishes like it (sin, tan, their inverses and hyperbolic
-// kin, expm1, log1p of a factor, also held in a variable): log(1+a·m)/a,
+// kin, expm1, log1p of a factor, also held in a variable, as last
+// assigned before the division): log(1+a·m)/a,
 // (exp(a·m)-1)/a and log(cos x)/tan(x) stay of the size of m or x as a or
 // x shrinks, so the term is not small while its rounding error, about
 // u/|a|, grows: a sum does not hide it.
@@ -351,6 +352,13 @@ func (c *checker) dividedByFactor(cur inspector.Cursor, x ast.Expr) bool {
 		case *ast.BinaryExpr:
 			if p.Op == token.QUO && p.X == cur.Node() {
 				by, _ := c.through(p.Y)
+				if id, ok := by.(*ast.Ident); ok {
+					if v, ok := c.pass.TypesInfo.Uses[id].(*types.Var); ok {
+						if rhs, ok := consume.Reaching(c.pass.TypesInfo, cur, v); ok {
+							by = ast.Unparen(rhs.Node().(ast.Expr)) // t = math.Tan(x) last before the division
+						}
+					}
+				}
 				if call, ok := by.(*ast.CallExpr); ok && vanishesLinearly[c.mathFunc(call)] {
 					by = call.Args[0] // tan(x) ~ x near 0
 				}

@@ -70,3 +70,11 @@ func Tilt(beta float64) float64 {
 	c := 1 / math.Tan(beta)
 	return c * c * math.Log(math.Cos(beta)) // want `math.Log\(math.Cos\(x\)\) with x = beta returns 0`
 }
+
+// KrhoLate is Krho with the tangent assigned after its declaration: the
+// division reads the value last assigned before it.
+func KrhoLate(p, cb float64) float64 {
+	var t float64
+	t = math.Tan(p)
+	return -2 * (math.Log(math.Cos(p))/t + t*cb) // want `math.Log\(math.Cos\(x\)\) with x = p returns 0`
+}

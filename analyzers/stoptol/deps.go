@@ -176,7 +176,7 @@ func (d *deps) floatTest(e ast.Expr) bool {
 		}
 		return provenance.IsFloat(d.info.TypeOf(e.X)) && provenance.IsFloat(d.info.TypeOf(e.Y))
 	case *ast.CallExpr:
-		return isBoolType(d.info.TypeOf(e)) && floatOperands(d.info, e) >= 2 // a state machine's step (for d.Step()) is no float test
+		return isBoolType(d.info.TypeOf(e)) && tolerance.CountOperands(d.info, e, holdsFloats) >= 2 // two values, or a value and a threshold: a state machine's step (for d.Step()) is no float test
 	case *ast.Ident:
 		v := tolerance.VarOf(d.info, e)
 		if fs := d.l.flags[v]; v != nil && len(fs) > 0 {
@@ -194,23 +194,6 @@ func (d *deps) floatTest(e ast.Expr) bool {
 		}
 	}
 	return false
-}
-
-// floatOperands counts the operands of call that hold floats, the
-// receiver included: a test compares two values, or a value with a
-// threshold.
-func floatOperands(info *types.Info, call *ast.CallExpr) int {
-	args := call.Args
-	if sel, ok := ast.Unparen(call.Fun).(*ast.SelectorExpr); ok && info.Selections[sel] != nil {
-		args = append([]ast.Expr{sel.X}, args...)
-	}
-	n := 0
-	for _, a := range args {
-		if holdsFloats(info.TypeOf(a)) {
-			n++
-		}
-	}
-	return n
 }
 
 // onNaN evaluates e with NaN in every float comparison: ordered and ==

@@ -261,21 +261,27 @@ func Comparator(info *types.Info, e *ast.BinaryExpr) bool {
 		if !isCall || zero == nil || zero.Kind() != constant.Int || constant.Sign(zero) != 0 || !basicIs(info.TypeOf(call), types.IsInteger) {
 			continue
 		}
-		args := call.Args
-		if sel, ok := ast.Unparen(call.Fun).(*ast.SelectorExpr); ok && info.Selections[sel] != nil {
-			args = append([]ast.Expr{sel.X}, args...)
-		}
-		n := 0
-		for _, a := range args {
-			if basicIs(info.TypeOf(a), types.IsFloat) {
-				n++
-			}
-		}
-		if n >= 2 {
+		if CountOperands(info, call, func(t types.Type) bool { return basicIs(t, types.IsFloat) }) >= 2 {
 			return true
 		}
 	}
 	return false
+}
+
+// CountOperands counts the operands of call, the receiver of a method
+// included, whose types satisfy is.
+func CountOperands(info *types.Info, call *ast.CallExpr, is func(types.Type) bool) int {
+	args := call.Args
+	if sel, ok := ast.Unparen(call.Fun).(*ast.SelectorExpr); ok && info.Selections[sel] != nil {
+		args = append([]ast.Expr{sel.X}, args...)
+	}
+	n := 0
+	for _, a := range args {
+		if is(info.TypeOf(a)) {
+			n++
+		}
+	}
+	return n
 }
 
 // basicIs reports whether t is a basic type of the kind info says.

@@ -11,7 +11,6 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
@@ -79,9 +78,8 @@ type checker struct {
 	tested map[use]token.Pos // this package's tolerance tests, by use
 	fields map[types.Object][]ast.Expr
 
-	deg     *degree.Reader                // made on first use (see degrees)
-	instrs  map[token.Pos]ssa.Instruction // the package's SSA calls and operations, indexed on first use (see ssaAt)
-	helpers map[*types.Func]helper        // predicates comparing two parameters (see atScale)
+	deg     *degree.Reader         // made on first use (see degrees)
+	helpers map[*types.Func]helper // predicates comparing two parameters (see atScale)
 }
 
 func run(pass *analysis.Pass) (any, error) {

@@ -32,7 +32,7 @@ func (c *checker) sameEverywhere(n ast.Node, tol ast.Expr) bool {
 	if !ok || !provenance.InTestFile(c.pass.Fset, call.Pos()) {
 		return false
 	}
-	sc, ok := c.ssaAt(call.Lparen).(*ssa.Call)
+	sc, ok := c.pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).At(call.Lparen).(*ssa.Call)
 	if !ok {
 		return false
 	}
@@ -143,7 +143,7 @@ func (c *checker) differenceSameEverywhere(cur inspector.Cursor, t tolerance.Tes
 	if sub == nil {
 		return false
 	}
-	bin, ok := c.ssaAt(sub.OpPos).(*ssa.BinOp)
+	bin, ok := c.pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).At(sub.OpPos).(*ssa.BinOp)
 	return ok && c.portable(bin.X, bin.Y)
 }
 
@@ -163,25 +163,4 @@ func (c *checker) portable(vals ...ssa.Value) bool {
 		}
 	}
 	return true
-}
-
-// ssaAt returns the SSA call or binary operation at pos (a call's left
-// parenthesis, an operator), indexing the package's on first use.
-func (c *checker) ssaAt(pos token.Pos) ssa.Instruction {
-	if c.instrs == nil {
-		c.instrs = map[token.Pos]ssa.Instruction{}
-		for _, fn := range c.pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA().SrcFuncs {
-			for _, b := range fn.Blocks {
-				for _, instr := range b.Instrs {
-					switch instr.(type) {
-					case *ssa.Call, *ssa.BinOp:
-						if instr.Pos().IsValid() {
-							c.instrs[instr.Pos()] = instr
-						}
-					}
-				}
-			}
-		}
-	}
-	return c.instrs[pos]
 }

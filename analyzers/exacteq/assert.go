@@ -81,7 +81,7 @@ func (c *checker) helperAssertion(cur inspector.Cursor, call *ast.CallExpr, fn *
 			name = n
 		}
 	}
-	sc := c.calls[call.Lparen]
+	sc := c.callAt(call.Lparen)
 	if !equalityName(name) || sc == nil || c.tolerant(call, sc.Common().StaticCallee()) || c.deliberate(cur) || !c.inTest(cur) {
 		return
 	}

@@ -144,7 +144,7 @@ func (c *checker) filledComputed(v ssa.Value) bool {
 	}
 	fn := p.Parent()
 	i := slices.Index(fn.Params, p)
-	for _, call := range c.calls {
+	for call := range c.ssa.Calls() {
 		args := call.Common().Args
 		if call.Common().StaticCallee() == fn && i < len(args) && c.track.Computed(args[i]) {
 			return true

@@ -57,8 +57,7 @@ type checker struct {
 	track   *provenance.Tracker
 	decls   map[types.Object]ast.Expr
 	globals constval.Globals
-	cmps    map[token.Pos]*ssa.BinOp // comparisons by operator (or case) position
-	calls   map[token.Pos]*ssa.Call  // calls by opening parenthesis
+	ssa     *lazyssa.Lazy // the package's SSA, and its comparisons and calls by position (cmpAt, callAt)
 	fields  map[types.Object][]ast.Expr
 	judge   *portable.Judge
 	// fills holds, for each struct field, the functions whose results
@@ -86,8 +85,7 @@ func run(pass *analysis.Pass) (any, error) {
 		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
 		decls:   constval.DeclsOf(pass),
 		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
-		cmps:    make(map[token.Pos]*ssa.BinOp),
-		calls:   make(map[token.Pos]*ssa.Call),
+		ssa:     pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy),
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 		judge:   portable.Of(pass),
 
@@ -139,28 +137,34 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	return false
 }
 
-// index records, in one walk of the package's SSA, every comparison and
-// every call by source position.
+// index records, in one walk of the package's SSA, the stores into
+// struct fields.
 func (c *checker) index(funcs []*ssa.Function) {
 	for _, fn := range funcs {
 		for _, b := range fn.Blocks {
 			for _, instr := range b.Instrs {
-				switch v := instr.(type) {
-				case *ssa.BinOp:
-					if v.Op.Precedence() == token.EQL.Precedence() && v.Pos().IsValid() {
-						c.cmps[v.Pos()] = v
-					}
-				case *ssa.Call:
-					if v.Pos().IsValid() {
-						c.calls[v.Pos()] = v
-					}
-				case *ssa.Store:
+				if v, ok := instr.(*ssa.Store); ok {
 					c.recordFill(v)
 					c.recordStore(v)
 				}
 			}
 		}
 	}
+}
+
+// cmpAt returns the SSA comparison whose operator is at pos, or nil.
+func (c *checker) cmpAt(pos token.Pos) *ssa.BinOp {
+	b, ok := c.ssa.At(pos).(*ssa.BinOp)
+	if !ok || b.Op.Precedence() != token.EQL.Precedence() {
+		return nil
+	}
+	return b
+}
+
+// callAt returns the SSA call whose opening parenthesis is at pos, or nil.
+func (c *checker) callAt(pos token.Pos) *ssa.Call {
+	call, _ := c.ssa.At(pos).(*ssa.Call)
+	return call
 }
 
 // recordFill records a store of a call's result into a struct field.
@@ -193,7 +197,7 @@ type operand struct {
 
 // comparison examines one == or != expression.
 func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
-	bin := c.cmps[n.OpPos]
+	bin := c.cmpAt(n.OpPos)
 	if bin == nil {
 		return // folded to a constant or not built: nothing happens at run time
 	}
@@ -222,7 +226,7 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 		return // a type switch, a tagless switch or a switch on a non-float
 	}
 	for _, e := range cc.List {
-		if bin := c.cmps[e.Pos()]; bin != nil {
+		if bin := c.cmpAt(e.Pos()); bin != nil {
 			c.scalar(cur, nil, token.EQL, operand{sw.Tag, bin.X}, operand{e, bin.Y})
 		}
 	}

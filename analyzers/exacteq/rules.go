@@ -70,7 +70,7 @@ func (c *checker) nanCall(e ast.Expr, wrapper bool) bool {
 	if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN" {
 		return true
 	}
-	sc := c.calls[call.Lparen]
+	sc := c.callAt(call.Lparen)
 	if !wrapper || !ok || len(call.Args) != 0 || sc == nil || sc.Common().StaticCallee() == nil {
 		return false
 	}

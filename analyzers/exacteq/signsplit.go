@@ -25,7 +25,7 @@ import (
 // signed branch. It is reported at the first of the two sign tests.
 func (c *checker) signSplit(cur inspector.Cursor, n *ast.BinaryExpr) {
 	e, positive, ok := c.signTest(n)
-	bin := c.cmps[n.OpPos]
+	bin := c.cmpAt(n.OpPos)
 	if !ok || bin == nil || !c.oppositeFollows(cur, e, positive) || c.tieCascade(cur) {
 		return
 	}

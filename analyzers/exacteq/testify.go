@@ -44,7 +44,7 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	if deep && len(call.Args) >= 2 {
-		if sc := c.calls[call.Lparen]; sc != nil && len(sc.Common().Args) >= 2 {
+		if sc := c.callAt(call.Lparen); sc != nil && len(sc.Common().Args) >= 2 {
 			args := sc.Common().Args
 			c.pinned(cur, call, fn.Pkg().Name()+"."+fn.Name(), operand{call.Args[0], args[0]}, operand{call.Args[1], args[1]}, nil)
 		}
@@ -58,7 +58,7 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 	if fn.Signature().Recv() != nil {
 		first, recv = 0, 1 // a.Equal(expected, actual); SSA passes a first
 	}
-	sc := c.calls[call.Lparen]
+	sc := c.callAt(call.Lparen)
 	if sc == nil || len(call.Args) < first+2 || len(sc.Common().Args) < recv+first+2 {
 		return
 	}

@@ -9,6 +9,8 @@
 package lazyssa
 
 import (
+	"go/token"
+	"iter"
 	"reflect"
 	"sync"
 	"sync/atomic"
@@ -17,6 +19,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/buildssa"
 	"golang.org/x/tools/go/analysis/passes/ctrlflow"
+	"golang.org/x/tools/go/ssa"
 )
 
 // Analyzer returns a *Lazy for the package, having built nothing.
@@ -32,6 +35,7 @@ var Analyzer = &analysis.Analyzer{
 // goroutine.
 type Lazy struct {
 	build func() *buildssa.SSA
+	index func() map[token.Pos]ssa.Instruction
 	spent atomic.Int64 // nanoseconds spent building
 }
 
@@ -55,7 +59,39 @@ func run(pass *analysis.Pass) (any, error) {
 		}
 		return res.(*buildssa.SSA)
 	})
+	l.index = sync.OnceValue(func() map[token.Pos]ssa.Instruction {
+		at := map[token.Pos]ssa.Instruction{}
+		for _, fn := range l.SSA().SrcFuncs {
+			for _, b := range fn.Blocks {
+				for _, instr := range b.Instrs {
+					switch instr.(type) {
+					case *ssa.Call, *ssa.BinOp:
+						if instr.Pos().IsValid() {
+							at[instr.Pos()] = instr
+						}
+					}
+				}
+			}
+		}
+		return at
+	})
 	return l, nil
+}
+
+// At returns the call whose opening parenthesis, or the binary operation
+// whose operator, is at pos in the package's SSA form, or nil; the index
+// is built once, for every analyzer that asks.
+func (l *Lazy) At(pos token.Pos) ssa.Instruction { return l.index()[pos] }
+
+// Calls yields the package's calls that have a position, in no order.
+func (l *Lazy) Calls() iter.Seq[*ssa.Call] {
+	return func(yield func(*ssa.Call) bool) {
+		for _, instr := range l.index() {
+			if call, ok := instr.(*ssa.Call); ok && !yield(call) {
+				return
+			}
+		}
+	}
 }
 
 // BuildTime returns the time spent building the package's SSA form, zero

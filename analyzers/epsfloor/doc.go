@@ -206,12 +206,14 @@
 // (absolute) or u (relative); comparisons with a known magnitude where the
 // tolerance reaches the gap between floats just under that magnitude; in
 // a test file, a tolerance below the resolution of what it compares,
-// passed with or applied to the difference of values that are constants
-// or computed the same way, bit for bit, on every platform (package
-// portable; a helper that computes what it compares is judged with what
-// it computes, and a slice handed to another call first is out of sight):
-// the check is then exact equality, which holds everywhere it holds once
-// (exacteq's standard for pinned results).
+// passed with or applied to the difference of values whose computation
+// shows no reason to differ between platforms (package portable: no
+// product a platform may fuse into an add, no math function that is not
+// correctly rounded, in the values, in the calls that fill a slice before
+// it is checked, or in what a helper of the project computes from what it
+// is given; where sight is lost first, nothing is claimed): the check is
+// then exact equality, which holds everywhere it holds once (exacteq's
+// standard for pinned results).
 //
 // Fixes (all need review, so go fix does not apply them): a relative
 // tolerance below u becomes 4 ulps of the type, written exactly as

@@ -72,14 +72,16 @@ func (s *sighting) step(v ssa.Value, depth int) bool {
 	}
 	switch v := v.(type) {
 	case *ssa.Alloc:
-		return s.stored(v, depth)
+		return s.stored(v, depth) || s.j.filled(v, depth)
+	case *ssa.MakeSlice:
+		return s.j.filled(v, depth)
 	case *ssa.BinOp:
 		fusable := s.j.walk(nil).fusable
 		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (fusable(v.X) || fusable(v.Y)) {
 			return true
 		}
 	case *ssa.Call:
-		return s.call(v.Common(), depth-1) || s.args(v.Common(), depth-1)
+		return s.call(v.Common(), depth-1) || s.args(v.Common(), depth-1) || !provenance.IsFloat(v.Type()) && s.j.filled(v, depth)
 	}
 	instr, ok := v.(ssa.Instruction)
 	if !ok {

@@ -326,7 +326,7 @@ func (s *site) refs(addr ssa.Value, path []int) span {
 		case *ssa.Call, *ssa.MakeClosure:
 			in := s.shared.entered[ref]
 			if in == nil {
-				if call, ok := ref.(*ssa.Call); ok && ReadOnly(call) {
+				if call, ok := ref.(*ssa.Call); ok && readOnly(call.Common()) {
 					continue
 				}
 				return span{} // given to a call or closure not read
@@ -412,7 +412,7 @@ func (s *site) writesThrough(v ssa.Value, loaded bool) bool {
 		case *ssa.Call, *ssa.MakeClosure:
 			in := s.shared.entered[ref]
 			call, isCall := ref.(*ssa.Call)
-			w = in == nil && !(isCall && ReadOnly(call))
+			w = in == nil && !(isCall && readOnly(call.Common()))
 			for _, p := range inside(ref, v) {
 				w = w || in.writesThrough(p, true)
 			}
@@ -451,13 +451,11 @@ func inside(ref ssa.Instruction, v ssa.Value) []ssa.Value {
 	return in
 }
 
-// ReadOnly reports whether call only reads what it is given: the
-// builtins len and cap, and the functions and methods of fmt, log and
-// testing, which format their arguments to print or report them (a
-// String or Error method of an argument's type, which formatting calls,
-// is taken not to write what it formats).
-func ReadOnly(call *ssa.Call) bool { return readOnly(call.Common()) }
-
+// readOnly reports whether c only reads what it is given: the builtins
+// len and cap, and the functions and methods of fmt, log and testing,
+// which format their arguments to print or report them (a String or
+// Error method of an argument's type, which formatting calls, is taken
+// not to write what it formats).
 func readOnly(c *ssa.CallCommon) bool {
 	if b, ok := c.Value.(*ssa.Builtin); ok {
 		return b.Name() == "len" || b.Name() == "cap"

@@ -44,16 +44,6 @@ func (j *Judge) OnInputs(v ssa.Value) bool {
 	return j.walk(&site{shared: &reading{entered: map[ssa.Instruction]*site{}, written: map[*ssa.Alloc]bool{}}}).value(v, maxDepth)
 }
 
-// Call reports whether call computes the same way, bit for bit, on every
-// platform: its callee is portable (read in this package, by fact from
-// another) and so is every argument it is given. A check that a test
-// passes its values to is judged so, with what it computes inside.
-func (j *Judge) Call(call *ssa.CallCommon) bool {
-	j.mu.Lock()
-	defer j.mu.Unlock()
-	return j.walk(nil).call(call, maxDepth)
-}
-
 // walk is one reading of values: seen holds the values judged or in
 // progress, at the inputs known (nil: none).
 type walk struct {
@@ -131,10 +121,12 @@ func (w *walk) step(v ssa.Value, depth int) bool {
 }
 
 // filled reports whether every float stored into a local variable, its
-// fields and elements, is portable. References stored there (pointers,
-// slices, interfaces) lead to data made elsewhere, and what calls given
-// its address do is not followed: both are judged as inputs are, like
-// parameters.
+// fields and elements, is portable, and no call given its address that
+// returns no float shows a cause in what it computes from what it is
+// given (inputs.go: it may store that there). References stored there
+// (pointers, slices, interfaces) lead to data made elsewhere, and what
+// other calls given its address do is not followed: both are judged as
+// inputs are, like parameters.
 func (w *walk) filled(addr ssa.Value, depth int) bool {
 	if depth <= 0 {
 		return false
@@ -147,6 +139,10 @@ func (w *walk) filled(addr ssa.Value, depth int) bool {
 			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
 			if !w.filled(r.(ssa.Value), depth) {
+				return false
+			}
+		case *ssa.Call:
+			if w.j.fills(r.Common(), addr, depth) {
 				return false
 			}
 		}

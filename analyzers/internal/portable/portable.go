@@ -40,7 +40,10 @@
 // those whose computation shows a fusable product or a math function that
 // is not correctly rounded, and those that leave sight (an interface
 // method, a function value) before any such cause shows. Functions whose
-// results show a cause carry CauseFact across packages.
+// results show a cause carry CauseFact across packages. Judge.InputCause
+// asks the same of what a function computes from its arguments (a check
+// helper, a call that fills a slice in place), and InputCauseFact carries
+// that across packages (inputs.go).
 //
 // The per-package work is done only where a package declares a function
 // with float results, and never for the standard library, whose math
@@ -68,7 +71,7 @@ var Analyzer = &analysis.Analyzer{
 	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
-	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact)},
+	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact)},
 }
 
 // Fact marks a function whose float results are portable.
@@ -81,13 +84,14 @@ func (*Fact) String() string { return "portable" }
 
 // Judge decides whether values of one package are portable.
 type Judge struct {
-	mu        sync.Mutex // analyzers that require this one may ask from several goroutines at once
-	pass      *analysis.Pass
-	converted map[token.Pos]bool // products written inside float64(...), by operator position
-	bodies    map[*ssa.Function]bool
-	causes    map[*ssa.Function]bool // functions searched for a cause
-	invokes   map[*ssa.Function][]Invoked
-	stored    map[*types.Var][]ssa.Value // values stored into the package's fields (fields.go)
+	mu         sync.Mutex // analyzers that require this one may ask from several goroutines at once
+	pass       *analysis.Pass
+	converted  map[token.Pos]bool // products written inside float64(...), by operator position
+	bodies     map[*ssa.Function]bool
+	causes     map[*ssa.Function]bool // functions searched for a cause
+	fromParams map[*ssa.Function]bool // functions searched for a cause in what they compute from their parameters (inputs.go)
+	invokes    map[*ssa.Function][]Invoked
+	stored     map[*types.Var][]ssa.Value // values stored into the package's fields (fields.go)
 }
 
 // prog returns the SSA program of the package.
@@ -100,7 +104,7 @@ func (j *Judge) prog() *ssa.Program {
 func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
-	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
+	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, fromParams: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
 	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
@@ -117,12 +121,15 @@ func run(pass *analysis.Pass) (any, error) {
 		case len(calls) > 0:
 			pass.ExportObjectFact(obj, &DispatchFact{calls})
 		}
+		if j.paramCause(fn, maxDepth) {
+			pass.ExportObjectFact(obj, new(InputCauseFact))
+		}
 	}
 	return j, nil
 }
 
 // declaresFloatFunc reports whether the package declares a function or
-// method with a float among its results.
+// method with a float among its results or parameters.
 func declaresFloatFunc(pass *analysis.Pass) bool {
 	for _, f := range pass.Files {
 		for _, d := range f.Decls {
@@ -130,7 +137,7 @@ func declaresFloatFunc(pass *analysis.Pass) bool {
 			if !ok || fd.Body == nil {
 				continue
 			}
-			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && holdsFloat(fn.Signature().Results()) {
+			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && (holdsFloat(fn.Signature().Results()) || holdsFloat(fn.Signature().Params())) {
 				return true
 			}
 		}

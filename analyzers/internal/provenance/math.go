@@ -1,6 +1,10 @@
 package provenance
 
-import "golang.org/x/tools/go/ssa"
+import (
+	"go/types"
+
+	"golang.org/x/tools/go/ssa"
+)
 
 // Rounding classifies a math-package function by whether its result is
 // rounded.
@@ -16,7 +20,9 @@ const (
 // exactMath lists the math and math/cmplx functions whose float results
 // involve no rounding (IEEE 754-2019 §5.3 and §5.5 operations, selections
 // and constructors); every other float-valued function of those packages
-// rounds. Ldexp rounds only when its result is subnormal.
+// rounds. Ldexp rounds only when its result is subnormal. A function
+// with no float or complex result (IsNaN, IsInf, Signbit, Float64bits,
+// Ilogb) reads bits or classifies and rounds nothing (IEEE 754-2019 §5.7).
 var exactMath = map[string]bool{
 	"math.Abs": true, "math.Ceil": true, "math.Copysign": true, "math.Floor": true,
 	"math.Float32frombits": true, "math.Float64frombits": true, "math.Frexp": true,
@@ -37,10 +43,20 @@ func MathRounding(c *ssa.CallCommon) Rounding {
 	switch {
 	case path != "math" && path != "math/cmplx":
 		return NotMath
-	case exactMath[path+"."+fn.Name()]:
+	case exactMath[path+"."+fn.Name()] || !roundedResult(fn.Signature.Results()):
 		return Exact
 	}
 	return Rounds
+}
+
+// roundedResult reports whether a tuple holds a float or complex number.
+func roundedResult(t *types.Tuple) bool {
+	for v := range t.Variables() {
+		if b, ok := v.Type().Underlying().(*types.Basic); ok && b.Info()&(types.IsFloat|types.IsComplex) != 0 {
+			return true
+		}
+	}
+	return false
 }
 
 // IsInf reports whether v is the result of math.Inf or math/cmplx.Inf.

@@ -73,8 +73,9 @@ func checkAll(t *testing.T, got, want []float64, tol float64) { // want checkAll
 	}
 }
 
-// A slice filled by another call holds what no reading of this function
-// sees: the check stays reported.
+// The call that fills the slice computes what it stores from its inputs
+// through a cube root, which is not correctly rounded: the check stays
+// reported.
 func TestScaled(t *testing.T) {
 	v := []float64{1, 2}
 	scale(v, 8)

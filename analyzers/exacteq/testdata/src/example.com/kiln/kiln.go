@@ -37,3 +37,19 @@ func Soak(es []Element, h float64) float64 { return Load(es) + h*1.1 }
 func vent(es []Element, rule func(float64) float64) float64 {
 	return Load(es) / rule(2)
 }
+
+// Cool scales each reading in place by the radiance ratio at t degrees:
+// it returns nothing, and what it stores goes through an exponential.
+func Cool(rs []float64, t float64) {
+	for i := range rs {
+		rs[i] /= Glow(t)
+	}
+}
+
+// Shift adds an offset to each reading in place: one correctly rounded
+// sum per element.
+func Shift(rs []float64, d float64) {
+	for i := range rs {
+		rs[i] += d
+	}
+}

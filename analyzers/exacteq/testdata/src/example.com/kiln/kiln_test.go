@@ -37,3 +37,19 @@ func TestCauseInSight(t *testing.T) {
 		t.Fail()
 	}
 }
+
+// A slice the test hands to a call that fills it in place: Cool stores
+// quotients by an exponential (a cause, read from the fact of what it
+// computes from its inputs), Shift correctly rounded sums (none).
+func TestFilledInPlace(t *testing.T) {
+	rs := []float64{900, 1200}
+	kiln.Cool(rs, 0.3)
+	if rs[0] != 898.9206477408778 { // want `exact != pins a computed result to 898.9206477408778`
+		t.Fail()
+	}
+	ws := []float64{900, 1200}
+	kiln.Shift(ws, 0.1)
+	if ws[0] != 900.1 {
+		t.Fail()
+	}
+}

@@ -10,7 +10,7 @@ func Area(x, y float64) float64 { // want Area:"portable"
 }
 
 // Sweep calls a function of another package that may fuse.
-func Sweep(x, y float64) float64 { // want Sweep:"cause"
+func Sweep(x, y float64) float64 { // want Sweep:"^cause$" Sweep:"input cause"
 	return hub.Reach(x, y, 1) / 2
 }
 

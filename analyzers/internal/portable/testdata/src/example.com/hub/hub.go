@@ -10,12 +10,12 @@ func Radius(x, y float64) float64 { // want Radius:"portable"
 }
 
 // Reach adds a product: it may fuse into one rounding.
-func Reach(x, y, r float64) float64 { // want Reach:"cause"
+func Reach(x, y, r float64) float64 { // want Reach:"^cause$" Reach:"input cause"
 	return x*y + r
 }
 
 // Tilt goes through Atan2, which is not correctly rounded.
-func Tilt(x, y float64) float64 { // want Tilt:"cause"
+func Tilt(x, y float64) float64 { // want Tilt:"^cause$" Tilt:"input cause"
 	return math.Atan2(y, x)
 }
 
@@ -47,7 +47,7 @@ func Halves(x float64) []float64 { // want Halves:"portable"
 }
 
 // Bearings fills an array with values from Sin: not portable.
-func Bearings(x float64) []float64 { // want Bearings:"cause"
+func Bearings(x float64) []float64 { // want Bearings:"^cause$" Bearings:"input cause"
 	var b [2]float64
 	b[0] = math.Sin(x)
 	b[1] = x / 2
@@ -55,7 +55,7 @@ func Bearings(x float64) []float64 { // want Bearings:"cause"
 }
 
 // Levels appends a struct holding a value from Atan2: not portable.
-func Levels(x, y float64) []struct{ q float64 } { // want Levels:"cause"
+func Levels(x, y float64) []struct{ q float64 } { // want Levels:"^cause$" Levels:"input cause"
 	var out []struct{ q float64 }
 	return append(out, struct{ q float64 }{Tilt(x, y)})
 }
@@ -72,4 +72,19 @@ func Twice(x, y float64) float64 { // want Twice:"portable"
 // no fact.
 func Cube(x float64) float64 {
 	return math.Pow(x, 3)
+}
+
+// Rescale multiplies the elements it is given by a cube root in place. It
+// has no float result, so none is not portable; what it stores is
+// computed from its inputs through Cbrt, which is not correctly rounded.
+func Rescale(ws []float64, k float64) { // want Rescale:"portable" Rescale:"input cause"
+	for i := range ws {
+		ws[i] *= math.Cbrt(k)
+	}
+}
+
+// Within compares what it is given: |a-b| is one correctly rounded
+// subtraction, and nothing computed from its inputs rounds otherwise.
+func Within(a, b, tol float64) bool { // want Within:"portable"
+	return math.Abs(a-b) <= tol
 }

@@ -2,6 +2,7 @@ package portable
 
 import (
 	"go/token"
+	"go/types"
 	"slices"
 
 	"golang.org/x/tools/go/ssa"
@@ -10,8 +11,8 @@ import (
 )
 
 // What a function computes from what it is given. A check that a test
-// hands its values to, or a call that fills a slice before it is checked,
-// computes from its arguments; a cause among those computations (a sum
+// hands its values to computes from its arguments; a cause among those
+// computations (a sum
 // with a product a platform may fuse, a math function that is not
 // correctly rounded, with an operand derived from a parameter) can change
 // the bits of what it compares or stores between platforms. The search
@@ -104,13 +105,15 @@ func (j *Judge) forward(v ssa.Value, seen map[ssa.Value]bool, depth int) bool {
 	return false
 }
 
-// filled reports whether ref, a slice or pointer, or a view of it (a
-// slice of it, a conversion), is handed to a call that returns no float
-// and shows a cause in what it computes from what it is given: it may
-// store that through ref (scale(v, 8) before v is checked). A call with a
-// float result is taken to deliver what it computes there.
+// filled reports whether ref, a slice or array, or a view of it (a slice
+// of it, a conversion), is handed to a call that stores through it a
+// value that shows a cause (fills: scale(v, 8) before v is checked). A
+// call that only reads what it is given, a check among them, stores
+// nothing there, whatever it computes. A struct is not searched so: its
+// fields are followed to their stores one by one (fields.go), and a
+// method that caches a sum in one field says nothing of another.
 func (j *Judge) filled(ref ssa.Value, depth int) bool {
-	if depth <= 0 || ref.Referrers() == nil {
+	if depth <= 0 || ref.Referrers() == nil || !elements(ref.Type()) {
 		return false
 	}
 	for _, r := range *ref.Referrers() {
@@ -128,8 +131,93 @@ func (j *Judge) filled(ref ssa.Value, depth int) bool {
 	return false
 }
 
-// fills reports whether call is given ref, returns no float and shows a
-// cause in what it computes from what it is given.
+// FillCauseFact marks a function that stores through one of its
+// parameters (a slice, a pointer, a field of either) a value that shows a
+// cause.
+type FillCauseFact struct{}
+
+// AFact marks FillCauseFact as an analysis fact.
+func (*FillCauseFact) AFact() {}
+
+func (*FillCauseFact) String() string { return "fill cause" }
+
+// fills reports whether call is given ref and stores a value that shows a
+// cause through one of its parameters.
 func (j *Judge) fills(call *ssa.CallCommon, ref ssa.Value, depth int) bool {
-	return !holdsFloat(call.Signature().Results()) && slices.Contains(call.Args, ref) && j.inputCause(call, depth-1)
+	if depth <= 0 || readOnly(call) || !slices.Contains(call.Args, ref) {
+		return false
+	}
+	fn := call.StaticCallee()
+	if fn == nil {
+		return false // out of sight
+	}
+	if fn.Origin() != nil {
+		fn = fn.Origin()
+	}
+	if fn.Package() != nil && fn.Package().Pkg == j.pass.Pkg {
+		return fn.Blocks != nil && j.storesCause(fn, depth-1)
+	}
+	obj := fn.Object()
+	return obj != nil && j.pass.ImportObjectFact(obj, new(FillCauseFact))
+}
+
+// storesCause reports whether fn, a function of this package, stores
+// through one of its parameters a value that shows a cause, itself or by
+// handing the parameter to a call that does; searched once.
+func (j *Judge) storesCause(fn *ssa.Function, depth int) bool {
+	c, done := j.fillers[fn]
+	if done {
+		return c
+	}
+	j.fillers[fn] = false // a recursive call is searched by the rest of the body
+	s := &sighting{j, map[ssa.Value]bool{}}
+	for _, b := range fn.Blocks {
+		for _, instr := range b.Instrs {
+			switch in := instr.(type) {
+			case *ssa.Store:
+				c = provenance.HoldsFloat(in.Val.Type(), false) && fromParam(in.Addr) && s.value(in.Val, depth)
+			case *ssa.Call:
+				c = slices.ContainsFunc(in.Common().Args, func(a ssa.Value) bool { return fromParam(a) && j.fills(in.Common(), a, depth) })
+			}
+			if c {
+				j.fillers[fn] = true
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// fromParam reports whether addr is reached from a parameter through
+// fields, elements, slices and loads (o.data[i] with o a parameter).
+func fromParam(addr ssa.Value) bool {
+	for range 8 {
+		switch a := addr.(type) {
+		case *ssa.Parameter:
+			return true
+		case *ssa.IndexAddr:
+			addr = a.X
+		case *ssa.FieldAddr:
+			addr = a.X
+		case *ssa.Slice:
+			addr = a.X
+		case *ssa.UnOp:
+			addr = a.X
+		default:
+			return false
+		}
+	}
+	return false
+}
+
+// elements reports whether t is a slice or an array, or a pointer to one.
+func elements(t types.Type) bool {
+	if p, ok := t.Underlying().(*types.Pointer); ok {
+		t = p.Elem()
+	}
+	switch t.Underlying().(type) {
+	case *types.Slice, *types.Array:
+		return true
+	}
+	return false
 }

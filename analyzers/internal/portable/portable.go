@@ -42,8 +42,9 @@
 // method, a function value) before any such cause shows. Functions whose
 // results show a cause carry CauseFact across packages. Judge.InputCause
 // asks the same of what a function computes from its arguments (a check
-// helper, a call that fills a slice in place), and InputCauseFact carries
-// that across packages (inputs.go).
+// helper), and InputCauseFact carries that across packages; a call that
+// stores such a value through a slice or pointer it is given fills it
+// (FillCauseFact), and what it fills shows that cause (inputs.go).
 //
 // The per-package work is done only where a package declares a function
 // with float results, and never for the standard library, whose math
@@ -71,7 +72,7 @@ var Analyzer = &analysis.Analyzer{
 	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
-	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact)},
+	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact), new(FillCauseFact)},
 }
 
 // Fact marks a function whose float results are portable.
@@ -90,6 +91,7 @@ type Judge struct {
 	bodies     map[*ssa.Function]bool
 	causes     map[*ssa.Function]bool // functions searched for a cause
 	fromParams map[*ssa.Function]bool // functions searched for a cause in what they compute from their parameters (inputs.go)
+	fillers    map[*ssa.Function]bool // functions searched for a cause in what they store through their parameters (inputs.go)
 	invokes    map[*ssa.Function][]Invoked
 	stored     map[*types.Var][]ssa.Value // values stored into the package's fields (fields.go)
 }
@@ -104,7 +106,7 @@ func (j *Judge) prog() *ssa.Program {
 func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
-	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, fromParams: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
+	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, fromParams: map[*ssa.Function]bool{}, fillers: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
 	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
@@ -123,6 +125,9 @@ func run(pass *analysis.Pass) (any, error) {
 		}
 		if j.paramCause(fn, maxDepth) {
 			pass.ExportObjectFact(obj, new(InputCauseFact))
+		}
+		if j.storesCause(fn, maxDepth) {
+			pass.ExportObjectFact(obj, new(FillCauseFact))
 		}
 	}
 	return j, nil

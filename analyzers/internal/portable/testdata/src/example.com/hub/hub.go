@@ -77,7 +77,7 @@ func Cube(x float64) float64 {
 // Rescale multiplies the elements it is given by a cube root in place. It
 // has no float result, so none is not portable; what it stores is
 // computed from its inputs through Cbrt, which is not correctly rounded.
-func Rescale(ws []float64, k float64) { // want Rescale:"portable" Rescale:"input cause"
+func Rescale(ws []float64, k float64) { // want Rescale:"portable" Rescale:"input cause" Rescale:"fill cause"
 	for i := range ws {
 		ws[i] *= math.Cbrt(k)
 	}

@@ -101,6 +101,21 @@
 //     both to integers, int(a*d) == int(b*d): a result one rounding below
 //     a decimal grid point (1.4999999999999998 for 1.5) truncates a whole
 //     step lower (math.Round, or a tolerance, states the digits);
+//   - an exponent taken by truncating a ratio of logarithms (int,
+//     math.Floor, Trunc or Ceil of math.Log(n)/math.Log(b), of
+//     math.Log(n)/math.Ln2 or math.Log(n)*math.Log2E, perhaps plus a
+//     constant): at exact powers of the base the rounded quotient lands
+//     within an ulp of the exponent, on either side (math.Log(1000)/
+//     math.Log(10) is 2.9999999999999996). With a constant base the
+//     quotient is evaluated as written at every power of the base the
+//     argument's type holds, and only a truncation some power sends the
+//     wrong way is reported; a base known only at run time is reported;
+//     an argument drawn at random (math/rand, a call with no arguments
+//     returning a float: the geometric variate Floor(Log(u)/Log(1-p)))
+//     or computed by the package with rounding (a series summed, then
+//     split into mantissa and exponent) is left alone, since it is an
+//     exact power only by accident; one read as given (a parameter, a
+//     field, a count converted to float) may be any power;
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
 //     such a function, as So(x, ShouldEqual, 2.9), unless it takes a third

@@ -49,6 +49,7 @@ const (
 	catTie      = "tie"
 	catRoute    = "route"
 	catGrid     = "grid"
+	catExponent = "exponent"
 )
 
 // checker holds what one run needs.
@@ -107,6 +108,7 @@ func run(pass *analysis.Pass) (any, error) {
 			c.caseClause(cur, n)
 		case *ast.CallExpr:
 			c.testifyCall(cur, n)
+			c.exponent(n)
 		}
 	}
 	return nil, nil
@@ -114,9 +116,9 @@ func run(pass *analysis.Pass) (any, error) {
 
 // mayConcern reports, from syntax and types alone, whether cur is a node
 // some rule may examine: a comparison of values holding floats, a case of
-// a switch on a float, a call to a comparing function, or, in a test
-// file, a call outside the standard library (a helper assertion). A
-// package with none needs no SSA.
+// a switch on a float, a call to a comparing function, a truncation of a
+// ratio of logarithms, or, in a test file, a call outside the standard
+// library (a helper assertion). A package with none needs no SSA.
 func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 	info := pass.TypesInfo
 	switch n := cur.Node().(type) {
@@ -127,6 +129,9 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
 	case *ast.CallExpr:
+		if _, _, ok := exponentSite(info, n); ok {
+			return true
+		}
 		fn, ok := typeutil.Callee(info, n).(*types.Func)
 		if !ok || fn.Pkg() == nil {
 			return false

@@ -1,5 +1,6 @@
-// Command runfix prints the outcome of three exact comparisons, so a test
-// can run it before and after roundoff's fixes.
+// Command runfix prints the outcome of three exact comparisons and of an
+// exponent taken from logarithms, so a test can run it before and after
+// roundoff's fixes.
 package main
 
 import (
@@ -23,4 +24,7 @@ func main() {
 		}
 	}
 	fmt.Println("steps:", steps)
+
+	n := 1 << 29
+	fmt.Println("halvings of 2^29:", math.Ceil(math.Log(float64(n)) / math.Ln2)) // want `math.Ceil\(math.Log\(float64\(n\)\) / math.Ln2\) is 30, not 29, at float64\(n\) = 536870912`
 }

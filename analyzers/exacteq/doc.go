@@ -116,6 +116,15 @@
 //     split into mantissa and exponent) is left alone, since it is an
 //     exact power only by accident; one read as given (a parameter, a
 //     field, a count converted to float) may be any power;
+//   - the count of a range's steps taken by truncating a quotient of a
+//     span by a step, int((end-start)/step), plus a whole constant (the
+//     points of the range) or held in a variable that sizes a slice or
+//     bounds a loop: where the range holds a whole number of steps, the
+//     quotient lands within an ulp of it, on either side ((0.3-0)/0.1 is
+//     2.9999999999999996: 3 points, not 4). A bin index, int((x-lo)/w)
+//     used as an index, and a shifted position, int((lon+180)/6)+1, are
+//     left alone: a sample on an edge goes to one side by a rounding,
+//     which no binning rule avoids;
 //   - in tests, an equality assertion of the suite's own helpers (a
 //     function whose name says Equal without a tolerance, or one given
 //     such a function, as So(x, ShouldEqual, 2.9), unless it takes a third

@@ -50,6 +50,7 @@ const (
 	catRoute    = "route"
 	catGrid     = "grid"
 	catExponent = "exponent"
+	catSteps    = "steps"
 )
 
 // checker holds what one run needs.
@@ -109,6 +110,7 @@ func run(pass *analysis.Pass) (any, error) {
 		case *ast.CallExpr:
 			c.testifyCall(cur, n)
 			c.exponent(n)
+			c.rangeCount(cur, n)
 		}
 	}
 	return nil, nil
@@ -129,7 +131,7 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
 	case *ast.CallExpr:
-		if _, _, ok := exponentSite(info, n); ok {
+		if _, _, ok := exponentSite(info, n); ok || truncatesQuotient(info, n) {
 			return true
 		}
 		fn, ok := typeutil.Callee(info, n).(*types.Func)

@@ -214,3 +214,14 @@ func TestConstantSpread(t *testing.T) {
 func TestCauseInState(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/gauge")
 }
+
+// TestRangeQuotient checks the example the steps category gives: binary64
+// 0.3 over binary64 0.1, correctly rounded (IEEE 754-2019 §4.3), is below
+// 3. The quotient is taken at 200 bits with math/big and rounded to 53.
+func TestRangeQuotient(t *testing.T) {
+	exact := new(big.Float).SetPrec(200).Quo(big.NewFloat(0.3), big.NewFloat(0.1))
+	q, _ := new(big.Float).SetPrec(53).SetMode(big.ToNearestEven).Set(exact).Float64()
+	assert.Equal(t, 2.9999999999999996, q)
+	assert.Equal(t, 2, int(q)+0, "the range 0 to 0.3 by 0.1 counts 2 whole steps")
+}
+

@@ -26,5 +26,5 @@ func main() {
 	fmt.Println("steps:", steps)
 
 	n := 1 << 29
-	fmt.Println("halvings of 2^29:", math.Ceil(math.Log(float64(n)) / math.Ln2)) // want `math.Ceil\(math.Log\(float64\(n\)\) / math.Ln2\) is 30, not 29, at float64\(n\) = 536870912`
+	fmt.Println("halvings of 2^29:", math.Ceil(math.Log(float64(n))/math.Ln2)) // want `math.Ceil\(math.Log\(float64\(n\)\) / math.Ln2\) is 30, not 29, at float64\(n\) = 536870912`
 }

@@ -25,6 +25,7 @@ func TestIdioms(t *testing.T) {
 
 func TestTestFiles(t *testing.T) {
 	analysistest.RunWithSuggestedFixes(t, analysistest.TestData(), exacteq.Analyzer, "gauge")
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "assay")
 }
 
 // TestUnattended checks that under go fix only the fixes that need no
@@ -224,4 +225,3 @@ func TestRangeQuotient(t *testing.T) {
 	assert.Equal(t, 2.9999999999999996, q)
 	assert.Equal(t, 2, int(q)+0, "the range 0 to 0.3 by 0.1 counts 2 whole steps")
 }
-

@@ -9,6 +9,7 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/ssa"
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
@@ -34,6 +35,9 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 		return
 	}
 	deep := deepEqual[fn.Pkg().Path()+"."+fn.Name()]
+	if c.gocheckCall(cur, call, fn) {
+		return
+	}
 	if !deep && !isTestify(fn.Pkg().Path()) {
 		if !provenance.InStd(c.pass.Fset, fn.Pos(), fn.Pkg()) {
 			c.helperAssertion(cur, call, fn)
@@ -92,8 +96,6 @@ func (c *checker) testifyCall(cur inspector.Cursor, call *ast.CallExpr) {
 // included, exactly.
 var deepEqual = map[string]bool{"reflect.DeepEqual": true, "github.com/google/go-cmp/cmp.Equal": true}
 
-// inStd reports whether path is a standard-library package.
-
 func isTestify(path string) bool {
 	return strings.HasSuffix(path, "github.com/stretchr/testify/assert") || strings.HasSuffix(path, "github.com/stretchr/testify/require")
 }
@@ -150,4 +152,57 @@ func remedy(replacement, tol string) string {
 		return "assert that they differ by more than a relative tolerance such as " + tol
 	}
 	return "use " + replacement + " with a relative tolerance such as " + tol
+}
+
+// gocheckPaths are the import paths of the gocheck suite.
+var gocheckPaths = map[string]bool{"gopkg.in/check.v1": true, "github.com/go-check/check": true}
+
+// gocheckCall reads call as gocheck's c.Assert(obtained, check.Equals,
+// expected) or c.Check (check.DeepEquals too): == and reflect.DeepEqual
+// by another name, judged as a pin. It reports whether call is one.
+func (c *checker) gocheckCall(cur inspector.Cursor, call *ast.CallExpr, fn *types.Func) bool {
+	if !gocheckPaths[fn.Pkg().Path()] || fn.Signature().Recv() == nil || fn.Name() != "Assert" && fn.Name() != "Check" || len(call.Args) != 3 {
+		return false
+	}
+	sel, ok := ast.Unparen(call.Args[1]).(*ast.SelectorExpr)
+	if !ok {
+		return false
+	}
+	checker, isVar := c.pass.TypesInfo.Uses[sel.Sel].(*types.Var)
+	if !isVar || checker.Pkg() != fn.Pkg() || checker.Name() != "Equals" && checker.Name() != "DeepEquals" {
+		return false
+	}
+	sc := c.callAt(call.Lparen)
+	if sc == nil || len(sc.Common().Args) != 4 || c.deliberate(cur) {
+		return true
+	}
+	args := sc.Common().Args // receiver, obtained, checker, the variadic slice
+	if want := variadic(args[3], 0); want != nil {
+		c.pinned(cur, call, "check."+checker.Name(), operand{call.Args[2], want}, operand{call.Args[0], args[1]}, nil)
+	}
+	return true
+}
+
+// variadic returns the value stored at index i of the slice a call
+// builds for its variadic parameter, or nil.
+func variadic(v ssa.Value, i int) ssa.Value {
+	sl, ok := v.(*ssa.Slice)
+	if !ok || sl.X.Referrers() == nil {
+		return nil
+	}
+	for _, r := range *sl.X.Referrers() {
+		ia, ok := r.(*ssa.IndexAddr)
+		if !ok || ia.Referrers() == nil {
+			continue
+		}
+		if k, ok := ia.Index.(*ssa.Const); !ok || k.Int64() != int64(i) {
+			continue
+		}
+		for _, st := range *ia.Referrers() {
+			if st, ok := st.(*ssa.Store); ok && st.Addr == ia {
+				return st.Val
+			}
+		}
+	}
+	return nil
 }

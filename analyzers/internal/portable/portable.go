@@ -123,6 +123,9 @@ func run(pass *analysis.Pass) (any, error) {
 		case len(calls) > 0:
 			pass.ExportObjectFact(obj, &DispatchFact{calls})
 		}
+		if !obj.Exported() {
+			continue // read in this package on demand (inputs.go)
+		}
 		if j.paramCause(fn, maxDepth) {
 			pass.ExportObjectFact(obj, new(InputCauseFact))
 		}
@@ -134,7 +137,9 @@ func run(pass *analysis.Pass) (any, error) {
 }
 
 // declaresFloatFunc reports whether the package declares a function or
-// method with a float among its results or parameters.
+// method with a float among its results. A package without one (a
+// checking helper that only compares what it is given) builds no SSA: its
+// functions carry no fact, and claim nothing.
 func declaresFloatFunc(pass *analysis.Pass) bool {
 	for _, f := range pass.Files {
 		for _, d := range f.Decls {
@@ -142,7 +147,7 @@ func declaresFloatFunc(pass *analysis.Pass) bool {
 			if !ok || fd.Body == nil {
 				continue
 			}
-			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && (holdsFloat(fn.Signature().Results()) || holdsFloat(fn.Signature().Params())) {
+			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && holdsFloat(fn.Signature().Results()) {
 				return true
 			}
 		}

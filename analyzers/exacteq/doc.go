@@ -66,7 +66,9 @@
 //   - a product or quotient tested against its own whole part
 //     (pos == math.Floor(pos), pos == float64(int(pos)) with pos := p*n): a
 //     value whole in exact arithmetic can come out an ulp below
-//     (0.29*100 is 28.999999999999996), and the test misses it;
+//     (0.29*100 is 28.999999999999996), and the test misses it; so does
+//     its fractional part tested against a constant (pos-math.Floor(pos)
+//     == 0.5, math.Mod(pos, 1) == 0.5: 0.29*50 is 14.499999999999998);
 //   - a computed value (or a parameter some call in the package fills with
 //     one, as degrees of freedom from a ratio of sums) compared with a
 //     nonzero whole constant (df == 1) in a function that also truncates

@@ -250,6 +250,10 @@ func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token
 		c.reportWhole(n, op, x, y)
 		return
 	}
+	if cx && fraction(x.val) && isConstVal(y.val) || cy && fraction(y.val) && isConstVal(x.val) {
+		c.reportFraction(n, op, x, y)
+		return
+	}
 	if cx && cy {
 		if !derived(x.val, y.val) {
 			c.reportComputed(cur, n, op, x, y, nil)

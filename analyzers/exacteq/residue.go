@@ -3,6 +3,7 @@ package exacteq
 import (
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"strings"
@@ -348,5 +349,46 @@ func (c *checker) reportWhole(n *ast.BinaryExpr, op token.Token, x, y operand) {
 		Pos: n.Pos(), End: n.End(), Category: catWhole,
 		Message: fmt.Sprintf("exact %s tests whether the computed value %s is a whole number: a value whole in exact arithmetic can come out an ulp below or above (0.29*100 is 28.999999999999996), and the test then misses it; compare with the nearest whole number within a tolerance",
 			op, fixes.Source(c.pass.Fset, v.expr)),
+	})
+}
+
+// fraction reports whether v is the fractional part of a product or
+// quotient: x - W(x) with W(x) its whole part (wholeOf), or math.Mod(x, 1).
+func fraction(v ssa.Value) bool {
+	switch v := provenance.Strip(v).(type) {
+	case *ssa.BinOp:
+		return v.Op == token.SUB && wholeOf(v.Y, v.X)
+	case *ssa.Call:
+		fn := v.Call.StaticCallee()
+		if fn == nil || fn.Pkg == nil || fn.Pkg.Pkg.Path() != "math" || fn.Name() != "Mod" || len(v.Call.Args) != 2 {
+			return false
+		}
+		one, ok := provenance.Strip(v.Call.Args[1]).(*ssa.Const)
+		x, isBin := provenance.Strip(v.Call.Args[0]).(*ssa.BinOp)
+		return ok && one.Value != nil && constant.Compare(one.Value, token.EQL, constant.MakeInt64(1)) && isBin && (x.Op == token.MUL || x.Op == token.QUO)
+	}
+	return false
+}
+
+// isConstVal reports whether v is a constant.
+func isConstVal(v ssa.Value) bool {
+	_, ok := provenance.Strip(v).(*ssa.Const)
+	return ok
+}
+
+// reportFraction reports the fractional part of a computed value tested
+// exactly against a constant.
+func (c *checker) reportFraction(n *ast.BinaryExpr, op token.Token, x, y operand) {
+	if n == nil {
+		return
+	}
+	v, k := x, y
+	if !fraction(x.val) {
+		v, k = y, x
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catWhole,
+		Message: fmt.Sprintf("exact %s tests the fractional part %s of a computed value against %s: a value at that fraction in exact arithmetic can come out an ulp below or above (0.29*50 is 14.499999999999998, fraction 0.4999999999999982), and the test then misses it; compare within a tolerance",
+			op, fixes.Source(c.pass.Fset, v.expr), fixes.Source(c.pass.Fset, k.expr)),
 	})
 }

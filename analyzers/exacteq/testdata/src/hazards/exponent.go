@@ -24,3 +24,11 @@ func rounds(n int) float64 {
 func depth(n, m int) float64 {
 	return math.Ceil(math.Log2(float64(n)) / math.Log2(float64(m))) // want `math.Ceil\(math.Log2\(float64\(n\)\) / math.Log2\(float64\(m\)\)\) takes a whole number from a quotient of rounded logarithms`
 }
+
+// median tells whether the q-quantile of n readings falls halfway
+// between two of them: at q = 0.29, n = 50 the product is
+// 14.499999999999998, and the half is missed.
+func median(q float64, n int) bool {
+	pos := q * float64(n)
+	return pos-math.Floor(pos) == 0.5 // want `exact == tests the fractional part pos - math.Floor\(pos\) of a computed value against 0.5: a value at that fraction in exact arithmetic can come out an ulp below or above \(0.29\*50 is 14.499999999999998, fraction 0.4999999999999982\)`
+}

@@ -40,3 +40,9 @@ func scaled(terms []float64) (float64, float64) {
 	e := math.Floor(math.Log(s) / math.Ln10)
 	return s / math.Pow(10, e), e
 }
+
+// half tells whether a reading as given sits halfway between two whole
+// numbers: nothing computed it, so the fraction is exact.
+func half(x float64) bool {
+	return x-math.Floor(x) == 0.5
+}

@@ -20,6 +20,7 @@ import (
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/consume"
+	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/span"
 	"roundoff/internal/numeric"
 )
@@ -209,14 +210,17 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 // mathFunc returns the name of the math package function call calls,
 // with one argument of type float64, or "".
 func (c *checker) mathFunc(call *ast.CallExpr) string {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || len(call.Args) != 1 {
+	return c.mathFuncOf(call, 1)
+}
+
+// mathFuncOf returns the name of the math package function call calls
+// with n arguments, named through the package (a dot import leaves the
+// fixes no package to name), or "".
+func (c *checker) mathFuncOf(call *ast.CallExpr, n int) string {
+	if _, ok := call.Fun.(*ast.SelectorExpr); !ok || len(call.Args) != n {
 		return ""
 	}
-	if _, ok := call.Fun.(*ast.SelectorExpr); !ok {
-		return "" // dot import: the fixes name the package
-	}
-	return fn.Name()
+	return provenance.MathCallee(c.pass.TypesInfo, call)
 }
 
 // mathName returns the name of the math package function of one float64
@@ -269,14 +273,7 @@ func wrappersOf(pass *analysis.Pass) map[*types.Func]string {
 // mathFunc2 returns the name of the math package function call calls
 // with two arguments, or "".
 func (c *checker) mathFunc2(call *ast.CallExpr) string {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || len(call.Args) != 2 {
-		return ""
-	}
-	if _, ok := call.Fun.(*ast.SelectorExpr); !ok {
-		return ""
-	}
-	return fn.Name()
+	return c.mathFuncOf(call, 2)
 }
 
 // absArg returns x when call computes |x|, by math.Abs or any function

@@ -8,7 +8,6 @@ import (
 	"math"
 
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/span"
@@ -166,8 +165,7 @@ func (c *checker) overflowChecked(cond ast.Expr, negated bool, x ast.Expr) bool 
 	found := c.compares(cond, negated, x)
 	ast.Inspect(cond, func(n ast.Node) bool {
 		if call, ok := n.(*ast.CallExpr); ok {
-			fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-			found = found || ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "IsInf" && c.mentions(call.Args[0], x)
+			found = found || provenance.MathCallee(c.pass.TypesInfo, call) == "IsInf" && c.mentions(call.Args[0], x)
 		}
 		return !found
 	})

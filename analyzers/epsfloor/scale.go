@@ -171,8 +171,7 @@ func (c *checker) fromParams(e ast.Expr, depth int) bool {
 		if len(x.Args) == 1 && info.Types[x.Fun].IsType() {
 			return c.fromParams(x.Args[0], depth+1)
 		}
-		fn, ok := typeutil.Callee(info, x).(*types.Func)
-		if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && (fn.Name() == "Remainder" || fn.Name() == "Mod") {
+		if name := provenance.MathCallee(info, x); name == "Remainder" || name == "Mod" {
 			return c.fromParams(x.Args[0], depth+1) && c.fromParams(x.Args[1], depth+1)
 		}
 		sel, ok := x.Fun.(*ast.SelectorExpr)

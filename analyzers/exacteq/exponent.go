@@ -107,22 +107,13 @@ func truncation(info *types.Info, call *ast.CallExpr) (up, ok bool) {
 	if tv := info.Types[call.Fun]; tv.IsType() {
 		return false, isInteger(tv.Type)
 	}
-	switch mathName(info, call) {
+	switch provenance.MathCallee(info, call) {
 	case "Floor", "Trunc":
 		return false, true
 	case "Ceil":
 		return true, true
 	}
 	return false, false
-}
-
-// mathName returns the name of the math function call calls, or "".
-func mathName(info *types.Info, call *ast.CallExpr) string {
-	fn, ok := typeutil.Callee(info, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
-		return ""
-	}
-	return fn.Name()
 }
 
 // logs are the logarithms a ratio is read from, with the base each is to.
@@ -161,7 +152,7 @@ func readLogRatio(info *types.Info, e ast.Expr) (logRatio, bool) {
 	if !ok || len(call.Args) != 1 {
 		return r, false
 	}
-	l, ok := logs[mathName(info, call)]
+	l, ok := logs[provenance.MathCallee(info, call)]
 	if !ok {
 		return r, false
 	}
@@ -178,7 +169,7 @@ func readLogRatio(info *types.Info, e ast.Expr) (logRatio, bool) {
 	if !ok || q.Op != token.QUO || len(den.Args) != 1 {
 		return r, false
 	}
-	ld, ok := logs[mathName(info, den)]
+	ld, ok := logs[provenance.MathCallee(info, den)]
 	if !ok {
 		return r, false
 	}

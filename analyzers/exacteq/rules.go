@@ -10,7 +10,6 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -66,8 +65,7 @@ func (c *checker) nanCall(e ast.Expr, wrapper bool) bool {
 	if c.pass.TypesInfo.Types[call.Fun].IsType() && len(call.Args) == 1 {
 		return c.nanCall(call.Args[0], wrapper) // float32(math.NaN())
 	}
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "NaN" {
+	if provenance.MathCallee(c.pass.TypesInfo, call) == "NaN" {
 		return true
 	}
 	sc := c.callAt(call.Lparen)

@@ -10,9 +10,9 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/provenance"
 )
 
 // convertedQuotient reports T(a/b), a conversion of a truncated integer
@@ -198,8 +198,8 @@ func floored(pass *analysis.Pass, cur inspector.Cursor, conv *ast.CallExpr) bool
 	if !ok || cur.ParentEdgeKind() != edge.CallExpr_Args {
 		return false
 	}
-	fn, ok := typeutil.Callee(pass.TypesInfo, call).(*types.Func)
-	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && (fn.Name() == "Floor" || fn.Name() == "Trunc")
+	name := provenance.MathCallee(pass.TypesInfo, call)
+	return name == "Floor" || name == "Trunc"
 }
 
 // floorWords match a comment that says a truncation is meant.

@@ -342,8 +342,8 @@ func (d *deps) canVanish(e ast.Expr, depth int, closed bool) bool {
 		if d.info.Types[e.Fun].IsType() {
 			return len(e.Args) == 1 && d.canVanish(e.Args[0], depth, closed)
 		}
-		if fn, ok := typeutil.Callee(d.info, e).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" {
-			if f, ok := vanishing[fn.Name()]; ok {
+		if name := provenance.MathCallee(d.info, e); name != "" {
+			if f, ok := vanishing[name]; ok {
 				return !d.constantNonZero(f, e.Args)
 			}
 		}

@@ -113,11 +113,7 @@ func (c *checker) zeroFactor(d *deps, e ast.Expr, depth int) *types.Var {
 			return c.zeroFactor(d, e.X, depth)
 		}
 	case *ast.CallExpr:
-		fn, ok := typeutil.Callee(d.info, e).(*types.Func)
-		if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
-			return nil
-		}
-		switch fn.Name() {
+		switch provenance.MathCallee(d.info, e) {
 		case "Sqrt", "Cbrt", "Abs", "Pow": // Pow(x, y) is 0 with x, for y > 0
 			return c.zeroFactor(d, e.Args[0], depth-1)
 		case "Min":

@@ -647,7 +647,7 @@ func (l *loop) classify(info *types.Info) class {
 				sign = sign || l.signTest(info, n)
 				decrease = decrease || l.decreaseTest(info, n) || l.parabolaTerm(info, n)
 			case *ast.CallExpr:
-				if fn, ok := typeutil.Callee(info, n).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Signbit" {
+				if provenance.MathCallee(info, n) == "Signbit" {
 					sign = true
 				}
 			case *ast.AssignStmt:
@@ -801,7 +801,7 @@ func (l *loop) quotientStep(info *types.Info, as *ast.AssignStmt) bool {
 func (l *loop) fvalue(info *types.Info, e ast.Expr) bool {
 	e = ast.Unparen(e)
 	if a, ok := e.(*ast.CallExpr); ok {
-		if fn, ok := typeutil.Callee(info, a).(*types.Func); ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Abs" && len(a.Args) == 1 {
+		if provenance.MathCallee(info, a) == "Abs" && len(a.Args) == 1 {
 			e = ast.Unparen(a.Args[0]) // |f(a)| < |f(b)| compares function values too
 		}
 	}

@@ -23,7 +23,6 @@ import (
 
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/provenance"
 )
@@ -141,15 +140,15 @@ func call(info *types.Info, p *ast.CallExpr, i int) (Use, bool) {
 		b, ok := tv.Type.Underlying().(*types.Basic)
 		return Unknown, !ok || b.Info()&types.IsFloat == 0
 	}
-	fn, ok := typeutil.Callee(info, p).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
+	name := provenance.MathCallee(info, p)
+	if name == "" {
 		return Unknown, true
 	}
-	u, known := mathUse[fn.Name()]
+	u, known := mathUse[name]
 	switch {
 	case !known:
 		return Unknown, true
-	case fn.Name() == "Copysign" && i == 0, fn.Name() == "Pow" && i == 1:
+	case name == "Copysign" && i == 0, name == "Pow" && i == 1:
 		return Absolute, true // the magnitude of Copysign; an exponent scales the logarithm
 	case u == passOn:
 		return 0, false

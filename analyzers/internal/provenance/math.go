@@ -1,9 +1,11 @@
 package provenance
 
 import (
+	"go/ast"
 	"go/types"
 
 	"golang.org/x/tools/go/ssa"
+	"golang.org/x/tools/go/types/typeutil"
 )
 
 // Rounding classifies a math-package function by whether its result is
@@ -67,4 +69,14 @@ func IsInf(v ssa.Value) bool {
 	}
 	fn := call.Common().StaticCallee()
 	return fn != nil && fn.Pkg != nil && fn.Name() == "Inf" && (fn.Pkg.Pkg.Path() == "math" || fn.Pkg.Pkg.Path() == "math/cmplx")
+}
+
+// MathCallee returns the name of the math package function that call
+// calls, or "" when it calls something else.
+func MathCallee(info *types.Info, call *ast.CallExpr) string {
+	fn, ok := typeutil.Callee(info, call).(*types.Func)
+	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" {
+		return ""
+	}
+	return fn.Name()
 }

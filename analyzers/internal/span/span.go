@@ -12,6 +12,7 @@ import (
 	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/absval"
+	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
 )
 
@@ -303,8 +304,7 @@ func fractionalPart(info *types.Info, decls map[types.Object]ast.Expr, d *ast.Bi
 	if d.Op != token.SUB || !ok || len(call.Args) != 1 {
 		return false
 	}
-	fn, ok := typeutil.Callee(info, call).(*types.Func)
-	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == "Floor" &&
+	return provenance.MathCallee(info, call) == "Floor" &&
 		types.ExprString(ast.Unparen(call.Args[0])) == types.ExprString(ast.Unparen(d.X))
 }
 

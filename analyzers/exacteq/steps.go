@@ -69,17 +69,17 @@ func truncatesQuotient(info *types.Info, call *ast.CallExpr) bool {
 // that gives the length of a slice or bounds a loop (steps).
 func countUse(pass *analysis.Pass, cur inspector.Cursor, call *ast.CallExpr) (how string, points, ok bool) {
 	info := pass.TypesInfo
-	cur = cur.Parent()
-	for {
+	child := ast.Node(call)
+	for cur = cur.Parent(); ; cur = cur.Parent() {
 		if _, paren := cur.Node().(*ast.ParenExpr); !paren && !isConversion(info, cur.Node()) {
 			break // int(math.Floor(q)) is used where the conversion is
 		}
-		cur = cur.Parent()
+		child = cur.Node()
 	}
 	switch p := cur.Node().(type) {
 	case *ast.BinaryExpr:
 		other := p.X
-		if ast.Unparen(p.X) == call {
+		if p.X == child {
 			other = p.Y
 		}
 		if v, isConst := constFloat(info, other); p.Op == token.ADD && isConst && v >= 1 && v == float64(int(v)) {

@@ -19,3 +19,8 @@ func holds(from, to, dt float64) []float64 {
 	n := int(math.Floor((to - from) / dt)) // want `math.Floor\(\(to - from\) / dt\) truncates a quotient of floats that sizes the slice made with n elements`
 	return make([]float64, n)
 }
+
+// marks counts the tick marks of an axis, floored and converted.
+func marks(lo, hi, step float64) int {
+	return int(math.Floor((hi-lo)/step)) + 1 // want `math.Floor\(\(hi - lo\) / step\) truncates a quotient of floats that counts the points of a range \(the steps plus 1\)`
+}

@@ -387,11 +387,39 @@ func factorsOf(e ast.Expr) []ast.Expr {
 // the conditions under which cur runs, as in the else branch of
 // if x < 0.05, or by every call of its function) keeps |x| at or above
 // least: 1/boundedLoss for log(1 ± x) and exp(x) - 1, which lose about
-// log10(1/|x|) digits, so that they lose at most two.
+// log10(1/|x|) digits, so that they lose at most two. A whole number
+// scaled by a constant (float64(q)/10, the exponent of a decibel table)
+// is 0, where every form here is exact (a^0 - 1, e^0 - 1, log(1 + 0) are
+// 0), or at least the scale: that gap counts as the range.
 func (c *checker) boundedAway(cur inspector.Cursor, x ast.Expr, least float64) bool {
+	if g, ok := c.wholeGap(x); ok && g >= least {
+		return true
+	}
 	r, _ := c.spans.At(cur, x)
 	lo, _ := r.Magnitude()
 	return lo >= least
+}
+
+// wholeGap returns g when e is 0 or at least g in magnitude: a whole
+// number (wholeNumber) times or over a nonzero constant.
+func (c *checker) wholeGap(e ast.Expr) (float64, bool) {
+	b, ok := ast.Unparen(e).(*ast.BinaryExpr)
+	if !ok || b.Op != token.QUO && b.Op != token.MUL {
+		return 0, false
+	}
+	w, k := b.X, b.Y
+	if b.Op == token.MUL && c.isConst(w) {
+		w, k = k, w
+	}
+	tv := c.pass.TypesInfo.Types[k]
+	if !c.wholeNumber(w) || tv.Value == nil || constant.Sign(tv.Value) == 0 {
+		return 0, false
+	}
+	kv, _ := constant.Float64Val(constant.ToFloat(tv.Value))
+	if b.Op == token.QUO {
+		return 1 / math.Abs(kv), true
+	}
+	return math.Abs(kv), true
 }
 
 // addend reports whether the value at cur, carried through products,

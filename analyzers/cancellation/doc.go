@@ -321,7 +321,9 @@
 // leaves x where the cosine still rounds to 1), nor, for log(1 ± x) and exp(x) - 1, which
 // lose about log10(1/|x|) digits, its range keeps |x| at
 // least 0.01 (two digits at most: the golden-section ratio (3 -
-// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio)); the same holds for
+// math.Sqrt(5))/2 = 0.382 in math.Log(1-ratio); a whole number times or
+// over a constant, float64(q)/10, is 0, where the forms are exact, or at
+// least the scale); the same holds for
 // b·ln a in a^b - 1, for x in 1 - cos(x), which loses about log10(2/x²)
 // digits, from |x| = sqrt(0.02) ≈ 0.141 up, and for y in log(1+e^y)
 // inside [-ln 100, 709.78], where e^y keeps two digits and cannot

@@ -236,3 +236,9 @@ func coneFactor(x, mu float64) float64 {
 	x2 := x * x
 	return math.Pow(0.5*math.Sqrt(1-x2), mu) // want `a\*a - b\*b with a = 1, b = x loses`
 }
+
+// millibels converts a whole number of millibels: q/1000 may be 0.001,
+// where |b·ln a| is 0.0023 and 10^b - 1 loses more than two digits.
+func millibels(q int) float64 {
+	return math.Pow(10, float64(q)/1000) - 1 // want `math.Pow\(a, b\)-1 with a = 10, b = float64\(q\) / 1000`
+}

@@ -21,6 +21,13 @@ func mersenne(n int) float64 {
 	return math.Pow(2, float64(n)) - 1 // 2^n with n whole is 1 or at least 2
 }
 
+// gainRatio converts a whole number of decibels to a power ratio less 1:
+// q/10 is 0, where the power is exactly 1, or at least 0.1, where
+// 10^0.1 - 1 loses under half a digit (|b·ln a| >= 0.23).
+func gainRatio(q int) float64 {
+	return math.Pow(10, float64(q)/10) - 1
+}
+
 func asinhOfMagnitude(v float64) float64 {
 	x := math.Abs(v)
 	return math.Log(x + math.Sqrt(x*x+1)) // x ≥ 0: the terms add

@@ -57,7 +57,8 @@
 //     math.Asinh(x) is exact to an ulp;
 //   - math.Acos(x) of the cosine of an angle between vectors (a dot
 //     product over norms, the norms also from the package's own methods,
-//     a.Len() returning math.Sqrt(a.Dot(a)), and the ratio also returned
+//     a.Len() returning math.Sqrt(a.Dot(a)), also through a named result
+//     set once before a bare return, and the ratio also returned
 //     by the package's own function, clamped or not), of a great-circle
 //     distance (the spherical law of cosines), or of an angle from three
 //     sides (the planar law of cosines, (a*a + b*b - c*c) / (2*a*b), where

@@ -366,7 +366,8 @@ func (c *checker) returned(call *ast.CallExpr) ast.Expr {
 
 // returnsOf maps each function and method of the package whose body
 // holds one return statement, of one value, as its last statement to that
-// value.
+// value; a bare return of a named result set just before it, and nowhere
+// else (m = math.Sqrt(s); return), returns that value too.
 func returnsOf(pass *analysis.Pass) map[*types.Func]ast.Expr {
 	m := make(map[*types.Func]ast.Expr)
 	for _, f := range pass.Files {
@@ -376,13 +377,60 @@ func returnsOf(pass *analysis.Pass) map[*types.Func]ast.Expr {
 				continue
 			}
 			ret, ok := fd.Body.List[len(fd.Body.List)-1].(*ast.ReturnStmt)
-			if !ok || len(ret.Results) != 1 || countReturns(fd.Body) != 1 {
+			if !ok || countReturns(fd.Body) != 1 {
 				continue
 			}
-			m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = ret.Results[0]
+			if len(ret.Results) == 1 {
+				m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = ret.Results[0]
+			} else if v, ok := namedResult(pass.TypesInfo, fd); ok {
+				m[pass.TypesInfo.Defs[fd.Name].(*types.Func)] = v
+			}
 		}
 	}
 	return m
+}
+
+// namedResult returns E when fd has one named result r, its body ends
+// with r = E and a bare return, and nothing else assigns r or takes its
+// address.
+func namedResult(info *types.Info, fd *ast.FuncDecl) (ast.Expr, bool) {
+	res := fd.Type.Results
+	list := fd.Body.List
+	if res == nil || len(res.List) != 1 || len(res.List[0].Names) != 1 || len(list) < 2 {
+		return nil, false
+	}
+	r := info.Defs[res.List[0].Names[0]]
+	as, ok := list[len(list)-2].(*ast.AssignStmt)
+	if !ok || as.Tok != token.ASSIGN || len(as.Lhs) != 1 || len(as.Rhs) != 1 || !isObj(info, as.Lhs[0], r) {
+		return nil, false
+	}
+	uses := 0
+	ast.Inspect(fd.Body, func(n ast.Node) bool {
+		switch n := n.(type) {
+		case *ast.AssignStmt:
+			for _, l := range n.Lhs {
+				if isObj(info, l, r) {
+					uses++
+				}
+			}
+		case *ast.UnaryExpr:
+			if n.Op == token.AND && isObj(info, n.X, r) {
+				uses += 2
+			}
+		case *ast.IncDecStmt:
+			if isObj(info, n.X, r) {
+				uses += 2
+			}
+		}
+		return true
+	})
+	return as.Rhs[0], uses == 1
+}
+
+// isObj reports whether e names the variable v.
+func isObj(info *types.Info, e ast.Expr, v types.Object) bool {
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	return ok && v != nil && info.Uses[id] == v
 }
 
 // countReturns counts the return statements of body, those of function

@@ -74,3 +74,16 @@ func sightAngle(near, far, gap float64) float64 {
 	cos := (math.Pow(near, 2) - math.Pow(gap, 2) + math.Pow(far, 2)) / (2 * far * near)
 	return math.Acos(cos) // want `math.Acos\(x\) with x = cos loses half the digits.*half-angle form`
 }
+
+// length returns its value through a named result, set once before the
+// bare return: the norm all the same.
+func (p panel) length() (l float64) {
+	l = math.Sqrt(p.sizeSq())
+	return
+}
+
+// facetAngle is the angle between two panels' normals over norms read
+// through a named result.
+func facetAngle(p, q panel) float64 {
+	return math.Acos(p.inner(q) / (p.length() * q.length())) // want `math.Acos\(x\) with x = p.inner\(q\) / \(p.length\(\) \* q.length\(\)\) loses half the digits`
+}

@@ -34,7 +34,9 @@
 //     start, step and bound are constants the loop is simulated in the
 //     variable's own format and reported only if the bound is missed;
 //   - an ordered loop condition (x <= b, x < b) on a float variable with a
-//     constant start and bound and a step of one or more constant values,
+//     constant start and bound and a step of one or more constant values
+//     (also the constant results of the package's functions, or of each
+//     of its methods behind an interface the step is read through),
 //     that makes fewer passes in the variable's format than exact
 //     arithmetic on the decimals as written gives (from 0 by 0.05, x <= 1
 //     passes 20 times, not 21: the 21st value is 1.0000000000000002);

@@ -11,6 +11,7 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -156,10 +157,17 @@ func (c *checker) constantsOf(cur inspector.Cursor, e ast.Expr) []constant.Value
 			if !isID || c.pass.TypesInfo.ObjectOf(lid) != v {
 				continue
 			}
-			val, isConst := constant.Value(nil), false
-			if as.Tok == token.ASSIGN || as.Tok == token.DEFINE {
-				val, isConst = constval.Exact(c.pass.TypesInfo, c.decls, as.Rhs[min(i, len(as.Rhs)-1)])
+			if as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
+				ok = false
+				break
 			}
+			if call, isCall := ast.Unparen(as.Rhs[0]).(*ast.CallExpr); isCall && len(as.Rhs) == 1 {
+				got := c.resultConstants(call, i) // dl, dab := g.Granularity()
+				ok = len(got) > 0
+				vals = append(vals, got...)
+				continue
+			}
+			val, isConst := constval.Exact(c.pass.TypesInfo, c.decls, as.Rhs[min(i, len(as.Rhs)-1)])
 			ok = isConst && len(as.Lhs) == len(as.Rhs)
 			vals = append(vals, val)
 		}
@@ -253,4 +261,83 @@ func rat(v constant.Value) *big.Rat {
 		return nil
 	}
 	return r
+}
+
+// resultConstants returns the constants that result i of call can be: a
+// function of this package, or every method of that name of the
+// package's types that implement the interface a call goes through, each
+// returning a constant there on every path (a generator whose
+// Granularity returns 0.05, 0.1). It returns nil when any can return
+// something else, or when no body is in sight.
+func (c *checker) resultConstants(call *ast.CallExpr, i int) []constant.Value {
+	info := c.pass.TypesInfo
+	var impls []*types.Func
+	switch fn := typeutil.Callee(info, call).(type) {
+	case *types.Func:
+		sig := fn.Signature()
+		if recv := sig.Recv(); recv != nil && types.IsInterface(recv.Type()) {
+			iface := recv.Type().Underlying().(*types.Interface)
+			for _, name := range c.pass.Pkg.Scope().Names() {
+				tn, ok := c.pass.Pkg.Scope().Lookup(name).(*types.TypeName)
+				if !ok || types.IsInterface(tn.Type()) {
+					continue
+				}
+				for _, t := range []types.Type{tn.Type(), types.NewPointer(tn.Type())} {
+					if types.Implements(t, iface) {
+						if m, _, _ := types.LookupFieldOrMethod(t, true, c.pass.Pkg, fn.Name()); m != nil {
+							impls = append(impls, m.(*types.Func))
+						}
+						break
+					}
+				}
+			}
+		} else if fn.Pkg() == c.pass.Pkg {
+			impls = []*types.Func{fn}
+		}
+	}
+	var vals []constant.Value
+	for _, fn := range impls {
+		got := c.returnsConstant(fn, i)
+		if got == nil {
+			return nil
+		}
+		vals = append(vals, got...)
+	}
+	return vals
+}
+
+// returnsConstant returns the constants fn, declared in this package,
+// returns as result i, or nil unless every return gives one.
+func (c *checker) returnsConstant(fn *types.Func, i int) []constant.Value {
+	for _, f := range c.pass.Files {
+		for _, d := range f.Decls {
+			fd, ok := d.(*ast.FuncDecl)
+			if !ok || fd.Body == nil || c.pass.TypesInfo.Defs[fd.Name] != fn {
+				continue
+			}
+			var vals []constant.Value
+			all := true
+			ast.Inspect(fd.Body, func(n ast.Node) bool {
+				if _, lit := n.(*ast.FuncLit); lit {
+					return false
+				}
+				ret, ok := n.(*ast.ReturnStmt)
+				if !ok || !all {
+					return all
+				}
+				v, isConst := constant.Value(nil), false
+				if i < len(ret.Results) {
+					v, isConst = constval.Exact(c.pass.TypesInfo, c.decls, ret.Results[i])
+				}
+				all = all && isConst
+				vals = append(vals, v)
+				return false
+			})
+			if !all || len(vals) == 0 {
+				return nil
+			}
+			return vals
+		}
+	}
+	return nil
 }

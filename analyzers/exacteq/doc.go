@@ -70,7 +70,11 @@
 //     value whole in exact arithmetic can come out an ulp below
 //     (0.29*100 is 28.999999999999996), and the test misses it; so does
 //     its fractional part tested against a constant (pos-math.Floor(pos)
-//     == 0.5, math.Mod(pos, 1) == 0.5: 0.29*50 is 14.499999999999998);
+//     == 0.5: 0.29*50 is 14.499999999999998), and the remainder
+//     math.Mod(x, y) of a product, a quotient or a sum carried around a
+//     loop tested against a constant, 0 included (ten steps of 0.1 leave
+//     0.4999999999999999 by 0.5); the remainder of a value as given, or of
+//     a sum of such values, is exact and left alone;
 //   - a computed value (or a parameter some call in the package fills with
 //     one, as degrees of freedom from a ratio of sums) compared with a
 //     nonzero whole constant (df == 1) in a function that also truncates

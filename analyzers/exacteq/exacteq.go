@@ -242,16 +242,16 @@ func (c *checker) caseClause(cur inspector.Cursor, cc *ast.CaseClause) {
 // scalar applies the computed-value rules to a float comparison; n is nil
 // for a switch case, which gets no fix.
 func (c *checker) scalar(cur inspector.Cursor, n *ast.BinaryExpr, op token.Token, x, y operand) {
+	if c.fraction(x.val) && isConstVal(y.val) || c.fraction(y.val) && isConstVal(x.val) {
+		c.reportFraction(n, op, x, y) // 0 included: a remainder of 0 is a divisibility test
+		return
+	}
 	if n != nil && (c.sumTie(cur, n, op, x, y) || c.secondRoute(cur, n, op, x, y) || c.wholeCount(cur, n, op, x, y)) || c.residue(cur, n, op, x, y) || c.exempt(x) || c.exempt(y) {
 		return
 	}
 	cx, cy := c.track.Computed(x.val), c.track.Computed(y.val)
 	if cx && wholeOf(y.val, x.val) || cy && wholeOf(x.val, y.val) {
 		c.reportWhole(n, op, x, y)
-		return
-	}
-	if cx && fraction(x.val) && isConstVal(y.val) || cy && fraction(y.val) && isConstVal(x.val) {
-		c.reportFraction(n, op, x, y)
 		return
 	}
 	if cx && cy {

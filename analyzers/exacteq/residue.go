@@ -3,7 +3,6 @@ package exacteq
 import (
 	"fmt"
 	"go/ast"
-	"go/constant"
 	"go/token"
 	"go/types"
 	"strings"
@@ -353,8 +352,13 @@ func (c *checker) reportWhole(n *ast.BinaryExpr, op token.Token, x, y operand) {
 }
 
 // fraction reports whether v is the fractional part of a product or
-// quotient: x - W(x) with W(x) its whole part (wholeOf), or math.Mod(x, 1).
-func fraction(v ssa.Value) bool {
+// quotient, x - W(x) with W(x) its whole part (wholeOf), or the remainder
+// math.Mod(x, y) of a product or quotient (not a scaling by a power of
+// two, which is exact) or of a sum of steps carried around a loop: a
+// multiple of y in exact arithmetic lands an ulp off. A sum or difference
+// of values as given (2b - 4a + 1 of whole parameters) is left out: it is
+// exact wherever its operands are whole or close (Sterbenz).
+func (c *checker) fraction(v ssa.Value) bool {
 	switch v := provenance.Strip(v).(type) {
 	case *ssa.BinOp:
 		return v.Op == token.SUB && wholeOf(v.Y, v.X)
@@ -363,9 +367,34 @@ func fraction(v ssa.Value) bool {
 		if fn == nil || fn.Pkg == nil || fn.Pkg.Pkg.Path() != "math" || fn.Name() != "Mod" || len(v.Call.Args) != 2 {
 			return false
 		}
-		one, ok := provenance.Strip(v.Call.Args[1]).(*ssa.Const)
-		x, isBin := provenance.Strip(v.Call.Args[0]).(*ssa.BinOp)
-		return ok && one.Value != nil && constant.Compare(one.Value, token.EQL, constant.MakeInt64(1)) && isBin && (x.Op == token.MUL || x.Op == token.QUO)
+		switch x := provenance.Strip(v.Call.Args[0]).(type) {
+		case *ssa.BinOp:
+			return (x.Op == token.MUL || x.Op == token.QUO) && provenance.IsFloat(x.Type()) && !provenance.ExactScaling(x)
+		case *ssa.Phi:
+			return loopSum(x)
+		}
+	}
+	return false
+}
+
+// loopSum reports whether phi is a sum carried around a loop (t +=
+// dt), or the merge after the loop of such a sum with its start.
+func loopSum(phi *ssa.Phi) bool {
+	if _, stepped := provenance.LoopStep(phi); stepped {
+		return true
+	}
+	for _, e := range phi.Edges {
+		b, ok := provenance.Strip(e).(*ssa.BinOp)
+		if !ok {
+			continue
+		}
+		for _, op := range []ssa.Value{b.X, b.Y} {
+			if inner, ok := provenance.Strip(op).(*ssa.Phi); ok && inner != phi {
+				if _, stepped := provenance.LoopStep(inner); stepped {
+					return true
+				}
+			}
+		}
 	}
 	return false
 }
@@ -383,12 +412,12 @@ func (c *checker) reportFraction(n *ast.BinaryExpr, op token.Token, x, y operand
 		return
 	}
 	v, k := x, y
-	if !fraction(x.val) {
+	if !c.fraction(x.val) {
 		v, k = y, x
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catWhole,
-		Message: fmt.Sprintf("exact %s tests the fractional part %s of a computed value against %s: a value at that fraction in exact arithmetic can come out an ulp below or above (0.29*50 is 14.499999999999998, fraction 0.4999999999999982), and the test then misses it; compare within a tolerance",
+		Message: fmt.Sprintf("exact %s tests the fractional part or remainder %s of a computed value against %s: a value at that fraction in exact arithmetic can come out an ulp below or above (0.29*50 is 14.499999999999998, fraction 0.4999999999999982), and the test then misses it; compare within a tolerance",
 			op, fixes.Source(c.pass.Fset, v.expr), fixes.Source(c.pass.Fset, k.expr)),
 	})
 }

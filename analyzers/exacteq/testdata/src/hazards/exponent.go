@@ -30,5 +30,16 @@ func depth(n, m int) float64 {
 // 14.499999999999998, and the half is missed.
 func median(q float64, n int) bool {
 	pos := q * float64(n)
-	return pos-math.Floor(pos) == 0.5 // want `exact == tests the fractional part pos - math.Floor\(pos\) of a computed value against 0.5: a value at that fraction in exact arithmetic can come out an ulp below or above \(0.29\*50 is 14.499999999999998, fraction 0.4999999999999982\)`
+	return pos-math.Floor(pos) == 0.5 // want `exact == tests the fractional part or remainder pos - math.Floor\(pos\) of a computed value against 0.5: a value at that fraction in exact arithmetic can come out an ulp below or above \(0.29\*50 is 14.499999999999998, fraction 0.4999999999999982\)`
+}
+
+// onBeat tells whether a clock advanced by steps of dt lands on a beat of
+// the period: ten steps of 0.1 make 0.9999999999999999, whose remainder
+// by 0.5 is 0.4999999999999999, not 0.
+func onBeat(steps int, dt, period float64) bool {
+	t := 0.0
+	for range steps {
+		t += dt
+	}
+	return math.Mod(t, period) == 0 // want `exact == tests the fractional part or remainder math.Mod\(t, period\) of a computed value against 0`
 }

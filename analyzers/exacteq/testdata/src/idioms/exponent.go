@@ -46,3 +46,10 @@ func scaled(terms []float64) (float64, float64) {
 func half(x float64) bool {
 	return x-math.Floor(x) == 0.5
 }
+
+// turn tells whether a rotation, given in degrees, is a whole number of
+// turns: the angle is read as given, and math.Mod is exact (IEEE 754-2019
+// §5.3.1 remainder), so the test is exact too.
+func turn(shift float64) bool {
+	return math.Mod(shift, 360) == 0
+}

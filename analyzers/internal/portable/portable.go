@@ -126,10 +126,11 @@ func run(pass *analysis.Pass) (any, error) {
 		if !obj.Exported() {
 			continue // read in this package on demand (inputs.go)
 		}
-		if j.paramCause(fn, maxDepth) {
+		floats, refs := floatParams(fn)
+		if floats && j.paramCause(fn, maxDepth) {
 			pass.ExportObjectFact(obj, new(InputCauseFact))
 		}
-		if j.storesCause(fn, maxDepth) {
+		if refs && j.storesCause(fn, maxDepth) {
 			pass.ExportObjectFact(obj, new(FillCauseFact))
 		}
 	}
@@ -164,4 +165,18 @@ func holdsFloat(t *types.Tuple) bool {
 		}
 	}
 	return false
+}
+
+// floatParams reports whether fn has a parameter (its receiver included)
+// holding floats, and one holding them through a reference it could
+// store into: without the first nothing it computes comes from floats it
+// is given, without the second it fills nothing.
+func floatParams(fn *ssa.Function) (floats, refs bool) {
+	for _, p := range fn.Params {
+		if provenance.HoldsFloat(p.Type(), true) {
+			floats = true
+			refs = refs || !provenance.HoldsFloat(p.Type(), false)
+		}
+	}
+	return floats, refs
 }

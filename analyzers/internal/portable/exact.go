@@ -358,16 +358,32 @@ func fieldIndex(ref ssa.Instruction) int {
 // literalOf returns the local variable or composite literal whose field or
 // element addr is, or nil.
 func literalOf(addr ssa.Value) *ssa.Alloc {
+	a, _ := addrRoot(addr, false).(*ssa.Alloc)
+	return a
+}
+
+// addrRoot returns the value an address is reached from through fields
+// and elements, and, with viaRefs, through slices and loads as well
+// (o.data[i] from o).
+func addrRoot(addr ssa.Value, viaRefs bool) ssa.Value {
 	for {
 		switch a := addr.(type) {
 		case *ssa.FieldAddr:
 			addr = a.X
 		case *ssa.IndexAddr:
 			addr = a.X
-		case *ssa.Alloc:
-			return a
+		case *ssa.Slice:
+			if !viaRefs {
+				return a
+			}
+			addr = a.X
+		case *ssa.UnOp:
+			if !viaRefs {
+				return a
+			}
+			addr = a.X
 		default:
-			return nil
+			return a
 		}
 	}
 }

@@ -191,23 +191,8 @@ func (j *Judge) storesCause(fn *ssa.Function, depth int) bool {
 // fromParam reports whether addr is reached from a parameter through
 // fields, elements, slices and loads (o.data[i] with o a parameter).
 func fromParam(addr ssa.Value) bool {
-	for range 8 {
-		switch a := addr.(type) {
-		case *ssa.Parameter:
-			return true
-		case *ssa.IndexAddr:
-			addr = a.X
-		case *ssa.FieldAddr:
-			addr = a.X
-		case *ssa.Slice:
-			addr = a.X
-		case *ssa.UnOp:
-			addr = a.X
-		default:
-			return false
-		}
-	}
-	return false
+	_, ok := addrRoot(addr, true).(*ssa.Parameter)
+	return ok
 }
 
 // elements reports whether t is a slice or an array, or a pointer to one.

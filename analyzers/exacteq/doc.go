@@ -98,7 +98,8 @@
 //     formula on both sides gives the same bits and is left alone;
 //   - in tests, an exact comparison (==, !=, testify's Equal,
 //     reflect.DeepEqual, cmp.Equal, gocheck's c.Assert(got, check.Equals,
-//     want) and c.Check, on floats or on structs and arrays of
+//     want) and c.Check, also with a check.Commentf after want, on
+//     floats or on structs and arrays of
 //     them) of a result with a printed value: a constant whose shortest
 //     decimal form has 16 or more significant digits (8 for float32) and
 //     that its type stores inexactly, written in the comparison, named, or

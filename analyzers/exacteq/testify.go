@@ -158,10 +158,11 @@ func remedy(replacement, tol string) string {
 var gocheckPaths = map[string]bool{"gopkg.in/check.v1": true, "github.com/go-check/check": true}
 
 // gocheckCall reads call as gocheck's c.Assert(obtained, check.Equals,
-// expected) or c.Check (check.DeepEquals too): == and reflect.DeepEqual
-// by another name, judged as a pin. It reports whether call is one.
+// expected) or c.Check (check.DeepEquals too), perhaps followed by a
+// comment (check.Commentf): == and reflect.DeepEqual by another name,
+// judged as a pin. It reports whether call is one.
 func (c *checker) gocheckCall(cur inspector.Cursor, call *ast.CallExpr, fn *types.Func) bool {
-	if !gocheckPaths[fn.Pkg().Path()] || fn.Signature().Recv() == nil || fn.Name() != "Assert" && fn.Name() != "Check" || len(call.Args) != 3 {
+	if !gocheckPaths[fn.Pkg().Path()] || fn.Signature().Recv() == nil || fn.Name() != "Assert" && fn.Name() != "Check" || len(call.Args) < 3 {
 		return false
 	}
 	sel, ok := ast.Unparen(call.Args[1]).(*ast.SelectorExpr)

@@ -728,15 +728,38 @@ func (d *deps) near(tested map[*types.Var]bool) []*types.Var {
 	return append(out, slices.SortedFunc(maps.Keys(from), byPos)...)
 }
 
-// onlyAdvances reports whether the loop does nothing but advance x.
+// onlyAdvances reports whether the loop does nothing but advance x and
+// test its own exits (if x > 0 { break }).
 func (d *deps) onlyAdvances(x *types.Var) bool {
 	for _, s := range d.l.stmt.Body.List {
+		if d.exitOnly(s) {
+			continue
+		}
 		as, ok := s.(*ast.AssignStmt)
 		if !ok || len(as.Lhs) != 1 || tolerance.VarOf(d.info, as.Lhs[0]) != x {
 			return false
 		}
 	}
 	return true
+}
+
+// exitOnly reports whether s is if e { break } (or return) with e one of
+// the loop's float exit tests.
+func (d *deps) exitOnly(s ast.Stmt) bool {
+	is, ok := s.(*ast.IfStmt)
+	if !ok || is.Init != nil || is.Else != nil || len(is.Body.List) != 1 {
+		return false
+	}
+	switch b := is.Body.List[0].(type) {
+	case *ast.BranchStmt:
+		if b.Tok != token.BREAK || b.Label != nil {
+			return false
+		}
+	case *ast.ReturnStmt:
+	default:
+		return false
+	}
+	return slices.ContainsFunc(d.tests, func(t exitTest) bool { return t.e == is.Cond })
 }
 
 // noFloatLeft reports whether an exit compares a point m computed from

@@ -88,10 +88,14 @@
 //     apart, and m repeats once the ends are adjacent; adaptive Simpson
 //     quadrature that halves its tolerance at each level, with no depth
 //     limit, never passes once the halves are below rounding;
-//   - a range reduction by repeated addition, for x < 0 { x += 2*math.Pi },
-//     on a parameter of an exported function, which takes |x|/c passes and
-//     never ends once c is absorbed, from |x| = 2^56 ≈ 7.2e16 for 2π in
-//     float64 (category reduction);
+//   - a range reduction by repeated addition, for x < 0 { x += 2*math.Pi }
+//     (also for { if x >= 0 { break }; x += 2*math.Pi }), on a parameter
+//     of an exported function or on a local given before the loop only
+//     parameters moved or scaled by constants (b := math.Pi/2 - theta),
+//     which takes |x|/c passes and never ends once c is absorbed, from
+//     |x| = 2^56 ≈ 7.2e16 for 2π in float64 (category reduction); a
+//     value computed otherwise first (math.Atan2, math.Mod) may be
+//     bounded, and is left alone;
 //   - a loop that advances x by a step computed by a formula that can round
 //     to zero (acos(r/(r+d)) once d/r < eps/2, a difference, a remainder)
 //     and ends only on float tests (category stall);

@@ -211,7 +211,7 @@ func (c *checker) stepped(l *loop, d *deps, x *types.Var, step ast.Expr) {
 	if tv := c.pass.TypesInfo.Types[step]; tv.Value != nil {
 		h, isConst = f.Value(tv.Value), true
 	}
-	if isConst && h != 0 && d.onlyAdvances(x) && d.constBound(x) && c.exportedParam(l, x) {
+	if isConst && h != 0 && d.onlyAdvances(x) && d.constBound(x) && c.exportedInput(l, x) {
 		what := numeric.Short(h)
 		if step != nil {
 			what = numeric.WithValue(fixes.Source(c.pass.Fset, step), h)
@@ -262,13 +262,61 @@ func abs(x float64) float64 {
 	return x
 }
 
-// exportedParam reports whether x is a parameter of the exported function
-// around the loop, in a package any module may import: its callers may
-// pass any float, however large. The callers of an unexported function, or
+// exportedInput reports whether x enters the loop holding a parameter of
+// the exported function around it, or a value the function moves or
+// scales from parameters by constants (a := math.Pi/2 - p): in a package
+// any module may import, its callers may pass any float, however large,
+// and the value is as large. The callers of an unexported function, or
 // of one in an internal package, are the module's own, which stoptol does
 // not follow; repeated reduction of a value within a few periods takes a
-// pass or two.
-func (c *checker) exportedParam(l *loop, x *types.Var) bool {
+// pass or two, and a value computed otherwise (an Atan2) may be bounded.
+func (c *checker) exportedInput(l *loop, x *types.Var) bool {
 	fd := l.decl
-	return fd != nil && fd.Name.IsExported() && !slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") && c.isParam(fd, x)
+	if fd == nil || !fd.Name.IsExported() || slices.Contains(strings.Split(c.pass.Pkg.Path(), "/"), "internal") {
+		return false
+	}
+	if c.isParam(fd, x) {
+		return true
+	}
+	if x.Parent() == nil || !(fd.Body.Pos() <= x.Pos() && x.Pos() < l.stmt.Pos()) {
+		return false // not a local declared before the loop
+	}
+	given := false
+	for _, r := range assignments(c.pass.TypesInfo, fd.Body, x) {
+		if r.Pos() < l.stmt.Pos() {
+			if !c.affine(fd, r) {
+				return false
+			}
+			given = true
+		}
+	}
+	return given
+}
+
+// affine reports whether e is a parameter of fd, or parameters moved and
+// scaled by constants (c - p, p*k, p/k, p + q, float64(p)).
+func (c *checker) affine(fd *ast.FuncDecl, e ast.Expr) bool {
+	info := c.pass.TypesInfo
+	konst := func(e ast.Expr) bool { return info.Types[e].Value != nil }
+	switch e := ast.Unparen(e).(type) {
+	case *ast.Ident:
+		v, ok := info.Uses[e].(*types.Var)
+		return ok && c.isParam(fd, v)
+	case *ast.UnaryExpr:
+		return (e.Op == token.SUB || e.Op == token.ADD) && c.affine(fd, e.X)
+	case *ast.BinaryExpr:
+		x, y := c.affine(fd, e.X), c.affine(fd, e.Y)
+		switch e.Op {
+		case token.ADD, token.SUB:
+			return x && (y || konst(e.Y)) || y && konst(e.X)
+		case token.MUL:
+			return x && konst(e.Y) || y && konst(e.X)
+		case token.QUO:
+			return x && konst(e.Y)
+		}
+	case *ast.CallExpr:
+		tv := info.Types[e.Fun]
+		return tv.IsType() && len(e.Args) == 1 && c.affine(fd, e.Args[0])
+	}
+	return false
 }

@@ -418,3 +418,18 @@ func settleLevel(y float64) float64 {
 	}
 	return p
 }
+
+// Bearing turns a mathematical angle (counter-clockwise from east) into a
+// compass bearing (clockwise from north). The value entering the loop is
+// the caller's angle moved by a constant, as large as the caller makes it:
+// from 2^56 ≈ 7.21e16 on, adding 2π is absorbed and the loop never ends.
+func Bearing(theta float64) float64 {
+	b := math.Pi/2 - theta
+	for {
+		if b >= 0 { // want `range reduction by repeated addition of 2 \* math.Pi \(6.283185307179586\) takes \|b\|/6.28 passes and never ends once \|b\| >= 7.21e\+16`
+			break
+		}
+		b += 2 * math.Pi
+	}
+	return b
+}

@@ -335,3 +335,23 @@ func settleCapped(y float64) float64 {
 	}
 	return p
 }
+
+// Heading wraps an angle that Atan2 returns within [-π, π]: one pass at
+// most, whatever the caller's coordinates.
+func Heading(dx, dy float64) float64 {
+	h := math.Atan2(dy, dx)
+	for h < 0 {
+		h += 2 * math.Pi
+	}
+	return h
+}
+
+// Clock reduces the caller's hour angle with math.Mod first, so the loop
+// sees a value within one turn.
+func Clock(hours float64) float64 {
+	a := math.Mod(hours*15, 360)
+	for a < 0 {
+		a += 360
+	}
+	return a
+}

@@ -24,3 +24,13 @@ func (c *C) Assert(obtained interface{}, checker Checker, args ...interface{}) {
 
 // Check reports whether the checker passes.
 func (c *C) Check(obtained interface{}, checker Checker, args ...interface{}) bool { return true }
+
+// CommentInterface describes a failure.
+type CommentInterface interface{ CheckCommentString() string }
+
+type comment string
+
+func (c comment) CheckCommentString() string { return string(c) }
+
+// Commentf adds a comment to a check.
+func Commentf(format string, args ...interface{}) CommentInterface { return comment(format) }

@@ -266,7 +266,11 @@
 // bits through atomic.LoadUint64 and math.Float64frombits) returns what
 // the methods called before it stored there, so the values the package
 // stores into that field are searched: a running update l += w*(x-l) in
-// Feed is a cause of the pinned Level(). Where the computation leaves
+// Feed is a cause of the pinned Level(). A map or slice the test fills in
+// a closure it hands to a function (g.Rank(0.85, tol, func(id int, r
+// float64) { got[id] = r })) holds what that function passes the
+// closure, searched where the function calls it, also through wrappers
+// and across packages. Where the computation leaves
 // sight (an interface method on a value of unknown type, a function value,
 // a body not available, floats behind an interface or a map handed to a
 // call) before any cause shows, nothing is known, and nothing is claimed.

@@ -105,6 +105,15 @@ func TestCauseInSight(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/kiln")
 }
 
+// TestCauseThroughCallback checks that a value a function hands to a
+// closure the test gives it (stored into a map or a slice there) shows the
+// causes of what the function computes, in this package or, by a fact,
+// through a wrapper of another (a fusable product: IEEE 754-2019 §5.4.1),
+// and that values handed on as stored are left alone.
+func TestCauseThroughCallback(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/ledger", "example.com/ledger/check")
+}
+
 // TestCauseThroughInterface checks that a method a helper invokes on an
 // interface parameter is judged as the method of the concrete type the
 // test hands it, across packages and through a second helper (a fusable

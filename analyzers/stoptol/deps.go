@@ -176,7 +176,7 @@ func (d *deps) floatTest(e ast.Expr) bool {
 		}
 		return provenance.IsFloat(d.info.TypeOf(e.X)) && provenance.IsFloat(d.info.TypeOf(e.Y))
 	case *ast.CallExpr:
-		return isBoolType(d.info.TypeOf(e)) && tolerance.CountOperands(d.info, e, holdsFloats) >= 2 // two values, or a value and a threshold: a state machine's step (for d.Step()) is no float test
+		return isBoolType(d.info.TypeOf(e)) && (tolerance.CountOperands(d.info, e, holdsFloats) >= 2 || floatPredicate(d.info, e)) // two values, or a value and a threshold: a state machine's step (for d.Step()) is no float test
 	case *ast.Ident:
 		v := tolerance.VarOf(d.info, e)
 		if fs := d.l.flags[v]; v != nil && len(fs) > 0 {
@@ -867,6 +867,33 @@ func holdsFloats(t types.Type) bool {
 		}
 	}
 	return false
+}
+
+// floatPredicate reports whether call is a function, not a method, given
+// a float value and perhaps tolerances after it (epsilon.IsZero(frac,
+// tol...)), floats only, and returning a bool: it can decide only from
+// them. math's predicates (IsNaN, IsInf, Signbit) classify a value
+// exactly, and a slice first (a gradient) is data whose test is read
+// elsewhere.
+func floatPredicate(info *types.Info, call *ast.CallExpr) bool {
+	fn, ok := typeutil.Callee(info, call).(*types.Func)
+	if !ok || fn.Pkg() == nil || fn.Pkg().Path() == "math" {
+		return false
+	}
+	sig := fn.Signature()
+	if sig.Recv() != nil || sig.Params().Len() == 0 || !provenance.IsFloat(sig.Params().At(0).Type()) {
+		return false
+	}
+	for p := range sig.Params().Variables() {
+		t := p.Type()
+		if s, ok := t.Underlying().(*types.Slice); ok {
+			t = s.Elem()
+		}
+		if !provenance.IsFloat(t) {
+			return false
+		}
+	}
+	return true
 }
 
 func isBoolType(t types.Type) bool {

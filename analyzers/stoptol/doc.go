@@ -58,7 +58,13 @@
 //   - any other loop with no cap (for { }, or for true { } as ported code
 //     writes it: a condition that never fails ends nothing) whose only
 //     exits are float tests (a three-way comparator of floats tested
-//     against 0, cmp(x, p, tol) != 0, is one: its 0 says the two agree) on values
+//     against 0, cmp(x, p, tol) != 0, is one: its 0 says the two agree;
+//     so is a call of a function, not a method, given a float value and
+//     perhaps its tolerances, floats only, and returning a bool, such as a
+//     helper epsilon.IsZero(frac, tol...) of any package, which can decide
+//     only from them; not a method, s.Step(dt), which may report a state
+//     the loop drives, nor math.IsNaN, an exact classification, nor a
+//     helper given a slice of data first, allZero(g)) on values
 //     it carries from pass to pass by float work (category nocap): an
 //     iteration that stalls, oscillates or diverges keeps it running, and
 //     so does a NaN when every exit is false for NaN (d < tol breaks; d >

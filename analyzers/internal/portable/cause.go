@@ -75,6 +75,10 @@ func (s *sighting) step(v ssa.Value, depth int) bool {
 		return s.stored(v, depth) || s.j.filled(v, depth)
 	case *ssa.MakeSlice:
 		return s.j.filled(v, depth)
+	case *ssa.MakeMap:
+		return s.mapped(v, depth)
+	case *ssa.Parameter:
+		return s.passed(v, depth)
 	case *ssa.BinOp:
 		fusable := s.j.walk(nil).fusable
 		if (v.Op == token.ADD || v.Op == token.SUB) && provenance.IsFloat(v.Type()) && (fusable(v.X) || fusable(v.Y)) {
@@ -118,8 +122,19 @@ func (s *sighting) stored(addr ssa.Value, depth int) bool {
 			if r.Addr == addr && provenance.HoldsFloat(r.Val.Type(), false) && s.value(r.Val, depth-1) {
 				return true
 			}
+			if c, ok := appended(r.Val); ok && r.Addr == addr && s.args(c, depth-1) {
+				return true // floats appended to the slice the variable holds
+			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
 			if s.stored(r.(ssa.Value), depth-1) {
+				return true
+			}
+		case *ssa.UnOp:
+			if m, ok := loadedMap(r); ok && s.mapped(m, depth-1) {
+				return true // a map held in the variable, updated after a load
+			}
+		case *ssa.MakeClosure:
+			if fv := captured(r, addr); fv != nil && s.stored(fv, depth-1) {
 				return true
 			}
 		}

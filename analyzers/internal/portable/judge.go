@@ -88,8 +88,10 @@ func memo(seen map[ssa.Value]bool, v ssa.Value, assume bool, step func() bool) b
 // step judges v by its operation and operands.
 func (w *walk) step(v ssa.Value, depth int) bool {
 	switch v := v.(type) {
-	case *ssa.Const, *ssa.Parameter, *ssa.FreeVar, *ssa.Global:
+	case *ssa.Const, *ssa.FreeVar, *ssa.Global:
 		return true
+	case *ssa.Parameter:
+		return !(&sighting{w.j, map[ssa.Value]bool{}}).passed(v, depth) // a closure's, as its callers pass it
 	case *ssa.Alloc, *ssa.MakeSlice:
 		return w.filled(v, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:
@@ -137,12 +139,23 @@ func (w *walk) filled(addr ssa.Value, depth int) bool {
 			if r.Addr == addr && provenance.HoldsFloat(r.Val.Type(), false) && !w.value(r.Val, depth) {
 				return false
 			}
+			if c, ok := appended(r.Val); ok && r.Addr == addr && !w.call(c, depth-1) {
+				return false // floats appended to the slice the variable holds
+			}
 		case *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice:
 			if !w.filled(r.(ssa.Value), depth) {
 				return false
 			}
 		case *ssa.Call:
 			if w.j.fills(r.Common(), addr, depth) {
+				return false
+			}
+		case *ssa.UnOp:
+			if _, ok := loadedMap(r); ok {
+				return false // a map held in the variable: judged as one made in place
+			}
+		case *ssa.MakeClosure:
+			if fv := captured(r, addr); fv != nil && !w.filled(fv, depth-1) {
 				return false
 			}
 		}

@@ -23,7 +23,12 @@
 // function a value of a concrete type in place of an interface parameter,
 // the methods it invokes on that parameter (directly or through functions
 // it passes the parameter to; DispatchFact across packages) are known,
-// and a cause in them is a cause of the call (dispatch.go). A field read
+// and a cause in them is a cause of the call (dispatch.go). A closure's
+// parameters hold what its callers pass them: where a function of the
+// package is handed the closure and calls it, directly or through
+// wrappers, those values are searched (CallbackCauseFact across
+// packages), and a map or slice the closure fills (m[k] = v, s =
+// append(s, v)) holds them (callback.go). A field read
 // through a pointer is judged by what the package stores into it, and an
 // interface value a constructor of the package makes has the concrete
 // types it is made from (fields.go).
@@ -72,7 +77,7 @@ var Analyzer = &analysis.Analyzer{
 	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
-	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact), new(FillCauseFact)},
+	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact), new(FillCauseFact), new(CallbackCauseFact)},
 }
 
 // Fact marks a function whose float results are portable.
@@ -93,6 +98,7 @@ type Judge struct {
 	fromParams map[*ssa.Function]bool // functions searched for a cause in what they compute from their parameters (inputs.go)
 	fillers    map[*ssa.Function]bool // functions searched for a cause in what they store through their parameters (inputs.go)
 	invokes    map[*ssa.Function][]Invoked
+	handed     map[handedKey]bool         // function values searched for a cause in what they are passed (callback.go)
 	stored     map[*types.Var][]ssa.Value // values stored into the package's fields (fields.go)
 }
 
@@ -106,7 +112,7 @@ func (j *Judge) prog() *ssa.Program {
 func Of(pass *analysis.Pass) *Judge { return pass.ResultOf[Analyzer].(*Judge) }
 
 func run(pass *analysis.Pass) (any, error) {
-	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, fromParams: map[*ssa.Function]bool{}, fillers: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}}
+	j := &Judge{pass: pass, bodies: map[*ssa.Function]bool{}, causes: map[*ssa.Function]bool{}, fromParams: map[*ssa.Function]bool{}, fillers: map[*ssa.Function]bool{}, invokes: map[*ssa.Function][]Invoked{}, handed: map[handedKey]bool{}}
 	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) || !declaresFloatFunc(pass) {
 		return j, nil // nothing to learn: no fact to export
 	}
@@ -133,14 +139,18 @@ func run(pass *analysis.Pass) (any, error) {
 		if refs && j.storesCause(fn, maxDepth) {
 			pass.ExportObjectFact(obj, new(FillCauseFact))
 		}
+		if ks := j.callbackCauses(fn); len(ks) > 0 {
+			pass.ExportObjectFact(obj, &CallbackCauseFact{ks})
+		}
 	}
 	return j, nil
 }
 
 // declaresFloatFunc reports whether the package declares a function or
-// method with a float among its results. A package without one (a
-// checking helper that only compares what it is given) builds no SSA: its
-// functions carry no fact, and claim nothing.
+// method with a float among its results, or one that hands floats to a
+// function it is given. A package without one (a checking helper that
+// only compares what it is given) builds no SSA: its functions carry no
+// fact, and claim nothing.
 func declaresFloatFunc(pass *analysis.Pass) bool {
 	for _, f := range pass.Files {
 		for _, d := range f.Decls {
@@ -148,9 +158,20 @@ func declaresFloatFunc(pass *analysis.Pass) bool {
 			if !ok || fd.Body == nil {
 				continue
 			}
-			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && holdsFloat(fn.Signature().Results()) {
+			if fn, ok := pass.TypesInfo.Defs[fd.Name].(*types.Func); ok && (holdsFloat(fn.Signature().Results()) || floatCallback(fn.Signature())) {
 				return true
 			}
+		}
+	}
+	return false
+}
+
+// floatCallback reports whether sig has a parameter of function type that
+// takes floats.
+func floatCallback(sig *types.Signature) bool {
+	for p := range sig.Params().Variables() {
+		if cb, ok := p.Type().Underlying().(*types.Signature); ok && holdsFloat(cb.Params()) {
+			return true
 		}
 	}
 	return false

@@ -111,3 +111,18 @@ func wrapped(b float64) float64 {
 	}
 	return math.Mod(b, 2*math.Pi)
 }
+
+// refine splits an interval while the score rises, and stops on a NaN
+// score: math.IsNaN classifies a value exactly, a test of no tolerance,
+// and the split below bounds the depth by the grain.
+func refine(score func(float64) float64, lo, hi, grain float64) []float64 {
+	s := score((lo + hi) / 2)
+	if math.IsNaN(s) {
+		return nil
+	}
+	if hi-lo < grain {
+		return []float64{lo, hi}
+	}
+	m := (lo + hi) / 2
+	return append(refine(score, lo, m, grain), refine(score, m, hi, grain)...)
+}

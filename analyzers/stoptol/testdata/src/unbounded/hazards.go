@@ -433,3 +433,30 @@ func Bearing(theta float64) float64 {
 	}
 	return b
 }
+
+// nearZero is a tolerance helper: |v| within the given tolerance, 1e-8 by
+// default.
+func nearZero(v float64, tol ...float64) bool {
+	t := 1e-8
+	if len(tol) > 0 {
+		t = tol[0]
+	}
+	return math.Abs(v) <= t
+}
+
+// Expand writes x as a continued fraction. Its only exit asks a helper
+// whether the fractional part is negligible; for most x the tail is
+// rounding noise that never falls below 1e-8, and a NaN never does.
+func Expand(x float64) []int {
+	var terms []int
+	r := x
+	for {
+		a, frac := math.Modf(r)
+		terms = append(terms, int(a))
+		if nearZero(frac) { // want `iteration may never end: its only exits are float tests \(nearZero\(frac\)\) and nothing caps the passes`
+			break
+		}
+		r = 1 / frac
+	}
+	return terms
+}

@@ -355,3 +355,58 @@ func Clock(hours float64) float64 {
 	}
 	return a
 }
+
+// sim advances a simulation clock; Step reports whether time is left.
+type sim struct{ t, end float64 }
+
+func (s *sim) Step(dt float64) bool {
+	s.t += dt
+	return s.t < s.end
+}
+
+// Run steps the simulation to its end: the exit is the method's state, a
+// machine the loop drives, not a float test of the loop's own values.
+func Run(s *sim) int {
+	n := 0
+	for s.Step(0.01) {
+		n++
+	}
+	return n
+}
+
+// allZero reports whether every component of g is 0.
+func allZero(g []float64) bool {
+	for _, x := range g {
+		if x != 0 {
+			return false
+		}
+	}
+	return true
+}
+
+// Descend steps against the gradient until it vanishes or the value stops
+// falling: the first exit reads a slice of data through a helper, not a
+// float value of the loop, and is not read as a tolerance test.
+func Descend(f func([]float64) float64, grad func([]float64) []float64, x []float64) []float64 {
+	last := f(x)
+	for {
+		g := grad(x)
+		if allZero(g) {
+			break
+		}
+		axpy(x, -0.1, g)
+		v := f(x)
+		if v >= last {
+			break
+		}
+		last = v
+	}
+	return x
+}
+
+// axpy adds a·y to x in place.
+func axpy(x []float64, a float64, y []float64) {
+	for i := range x {
+		x[i] += a * y[i]
+	}
+}

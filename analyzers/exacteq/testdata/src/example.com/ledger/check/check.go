@@ -1,0 +1,2 @@
+// Package check checks the ledger's projections.
+package check

@@ -87,7 +87,12 @@
 //     as facts), also through a local copy (tol := o.Tol, with or
 //     without a default): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
-//     is reported.
+//     is reported;
+//   - a tolerance of 0 given to such a parameter or field whose test is
+//     strict, |a-b| < tol (or |a-b| >= tol for "not within"), where the
+//     function does not take 0 apart (if tol == 0 { return a == b }):
+//     |a-b| < 0 is always false, so the check meant as exact equality
+//     holds for no pair of values, equal ones included (category empty).
 //
 // A difference bounded from both sides, -tol < a-b && a-b < tol, is read
 // as |a-b| < tol (package tolerance), with no fix: tol is written twice.
@@ -182,7 +187,8 @@
 // |a-b| < tol/k, so tol/k is what the float spacing is held to: 1e-15 on
 // (x-2.4e6)/2.4e6 is 2.4e-9 on x-2.4e6, about five spacings there.
 //
-// It leaves alone: zero tolerances (exact on purpose), negative and NaN
+// It leaves alone: zero tolerances of tests that hold at equality (exact
+// on purpose, |a-b| <= 0), negative and NaN
 // sentinels; tiny floors whose reciprocal is finite (1e-300), and floors
 // that never divide; running maxima of values non-negative by construction
 // (squares, Abs, Sqrt, Hypot, Exp), which a positive floor keeps positive

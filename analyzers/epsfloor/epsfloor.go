@@ -4,6 +4,7 @@ import (
 	_ "embed"
 	"fmt"
 	"go/ast"
+	"go/constant"
 	"go/token"
 	"go/types"
 	"path/filepath"
@@ -45,11 +46,13 @@ const (
 	catAbsorbed  = "absorbed"
 	catOverflow  = "overflow"
 	catScale     = "scale"
+	catEmpty     = "empty"
 )
 
 // use records how a parameter or field is used as a tolerance.
 type use struct {
 	Kind    tolerance.Kind
+	Strict  bool   // a difference equal to the tolerance is outside it (|a-b| < tol), and 0 is not handled apart
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
 	At      string // file:line of that comparison, for messages
@@ -140,12 +143,12 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	posn := c.pass.Fset.Position(n.Pos())
-	u := use{Kind: t.Kind, Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
+	decl := enclosingDecl(cur)
+	u := use{Kind: t.Kind, Strict: strictTest(t) && !zeroHandled(c.pass.TypesInfo, decl, t.Tol), Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
 	c.tested[u] = n.Pos()
 	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
-	decl := enclosingDecl(cur)
 	origin := t.Tol
 	if decl != nil {
 		origin = c.uses.Origin(decl, t.Tol) // tol := o.Tol: the field is the tolerance
@@ -213,6 +216,46 @@ func (c *checker) defaults(decl *ast.FuncDecl, id *ast.Ident, u use) {
 	for _, val := range c.uses.DefaultsOf(decl)[v] {
 		c.site(val, u, 0, "given as the default of "+id.Name, nil)
 	}
+}
+
+// strictTest reports whether t counts a difference equal to the tolerance
+// as outside it: |a-b| < tol, or |a-b| >= tol for "not within". With a
+// tolerance of 0 such a test holds for no values, equal ones included.
+func strictTest(t tolerance.Test) bool {
+	if t.TwoSided || t.Floor != nil {
+		return false
+	}
+	right := t.Cmp.Y.Pos() <= t.Tol.Pos() && t.Tol.End() <= t.Cmp.Y.End()
+	switch t.Cmp.Op {
+	case token.LSS, token.GEQ:
+		return right
+	case token.GTR, token.LEQ:
+		return !right
+	}
+	return false
+}
+
+// zeroHandled reports whether decl compares the variable tol names with
+// 0 (if tol == 0 { tol = 1e-9 }, tol <= 0 for exact equality): a zero
+// tolerance then takes another path than the test.
+func zeroHandled(info *types.Info, decl *ast.FuncDecl, tol ast.Expr) bool {
+	id, ok := ast.Unparen(tol).(*ast.Ident)
+	if !ok || decl == nil {
+		return false
+	}
+	v := info.Uses[id]
+	found := false
+	ast.Inspect(decl.Body, func(n ast.Node) bool {
+		if b, ok := n.(*ast.BinaryExpr); ok && !found {
+			for _, xy := range [][2]ast.Expr{{b.X, b.Y}, {b.Y, b.X}} {
+				x, isID := ast.Unparen(xy[0]).(*ast.Ident)
+				tv := info.Types[xy[1]]
+				found = found || isID && info.Uses[x] == v && tv.Value != nil && constant.Sign(tv.Value) == 0
+			}
+		}
+		return !found
+	})
+	return found
 }
 
 // enclosingName names the function declaration around cur, for messages.

@@ -105,6 +105,10 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node)
 	if !ok {
 		return
 	}
+	if u.Strict && constant.Sign(v) == 0 {
+		c.neverHolds(val, u, how)
+		return
+	}
 	f := u.format()
 	tol := f.Value(v)
 	res := judge(kind, tol, f, mag)
@@ -127,6 +131,20 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node)
 		fs = append(fs, fixes.Judgement("Use "+f.Name+" epsilon: "+f.EpsLiteral(), fixes.Replace(val, f.EpsLiteral())))
 	}
 	fixes.Report(c.pass, d, fs...)
+}
+
+// neverHolds reports a zero given to a strict tolerance test: it holds
+// for no values, equal ones included.
+func (c *checker) neverHolds(val ast.Expr, u use, how string) {
+	d := analysis.Diagnostic{
+		Pos: val.Pos(), End: val.End(), Category: catEmpty,
+		Message: fmt.Sprintf("%s, %s (%s), makes a strict test, a difference below the tolerance, that no pair of values passes, equal ones included (|a-b| < 0 is always false); use a positive tolerance, or test a tolerance of 0 as exact equality (<=)",
+			fixes.Source(c.pass.Fset, val), how, u),
+	}
+	if pos, ok := c.tested[u]; ok {
+		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
+	}
+	fixes.Report(c.pass, d)
 }
 
 // coefficientOf reads a tolerance val written as k*w (or w*k), with k a

@@ -129,10 +129,13 @@
 //   - the count of a range's steps taken by truncating a quotient of a
 //     span by a step, int((end-start)/step), plus a whole constant (the
 //     points of the range) or held in a variable that sizes a slice or
-//     bounds a loop: where the range holds a whole number of steps, the
+//     bounds a loop, and int(end/step) of a single value held in a variable
+//     or field where it sizes or bounds (plus 1, it may be the next grid
+//     line past a position): where the range holds a whole number of steps, the
 //     quotient lands within an ulp of it, on either side ((0.3-0)/0.1 is
 //     2.9999999999999996: 3 points, not 4). A bin index, int((x-lo)/w)
-//     used as an index, and a shifted position, int((lon+180)/6)+1, are
+//     or int(x/w) used as an index, and a shifted position,
+//     int((lon+180)/6)+1, are
 //     left alone: a sample on an edge goes to one side by a rounding,
 //     which no binning rule avoids;
 //   - in tests, an equality assertion of the suite's own helpers (a

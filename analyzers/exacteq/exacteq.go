@@ -131,7 +131,10 @@ func mayConcern(pass *analysis.Pass, cur inspector.Cursor) bool {
 		sw, ok := cur.Parent().Parent().Node().(*ast.SwitchStmt)
 		return ok && sw.Tag != nil && provenance.IsFloat(info.TypeOf(sw.Tag))
 	case *ast.CallExpr:
-		if _, _, ok := exponentSite(info, n); ok || truncatesQuotient(info, n) {
+		if _, _, ok := exponentSite(info, n); ok {
+			return true
+		}
+		if _, ok := truncatesQuotient(info, n); ok {
 			return true
 		}
 		fn, ok := typeutil.Callee(info, n).(*types.Func)

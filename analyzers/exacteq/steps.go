@@ -26,13 +26,16 @@ import (
 
 // rangeCount reports, in the package's source, a truncation of a
 // quotient of floats that counts the steps of a range: plus a whole
-// constant, or held in a variable that sizes a slice or bounds a loop.
+// constant, or held in a variable that sizes a slice or bounds a loop. A
+// quotient of a single value, x/w + 1, may as well be the next line of a
+// grid past a position x, and counts only where it sizes or bounds.
 func (c *checker) rangeCount(cur inspector.Cursor, call *ast.CallExpr) {
-	if !truncatesQuotient(c.pass.TypesInfo, call) {
+	span, ok := truncatesQuotient(c.pass.TypesInfo, call)
+	if !ok {
 		return
 	}
 	how, points, ok := countUse(c.pass, cur, call)
-	if !ok {
+	if !ok || points && !span {
 		return
 	}
 	example := "a range from 0 to 0.3 by 0.1 counts 2 steps, not 3"
@@ -47,21 +50,27 @@ func (c *checker) rangeCount(cur inspector.Cursor, call *ast.CallExpr) {
 }
 
 // truncatesQuotient reports whether call truncates toward zero or down
-// (int, math.Floor, math.Trunc) a quotient of floats (end-start)/step,
-// the difference of two values that are not constants, none drawn at
-// random. A shifted value, (λ+180)/6, is a position on a grid, not a span
-// between two ends.
-func truncatesQuotient(info *types.Info, call *ast.CallExpr) bool {
+// (int, math.Floor, math.Trunc) a quotient of floats by a step: of a span
+// (end-start)/step, the difference of two values that are not constants
+// (span true), or of a single value held in a variable or field, end/step;
+// none drawn at random. A shifted value, (λ+180)/6, is a position on a
+// grid, not a span between two ends.
+func truncatesQuotient(info *types.Info, call *ast.CallExpr) (span, ok bool) {
 	up, ok := truncation(info, call)
 	if !ok || up {
-		return false
+		return false, false
 	}
 	q, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr)
 	if !ok || q.Op != token.QUO || !provenance.IsFloat(info.TypeOf(q.Y)) || drawn(info, q) {
-		return false
+		return false, false
 	}
-	d, ok := ast.Unparen(q.X).(*ast.BinaryExpr)
-	return ok && d.Op == token.SUB && provenance.IsFloat(info.TypeOf(d)) && info.Types[d.X].Value == nil && info.Types[d.Y].Value == nil
+	switch x := ast.Unparen(q.X).(type) {
+	case *ast.BinaryExpr:
+		return true, x.Op == token.SUB && provenance.IsFloat(info.TypeOf(x)) && info.Types[x.X].Value == nil && info.Types[x.Y].Value == nil
+	case *ast.Ident, *ast.SelectorExpr:
+		return false, provenance.IsFloat(info.TypeOf(x)) && info.Types[x].Value == nil
+	}
+	return false, false
 }
 
 // countUse reports how the truncation call at cur counts points or steps:

@@ -28,3 +28,12 @@ func Close(a, b, eps float64) bool { // want Close:"parameter 2 is an absolute t
 func Either(a, b, atol, rtol float64) bool { // want Either:"parameter 3 is a relative tolerance"
 	return Agree(a, b, atol) || math.Abs(a-b) <= rtol*math.Abs(b)
 }
+
+// Match reports whether a and b agree to within tol, and takes a
+// tolerance of 0 as exact equality.
+func Match(a, b, tol float64) bool { // want Match:"parameter 2 is an absolute tolerance of float64 in Match"
+	if tol == 0 {
+		return a == b
+	}
+	return math.Abs(a-b) < tol
+}

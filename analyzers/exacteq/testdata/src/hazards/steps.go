@@ -24,3 +24,18 @@ func holds(from, to, dt float64) []float64 {
 func marks(lo, hi, step float64) int {
 	return int(math.Floor((hi-lo)/step)) + 1 // want `math.Floor\(\(hi - lo\) / step\) truncates a quotient of floats that counts the points of a range \(the steps plus 1\)`
 }
+
+// shell holds the settings of a radial scan: out to reach by width.
+type shell struct{ reach, width float64 }
+
+// shells counts the shells of a scan from the centre: a reach of 2.3 by
+// widths of 0.01 is a quotient of 229.99999999999997, and the last shell
+// is dropped.
+func shells(s shell) []float64 {
+	n := int(s.reach / s.width) // want `int\(s.reach / s.width\) truncates a quotient of floats that bounds the loop over n steps`
+	out := make([]float64, 0)
+	for i := 1; i <= n; i++ {
+		out = append(out, float64(i)*s.width)
+	}
+	return out
+}

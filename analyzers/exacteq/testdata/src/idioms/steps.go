@@ -18,3 +18,16 @@ func zone(lon float64) int {
 func points(lo, hi, step float64) int {
 	return int(math.Round((hi-lo)/step)) + 1
 }
+
+// cell finds the grid cell of a position from the origin: an index, not a
+// count; a position on a cell edge falls on one side by a rounding, as
+// any binning rule allows.
+func cell(grid []int, x, w float64) {
+	grid[int(x/w)]++
+}
+
+// nextLine is the first grid line past a position: x/w + 1 of a single
+// value may be a grid index, not the points of a span.
+func nextLine(x, w float64) float64 {
+	return w * float64(int(x/w)+1)
+}

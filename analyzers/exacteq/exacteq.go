@@ -81,13 +81,14 @@ func run(pass *analysis.Pass) (any, error) {
 	if len(work) == 0 {
 		return nil, nil // no SSA needed
 	}
-	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
+	lazy := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy)
+	ssainfo := lazy.SSA()
 	c := &checker{
 		pass:    pass,
 		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
 		decls:   constval.DeclsOf(pass),
-		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
-		ssa:     pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy),
+		globals: lazy.Globals(),
+		ssa:     lazy,
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 		judge:   portable.Of(pass),
 

@@ -92,8 +92,9 @@ func run(pass *analysis.Pass) (any, error) {
 	if !c.hasQuotients() && !c.importsSteps() && !importsFD(pass) {
 		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
 	}
-	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
-	c.globals = constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs)
+	lazy := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy)
+	ssainfo := lazy.SSA()
+	c.globals = lazy.Globals()
 	c.indexSSA(ssainfo.Pkg, ssainfo.SrcFuncs)
 	for _, root := range c.roots {
 		if q, ok := c.quotient(root); ok {

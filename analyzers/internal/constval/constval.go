@@ -309,11 +309,12 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 			}
 		}
 	}
-	if init := pkg.Func("init"); init != nil {
+	init := pkg.Func("init")
+	if init != nil {
 		visit(init)
 	}
 	for _, fn := range funcs {
-		if fn != pkg.Func("init") { // already visited
+		if fn != init { // already visited
 			visit(fn)
 		}
 	}

@@ -68,6 +68,9 @@ type checker struct {
 	// storedVals holds the float values the package stores into each
 	// struct field.
 	storedVals map[*types.Var][]ssa.Value
+	// saysExact holds, for each test function asked about, whether it
+	// says it checks exactness (deliberate).
+	saysExact map[ast.Node]bool
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -93,6 +96,7 @@ func run(pass *analysis.Pass) (any, error) {
 		judge:   portable.Of(pass),
 
 		storedVals: make(map[*types.Var][]ssa.Value),
+		saysExact:  make(map[ast.Node]bool),
 	}
 	c.index(ssainfo.SrcFuncs)
 	for _, cur := range work {
@@ -420,9 +424,19 @@ func (c *checker) exempt(o operand) bool {
 // deliberate reports whether cur lies in a test function that says it
 // checks exactness (fixes.FuncSaysExact): one correctly rounded operation
 // on each side gives the same float (IEEE 754-2019 §4.3), and such tests
-// check exactly that, so a tolerance would defeat them.
+// check exactly that, so a tolerance would defeat them. The answer is
+// kept per function.
 func (c *checker) deliberate(cur inspector.Cursor) bool {
-	return c.inTest(cur) && fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
+	if !c.inTest(cur) {
+		return false
+	}
+	fd := enclosingFunc(cur)
+	says, ok := c.saysExact[fd]
+	if !ok {
+		says = fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
+		c.saysExact[fd] = says
+	}
+	return says
 }
 
 // inForCond reports whether cur lies in the condition of a for statement,

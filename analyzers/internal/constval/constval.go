@@ -312,6 +312,9 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 	if init != nil {
 		visit(init)
 	}
+	if len(vals) == 0 {
+		return vals // the initialiser stores no constant: nothing to confirm elsewhere
+	}
 	for _, fn := range funcs {
 		if fn != init { // already visited
 			visit(fn)

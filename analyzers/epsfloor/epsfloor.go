@@ -11,6 +11,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
@@ -108,9 +109,10 @@ func run(pass *analysis.Pass) (any, error) {
 		}
 		switch n := n.(type) {
 		case *ast.CallExpr:
-			c.call(cur, n)
-			c.helperCall(cur, n)
-			c.stepless(cur, n)
+			fn, _ := typeutil.Callee(c.pass.TypesInfo, n).(*types.Func)
+			c.call(cur, n, fn)
+			c.helperCall(cur, n, fn)
+			c.stepless(cur, n, fn)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:

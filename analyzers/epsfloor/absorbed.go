@@ -32,8 +32,11 @@ type term struct {
 // and when the other terms cancel k that closely, their own rounding
 // errors (about u·|k|) exceed c (Pi/2 - f(x) + 6.1e-17 in float32).
 func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
+	if n.Op != token.ADD && n.Op != token.SUB {
+		return
+	}
 	tv := c.pass.TypesInfo.Types[n]
-	if n.Op != token.ADD && n.Op != token.SUB || !provenance.IsFloat(tv.Type) || isComplex(tv.Type) || c.inSum(cur) {
+	if !provenance.IsFloat(tv.Type) || isComplex(tv.Type) || c.inSum(cur) {
 		return
 	}
 	terms := c.terms(n, false, nil)

@@ -12,6 +12,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
@@ -101,17 +102,20 @@ func run(pass *analysis.Pass) (any, error) {
 	}
 	c.wrappers(root)
 	c.uses.Export()
-	known := c.uses.Lookup()
+	known, sites := c.uses.Lookup(), c.uses.Known()
 	for cur := range root.Preorder((*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil), (*ast.BinaryExpr)(nil)) {
 		n := cur.Node()
-		tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
-			c.site(val, u, 0, how, n)
-		})
+		if sites {
+			tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
+				c.site(val, u, 0, how, n)
+			})
+		}
 		switch n := n.(type) {
 		case *ast.CallExpr:
-			c.call(cur, n)
-			c.helperCall(cur, n)
-			c.stepless(cur, n)
+			fn, _ := typeutil.Callee(c.pass.TypesInfo, n).(*types.Func)
+			c.call(cur, n, fn)
+			c.helperCall(cur, n, fn)
+			c.stepless(cur, n, fn)
 		case *ast.BinaryExpr:
 			c.absorbed(cur, n)
 		case *ast.AssignStmt:
@@ -173,6 +177,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 // tests. Facts carry them to importers, so wrappers of wrappers compose
 // within and across packages.
 func (c *checker) wrappers(root inspector.Cursor) {
+	if !c.uses.Known() {
+		return
+	}
 	known := c.uses.Lookup()
 	for range 4 {
 		grew := false

@@ -10,7 +10,6 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -25,10 +24,9 @@ import (
 // not eps, and a tolerance built that way makes its test exact equality.
 // It reports too a direction written as x plus a constant, Nextafter(x,
 // x+1): x+c rounds to x once |x| reaches 2^53·|c| (2^24·|c| in float32),
-// and there the step is 0.
-func (c *checker) stepless(cur inspector.Cursor, call *ast.CallExpr) {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok || fn.Pkg() == nil || fn.Pkg().Path() != "math" || fn.Name() != "Nextafter" && fn.Name() != "Nextafter32" || len(call.Args) != 2 {
+// and there the step is 0. fn is the function called, or nil.
+func (c *checker) stepless(cur inspector.Cursor, call *ast.CallExpr, fn *types.Func) {
+	if fn == nil || fn.Pkg() == nil || fn.Pkg().Path() != "math" || fn.Name() != "Nextafter" && fn.Name() != "Nextafter32" || len(call.Args) != 2 {
 		return
 	}
 	x, y := call.Args[0], call.Args[1]

@@ -10,7 +10,6 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/degree"
@@ -230,11 +229,10 @@ func paramIndex(info *types.Info, fn *types.Func, e ast.Expr) (int, bool) {
 }
 
 // helperCall judges a call of a helper at cur with the degrees of its
-// arguments.
-func (c *checker) helperCall(cur inspector.Cursor, call *ast.CallExpr) {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
+// arguments; fn is the function called, or nil.
+func (c *checker) helperCall(cur inspector.Cursor, call *ast.CallExpr, fn *types.Func) {
 	h, known := c.helpers[fn]
-	if !ok || !known || max(h.a, h.b) >= len(call.Args) || call.Ellipsis.IsValid() {
+	if fn == nil || !known || max(h.a, h.b) >= len(call.Args) || call.Ellipsis.IsValid() {
 		return
 	}
 	a, b := call.Args[h.a], call.Args[h.b]

@@ -209,8 +209,11 @@ func assignsFrom(info *types.Info, block *ast.BlockStmt, v *types.Var, x ast.Exp
 func (c *checker) zeroThreshold(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	for _, dir := range []token.Token{token.LSS, token.GTR} {
 		x, s, v, f, ok := c.boundTest(n, dir)
+		if !ok {
+			continue
+		}
 		exact, _ := constval.Exact(c.pass.TypesInfo, c.decls, s)
-		if !ok || exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v > fewSubnormals*f.Smallest {
+		if exact.Kind() == constant.Complex || constant.Sign(exact) <= 0 || v > fewSubnormals*f.Smallest {
 			continue
 		}
 		if !c.computed(cur, x) {

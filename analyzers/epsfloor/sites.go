@@ -9,7 +9,6 @@ import (
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
-	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -64,10 +63,10 @@ func apiParams(fn *types.Func) []apiParam {
 	return shifted
 }
 
-// call reports constant tolerances passed to a well-known API at cur.
-func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr) {
-	fn, ok := typeutil.Callee(c.pass.TypesInfo, call).(*types.Func)
-	if !ok {
+// call reports constant tolerances passed to a well-known API at cur; fn
+// is the function called, or nil.
+func (c *checker) call(cur inspector.Cursor, call *ast.CallExpr, fn *types.Func) {
+	if fn == nil {
 		return
 	}
 	for _, p := range apiParams(fn) {

@@ -68,6 +68,9 @@ type checker struct {
 	// storedVals holds the float values the package stores into each
 	// struct field.
 	storedVals map[*types.Var][]ssa.Value
+	// saysExact holds, for each test function asked about, whether it
+	// says it checks exactness (deliberate).
+	saysExact map[ast.Node]bool
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -81,17 +84,19 @@ func run(pass *analysis.Pass) (any, error) {
 	if len(work) == 0 {
 		return nil, nil // no SSA needed
 	}
-	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
+	lazy := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy)
+	ssainfo := lazy.SSA()
 	c := &checker{
 		pass:    pass,
 		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
 		decls:   constval.DeclsOf(pass),
-		globals: constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs),
-		ssa:     pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy),
+		globals: lazy.Globals(),
+		ssa:     lazy,
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),
 		judge:   portable.Of(pass),
 
 		storedVals: make(map[*types.Var][]ssa.Value),
+		saysExact:  make(map[ast.Node]bool),
 	}
 	c.index(ssainfo.SrcFuncs)
 	for _, cur := range work {
@@ -422,9 +427,19 @@ func (c *checker) exempt(o operand) bool {
 // deliberate reports whether cur lies in a test function that says it
 // checks exactness (fixes.FuncSaysExact): one correctly rounded operation
 // on each side gives the same float (IEEE 754-2019 §4.3), and such tests
-// check exactly that, so a tolerance would defeat them.
+// check exactly that, so a tolerance would defeat them. The answer is
+// kept per function.
 func (c *checker) deliberate(cur inspector.Cursor) bool {
-	return c.inTest(cur) && fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
+	if !c.inTest(cur) {
+		return false
+	}
+	fd := enclosingFunc(cur)
+	says, ok := c.saysExact[fd]
+	if !ok {
+		says = fixes.FuncSaysExact(c.pass.Fset, fileOf(cur), cur)
+		c.saysExact[fd] = says
+	}
+	return says
 }
 
 // inForCond reports whether cur lies in the condition of a for statement,

@@ -97,7 +97,7 @@ func (c *checker) intoCall(call *ssa.Call, v ssa.Value, args []ssa.Value, depth 
 // with its tolerance when that is known: a constant, or a parameter of
 // the helper given a constant by args.
 func (c *checker) tested(cmp *ssa.BinOp, args []ssa.Value, visit func(float64)) {
-	be, ok := c.syntax[cmp.Pos()].(*ast.BinaryExpr)
+	be, ok := c.node(cmp.Pos()).(*ast.BinaryExpr)
 	if !ok {
 		return
 	}

@@ -138,7 +138,7 @@ func (c *checker) argument(call *ssa.Call, i int, u use) {
 // argSyntax returns the syntax of argument i (counted as SSA counts, the
 // receiver first) of call, or nil.
 func (c *checker) argSyntax(call *ssa.Call, i int) ast.Expr {
-	ce, ok := c.syntax[call.Pos()].(*ast.CallExpr)
+	ce, ok := c.node(call.Pos()).(*ast.CallExpr)
 	if !ok || ce.Ellipsis.IsValid() {
 		return nil
 	}
@@ -216,7 +216,7 @@ func (c *checker) propagate() {
 		for _, st := range c.stores[f] {
 			if o, ok := c.origin(st.Val); ok && o.constant {
 				for _, u := range uses {
-					c.candidate(c.values[st.Pos()], o.value, nil, nil, u)
+					c.candidate(c.value(st.Pos()), o.value, nil, nil, u)
 				}
 			}
 		}

@@ -56,7 +56,7 @@ type checker struct {
 	copies     map[ssa.Value]ssa.Value // slice → the slice it was copied from
 	stencils   []stencilPoint          // perturbations x + h·loc of table-driven stencils
 
-	// Syntax, indexed in one walk.
+	// Syntax, indexed in one walk on first use (node, value).
 	syntax map[token.Pos]ast.Node // binary expressions by operator, op-assignments and calls by start
 	values map[token.Pos]ast.Expr // values stored into fields, by the position of the SSA store
 
@@ -81,8 +81,6 @@ func run(pass *analysis.Pass) (any, error) {
 		stores:   make(map[*types.Var][]*ssa.Store),
 		closures: make(map[*ssa.Function]*ssa.MakeClosure),
 		copies:   make(map[ssa.Value]ssa.Value),
-		syntax:   make(map[token.Pos]ast.Node),
-		values:   make(map[token.Pos]ast.Expr),
 		params:   make(map[*ssa.Function]map[int][]use),
 		fields:   make(map[*types.Var][]use),
 		pending:  make(map[token.Pos]*pending),
@@ -94,9 +92,9 @@ func run(pass *analysis.Pass) (any, error) {
 	if !c.hasQuotients() && !c.importsSteps() && !importsFD(pass) {
 		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
 	}
-	c.indexSyntax()
-	ssainfo := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy).SSA()
-	c.globals = constval.FindGlobals(ssainfo.Pkg, ssainfo.SrcFuncs)
+	lazy := pass.ResultOf[lazyssa.Analyzer].(*lazyssa.Lazy)
+	ssainfo := lazy.SSA()
+	c.globals = lazy.Globals()
 	c.indexSSA(ssainfo.Pkg, ssainfo.SrcFuncs)
 	for _, root := range c.roots {
 		if q, ok := c.quotient(root); ok {
@@ -198,11 +196,28 @@ func (c *checker) hasQuotients() bool {
 	return false
 }
 
-// indexSyntax records the syntax that SSA positions point at: float binary
-// expressions and comparisons by operator, float op-assignments (x += h)
-// and calls by their start, and the value stored by each field store
-// (composite literal elements and assignments to selectors).
+// node returns the syntax that the SSA position pos points at, or nil.
+func (c *checker) node(pos token.Pos) ast.Node {
+	c.indexSyntax()
+	return c.syntax[pos]
+}
+
+// value returns the value stored by the field store at pos, or nil.
+func (c *checker) value(pos token.Pos) ast.Expr {
+	c.indexSyntax()
+	return c.values[pos]
+}
+
+// indexSyntax records, once, the syntax that SSA positions point at: float
+// binary expressions and comparisons by operator, float op-assignments
+// (x += h) and calls by their start, and the value stored by each field
+// store (composite literal elements and assignments to selectors). Most
+// packages never ask.
 func (c *checker) indexSyntax() {
+	if c.syntax != nil {
+		return
+	}
+	c.syntax, c.values = make(map[token.Pos]ast.Node), make(map[token.Pos]ast.Expr)
 	types := []ast.Node{(*ast.BinaryExpr)(nil), (*ast.AssignStmt)(nil), (*ast.CallExpr)(nil), (*ast.CompositeLit)(nil)}
 	for cur := range c.insp.Root().Preorder(types...) {
 		switch n := cur.Node().(type) {

@@ -31,7 +31,7 @@ import (
 // 2*h, a quotient assembled by op-assignments), when x cannot be evaluated
 // there, or when the old step variable would be left unused.
 func (c *checker) fix(q *quotient, v verdict) []fixes.Fix {
-	root, ok := c.syntax[q.root.Pos()].(*ast.BinaryExpr)
+	root, ok := c.node(q.root.Pos()).(*ast.BinaryExpr)
 	if !ok {
 		return nil // assembled by d /= h
 	}
@@ -98,7 +98,7 @@ func (c *checker) bumpNodes(q *quotient) (ast.Expr, []ast.Expr, bool) {
 
 // bumpSyntax returns the syntax of x and of the step in one x±h.
 func (c *checker) bumpSyntax(b bump) (x, step ast.Expr, ok bool) {
-	switch n := c.syntax[b.op.Pos()].(type) {
+	switch n := c.node(b.op.Pos()).(type) {
 	case *ast.BinaryExpr:
 		if b.stepX {
 			return n.Y, n.X, true

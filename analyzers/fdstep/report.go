@@ -16,7 +16,7 @@ import (
 // reportQuotient reports a difference quotient with a constant step, at
 // the division, with the step's declaration as related information.
 func (c *checker) reportQuotient(q *quotient, v verdict) {
-	node := c.syntax[q.root.Pos()]
+	node := c.node(q.root.Pos())
 	if node == nil || c.said[node.Pos()] || c.deliberate(node.Pos(), v) {
 		return
 	}

@@ -190,7 +190,7 @@ func (c *checker) fieldLeaves(f *types.Var, out *[]constSite) bool {
 	}
 	for _, st := range c.stores[f] {
 		if v, ok := constval.Float(provenance.Strip(st.Val), c.globals); ok && v != 0 && !provenance.InTestFile(c.pass.Fset, st.Pos()) {
-			*out = append(*out, constSite{v, c.values[st.Pos()]})
+			*out = append(*out, constSite{v, c.value(st.Pos())})
 		}
 	}
 	return true
@@ -249,7 +249,7 @@ func (c *checker) isStepPower(v ssa.Value, cell any) bool {
 // reportStencil reports a table-driven stencil whose step takes the fixed
 // value s, at its first perturbation, naming where s is written.
 func (c *checker) reportStencil(p stencilPoint, s constSite) {
-	node := c.syntax[p.add.Pos()]
+	node := c.node(p.add.Pos())
 	if node == nil || c.said[node.Pos()] || !inRange(s.value) {
 		return
 	}

@@ -16,6 +16,9 @@ import (
 // constants that reach a tolerance: directly, as a wrapper's default, or
 // as the elements of a slice filled with them.
 func (c *checker) sites(root inspector.Cursor) {
+	if !c.uses.Known() {
+		return // nothing to learn, export or report
+	}
 	info := c.pass.TypesInfo
 	known := c.uses.Lookup()
 	filter := []ast.Node{(*ast.CallExpr)(nil), (*ast.CompositeLit)(nil), (*ast.AssignStmt)(nil)}

@@ -6,6 +6,8 @@ import (
 	"reflect"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/inspector"
 )
 
 // Analyzer computes the package's Decls once for every analyzer that
@@ -14,8 +16,13 @@ import (
 var Analyzer = &analysis.Analyzer{
 	Name:       "constval",
 	Doc:        "constval: the initialisers of constants and never-reassigned variables",
-	Run:        func(pass *analysis.Pass) (any, error) { return Decls(pass.TypesInfo, pass.Files), nil },
+	Requires:   []*analysis.Analyzer{inspect.Analyzer},
+	Run:        run,
 	ResultType: reflect.TypeFor[map[types.Object]ast.Expr](),
+}
+
+func run(pass *analysis.Pass) (any, error) {
+	return Decls(pass.TypesInfo, pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)), nil
 }
 
 // DeclsOf returns the Decls of pass's package, from Analyzer, which the

@@ -12,6 +12,7 @@ import (
 	"go/types"
 	"math"
 
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 )
 
@@ -103,40 +104,38 @@ func isArith(op token.Token) bool {
 	return op == token.ADD || op == token.SUB || op == token.MUL || op == token.QUO
 }
 
-// Decls maps the constants declared in files, and the variables (local or
-// package-level) that are initialised once and never assigned again nor
-// have their address taken (explicitly, or by a call of a pointer method),
-// to their initialising expressions. Constant
+// Decls maps the constants declared in the files of insp, and the
+// variables (local or package-level) that are initialised once and never
+// assigned again nor have their address taken (explicitly, or by a call
+// of a pointer method), to their initialising expressions. Constant
 // blocks' implicit repetition is followed; iota-dependent constants are left
 // out.
-func Decls(info *types.Info, files []*ast.File) map[types.Object]ast.Expr {
+func Decls(info *types.Info, insp *inspector.Inspector) map[types.Object]ast.Expr {
 	decls := make(map[types.Object]ast.Expr)
 	changed := make(map[types.Object]bool)
-	for _, f := range files {
-		ast.Inspect(f, func(n ast.Node) bool {
-			switch n := n.(type) {
-			case *ast.GenDecl:
-				if n.Tok == token.CONST || n.Tok == token.VAR {
-					valueSpecs(info, n, decls)
-				}
-			case *ast.AssignStmt:
-				assignments(info, n, decls, changed)
-			case *ast.IncDecStmt:
-				markChanged(info, n.X, changed)
-			case *ast.UnaryExpr:
-				if n.Op == token.AND {
-					markChanged(info, n.X, changed)
-				}
-			case *ast.SelectorExpr:
-				if PointerMethod(info, n) {
-					markChanged(info, n.X, changed) // v.M() with M on *T takes &v
-				}
-			case *ast.RangeStmt:
-				markChanged(info, n.Key, changed)
-				markChanged(info, n.Value, changed)
+	filter := []ast.Node{(*ast.GenDecl)(nil), (*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil), (*ast.UnaryExpr)(nil), (*ast.SelectorExpr)(nil), (*ast.RangeStmt)(nil)}
+	for n := range insp.PreorderSeq(filter...) {
+		switch n := n.(type) {
+		case *ast.GenDecl:
+			if n.Tok == token.CONST || n.Tok == token.VAR {
+				valueSpecs(info, n, decls)
 			}
-			return true
-		})
+		case *ast.AssignStmt:
+			assignments(info, n, decls, changed)
+		case *ast.IncDecStmt:
+			markChanged(info, n.X, changed)
+		case *ast.UnaryExpr:
+			if n.Op == token.AND {
+				markChanged(info, n.X, changed)
+			}
+		case *ast.SelectorExpr:
+			if PointerMethod(info, n) {
+				markChanged(info, n.X, changed) // v.M() with M on *T takes &v
+			}
+		case *ast.RangeStmt:
+			markChanged(info, n.Key, changed)
+			markChanged(info, n.Value, changed)
+		}
 	}
 	for obj := range changed {
 		delete(decls, obj)
@@ -309,11 +308,15 @@ func FindGlobals(pkg *ssa.Package, funcs []*ssa.Function) Globals {
 			}
 		}
 	}
-	if init := pkg.Func("init"); init != nil {
+	init := pkg.Func("init")
+	if init != nil {
 		visit(init)
 	}
+	if len(vals) == 0 {
+		return vals // the initialiser stores no constant: nothing to confirm elsewhere
+	}
 	for _, fn := range funcs {
-		if fn != pkg.Func("init") { // already visited
+		if fn != init { // already visited
 			visit(fn)
 		}
 	}

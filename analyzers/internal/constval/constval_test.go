@@ -12,6 +12,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 	"golang.org/x/tools/go/ssa/ssautil"
 
@@ -87,7 +88,7 @@ var (
 
 func TestExact(t *testing.T) {
 	_, info, files := build(t, exactSrc)
-	decls := constval.Decls(info, files)
+	decls := constval.Decls(info, inspector.New(files))
 	init := map[string]ast.Expr{}
 	for _, d := range files[0].Decls {
 		if gen, ok := d.(*ast.GenDecl); ok && gen.Tok == token.VAR {
@@ -150,7 +151,7 @@ func TestExact(t *testing.T) {
 
 func TestExactTypedIntLiteral(t *testing.T) {
 	_, info, files := build(t, "package p\n\nconst n float64 = 1\n\nvar m float64 = 1\n\nvar q1, q2, q3 = n / 3, m / 3, float64(1) / 3\n")
-	decls := constval.Decls(info, files)
+	decls := constval.Decls(info, inspector.New(files))
 	vals := files[0].Decls[2].(*ast.GenDecl).Specs[0].(*ast.ValueSpec).Values
 	for _, e := range []ast.Expr{vals[0], vals[2]} {
 		v, ok := constval.Exact(info, decls, e)
@@ -282,7 +283,7 @@ var ptrs = []*row{{3, 0.125}}
 func TestDeclsPointerMethod(t *testing.T) {
 	src := "package p\n\ntype L float64\n\nfunc (l *L) Halve() { *l /= 2 }\n\nfunc (l L) Twice() L { return 2 * l }\n\nfunc f() (L, L) {\n\ta := L(3)\n\ta.Halve()\n\tb := L(5)\n\treturn a, b.Twice()\n}\n"
 	_, info, files := build(t, src)
-	decls := constval.Decls(info, files)
+	decls := constval.Decls(info, inspector.New(files))
 	names := map[string]bool{}
 	for obj := range decls {
 		names[obj.Name()] = true

@@ -7,6 +7,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/constval"
 )
@@ -43,7 +44,7 @@ func use(f func(float64) float64) float64 {
 // left out of a keyed literal is zero, and a call is not evaluated.
 func TestInRow(t *testing.T) {
 	_, info, files := build(t, rowsSrc)
-	decls := constval.Decls(info, files)
+	decls := constval.Decls(info, inspector.New(files))
 	var rs *ast.RangeStmt
 	var want, call ast.Expr
 	ast.Inspect(files[0], func(n ast.Node) bool {

@@ -20,6 +20,8 @@ import (
 	"golang.org/x/tools/go/analysis/passes/buildssa"
 	"golang.org/x/tools/go/analysis/passes/ctrlflow"
 	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/constval"
 )
 
 // Analyzer returns a *Lazy for the package, having built nothing.
@@ -34,9 +36,10 @@ var Analyzer = &analysis.Analyzer{
 // Lazy builds a package's SSA form once, when first asked, from any
 // goroutine.
 type Lazy struct {
-	build func() *buildssa.SSA
-	index func() map[token.Pos]ssa.Instruction
-	spent atomic.Int64 // nanoseconds spent building
+	build   func() *buildssa.SSA
+	index   func() map[token.Pos]ssa.Instruction
+	globals func() constval.Globals
+	spent   atomic.Int64 // nanoseconds spent building
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -75,6 +78,10 @@ func run(pass *analysis.Pass) (any, error) {
 		}
 		return at
 	})
+	l.globals = sync.OnceValue(func() constval.Globals {
+		s := l.SSA()
+		return constval.FindGlobals(s.Pkg, s.SrcFuncs)
+	})
 	return l, nil
 }
 
@@ -93,6 +100,10 @@ func (l *Lazy) Calls() iter.Seq[*ssa.Call] {
 		}
 	}
 }
+
+// Globals returns the package variables that hold a constant
+// (constval.FindGlobals), found once for every analyzer that asks.
+func (l *Lazy) Globals() constval.Globals { return l.globals() }
 
 // BuildTime returns the time spent building the package's SSA form, zero
 // if it was never asked for. The analyzer that asks first counts it as its

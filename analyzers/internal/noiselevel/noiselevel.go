@@ -60,6 +60,7 @@ func (l *Levels) Of(fn *types.Func) (float64, bool) {
 
 func run(pass *analysis.Pass) (any, error) {
 	levels := &Levels{m: make(map[*types.Func]float64)}
+	imported := len(pass.AllObjectFacts()) > 0 // taken before this package's own are exported
 	for _, f := range pass.Files {
 		for _, d := range f.Decls {
 			fd, ok := d.(*ast.FuncDecl)
@@ -71,6 +72,9 @@ func run(pass *analysis.Pass) (any, error) {
 				levels.m[fn] = level
 				pass.ExportObjectFact(fn, &Fact{Level: level})
 			}
+		}
+		if !imported {
+			continue
 		}
 		// Learn the levels of the functions called here from their facts.
 		ast.Inspect(f, func(n ast.Node) bool {

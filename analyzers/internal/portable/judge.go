@@ -4,6 +4,8 @@ import (
 	"go/ast"
 	"go/token"
 
+	"golang.org/x/tools/go/analysis/passes/inspect"
+	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/provenance"
@@ -270,20 +272,18 @@ func (j *Judge) convertedProducts() map[token.Pos]bool {
 		return j.converted
 	}
 	j.converted = map[token.Pos]bool{}
-	for _, f := range j.pass.Files {
-		ast.Inspect(f, func(n ast.Node) bool {
-			call, ok := n.(*ast.CallExpr)
-			if !ok || len(call.Args) != 1 {
-				return true
-			}
-			if tv, ok := j.pass.TypesInfo.Types[call.Fun]; !ok || !tv.IsType() || !provenance.IsFloat(tv.Type) {
-				return true
-			}
-			if b, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr); ok && b.Op == token.MUL {
-				j.converted[b.OpPos] = true
-			}
-			return true
-		})
+	insp := j.pass.ResultOf[inspect.Analyzer].(*inspector.Inspector)
+	for n := range insp.PreorderSeq((*ast.CallExpr)(nil)) {
+		call := n.(*ast.CallExpr)
+		if len(call.Args) != 1 {
+			continue
+		}
+		if tv, ok := j.pass.TypesInfo.Types[call.Fun]; !ok || !tv.IsType() || !provenance.IsFloat(tv.Type) {
+			continue
+		}
+		if b, ok := ast.Unparen(call.Args[0]).(*ast.BinaryExpr); ok && b.Op == token.MUL {
+			j.converted[b.OpPos] = true
+		}
 	}
 	return j.converted
 }

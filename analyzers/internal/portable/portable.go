@@ -64,6 +64,7 @@ import (
 	"sync"
 
 	"golang.org/x/tools/go/analysis"
+	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ssa"
 
 	"roundoff/analyzers/internal/lazyssa"
@@ -74,7 +75,7 @@ import (
 var Analyzer = &analysis.Analyzer{
 	Name:       "portable",
 	Doc:        "portable: learn which functions compute their float results the same way on every platform",
-	Requires:   []*analysis.Analyzer{lazyssa.Analyzer},
+	Requires:   []*analysis.Analyzer{inspect.Analyzer, lazyssa.Analyzer},
 	Run:        run,
 	ResultType: reflect.TypeFor[*Judge](),
 	FactTypes:  []analysis.Fact{new(Fact), new(CauseFact), new(DispatchFact), new(InputCauseFact), new(FillCauseFact), new(CallbackCauseFact)},

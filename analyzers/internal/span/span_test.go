@@ -144,7 +144,7 @@ func TestRanges(t *testing.T) {
 	_, err = (&types.Config{Importer: importer.ForCompiler(fset, "source", nil)}).Check("p", fset, []*ast.File{f}, info)
 	require.NoError(t, err)
 	insp := inspector.New([]*ast.File{f})
-	r := span.New(info, insp, constval.Decls(info, []*ast.File{f}), nil)
+	r := span.New(info, insp, constval.Decls(info, inspector.New([]*ast.File{f})), nil)
 	i := 0
 	for cur := range insp.Root().Preorder((*ast.CallExpr)(nil)) {
 		call := cur.Node().(*ast.CallExpr)

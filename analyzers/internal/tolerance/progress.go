@@ -339,6 +339,9 @@ func isBool(t types.Type) bool {
 // to a direction, not a length in x.
 func (r Reader) TrackedWidths(body ast.Node, shrunk map[*types.Var]bool) map[*types.Var]bool {
 	out := make(map[*types.Var]bool)
+	if len(shrunk) == 0 {
+		return out // nothing to look for
+	}
 	ast.Inspect(body, func(n ast.Node) bool {
 		as, ok := n.(*ast.AssignStmt)
 		if !ok || len(as.Lhs) != len(as.Rhs) {

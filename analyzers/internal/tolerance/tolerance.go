@@ -148,8 +148,11 @@ func (r Reader) InTwoSided(cur inspector.Cursor) bool {
 		case *ast.ParenExpr:
 			continue
 		case *ast.BinaryExpr:
+			if n.Op != token.LAND {
+				return false
+			}
 			_, ok := r.twoSided(n)
-			return n.Op == token.LAND && ok
+			return ok
 		}
 		return false
 	}

@@ -11,6 +11,7 @@ import (
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
+	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -35,7 +36,7 @@ func comparisons(t *testing.T, body string) (*types.Info, map[types.Object]ast.E
 		}
 		return true
 	})
-	return info, constval.Decls(info, []*ast.File{file}), fset, cmps
+	return info, constval.Decls(info, inspector.New([]*ast.File{file})), fset, cmps
 }
 
 func TestRecognize(t *testing.T) {

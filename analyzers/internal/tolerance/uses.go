@@ -6,6 +6,7 @@ import (
 	"go/types"
 	"slices"
 	"strings"
+	"sync"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -45,11 +46,24 @@ type Uses[U fmt.Stringer] struct {
 	fields    map[*types.Var]U
 	defaulted map[*ast.FuncDecl]map[*types.Var][]ast.Expr
 	copies    map[*ast.FuncDecl]map[*types.Var]ast.Expr
+	imported  func() bool // whether the pass's facts record a tolerance, read once
 }
 
 // NewUses returns an empty Uses for pass.
 func NewUses[U fmt.Stringer](pass *analysis.Pass) *Uses[U] {
-	return &Uses[U]{pass: pass, params: map[*types.Func]map[int]U{}, fields: map[*types.Var]U{}, defaulted: map[*ast.FuncDecl]map[*types.Var][]ast.Expr{}, copies: map[*ast.FuncDecl]map[*types.Var]ast.Expr{}}
+	return &Uses[U]{pass: pass, params: map[*types.Func]map[int]U{}, fields: map[*types.Var]U{}, defaulted: map[*ast.FuncDecl]map[*types.Var][]ast.Expr{}, copies: map[*ast.FuncDecl]map[*types.Var]ast.Expr{},
+		imported: sync.OnceValue(func() bool { return importsTolerance[U](pass) })}
+}
+
+// importsTolerance reports whether pass's facts record a tolerance.
+func importsTolerance[U fmt.Stringer](pass *analysis.Pass) bool {
+	for _, f := range pass.AllObjectFacts() {
+		switch f.Fact.(type) {
+		case *ParamsFact[U], *FieldFact[U]:
+			return true
+		}
+	}
+	return false
 }
 
 // Param records parameter i of fn as a tolerance.
@@ -106,6 +120,12 @@ func (u *Uses[U]) Export() {
 	for field, use := range u.fields {
 		u.pass.ExportObjectFact(field, &FieldFact[U]{Use: use})
 	}
+}
+
+// Known reports whether any tolerance is recorded here or known from
+// facts: with none, Sites finds nothing, so a walk for sites is skipped.
+func (u *Uses[U]) Known() bool {
+	return len(u.params) > 0 || len(u.fields) > 0 || u.imported()
 }
 
 // Lookup returns the tolerances recorded here, or known from facts.

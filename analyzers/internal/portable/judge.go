@@ -93,7 +93,7 @@ func (w *walk) step(v ssa.Value, depth int) bool {
 	case *ssa.Const, *ssa.FreeVar, *ssa.Global:
 		return true
 	case *ssa.Parameter:
-		return !(&sighting{w.j, map[ssa.Value]bool{}}).passed(v, depth) // a closure's, as its callers pass it
+		return v.Parent().Parent() == nil || !(&sighting{w.j, map[ssa.Value]bool{}}).passed(v, depth) // a closure's, as its callers pass it
 	case *ssa.Alloc, *ssa.MakeSlice:
 		return w.filled(v, depth)
 	case *ssa.UnOp, *ssa.Field, *ssa.Index, *ssa.FieldAddr, *ssa.IndexAddr, *ssa.Slice, *ssa.Convert, *ssa.ChangeType, *ssa.MakeInterface, *ssa.Extract:

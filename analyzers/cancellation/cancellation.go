@@ -20,8 +20,10 @@ import (
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/consume"
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/span"
+	"roundoff/analyzers/internal/vecshape"
 	"roundoff/internal/numeric"
 )
 
@@ -34,7 +36,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "cancellation",
 	Doc:      analyzerdoc.Extract(doc, "cancellation"),
 	URL:      "docs/cancellation.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer, vecshape.Analyzer},
 	Run:      run,
 }
 
@@ -84,6 +86,7 @@ type checker struct {
 	abs   *absval.Known             // absolute-value functions, by meaning
 	spans *span.Reader              // ranges of values, from construction and conditions
 	acc   *accumulation             // how variables are updated, scanned when first needed
+	deg   *degree.Reader            // directions and cosines of vectors, made when first needed
 
 	wrappers  map[*types.Func]string      // the package's own wrappers of math functions, by mathName
 	fields    map[types.Object][]ast.Expr // values assigned to the package's fields, by fieldValues
@@ -125,6 +128,7 @@ func run(pass *analysis.Pass) (any, error) {
 					c.sums(cur, n)
 					c.roundTrip(cur, n)
 					c.lowerTail(cur, n)
+					c.opposite(cur, n)
 				case token.QUO:
 					c.dividedDifference(n)
 					c.expRatio(cur, n)
@@ -179,9 +183,15 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 		return
 	}
 	e, indirect := c.through(call)
-	if c.isOne(one) && c.normCosine(e) && !c.addend(cur, 2) {
-		c.dotCosine(n, e)
-		return
+	if c.isOne(one) && !c.addend(cur, 2) {
+		switch {
+		case c.normCosine(e):
+			c.dotCosine(n, e, "a cosine computed as a ratio over norms")
+			return
+		case c.vectorCosine(cur, call):
+			c.dotCosine(n, e, "the cosine of the angle between two vectors")
+			return
+		}
 	}
 	if p, ok := c.complement(n); ok && c.upperTail(n, p) {
 		return

@@ -59,7 +59,9 @@
 //     product over norms, the norms also from the package's own methods,
 //     a.Len() returning math.Sqrt(a.Dot(a)), also through a named result
 //     set once before a bare return, and the ratio also returned
-//     by the package's own function, clamped or not), of a great-circle
+//     by the package's own function, clamped or not, or by a function of
+//     another package whose body returns it, r3.Cos(p, q), learned as a
+//     fact by package vecshape), of a great-circle
 //     distance (the spherical law of cosines), or of an angle from three
 //     sides (the planar law of cosines, (a*a + b*b - c*c) / (2*a*b), where
 //     the half-angle form on differences of the sides keeps every digit;
@@ -68,7 +70,19 @@
 //     it, one rounding in x becomes an angle error of sqrt(2u) ≈ 1.49e-8
 //     rad, half the digits; math.Atan2 of the sine and cosine parts;
 //   - 1 - c where c is a cosine computed as a ratio over norms
-//     (dot/(math.Sqrt(na)*math.Sqrt(nb))): 0 for angles below 1.49e-8;
+//     (dot/(math.Sqrt(na)*math.Sqrt(nb))), or the cosine of the angle
+//     between two vectors as package degree reads it (the dot product of
+//     two directions, u.Dot(w) with u and w made by a function that
+//     divides a vector by its length, of this package or another; a
+//     function returning a dot product over lengths): 0 for angles
+//     below 1.49e-8;
+//   - 1 + c where c is such a cosine of the angle between two vectors
+//     (the factor 1/(1 + a·b) of the rotation that takes direction a to
+//     b): near π, where the vectors are nearly opposite, 1 + cos θ ≈
+//     (π-θ)²/2 is all cancellation, 0 within 1.49e-8 of π, while
+//     |a+b|²/2 keeps nearly every digit (a+b is exact there by
+//     Sterbenz's lemma); a dot product of vectors that are not
+//     directions has the data's size and is left alone;
 //   - 1 - s where s accumulates math.Sqrt(p*q) (s += math.Sqrt(p[i]*q[i]),
 //     in the function or in the package's own function returning s),
 //     consumed to relative accuracy (under a root, as a divisor): for

@@ -17,7 +17,9 @@ import (
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/consume"
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/fixes"
+	"roundoff/analyzers/internal/vecshape"
 )
 
 // through returns the value e stands for: e itself, or the initial value
@@ -514,7 +516,7 @@ func (c *checker) lawOfCosines(e ast.Expr) bool {
 func (c *checker) acos(cur inspector.Cursor, call *ast.CallExpr, name string) {
 	x, clamped := c.unclamped(cur, call.Args[0])
 	sides := c.sidesCosine(x)
-	if !c.normCosine(x) && !c.lawOfCosines(x) && !sides || c.counted(cur) {
+	if !c.normCosine(x) && !c.degrees().CosineCall(x) && !c.lawOfCosines(x) && !sides || c.counted(cur) {
 		return
 	}
 	nan := ""
@@ -629,10 +631,55 @@ func isInteger(t types.Type) bool {
 // the quotient carries an absolute error of a few roundings, so 1 - cos θ,
 // about θ²/2, is 0 for θ below about sqrt(2u) ≈ 1.49e-8 and loses
 // 2·log10(1/θ) digits above.
-func (c *checker) dotCosine(n *ast.BinaryExpr, cos ast.Expr) {
+func (c *checker) dotCosine(n *ast.BinaryExpr, cos ast.Expr, what string) {
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catCosine,
-		Message: fmt.Sprintf("1 - c%s, a cosine computed as a ratio over norms, returns 0 for angles below about %.3g rad and loses about 2·log10(1/θ) digits for small θ; use 2*math.Sin(θ/2)*math.Sin(θ/2) with θ from math.Atan2 of the cross and dot products, or |a/|a| - b/|b||²/2",
+		Message: fmt.Sprintf("1 - c%s, %s, returns 0 for angles below about %.3g rad and loses about 2·log10(1/θ) digits for small θ; use 2*math.Sin(θ/2)*math.Sin(θ/2) with θ from math.Atan2 of the cross and dot products, or |a/|a| - b/|b||²/2",
+			binding("c", cos), what, math.Sqrt(2*unitRoundoff)),
+	})
+}
+
+// vectorCosine reports whether e, at cur, is the cosine of the angle
+// between two vectors by package degree: the dot product of two
+// directions, or a call of a function (of any package) returning a dot
+// product over lengths.
+func (c *checker) vectorCosine(cur inspector.Cursor, e ast.Expr) bool {
+	var fd *ast.FuncDecl
+	for f := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		fd = f.Node().(*ast.FuncDecl)
+		break
+	}
+	return fd != nil && c.degrees().IsCosine(fd, e)
+}
+
+// degrees returns the package's degree reader, made on first use.
+func (c *checker) degrees() *degree.Reader {
+	if c.deg == nil {
+		c.deg = degree.New(c.pass.Fset, c.pass.TypesInfo, c.pass.Files)
+		c.deg.Import(vecshape.Of(c.pass))
+	}
+	return c.deg
+}
+
+// opposite reports 1 + c where c is the cosine of the angle between two
+// vectors (the 1/(1 + a·b) of a rotation taking direction a to b): near
+// π, where the vectors are nearly opposite, 1 + cos θ ≈ (π-θ)²/2 is all
+// cancellation, 0 within about sqrt(2u) of π, while for directions
+// |a+b|²/2 is the same value with nearly every digit (a+b is exact there
+// by Sterbenz's lemma; TestOppositeDirections).
+func (c *checker) opposite(cur inspector.Cursor, n *ast.BinaryExpr) {
+	cos := n.Y
+	if c.isOne(n.Y) {
+		cos = n.X
+	} else if !c.isOne(n.X) {
+		return
+	}
+	if !c.vectorCosine(cur, cos) || c.addend(cur, 2) {
+		return
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: n.Pos(), End: n.End(), Category: catCosine,
+		Message: fmt.Sprintf("1 + c%s, the cosine of the angle between two vectors, returns 0 for angles within about %.3g rad of π and loses about 2·log10(1/(π-θ)) digits near π, where the vectors are nearly opposite; for directions a and b use |a+b|²/2, whose sum a+b is exact there",
 			binding("c", cos), math.Sqrt(2*unitRoundoff)),
 	})
 }

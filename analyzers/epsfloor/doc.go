@@ -206,7 +206,8 @@
 // multiplied by itself on each pass, of degree 2^k after k passes, which
 // no fixed degree bounds) and of degree 0 (a ratio, a sine; a component
 // of a direction, or the dot product of two, such as the cosine between a
-// ray and a surface normal: a normalised vector has length 1 up to
+// ray and a surface normal, also from another package's functions, known
+// by their facts (package vecshape): a normalised vector has length 1 up to
 // rounding, so these are bounded by 1 whatever the caller's units, and
 // their rounding error is about eps, not eps·s^d); tolerances at or above eps
 // (absolute) or u (relative); comparisons with a known magnitude where the

@@ -16,6 +16,7 @@ import (
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 	"roundoff/analyzers/internal/tolerance"
+	"roundoff/analyzers/internal/vecshape"
 	"roundoff/internal/config"
 	"roundoff/internal/numeric"
 )
@@ -108,6 +109,7 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 func (c *checker) degrees() *degree.Reader {
 	if c.deg == nil {
 		c.deg = degree.New(c.pass.Fset, c.pass.TypesInfo, c.pass.Files)
+		c.deg.Import(vecshape.Of(c.pass))
 	}
 	return c.deg
 }

@@ -44,13 +44,16 @@ type Reader struct {
 	kept   map[*types.Func]bool        // pointer methods read for leaving their receiver as it was (see keeps)
 	aiming map[*types.Var]bool         // local variables being read for holding directions (see directionVar)
 	top    *frame                      // the reading at the top
+	shapes map[*types.Func]shape       // functions of the package summarised (see Summarize)
+	// imported summarises functions of other packages (see Import).
+	imported func(*types.Func) (Summary, bool)
 }
 
 // New returns a Reader for the package of files.
 func New(fset *token.FileSet, info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{fset: fset, info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
 		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{},
-		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, aiming: map[*types.Var]bool{}, top: &frame{known: map[*types.Var]float64{}}}
+		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, aiming: map[*types.Var]bool{}, shapes: map[*types.Func]shape{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
 			if fd, ok := d.(*ast.FuncDecl); ok && fd.Body != nil {
@@ -269,7 +272,7 @@ func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
 	}
 	fd, ok := r.funcs[fn]
 	if !ok {
-		return math.NaN()
+		return r.importedDegree(fn)
 	}
 	if r.unit(fn) {
 		return 0 // a direction, whatever it was made from
@@ -282,6 +285,20 @@ func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
 		}
 	}
 	return r.through(fd, fn, i, recv, args, depth)
+}
+
+// importedDegree returns the degree of a call of a function of another
+// package from its summary: 0 for a direction or a cosine, bounded by 1
+// whatever the inputs; unknown otherwise, a dot product or a length too,
+// whose inputs' size that package's own contract may fix (unit points).
+func (r *Reader) importedDegree(fn *types.Func) float64 {
+	if _, ok := r.importedAs(fn, Unit); ok {
+		return 0
+	}
+	if _, ok := r.importedAs(fn, Cosine); ok {
+		return 0
+	}
+	return math.NaN()
 }
 
 // mathDegree returns the degree of a math function's result from its

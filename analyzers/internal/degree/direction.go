@@ -18,19 +18,29 @@ import (
 // the dot product of two directions, are bounded by 1 whatever the data's
 // units (see the package comment).
 
-// prop is a property of a function's results that the matchers below
-// read through its returns.
-type prop int
+// Shape is what a function's single result is in terms of its inputs
+// (the receiver first, then the parameters), read through its returns;
+// facts carry it to other packages (see Summarize and Import).
+type Shape int
 
 const (
-	propDot    prop = iota // the dot product of two inputs
-	propLength             // the length of an input
+	Dot    Shape = iota // the dot product of inputs In[0] and In[1]
+	Length              // the length of input In[0]
+	Unit                // a direction
+	Cosine              // the cosine of the angle between inputs In[0] and In[1]
 )
 
-// viaKey is a function, a property and the inputs it concerns.
+// A Summary is the shape of a function's result and the inputs it
+// concerns.
+type Summary struct {
+	Shape Shape
+	In    [2]int
+}
+
+// viaKey is a function, a shape and the inputs it concerns.
 type viaKey struct {
 	fn *types.Func
-	p  prop
+	p  Shape
 	in [2]int
 }
 
@@ -113,7 +123,7 @@ func (r *Reader) value(e ast.Expr) ast.Expr {
 func (r *Reader) isDot(e ast.Expr, a, b *types.Var, depth int) bool {
 	e = r.value(e)
 	if call, ok := e.(*ast.CallExpr); ok {
-		return r.via(call, propDot, a, b, depth)
+		return r.via(call, Dot, a, b, depth)
 	}
 	keys := vectorKeys(a.Type())
 	ts := sumTerms(e, nil)
@@ -161,7 +171,7 @@ func (r *Reader) isLength(e ast.Expr, x *types.Var, depth int) bool {
 		return false
 	}
 	if fn.Pkg().Path() != "math" {
-		return r.via(call, propLength, x, x, depth)
+		return r.via(call, Length, x, x, depth)
 	}
 	switch {
 	case fn.Name() == "Sqrt":
@@ -220,10 +230,14 @@ func (r *Reader) inputs(call *ast.CallExpr, fn *types.Func) ([]ast.Expr, []*type
 // via reports whether call, of a function of the package with a and b
 // among its inputs, returns p of them: every return of the callee is p of
 // the inputs it binds to a and b.
-func (r *Reader) via(call *ast.CallExpr, p prop, a, b *types.Var, depth int) bool {
+func (r *Reader) via(call *ast.CallExpr, p Shape, a, b *types.Var, depth int) bool {
 	fn, _ := typeutil.Callee(r.info, call).(*types.Func)
 	fd := r.funcs[fn]
-	if fd == nil || depth > 6 {
+	if fd == nil {
+		s, ok := r.importedAs(fn, p)
+		return ok && r.bindsTo(call, fn, s, a, b)
+	}
+	if depth > 6 {
 		return false
 	}
 	es, vs := r.inputs(call, fn)
@@ -244,7 +258,7 @@ func (r *Reader) via(call *ast.CallExpr, p prop, a, b *types.Var, depth int) boo
 	r.vias[key] = false // recursion: no
 	ca, cb := vs[key.in[0]], vs[key.in[1]]
 	ok := r.allReturns(fd, func(e ast.Expr) bool {
-		if p == propDot {
+		if p == Dot {
 			return r.isDot(e, ca, cb, depth+1)
 		}
 		return r.isLength(e, ca, depth+1)
@@ -398,7 +412,12 @@ func (r *Reader) unit(fn *types.Func) bool {
 	}
 	r.units[fn] = false // recursion: no
 	fd := r.funcs[fn]
-	if fd == nil || fn.Signature().Results().Len() != 1 || vectorKeys(fn.Signature().Results().At(0).Type()) == nil {
+	if fd == nil {
+		_, ok := r.importedAs(fn, Unit)
+		r.units[fn] = ok
+		return ok
+	}
+	if fn.Signature().Results().Len() != 1 || vectorKeys(fn.Signature().Results().At(0).Type()) == nil {
 		return false
 	}
 	var ins []*types.Var // the inputs fd only reads: a value of one is what it was given
@@ -836,3 +855,207 @@ func (r *Reader) record(f *types.Var, fd *ast.FuncDecl, e ast.Expr) {
 		r.stores[f] = append(r.stores[f], fieldStore{fd, e})
 	}
 }
+
+// Import makes r read functions of other packages by their summaries, as
+// their own packages' Readers made them (see Summarize).
+func (r *Reader) Import(summary func(*types.Func) (Summary, bool)) { r.imported = summary }
+
+// importedAs returns the summary of fn, a function of another package,
+// when it has shape p.
+func (r *Reader) importedAs(fn *types.Func, p Shape) (Summary, bool) {
+	if fn == nil || r.imported == nil {
+		return Summary{}, false
+	}
+	s, ok := r.imported(fn)
+	return s, ok && s.Shape == p
+}
+
+// operands returns the inputs of call that s concerns.
+func (r *Reader) operands(call *ast.CallExpr, fn *types.Func, s Summary) (ast.Expr, ast.Expr, bool) {
+	es, _ := r.inputs(call, fn)
+	if s.In[0] >= len(es) || s.In[1] >= len(es) {
+		return nil, nil, false
+	}
+	return es[s.In[0]], es[s.In[1]], true
+}
+
+// bindsTo reports whether call passes a and b as the inputs s concerns
+// (in either order: a dot product and a cosine are symmetric).
+func (r *Reader) bindsTo(call *ast.CallExpr, fn *types.Func, s Summary, a, b *types.Var) bool {
+	x, y, ok := r.operands(call, fn, s)
+	return ok && (r.isVar(x, a) && r.isVar(y, b) || s.Shape != Length && r.isVar(x, b) && r.isVar(y, a))
+}
+
+// Summarize returns the shape of the result of fn, a function of the
+// package, when it has one: a direction (see unit); the dot product of
+// two vector inputs or the length of one, every return being one; or
+// the cosine of the angle between two, every return being their dot
+// product over the product of their lengths.
+func (r *Reader) Summarize(fn *types.Func) (Summary, bool) {
+	if s, known := r.shapes[fn]; known {
+		return s.Summary, s.ok
+	}
+	r.shapes[fn] = shape{} // recursion: none
+	s, ok := r.summarize(fn)
+	r.shapes[fn] = shape{s, ok}
+	return s, ok
+}
+
+// shape is a function's summary, if it has one, as Summarize found it.
+type shape struct {
+	Summary
+	ok bool
+}
+
+func (r *Reader) summarize(fn *types.Func) (Summary, bool) {
+	fd := r.funcs[fn]
+	sig := fn.Signature()
+	if fd == nil || sig.Results().Len() != 1 {
+		return Summary{}, false
+	}
+	if r.unit(fn) {
+		return Summary{Shape: Unit}, true
+	}
+	if !isFloat(sig.Results().At(0).Type()) {
+		return Summary{}, false
+	}
+	var vs []*types.Var
+	if sig.Recv() != nil {
+		vs = append(vs, sig.Recv())
+	}
+	vs = slices.AppendSeq(vs, sig.Params().Variables())
+	for i, a := range vs {
+		for j := i; j < len(vs) && vectorKeys(a.Type()) != nil; j++ {
+			b := vs[j]
+			if !types.Identical(derefd(a.Type()), derefd(b.Type())) {
+				continue
+			}
+			in := [2]int{i, j}
+			switch {
+			case r.allReturns(fd, func(e ast.Expr) bool { return r.isDot(e, a, b, 1) }):
+				return Summary{Dot, in}, true
+			case i == j && r.allReturns(fd, func(e ast.Expr) bool { return r.isLength(e, a, 1) }):
+				return Summary{Length, in}, true
+			case i != j && r.allReturns(fd, func(e ast.Expr) bool { return r.isCosine(e, a, b) }):
+				return Summary{Cosine, in}, true
+			}
+		}
+	}
+	return Summary{}, false
+}
+
+// isCosine reports whether e is the dot product of a and b over the
+// product of their lengths, or a call of a function returning that.
+func (r *Reader) isCosine(e ast.Expr, a, b *types.Var) bool {
+	if call, ok := r.value(e).(*ast.CallExpr); ok {
+		fn, _ := typeutil.Callee(r.info, call).(*types.Func)
+		s, ok := r.summary(fn)
+		return ok && s.Shape == Cosine && r.bindsTo(call, fn, s, a, b)
+	}
+	q, ok := r.value(e).(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO || !r.isDot(q.X, a, b, 1) && !r.isDot(q.X, b, a, 1) {
+		return false
+	}
+	m, ok := r.value(q.Y).(*ast.BinaryExpr)
+	return ok && m.Op == token.MUL && (r.isLength(m.X, a, 1) && r.isLength(m.Y, b, 1) || r.isLength(m.X, b, 1) && r.isLength(m.Y, a, 1))
+}
+
+// IsCosine reports whether e, an expression inside fd, is the cosine of
+// the angle between two vectors: a call of a function with that shape
+// (of the package or, through Import, of another), the dot product of
+// two directions, or the dot product of two variables over the product
+// of their lengths.
+func (r *Reader) IsCosine(fd *ast.FuncDecl, e ast.Expr) bool {
+	r.index(fd)
+	if r.CosineCall(e) {
+		return true
+	}
+	if x, y, ok := r.dotOf(e); ok {
+		return r.direction(fd, x, 0) && r.direction(fd, y, 0)
+	}
+	q, ok := r.value(e).(*ast.BinaryExpr)
+	if !ok || q.Op != token.QUO {
+		return false
+	}
+	x, y, ok := r.dotOf(q.X)
+	a, b := r.varOf(identOf(x)), r.varOf(identOf(y))
+	return ok && a != nil && b != nil && r.isCosine(q, a, b)
+}
+
+// CosineCall reports whether e is a call of a function of the package or,
+// through Import, of another, whose result is the cosine of the angle
+// between two of its inputs.
+func (r *Reader) CosineCall(e ast.Expr) bool {
+	call, ok := r.value(e).(*ast.CallExpr)
+	if !ok {
+		return false
+	}
+	fn, _ := typeutil.Callee(r.info, call).(*types.Func)
+	s, ok := r.summary(fn)
+	return ok && s.Shape == Cosine
+}
+
+// identOf returns e as an identifier, or nil.
+func identOf(e ast.Expr) *ast.Ident {
+	id, _ := ast.Unparen(e).(*ast.Ident)
+	return id
+}
+
+// summary returns the summary of fn, of the package or another.
+func (r *Reader) summary(fn *types.Func) (Summary, bool) {
+	if fn == nil {
+		return Summary{}, false
+	}
+	if r.funcs[fn] != nil {
+		return r.Summarize(fn)
+	}
+	if r.imported == nil {
+		return Summary{}, false
+	}
+	return r.imported(fn)
+}
+
+// dotOf returns the two vectors whose dot product e is: the inputs of a
+// call of a function with that shape, or two local variables whose
+// products are written out.
+func (r *Reader) dotOf(e ast.Expr) (ast.Expr, ast.Expr, bool) {
+	call, ok := r.value(e).(*ast.CallExpr)
+	if !ok {
+		a, b, ok := r.dotTerms(e)
+		return a, b, ok
+	}
+	fn, _ := typeutil.Callee(r.info, call).(*types.Func)
+	if fn == nil {
+		return nil, nil, false
+	}
+	if s, ok := r.summary(fn); ok && s.Shape == Dot {
+		return r.operands(call, fn, s)
+	}
+	return nil, nil, false
+}
+
+// dotTerms returns a and b where e is their dot product written out
+// (a.X*b.X + a.Y*b.Y + ...), a and b local variables.
+func (r *Reader) dotTerms(e ast.Expr) (*ast.Ident, *ast.Ident, bool) {
+	m, ok := r.value(sumTerms(r.value(e), nil)[0]).(*ast.BinaryExpr)
+	if !ok || m.Op != token.MUL {
+		return nil, nil, false
+	}
+	base := func(e ast.Expr) *ast.Ident {
+		sel, _ := ast.Unparen(e).(*ast.SelectorExpr)
+		if sel == nil {
+			return nil
+		}
+		id, _ := ast.Unparen(sel.X).(*ast.Ident)
+		return id
+	}
+	a, b := base(m.X), base(m.Y)
+	if a == nil || b == nil || r.varOf(a) == nil || r.varOf(b) == nil || !r.isDot(e, r.varOf(a), r.varOf(b), 0) {
+		return nil, nil, false
+	}
+	return a, b, true
+}
+
+// Vector reports whether t, through a pointer, is a vector: a struct
+// whose fields are all floats or an array of floats.
+func Vector(t types.Type) bool { return vectorKeys(t) != nil }

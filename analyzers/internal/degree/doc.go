@@ -15,7 +15,13 @@
 // a slice holds the values stored into its elements; where the reading
 // cannot tell (a call into another package, a package variable, a
 // product carried from pass to pass of a loop), it says so, and callers
-// claim nothing.
+// claim nothing. Functions of another package are read by their
+// summaries (Summarize, carried as facts by package vecshape): a
+// direction or the cosine of the angle between two vectors is of degree
+// 0, bounded by 1 whatever its inputs; a dot product or a length of
+// another package stays unknown, since that package's contract may fix
+// its inputs' size (points on the unit sphere), but it tells a cosine
+// (the dot product of two directions) apart.
 //
 // A direction is of degree 0: a normalised vector has length 1 up to
 // rounding, so its components and the dot product of two directions are

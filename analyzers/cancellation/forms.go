@@ -649,7 +649,22 @@ func (c *checker) vectorCosine(cur inspector.Cursor, e ast.Expr) bool {
 		fd = f.Node().(*ast.FuncDecl)
 		break
 	}
-	return fd != nil && c.degrees().IsCosine(fd, e)
+	return fd != nil && c.mentionsVector(e) && c.degrees().IsCosine(fd, e)
+}
+
+// mentionsVector reports whether e, or the value a variable in it was
+// given, holds an operand of a vector type: a cosine between vectors
+// reads some.
+func (c *checker) mentionsVector(e ast.Expr) bool {
+	e, _ = c.through(e)
+	found := false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if x, ok := n.(ast.Expr); ok && !found {
+			found = degree.Vector(c.pass.TypesInfo.TypeOf(x))
+		}
+		return !found
+	})
+	return found
 }
 
 // degrees returns the package's degree reader, made on first use.

@@ -1058,4 +1058,4 @@ func (r *Reader) dotTerms(e ast.Expr) (*ast.Ident, *ast.Ident, bool) {
 
 // Vector reports whether t, through a pointer, is a vector: a struct
 // whose fields are all floats or an array of floats.
-func Vector(t types.Type) bool { return vectorKeys(t) != nil }
+func Vector(t types.Type) bool { return t != nil && vectorKeys(t) != nil }

@@ -26,7 +26,10 @@
 // written without one where the body keeps the bracket ordered, widths
 // scaled by constants ((b-a)/2 < tol holds when |b-a| < 2·tol), a width
 // shrunk by a constant factor each pass, differences of slice elements,
-// steps, and their relative forms. It classifies the loop: a
+// steps, and their relative forms, mixed ones too (rtol·|x| + atol, its
+// relative part rtol judged; twice such a sum, Brent's tol2 = 2·tol1, as
+// m/2 against it; and Brent's |x - xm| <= tol2 - (b-a)/2, a test on the
+// offset and the half-width together, against tol2). It classifies the loop: a
 // derivative-free minimization when it compares function values to choose
 // points (golden-section, parabolic interpolation through three points,
 // Brent-like search, backtracking), a root finding when it tests signs

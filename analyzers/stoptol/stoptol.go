@@ -79,7 +79,7 @@ type checker struct {
 func (c *checker) reader(l *loop) tolerance.Reader {
 	info := c.pass.TypesInfo
 	r := tolerance.Reader{
-		Info: info, Decls: c.decls, Abs: c.abs,
+		Info: info, Decls: c.decls, Abs: c.abs, Mixed: true,
 		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.body, hi, lo) },
 	}
 	r.Widths = r.TrackedWidths(l.body, l.shrunk)

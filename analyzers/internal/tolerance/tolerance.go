@@ -173,6 +173,7 @@ func (r Reader) test(m, tol ast.Expr) (Test, bool) {
 	if !ok {
 		return Test{}, false
 	}
+	tol = r.bare(tol, &t)
 	var coef, scale ast.Expr
 	if r.Mixed {
 		t.Floor, coef, scale = r.mixed(tol)
@@ -195,6 +196,43 @@ func (r Reader) test(m, tol ast.Expr) (Test, bool) {
 	}
 	t.Tol = coef
 	return t, true
+}
+
+// bare reads a tolerance written k·T with T a sum, a mixed tolerance
+// (m < 2*tol1, tol1 = rtol*|x| + atol, holds when m/2 < tol1: t's Factor
+// takes 1/k), or T - w with w a constant multiple of a known width
+// (Brent's |x-xm| <= tol2 - (b-a)/2 holds only where |x-xm| and the
+// half-width together stay within tol2), and returns T.
+func (r Reader) bare(tol ast.Expr, t *Test) ast.Expr {
+	for range 4 {
+		x := r.follow(tol)
+		if y, k, ok := r.constScaled(x); ok {
+			if _, coef, _ := r.mixed(y); coef != nil {
+				tol, t.Factor = y, t.Factor/k
+				continue
+			}
+		}
+		d, ok := x.(*ast.BinaryExpr)
+		if !ok || d.Op != token.SUB || !r.width(d.Y) {
+			return tol
+		}
+		tol = d.X
+	}
+	return tol
+}
+
+// width reports whether e is a known width or an ordered difference hi-lo,
+// possibly times a positive constant.
+func (r Reader) width(e ast.Expr) bool {
+	e = r.follow(e)
+	if x, _, ok := r.constScaled(e); ok {
+		e = r.follow(x)
+	}
+	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB {
+		return r.Ordered != nil && r.Ordered(d.X, d.Y)
+	}
+	id, ok := e.(*ast.Ident)
+	return ok && r.Widths[r.varOf(id)]
 }
 
 // measure reads |a-b|, |a-b|/s, |(a-b)/s|, |x|, a known width, and any of

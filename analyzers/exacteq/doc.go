@@ -43,7 +43,9 @@
 //   - a zero test of a difference of computed values (the cross product
 //     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
 //     difference, a sum of such differences accumulated over a loop, as a
-//     signed area summed edge by edge, also through a package function):
+//     signed area summed edge by edge, also through a package function,
+//     and a cross product of plane vectors computed by another package,
+//     r.Cross(s), known by its shape from package vecshape):
 //     the difference is 0
 //     exactly when its terms round to the same float (Sterbenz), so inputs
 //     that make it 0 in exact arithmetic usually leave a residue of a few

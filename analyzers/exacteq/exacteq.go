@@ -20,6 +20,7 @@ import (
 	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/portable"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/vecshape"
 )
 
 //go:embed doc.go
@@ -31,7 +32,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "exacteq",
 	Doc:      analyzerdoc.Extract(doc, "exacteq"),
 	URL:      "docs/exacteq.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer, vecshape.Analyzer},
 	Run:      run,
 }
 
@@ -62,6 +63,7 @@ type checker struct {
 	ssa     *lazyssa.Lazy // the package's SSA, and its comparisons and calls by position (cmpAt, callAt)
 	fields  map[types.Object][]ast.Expr
 	judge   *portable.Judge
+	shapes  vecshape.Imported // the vector functions of other packages
 	// fills holds, for each struct field, the functions whose results
 	// the package stores into it directly.
 	fills map[*types.Var]map[*ssa.Function]bool
@@ -90,6 +92,7 @@ func run(pass *analysis.Pass) (any, error) {
 		pass:    pass,
 		track:   provenance.NewTracker(ssainfo.Pkg, ssainfo.SrcFuncs),
 		decls:   constval.DeclsOf(pass),
+		shapes:  vecshape.Of(pass),
 		globals: lazy.Globals(),
 		ssa:     lazy,
 		fills:   make(map[*types.Var]map[*ssa.Function]bool),

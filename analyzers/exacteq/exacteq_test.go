@@ -234,3 +234,12 @@ func TestRangeQuotient(t *testing.T) {
 	assert.Equal(t, 2.9999999999999996, q)
 	assert.Equal(t, 2, int(q)+0, "the range 0 to 0.3 by 0.1 counts 2 whole steps")
 }
+
+// TestCrossAcrossPackages checks that a cross product of another package's
+// plane vectors (its shape learned from the body, package vecshape) is a
+// difference of computed values whose exact zero is a residue's
+// (Goldberg 1991, Thm 11: the difference is exact, the products are not),
+// and that a zero test guarding a division stays alone.
+func TestCrossAcrossPackages(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/plane/clip")
+}

@@ -5,6 +5,7 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
+	"roundoff/analyzers/internal/degree"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -281,10 +282,17 @@ func integral(v ssa.Value) bool {
 var wholeMath = map[string]bool{"Floor": true, "Ceil": true, "Trunc": true, "Round": true, "RoundToEven": true}
 
 // returnsCancelling reports whether the callee, a function of this package
-// with one result, returns a cancelling difference on every path.
+// with one result, returns a cancelling difference on every path, or is a
+// function of another package that returns the cross product of two plane
+// vectors (package vecshape).
 func (c *checker) returnsCancelling(call *ssa.CallCommon, depth int) bool {
-	if fn := call.StaticCallee(); fn == nil || fn.Signature.Results().Len() != 1 {
+	fn := call.StaticCallee()
+	if fn == nil || fn.Signature.Results().Len() != 1 {
 		return false
+	}
+	if obj, ok := fn.Object().(*types.Func); ok && obj.Pkg() != c.pass.Pkg {
+		s, ok := c.shapes(obj)
+		return ok && s.Shape == degree.Cross
 	}
 	return c.everyReturn(call, 0, false, func(v ssa.Value) bool { return c.cancels(v, depth) })
 }

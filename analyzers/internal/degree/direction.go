@@ -28,6 +28,7 @@ const (
 	Length              // the length of input In[0]
 	Unit                // a direction
 	Cosine              // the cosine of the angle between inputs In[0] and In[1]
+	Cross               // the cross product of plane vectors In[0] and In[1], a.X*b.Y - a.Y*b.X
 )
 
 // A Summary is the shape of a function's result and the inputs it
@@ -938,6 +939,8 @@ func (r *Reader) summarize(fn *types.Func) (Summary, bool) {
 				return Summary{Length, in}, true
 			case i != j && r.allReturns(fd, func(e ast.Expr) bool { return r.isCosine(e, a, b) }):
 				return Summary{Cosine, in}, true
+			case i != j && r.allReturns(fd, func(e ast.Expr) bool { return r.isCross(e, a, b) }):
+				return Summary{Cross, in}, true
 			}
 		}
 	}
@@ -958,6 +961,32 @@ func (r *Reader) isCosine(e ast.Expr, a, b *types.Var) bool {
 	}
 	m, ok := r.value(q.Y).(*ast.BinaryExpr)
 	return ok && m.Op == token.MUL && (r.isLength(m.X, a, 1) && r.isLength(m.Y, b, 1) || r.isLength(m.X, b, 1) && r.isLength(m.Y, a, 1))
+}
+
+// isCross reports whether e is the cross product of plane vectors a and b
+// (or of b and a): the difference of the products of their crossed
+// components, a.X*b.Y - a.Y*b.X.
+func (r *Reader) isCross(e ast.Expr, a, b *types.Var) bool {
+	d, ok := r.value(e).(*ast.BinaryExpr)
+	if !ok || d.Op != token.SUB || len(vectorKeys(a.Type())) != 2 {
+		return false
+	}
+	pair := func(e ast.Expr) (string, string, bool) { // the components of a and b in a product
+		m, ok := r.value(e).(*ast.BinaryExpr)
+		if !ok || m.Op != token.MUL {
+			return "", "", false
+		}
+		ka, oka := r.comp(m.X, a)
+		kb, okb := r.comp(m.Y, b)
+		if !oka || !okb {
+			ka, oka = r.comp(m.Y, a)
+			kb, okb = r.comp(m.X, b)
+		}
+		return ka, kb, oka && okb
+	}
+	a1, b1, ok1 := pair(d.X)
+	a2, b2, ok2 := pair(d.Y)
+	return ok1 && ok2 && a1 != b1 && a1 == b2 && a2 == b1
 }
 
 // IsCosine reports whether e, an expression inside fd, is the cosine of

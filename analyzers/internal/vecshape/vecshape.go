@@ -1,7 +1,8 @@
 // Package vecshape defines an infrastructure Analyzer that learns which
 // functions return a direction (a vector divided by its own length), the
-// dot product or the length of their vector inputs, or the cosine of the
-// angle between two, by reading their bodies (package degree), whatever
+// dot product or the length of their vector inputs, the cosine of the
+// angle between two, or the cross product of two plane vectors, by
+// reading their bodies (package degree), whatever
 // their names, and carries that to importers as facts: r3.Unit(v),
 // a.Dot(b) or r3.Cos(p, q) of another package read as they would in
 // their own. The per-package work is a look at the functions whose
@@ -23,7 +24,7 @@ import (
 // Analyzer learns the vector functions of a package.
 var Analyzer = &analysis.Analyzer{
 	Name:       "vecshape",
-	Doc:        "vecshape: learn which functions return a direction, a dot product, a length or a cosine of vectors",
+	Doc:        "vecshape: learn which functions return a direction, a dot product, a length, a cosine or a cross product of vectors",
 	Run:        run,
 	ResultType: reflect.TypeFor[Imported](),
 	FactTypes:  []analysis.Fact{new(Fact)},
@@ -36,7 +37,7 @@ type Fact struct{ degree.Summary }
 func (*Fact) AFact() {}
 
 func (f *Fact) String() string {
-	return fmt.Sprintf("%s of inputs %d, %d", [...]string{"dot product", "length", "direction", "cosine"}[f.Shape], f.In[0], f.In[1])
+	return fmt.Sprintf("%s of inputs %d, %d", [...]string{"dot product", "length", "direction", "cosine", "cross product"}[f.Shape], f.In[0], f.In[1])
 }
 
 // Imported returns the summary of a function of another package, for

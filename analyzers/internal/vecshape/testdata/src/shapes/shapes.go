@@ -30,3 +30,8 @@ func (p P) Double() P { return P{2 * p.X, 2 * p.Y} }
 
 // Recursion ends the reading without a shape.
 func Loop(p, q P) float64 { return Loop(q, p) }
+
+func (p P) Turn(q P) float64 { return p.X*q.Y - p.Y*q.X } // want Turn:"cross product of inputs 0, 1"
+
+// The same components in both products: no cross product.
+func Skew(p, q P) float64 { return p.X*q.Y - p.X*q.Y }

@@ -42,6 +42,10 @@ func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
 	terms := c.terms(n, false, nil)
 	f := provenance.FormatOf(tv.Type)
 	if tv.Value != nil {
+		if top := c.roundedWhole(cur); top != ast.Expr(n) {
+			c.absorbedWithin(n, top, terms, f)
+			return
+		}
 		c.absorbedConstant(cur, n, terms, f)
 		return
 	}
@@ -105,6 +109,84 @@ func (c *checker) absorbedConstant(cur inspector.Cursor, n *ast.BinaryExpr, term
 		c.reportAbsorbed(n, t.expr, c.restOf(terms, i), rest, f, fs)
 		return
 	}
+}
+
+// roundedWhole returns the constant expression that holds cur's sum and is
+// rounded as a whole: the largest one reached through parentheses, signs
+// and arithmetic, whose operands stay exact until it is (Go spec,
+// "Constant expressions"); a conversion rounds its operand, and stops the
+// climb.
+func (c *checker) roundedWhole(cur inspector.Cursor) ast.Expr {
+	top := cur.Node().(ast.Expr)
+	for p := cur.Parent(); ; p = p.Parent() {
+		switch e := p.Node().(type) {
+		case *ast.ParenExpr, *ast.UnaryExpr, *ast.BinaryExpr:
+			if c.pass.TypesInfo.Types[e.(ast.Expr)].Value == nil {
+				return top
+			}
+			top = e.(ast.Expr)
+		default:
+			return top
+		}
+	}
+}
+
+// absorbedWithin reports the first addend of the constant sum n without
+// which top, the constant expression that holds n and is rounded once,
+// has the same value.
+func (c *checker) absorbedWithin(n *ast.BinaryExpr, top ast.Expr, terms []term, f numeric.Format) {
+	whole, ok := constval.Exact(c.pass.TypesInfo, c.decls, top)
+	if !ok || whole.Kind() == constant.Complex {
+		return
+	}
+	for _, t := range terms {
+		if v, ok := c.value(t); !ok || constant.Sign(v) == 0 {
+			continue
+		}
+		without, ok := c.evalWithout(top, t.expr)
+		if !ok || without.Kind() == constant.Complex || f.Value(without) != f.Value(whole) || f.Value(whole) == 0 {
+			continue
+		}
+		fixes.Report(c.pass, analysis.Diagnostic{
+			Pos: n.Pos(), End: n.End(), Category: catAbsorbed,
+			Message: fmt.Sprintf("%s has no effect on %s: the constant is evaluated exactly and rounded once to %s, to %s, the value it has without %s; use math.Nextafter for a neighbouring value",
+				fixes.Source(c.pass.Fset, t.expr), fixes.Source(c.pass.Fset, top), f.Name, numeric.Short(f.Value(whole)), fixes.Source(c.pass.Fset, t.expr)),
+		})
+		return
+	}
+}
+
+// evalWithout evaluates the constant expression e exactly with the
+// addend drop taken as 0.
+func (c *checker) evalWithout(e, drop ast.Expr) (constant.Value, bool) {
+	if e == drop {
+		return constant.MakeInt64(0), true
+	}
+	switch x := e.(type) {
+	case *ast.ParenExpr:
+		return c.evalWithout(x.X, drop)
+	case *ast.UnaryExpr:
+		v, ok := c.evalWithout(x.X, drop)
+		if !ok || x.Op != token.SUB && x.Op != token.ADD {
+			return nil, false
+		}
+		return constant.UnaryOp(x.Op, v, 0), true
+	case *ast.BinaryExpr:
+		a, oka := c.evalWithout(x.X, drop)
+		b, okb := c.evalWithout(x.Y, drop)
+		switch {
+		case !oka || !okb:
+			return nil, false
+		case x.Op == token.QUO && (constant.Sign(b) == 0 || a.Kind() == constant.Int && b.Kind() == constant.Int):
+			return nil, false // a division by zero, or one of integers, which Go truncates
+		case x.Op == token.QUO:
+			return constant.BinaryOp(constant.ToFloat(a), token.QUO, constant.ToFloat(b)), true
+		case x.Op == token.ADD || x.Op == token.SUB || x.Op == token.MUL:
+			return constant.BinaryOp(a, x.Op, b), true
+		}
+		return nil, false
+	}
+	return constval.Exact(c.pass.TypesInfo, c.decls, e)
 }
 
 // absorbedMixed reports a constant addend below half the spacing at another

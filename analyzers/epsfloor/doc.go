@@ -61,7 +61,11 @@
 //     rounds to the same value (1 - math.SmallestNonzeroFloat64 is exactly
 //     1; math.Nextafter was meant). Go evaluates a constant expression
 //     exactly and rounds it once (Go spec, "Constant expressions"), so the
-//     sum is judged whole, never step by step. In a sum whose run-time
+//     sum is judged whole, never step by step, and a sum inside a larger
+//     constant expression by that expression: 1 in (1e16 + 1) / 2e16 has
+//     no effect because the quotient, 0.50000000000000005 exactly, rounds
+//     to 0.5 as 1e16 / 2e16 does, not because 1e16 + 1 rounds (it never
+//     does on its own). In a sum whose run-time
 //     terms all carry rounding error (calls, products, quotients), a
 //     constant below half the spacing at another constant term (a float64
 //     correction of 6.1e-17 kept beside π/2 in float32 code) has no effect

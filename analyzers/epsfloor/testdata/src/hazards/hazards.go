@@ -398,3 +398,10 @@ func clockUlp(t float64) float64 {
 func clockStep(t, h float64) float64 {
 	return math.Nextafter(t, t+h) - t
 }
+
+// A sum inside a larger constant expression is not rounded by itself: the
+// quotient is, once. (1e16 + 1) / 2e16 is 0.50000000000000005 exactly,
+// which rounds to 0.5, as 1e16 / 2e16 does.
+func absorbedInQuotient() float64 {
+	return (1e16 + 1) / 2e16 // want `1 has no effect on \(1e16 \+ 1\) / 2e16: the constant is evaluated exactly and rounded once to float64, to 0.5, the value it has without 1`
+}

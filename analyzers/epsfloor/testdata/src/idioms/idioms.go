@@ -374,3 +374,7 @@ func cfRatio(a, b func(int) float64) float64 {
 	}
 	return f
 }
+
+// The addend moves the rounded quotient: (2 + 1e-15) / 4 is 0.50000000000000025
+// exactly and rounds to 0.5000000000000002, not 0.5.
+const nudgedHalf = (2 + 1e-15) / 4

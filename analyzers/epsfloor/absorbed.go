@@ -144,8 +144,8 @@ func (c *checker) absorbedWithin(n *ast.BinaryExpr, top ast.Expr, terms []term, 
 			continue
 		}
 		without, ok := c.evalWithout(top, t.expr)
-		if !ok || without.Kind() == constant.Complex || f.Value(without) != f.Value(whole) || f.Value(whole) == 0 {
-			continue
+		if !ok || without.Kind() == constant.Complex || constant.Compare(without, token.EQL, whole) || f.Value(without) != f.Value(whole) || f.Value(whole) == 0 {
+			continue // no effect even exactly (a factor of 0), or an effect on the rounded value
 		}
 		fixes.Report(c.pass, analysis.Diagnostic{
 			Pos: n.Pos(), End: n.End(), Category: catAbsorbed,

@@ -378,3 +378,7 @@ func cfRatio(a, b func(int) float64) float64 {
 // The addend moves the rounded quotient: (2 + 1e-15) / 4 is 0.50000000000000025
 // exactly and rounds to 0.5000000000000002, not 0.5.
 const nudgedHalf = (2 + 1e-15) / 4
+
+// A table written for every row: the first row's factor 0 removes the
+// addend exactly, not by rounding.
+const firstRow = (1.0-1.0/30)*0/4 + 1.0/30

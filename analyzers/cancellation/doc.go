@@ -82,7 +82,9 @@
 //     (π-θ)²/2 is all cancellation, 0 within 1.49e-8 of π, while
 //     |a+b|²/2 keeps nearly every digit (a+b is exact there by
 //     Sterbenz's lemma); a dot product of vectors that are not
-//     directions has the data's size and is left alone;
+//     directions has the data's size and is left alone, and so is 1 + c
+//     where a condition keeps c above -1 (if c < -1+0.001 { ...; return }
+//     handles nearly opposite vectors by themselves);
 //   - 1 - s where s accumulates math.Sqrt(p*q) (s += math.Sqrt(p[i]*q[i]),
 //     in the function or in the package's own function returning s),
 //     consumed to relative accuracy (under a root, as a divisor): for

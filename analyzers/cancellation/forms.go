@@ -692,6 +692,9 @@ func (c *checker) opposite(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !c.vectorCosine(cur, cos) || c.addend(cur, 2) {
 		return
 	}
+	if r, _ := c.spans.At(cur, cos); r.Lo >= -1+unitRoundoff {
+		return // a guard sent the nearly opposite case elsewhere (if c < -1+eps { ... return })
+	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: n.Pos(), End: n.End(), Category: catCosine,
 		Message: fmt.Sprintf("1 + c%s, the cosine of the angle between two vectors, returns 0 for angles within about %.3g rad of π and loses about 2·log10(1/(π-θ)) digits near π, where the vectors are nearly opposite; for directions a and b use |a+b|²/2, whose sum a+b is exact there",

@@ -41,3 +41,14 @@ func filletCorner(p, q spacevec.V) float64 {
 	u, w := spacevec.Along(p), spacevec.Along(q)
 	return math.Acos(u.Dot(w))
 }
+
+// Nearly opposite directions handled by themselves first: after the
+// guard, 1 + c is at least 0.001, and at most three digits go.
+func halfTurnGuarded(p, q spacevec.V) float64 {
+	u, w := spacevec.Along(p), spacevec.Along(q)
+	c := spacevec.Inner(u, w)
+	if c < -1+0.001 {
+		return 0
+	}
+	return math.Sqrt(2 * (1 + c))
+}

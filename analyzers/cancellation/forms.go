@@ -627,7 +627,8 @@ func isInteger(t types.Type) bool {
 	return ok && b.Info()&types.IsInteger != 0
 }
 
-// dotCosine reports 1 - cos θ where cos θ is a dot product over norms:
+// dotCosine reports 1 - cos θ where cos θ is a dot product over norms or
+// the dot product of two directions (what says which):
 // the quotient carries an absolute error of a few roundings, so 1 - cos θ,
 // about θ²/2, is 0 for θ below about sqrt(2u) ≈ 1.49e-8 and loses
 // 2·log10(1/θ) digits above.

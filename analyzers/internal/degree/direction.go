@@ -889,9 +889,10 @@ func (r *Reader) bindsTo(call *ast.CallExpr, fn *types.Func, s Summary, a, b *ty
 
 // Summarize returns the shape of the result of fn, a function of the
 // package, when it has one: a direction (see unit); the dot product of
-// two vector inputs or the length of one, every return being one; or
-// the cosine of the angle between two, every return being their dot
-// product over the product of their lengths.
+// two vector inputs or the length of one, every return being one; the
+// cosine of the angle between two, every return being their dot product
+// over the product of their lengths; or the cross product of two plane
+// vectors.
 func (r *Reader) Summarize(fn *types.Func) (Summary, bool) {
 	if s, known := r.shapes[fn]; known {
 		return s.Summary, s.ok

@@ -29,7 +29,10 @@
 // steps, and their relative forms, mixed ones too (rtol·|x| + atol, its
 // relative part rtol judged; twice such a sum, Brent's tol2 = 2·tol1, as
 // m/2 against it; and Brent's |x - xm| <= tol2 - (b-a)/2, a test on the
-// offset and the half-width together, against tol2). It classifies the loop: a
+// offset and the half-width together, against tol2), read through locals
+// given one value, also those declared first and assigned once (var tol1
+// float64, as code ported from C writes it; see constval.SetOnce). It
+// classifies the loop: a
 // derivative-free minimization when it compares function values to choose
 // points (golden-section, parabolic interpolation through three points,
 // Brent-like search, backtracking), a root finding when it tests signs

@@ -72,14 +72,18 @@ type checker struct {
 	decls map[types.Object]ast.Expr
 	abs   *absval.Known
 	uses  *tolerance.Uses[use]
-	tests map[use]ast.Node // the tests of the tolerances learned here
+	tests map[use]ast.Node          // the tests of the tolerances learned here
+	later map[types.Object]ast.Expr // locals declared first and assigned once (constval.SetOnce), read on first use
 }
 
 // reader returns the tolerance reader for a loop of the function body.
 func (c *checker) reader(l *loop) tolerance.Reader {
 	info := c.pass.TypesInfo
+	if c.later == nil {
+		c.later = constval.SetOnce(info, c.pass.ResultOf[inspect.Analyzer].(*inspector.Inspector))
+	}
 	r := tolerance.Reader{
-		Info: info, Decls: c.decls, Abs: c.abs, Mixed: true,
+		Info: info, Decls: c.decls, Abs: c.abs, Mixed: true, Later: c.later,
 		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.body, hi, lo) },
 	}
 	r.Widths = r.TrackedWidths(l.body, l.shrunk)

@@ -11,6 +11,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"slices"
 
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
@@ -360,4 +361,114 @@ func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stor
 		escaped[g] = true
 	}
 	return ops
+}
+
+// SetOnce maps the local variables of the files of insp that are declared
+// with no value (var tol1 float64, as code ported from C declares its
+// variables first) and assigned exactly once afterwards, by a plain
+// assignment that is a statement of a block, to the value it gives, when
+// every read of the variable lies in that block after the assignment: the
+// zero value is never read, and each read sees the value of the one
+// assignment. Decls leaves such variables out, since they are assigned
+// after their declaration.
+func SetOnce(info *types.Info, insp *inspector.Inspector) map[types.Object]ast.Expr {
+	bare := make(map[types.Object]bool)
+	changes := make(map[types.Object]int)
+	sets := make(map[types.Object]inspector.Cursor)
+	for cur := range insp.Root().Preorder((*ast.GenDecl)(nil), (*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil), (*ast.UnaryExpr)(nil), (*ast.SelectorExpr)(nil), (*ast.RangeStmt)(nil)) {
+		switch n := cur.Node().(type) {
+		case *ast.GenDecl:
+			for _, s := range n.Specs {
+				if spec, ok := s.(*ast.ValueSpec); ok && n.Tok == token.VAR && len(spec.Values) == 0 {
+					for _, name := range spec.Names {
+						if obj := info.Defs[name]; obj != nil && obj.Pkg() != nil && obj.Parent() != obj.Pkg().Scope() {
+							bare[obj] = true
+						}
+					}
+				}
+			}
+		case *ast.AssignStmt:
+			for _, lhs := range n.Lhs {
+				if obj := objectOf(info, lhs); obj != nil {
+					changes[obj]++
+					if n.Tok == token.ASSIGN && len(n.Lhs) == len(n.Rhs) {
+						sets[obj] = cur
+					}
+				}
+			}
+		case *ast.IncDecStmt:
+			if obj := objectOf(info, n.X); obj != nil {
+				changes[obj] += 2
+			}
+		case *ast.UnaryExpr:
+			if obj := objectOf(info, n.X); obj != nil && n.Op == token.AND {
+				changes[obj] += 2
+			}
+		case *ast.SelectorExpr:
+			if obj := objectOf(info, n.X); obj != nil && PointerMethod(info, n) {
+				changes[obj] += 2
+			}
+		case *ast.RangeStmt:
+			for _, e := range []ast.Expr{n.Key, n.Value} {
+				if obj := objectOf(info, e); obj != nil {
+					changes[obj] += 2
+				}
+			}
+		}
+	}
+	out := make(map[types.Object]ast.Expr)
+	var reads map[types.Object][]*ast.Ident
+	for obj, cur := range sets {
+		if !bare[obj] || changes[obj] != 1 {
+			continue
+		}
+		if reads == nil {
+			reads = make(map[types.Object][]*ast.Ident)
+			for id, o := range info.Uses {
+				reads[o] = append(reads[o], id)
+			}
+		}
+		if rhs, ok := readAfter(info, cur, obj, reads[obj]); ok {
+			out[obj] = rhs
+		}
+	}
+	return out
+}
+
+// objectOf returns the variable e names, or nil.
+func objectOf(info *types.Info, e ast.Expr) types.Object {
+	id, ok := ast.Unparen(e).(*ast.Ident)
+	if !ok {
+		return nil
+	}
+	if obj := info.Uses[id]; obj != nil {
+		return obj
+	}
+	return info.Defs[id]
+}
+
+// readAfter returns the value the assignment at cur gives obj when the
+// assignment is a statement of a block and every read of obj lies in
+// that block after it.
+func readAfter(info *types.Info, cur inspector.Cursor, obj types.Object, reads []*ast.Ident) (ast.Expr, bool) {
+	as := cur.Node().(*ast.AssignStmt)
+	block, ok := cur.Parent().Node().(*ast.BlockStmt)
+	if !ok {
+		return nil, false
+	}
+	var rhs ast.Expr
+	for i, lhs := range as.Lhs {
+		if objectOf(info, lhs) == obj {
+			rhs = as.Rhs[i]
+		}
+	}
+	for _, id := range reads {
+		if slices.Contains(as.Lhs, ast.Expr(id)) {
+			continue // the assignment's own target
+		}
+		if id.Pos() <= as.End() || id.Pos() >= block.End() {
+			return nil, false
+		}
+	}
+	return rhs, rhs != nil
 }

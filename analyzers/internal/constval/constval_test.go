@@ -291,3 +291,39 @@ func TestDeclsPointerMethod(t *testing.T) {
 	assert.False(t, names["a"], "a.Halve() takes &a")
 	assert.True(t, names["b"], "b.Twice() copies b")
 }
+
+// TestSetOnce: a local declared with no value and assigned once holds
+// that value wherever it is read after the assignment in the same block
+// (Go spec, "Variable declarations": before it, the zero value).
+func TestSetOnce(t *testing.T) {
+	src := `package p
+
+func f(n int, x float64) float64 {
+	var tol1, tol2, early, outside, twice, self float64
+	s := 0.0
+	for i := 0; i < n; i++ {
+		tol1 = 1e-10*x + 2e-19
+		tol2 = 2 * tol1
+		s += tol2 + early
+		early = x
+		outside = x
+		twice = x
+		twice = 2 * x
+		self = self + x
+	}
+	return s + outside + twice + self
+}
+`
+	_, info, files := build(t, src)
+	set := constval.SetOnce(info, inspector.New(files))
+	names := map[string]bool{}
+	for obj := range set {
+		names[obj.Name()] = true
+	}
+	assert.True(t, names["tol1"], "read only after its one assignment")
+	assert.True(t, names["tol2"], "read only after its one assignment")
+	assert.False(t, names["early"], "read before the assignment: the zero value, or the last pass's")
+	assert.False(t, names["outside"], "read after the loop, where the zero value may reach")
+	assert.False(t, names["twice"], "assigned twice")
+	assert.False(t, names["self"], "reads itself in its own assignment")
+}

@@ -2,22 +2,22 @@ package hazards
 
 import "math"
 
-// A minimizer in the form of Brent's fmin (Brent 1973, ch. 5): the
-// stopping test
+// A minimizer in the form of Brent's fmin (Brent 1973, ch. 5), its
+// variables declared first as code ported from C does: the stopping test
 // |x - xm| <= tol2 - (b-a)/2 with tol1 = rel·|x| + floor and tol2 = 2·tol1
 // asks for x to a relative 1e-10, which comparing function values cannot
 // give (it locates x to about sqrt(eps)·max(1,|x|)).
 func fmin(f func(float64) float64, a, b float64) float64 {
 	const golden = 0.3819660112501051
-	var x, w, v, fx, fw, fv, d, e, xm, u, fu float64
+	var x, w, v, fx, fw, fv, d, e, xm, tol1, tol2, u, fu float64
 	x = a + golden*(b-a)
 	w, v = x, x
 	fx = f(x)
 	fw, fv = fx, fx
 	for it := 0; it < 200; it++ {
 		xm = 0.5 * (a + b)
-		tol1 := 1e-10*math.Abs(x) + 1e-20
-		tol2 := 2 * tol1
+		tol1 = 1e-10*math.Abs(x) + 1e-20
+		tol2 = 2 * tol1
 		if math.Abs(x-xm) <= tol2-0.5*(b-a) { // want `relative x-tolerance 1e-10 in this minimization: comparing function values locates a minimum only to about sqrt\(eps\)·max\(1,\|x\|\) = 1.49e-08·max\(1,\|x\|\)`
 			break
 		}

@@ -31,8 +31,11 @@
 // m/2 against it; and Brent's |x - xm| <= tol2 - (b-a)/2, a test on the
 // offset and the half-width together, against tol2), read through locals
 // given one value, also those declared first and assigned once (var tol1
-// float64, as code ported from C writes it; see constval.SetOnce). It
-// classifies the loop: a
+// float64, as code ported from C writes it; see constval.SetOnce). A
+// helper of the package that only stores its values through its pointers
+// (mov3(&x, &fx, &dx, u, fu, du), as C ports shift a search's points)
+// assigns what it is handed, for every reading here. It classifies the
+// loop: a
 // derivative-free minimization when it compares function values to choose
 // points (golden-section, parabolic interpolation through three points,
 // Brent-like search, backtracking), a root finding when it tests signs

@@ -36,10 +36,11 @@ func (c class) locatesToUlps() bool {
 
 // function holds what stoptol learns about a function body once.
 type function struct {
-	body  ast.Node
-	decl  *ast.FuncDecl             // nil for a function literal
-	fvals map[*types.Var]bool       // variables holding function values
-	flags map[*types.Var][]ast.Expr // booleans holding tests (tolerance.Flags)
+	body   ast.Node
+	decl   *ast.FuncDecl             // nil for a function literal
+	fvals  map[*types.Var]bool       // variables holding function values
+	flags  map[*types.Var][]ast.Expr // booleans holding tests (tolerance.Flags)
+	movers map[*types.Func][][2]int  // the package's helpers that store through pointers (tolerance.Movers)
 }
 
 // loop holds what stoptol learns about one for statement.
@@ -259,6 +260,12 @@ func (l *loop) scan(info *types.Info, n ast.Node) {
 			if v := tolerance.VarOf(info, n.X); v != nil {
 				l.xvars[v] = true
 			}
+		case *ast.CallExpr:
+			for _, p := range tolerance.Moved(info, l.movers, n) {
+				if v := subjectOf(info, p[0]); v != nil {
+					l.assigned(info, v, token.ASSIGN, p[1])
+				}
+			}
 		}
 		return true
 	})
@@ -307,22 +314,29 @@ func stepOf(info *types.Info, tok token.Token, rhs ast.Expr, v *types.Var) (s, x
 
 // FValues returns the float variables of a function body that hold
 // function values: assigned a call of the objective, or another such
-// variable.
-func FValues(info *types.Info, body ast.Node) map[*types.Var]bool {
+// variable, also through a mover (see tolerance.Movers).
+func FValues(info *types.Info, movers map[*types.Func][][2]int, body ast.Node) map[*types.Var]bool {
 	fv := make(map[*types.Var]bool)
 	for changed := true; changed; {
 		changed = false
 		ast.Inspect(body, func(n ast.Node) bool {
-			as, ok := n.(*ast.AssignStmt)
-			if !ok || len(as.Lhs) != len(as.Rhs) || as.Tok != token.ASSIGN && as.Tok != token.DEFINE {
-				return true
+			var pairs [][2]ast.Expr
+			switch n := n.(type) {
+			case *ast.AssignStmt:
+				if len(n.Lhs) == len(n.Rhs) && (n.Tok == token.ASSIGN || n.Tok == token.DEFINE) {
+					for i := range n.Lhs {
+						pairs = append(pairs, [2]ast.Expr{n.Lhs[i], n.Rhs[i]})
+					}
+				}
+			case *ast.CallExpr:
+				pairs = tolerance.Moved(info, movers, n)
 			}
-			for i, lhs := range as.Lhs {
-				v := tolerance.VarOf(info, lhs)
+			for _, p := range pairs {
+				v := tolerance.VarOf(info, p[0])
 				if v == nil || fv[v] || !provenance.IsFloat(v.Type()) {
 					continue
 				}
-				if r := tolerance.VarOf(info, as.Rhs[i]); isFValue(info, as.Rhs[i]) || r != nil && fv[r] {
+				if r := tolerance.VarOf(info, p[1]); isFValue(info, p[1]) || r != nil && fv[r] {
 					fv[v], changed = true, true
 				}
 			}

@@ -67,13 +67,14 @@ func (u use) format() numeric.Format { return numeric.Select(u.Float32) }
 
 // checker holds what one run needs.
 type checker struct {
-	pass  *analysis.Pass
-	noise *noiselevel.Levels
-	decls map[types.Object]ast.Expr
-	abs   *absval.Known
-	uses  *tolerance.Uses[use]
-	tests map[use]ast.Node          // the tests of the tolerances learned here
-	later map[types.Object]ast.Expr // locals declared first and assigned once (constval.SetOnce), read on first use
+	pass   *analysis.Pass
+	noise  *noiselevel.Levels
+	decls  map[types.Object]ast.Expr
+	abs    *absval.Known
+	uses   *tolerance.Uses[use]
+	tests  map[use]ast.Node          // the tests of the tolerances learned here
+	later  map[types.Object]ast.Expr // locals declared first and assigned once (constval.SetOnce), read on first use
+	movers map[*types.Func][][2]int  // helpers that store through pointers (tolerance.Movers), read on first use
 }
 
 // reader returns the tolerance reader for a loop of the function body.
@@ -84,7 +85,7 @@ func (c *checker) reader(l *loop) tolerance.Reader {
 	}
 	r := tolerance.Reader{
 		Info: info, Decls: c.decls, Abs: c.abs, Mixed: true, Later: c.later,
-		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.body, hi, lo) },
+		Ordered: func(hi, lo ast.Expr) bool { return tolerance.Ordered(info, l.movers, l.body, hi, lo) },
 	}
 	r.Widths = r.TrackedWidths(l.body, l.shrunk)
 	return r
@@ -138,7 +139,10 @@ func run(pass *analysis.Pass) (any, error) {
 // function returns what stoptol learns about a function body, once.
 func (c *checker) function(funcs map[ast.Node]*function, body ast.Node, decl *ast.FuncDecl) *function {
 	if funcs[body] == nil {
-		funcs[body] = &function{body: body, decl: decl, fvals: FValues(c.pass.TypesInfo, body), flags: tolerance.Flags(c.pass.TypesInfo, body)}
+		if c.movers == nil {
+			c.movers = tolerance.Movers(c.pass.TypesInfo, c.pass.Files)
+		}
+		funcs[body] = &function{body: body, decl: decl, fvals: FValues(c.pass.TypesInfo, c.movers, body), flags: tolerance.Flags(c.pass.TypesInfo, body), movers: c.movers}
 	}
 	return funcs[body]
 }

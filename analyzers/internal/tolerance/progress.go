@@ -113,8 +113,9 @@ func constantFloat(tv types.TypeAndValue) (float64, bool) {
 // computed from both (m := (lo+hi)/2; lo = m), as bisection, golden-section
 // and false-position steps do, which keeps a bracket ordered. Successive
 // iterates x1-x0 of Newton or a fixed-point map are none of these: their
-// difference is a signed step. hi and lo are variables or fields.
-func Ordered(info *types.Info, body ast.Node, hi, lo ast.Expr) bool {
+// difference is a signed step. hi and lo are variables or fields; the
+// points may also move through movers (see Movers).
+func Ordered(info *types.Info, movers map[*types.Func][][2]int, body ast.Node, hi, lo ast.Expr) bool {
 	h, l := objOf(info, hi), objOf(info, lo)
 	if h == nil || l == nil || h == l {
 		return false
@@ -131,6 +132,12 @@ func Ordered(info *types.Info, body ast.Node, hi, lo ast.Expr) bool {
 					if o := objOf(info, lhs); o != nil {
 						assigned[o] = append(assigned[o], n.Rhs[i])
 					}
+				}
+			}
+		case *ast.CallExpr:
+			for _, p := range Moved(info, movers, n) {
+				if o := objOf(info, p[0]); o != nil {
+					assigned[o] = append(assigned[o], p[1])
 				}
 			}
 		}

@@ -224,18 +224,28 @@ func (r Reader) bare(tol ast.Expr, t *Test) ast.Expr {
 	return tol
 }
 
-// width reports whether e is a known width or an ordered difference hi-lo,
-// possibly times a positive constant.
+// width reports whether e is a known width or a difference of two
+// variables, possibly times a positive constant. Subtracted from a
+// tolerance, k·(b-a) is the half-width of Brent's test, whose bracket
+// keeps b above a; the order is not checked, since a test shaped so is
+// that test (the bracket's order comes from comparisons of f that
+// Ordered cannot follow through Brent's steps).
 func (r Reader) width(e ast.Expr) bool {
 	e = r.follow(e)
 	if x, _, ok := r.constScaled(e); ok {
 		e = r.follow(x)
 	}
 	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB {
-		return r.Ordered != nil && r.Ordered(d.X, d.Y)
+		return r.varOf(identOf(d.X)) != nil && r.varOf(identOf(d.Y)) != nil
 	}
 	id, ok := e.(*ast.Ident)
 	return ok && r.Widths[r.varOf(id)]
+}
+
+// identOf returns e as an identifier, or nil.
+func identOf(e ast.Expr) *ast.Ident {
+	id, _ := ast.Unparen(e).(*ast.Ident)
+	return id
 }
 
 // measure reads |a-b|, |a-b|/s, |(a-b)/s|, |x|, a known width, and any of

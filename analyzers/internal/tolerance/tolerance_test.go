@@ -127,13 +127,19 @@ func TestMeasures(t *testing.T) {
 
 // funcBody type-checks src, a function f, and returns its body and info.
 func funcBody(t *testing.T, src string) (*types.Info, *ast.BlockStmt) {
+	info, file := checkFile(t, src)
+	return info, file.Decls[len(file.Decls)-1].(*ast.FuncDecl).Body
+}
+
+// checkFile parses and type-checks src as the one file of package p.
+func checkFile(t *testing.T, src string) (*types.Info, *ast.File) {
 	fset := token.NewFileSet()
 	file, err := parser.ParseFile(fset, "p.go", "package p\n\n"+src, 0)
 	require.NoError(t, err)
 	info := &types.Info{Types: map[ast.Expr]types.TypeAndValue{}, Defs: map[*ast.Ident]types.Object{}, Uses: map[*ast.Ident]types.Object{}, Selections: map[*ast.SelectorExpr]*types.Selection{}}
 	_, err = (&types.Config{Importer: importer.Default()}).Check("p", fset, []*ast.File{file}, info)
 	require.NoError(t, err)
-	return info, file.Decls[len(file.Decls)-1].(*ast.FuncDecl).Body
+	return info, file
 }
 
 // ident finds the identifier named name in body.
@@ -160,8 +166,37 @@ func TestOrdered(t *testing.T) {
 		"func f(hi, lo float64) { for hi-lo > 1e-9 { lo = hi; hi = hi - (hi*hi-2)/(2*hi) } }": false,
 	} {
 		info, body := funcBody(t, src)
-		assert.Equal(t, want, tolerance.Ordered(info, body, ident(body, "hi"), ident(body, "lo")), src)
+		assert.Equal(t, want, tolerance.Ordered(info, nil, body, ident(body, "hi"), ident(body, "lo")), src)
 	}
+}
+
+// TestOrderedThroughMover: a point shifted into place by a helper that
+// stores through pointers (mov2(&x, &fx, u, fu), as ported C code shifts
+// points) is assigned as if written out, so an end moved to it is still a
+// point computed from both ends.
+func TestOrderedThroughMover(t *testing.T) {
+	src := `func mov2(a, b *float64, c, d float64) { *a = c; *b = d }
+
+func f(g func(float64) float64, lo, hi float64) float64 {
+	var x, fx float64
+	for hi-lo > 1e-9 {
+		u := (lo + hi) / 2
+		fu := g(u)
+		mov2(&x, &fx, u, fu)
+		if fx > 0 {
+			hi = x
+		} else {
+			lo = x
+		}
+	}
+	return x
+}`
+	info, file := checkFile(t, src)
+	body := file.Decls[1].(*ast.FuncDecl).Body
+	movers := tolerance.Movers(info, []*ast.File{file})
+	assert.Len(t, movers, 1)
+	assert.True(t, tolerance.Ordered(info, movers, body, ident(body, "hi"), ident(body, "lo")))
+	assert.False(t, tolerance.Ordered(info, nil, body, ident(body, "hi"), ident(body, "lo")), "the helper unread")
 }
 
 func TestShrunkAndFlags(t *testing.T) {

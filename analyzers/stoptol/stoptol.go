@@ -72,9 +72,9 @@ type checker struct {
 	decls  map[types.Object]ast.Expr
 	abs    *absval.Known
 	uses   *tolerance.Uses[use]
-	tests  map[use]ast.Node          // the tests of the tolerances learned here
-	later  map[types.Object]ast.Expr // locals declared first and assigned once (constval.SetOnce), read on first use
-	movers map[*types.Func][][2]int  // helpers that store through pointers (tolerance.Movers), read on first use
+	tests  map[use]ast.Node                    // the tests of the tolerances learned here
+	later  func(types.Object) (ast.Expr, bool) // locals declared first and assigned once (constval.SetOnce), made on first use
+	movers map[*types.Func][][2]int            // helpers that store through pointers (tolerance.Movers), read on first use
 }
 
 // reader returns the tolerance reader for a loop of the function body.

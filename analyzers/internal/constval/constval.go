@@ -363,76 +363,89 @@ func scanGlobals(fn *ssa.Function, pkg *ssa.Package, instr ssa.Instruction, stor
 	return ops
 }
 
-// SetOnce maps the local variables of the files of insp that are declared
-// with no value (var tol1 float64, as code ported from C declares its
-// variables first) and assigned exactly once afterwards, by a plain
-// assignment that is a statement of a block, to the value it gives, when
-// every read of the variable lies in that block after the assignment: the
-// zero value is never read, and each read sees the value of the one
-// assignment. Decls leaves such variables out, since they are assigned
-// after their declaration.
-func SetOnce(info *types.Info, insp *inspector.Inspector) map[types.Object]ast.Expr {
-	bare := make(map[types.Object]bool)
-	changes := make(map[types.Object]int)
-	sets := make(map[types.Object]inspector.Cursor)
-	for cur := range insp.Root().Preorder((*ast.GenDecl)(nil), (*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil), (*ast.UnaryExpr)(nil), (*ast.SelectorExpr)(nil), (*ast.RangeStmt)(nil)) {
+// SetOnce returns a reader of the local variables of the files of insp
+// that are declared with no value (var tol1 float64, as code ported from
+// C declares its variables first) and assigned exactly once afterwards,
+// by a plain assignment that is a statement of a block: it gives the
+// value assigned when every read of the variable lies in that block after
+// the assignment, so the zero value is never read and each read sees the
+// one assignment's value. Decls leaves such variables out, since they are
+// assigned after their declaration. Each variable is read once, from the
+// function that declares it.
+func SetOnce(info *types.Info, insp *inspector.Inspector) func(types.Object) (ast.Expr, bool) {
+	memo := make(map[types.Object]ast.Expr)
+	return func(obj types.Object) (ast.Expr, bool) {
+		if rhs, ok := memo[obj]; ok {
+			return rhs, rhs != nil
+		}
+		rhs := setOnce(info, insp, obj)
+		memo[obj] = rhs
+		return rhs, rhs != nil
+	}
+}
+
+// setOnce returns the value of obj's one assignment (see SetOnce), or nil.
+func setOnce(info *types.Info, insp *inspector.Inspector, obj types.Object) ast.Expr {
+	v, ok := obj.(*types.Var)
+	if !ok || v.Pkg() == nil || v.Parent() == v.Pkg().Scope() || v.IsField() {
+		return nil
+	}
+	decl, ok := insp.Root().FindByPos(v.Pos(), v.Pos())
+	if !ok {
+		return nil
+	}
+	if spec, ok := decl.Parent().Node().(*ast.ValueSpec); !ok || len(spec.Values) > 0 {
+		return nil // not var x T, or given a value there
+	}
+	var fn inspector.Cursor
+	inFunc := false
+	for f := range decl.Enclosing((*ast.FuncDecl)(nil)) {
+		fn, inFunc = f, true
+	}
+	if !inFunc {
+		return nil
+	}
+	var set inspector.Cursor
+	changes, plain := 0, false
+	var reads []*ast.Ident
+	for cur := range fn.Preorder((*ast.AssignStmt)(nil), (*ast.IncDecStmt)(nil), (*ast.UnaryExpr)(nil), (*ast.SelectorExpr)(nil), (*ast.RangeStmt)(nil), (*ast.Ident)(nil)) {
 		switch n := cur.Node().(type) {
-		case *ast.GenDecl:
-			for _, s := range n.Specs {
-				if spec, ok := s.(*ast.ValueSpec); ok && n.Tok == token.VAR && len(spec.Values) == 0 {
-					for _, name := range spec.Names {
-						if obj := info.Defs[name]; obj != nil && obj.Pkg() != nil && obj.Parent() != obj.Pkg().Scope() {
-							bare[obj] = true
-						}
-					}
-				}
-			}
 		case *ast.AssignStmt:
 			for _, lhs := range n.Lhs {
-				if obj := objectOf(info, lhs); obj != nil {
-					changes[obj]++
+				if objectOf(info, lhs) == obj {
+					changes++
 					if n.Tok == token.ASSIGN && len(n.Lhs) == len(n.Rhs) {
-						sets[obj] = cur
+						set, plain = cur, true
 					}
 				}
 			}
 		case *ast.IncDecStmt:
-			if obj := objectOf(info, n.X); obj != nil {
-				changes[obj] += 2
+			if objectOf(info, n.X) == obj {
+				changes += 2
 			}
 		case *ast.UnaryExpr:
-			if obj := objectOf(info, n.X); obj != nil && n.Op == token.AND {
-				changes[obj] += 2
+			if n.Op == token.AND && objectOf(info, n.X) == obj {
+				changes += 2
 			}
 		case *ast.SelectorExpr:
-			if obj := objectOf(info, n.X); obj != nil && PointerMethod(info, n) {
-				changes[obj] += 2
+			if PointerMethod(info, n) && objectOf(info, n.X) == obj {
+				changes += 2
 			}
 		case *ast.RangeStmt:
-			for _, e := range []ast.Expr{n.Key, n.Value} {
-				if obj := objectOf(info, e); obj != nil {
-					changes[obj] += 2
-				}
+			if objectOf(info, n.Key) == obj || objectOf(info, n.Value) == obj {
+				changes += 2
+			}
+		case *ast.Ident:
+			if info.Uses[n] == obj {
+				reads = append(reads, n)
 			}
 		}
 	}
-	out := make(map[types.Object]ast.Expr)
-	var reads map[types.Object][]*ast.Ident
-	for obj, cur := range sets {
-		if !bare[obj] || changes[obj] != 1 {
-			continue
-		}
-		if reads == nil {
-			reads = make(map[types.Object][]*ast.Ident)
-			for id, o := range info.Uses {
-				reads[o] = append(reads[o], id)
-			}
-		}
-		if rhs, ok := readAfter(info, cur, obj, reads[obj]); ok {
-			out[obj] = rhs
-		}
+	if changes != 1 || !plain {
+		return nil
 	}
-	return out
+	rhs, _ := readAfter(info, set, obj, reads)
+	return rhs
 }
 
 // objectOf returns the variable e names, or nil.

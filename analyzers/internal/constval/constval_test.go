@@ -299,8 +299,10 @@ func TestSetOnce(t *testing.T) {
 	src := `package p
 
 func f(n int, x float64) float64 {
-	var tol1, tol2, early, outside, twice, self float64
-	s := 0.0
+	var tol1, tol2, early, outside, twice, self, never float64
+	var pair, other float64
+	pair, other = x, x
+	s := never + pair + other
 	for i := 0; i < n; i++ {
 		tol1 = 1e-10*x + 2e-19
 		tol2 = 2 * tol1
@@ -317,8 +319,10 @@ func f(n int, x float64) float64 {
 	_, info, files := build(t, src)
 	set := constval.SetOnce(info, inspector.New(files))
 	names := map[string]bool{}
-	for obj := range set {
-		names[obj.Name()] = true
+	for _, obj := range info.Defs {
+		if _, ok := set(obj); obj != nil && ok {
+			names[obj.Name()] = true
+		}
 	}
 	assert.True(t, names["tol1"], "read only after its one assignment")
 	assert.True(t, names["tol2"], "read only after its one assignment")
@@ -326,4 +330,6 @@ func f(n int, x float64) float64 {
 	assert.False(t, names["outside"], "read after the loop, where the zero value may reach")
 	assert.False(t, names["twice"], "assigned twice")
 	assert.False(t, names["self"], "reads itself in its own assignment")
+	assert.False(t, names["never"], "never assigned: the zero value")
+	assert.True(t, names["pair"], "one assignment of two values")
 }

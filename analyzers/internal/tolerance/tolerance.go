@@ -69,9 +69,9 @@ type Reader struct {
 	// Mixed, when set, reads a sum atol + rtol·scale as a relative test
 	// with Tol rtol and Floor atol.
 	Mixed bool
-	// Later, when set, holds the values of locals declared with no value
+	// Later, when set, gives the values of locals declared with no value
 	// and assigned once (constval.SetOnce), followed like Decls.
-	Later map[types.Object]ast.Expr
+	Later func(types.Object) (ast.Expr, bool)
 }
 
 // Recognize reads cmp, an ordered comparison, as a tolerance test, with
@@ -422,8 +422,8 @@ func (r Reader) follow(e ast.Expr) ast.Expr {
 			e = x.Args[0]
 		case *ast.Ident:
 			init, ok := r.Decls[r.Info.Uses[x]]
-			if !ok {
-				init, ok = r.Later[r.Info.Uses[x]]
+			if !ok && r.Later != nil && r.Info.Uses[x] != nil {
+				init, ok = r.Later(r.Info.Uses[x])
 			}
 			if r.isConst(x) || !ok || r.isConst(init) {
 				return e

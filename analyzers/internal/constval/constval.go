@@ -188,12 +188,8 @@ func assignments(info *types.Info, as *ast.AssignStmt, decls map[types.Object]as
 
 // markChanged records that the variable named by e is assigned.
 func markChanged(info *types.Info, e ast.Expr, changed map[types.Object]bool) {
-	if id, ok := ast.Unparen(e).(*ast.Ident); ok {
-		if obj := info.Uses[id]; obj != nil {
-			changed[obj] = true
-		} else if obj := info.Defs[id]; obj != nil {
-			changed[obj] = true
-		}
+	if obj := objectOf(info, e); obj != nil {
+		changed[obj] = true
 	}
 }
 

@@ -292,10 +292,7 @@ func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
 // whatever the inputs; unknown otherwise, a dot product or a length too,
 // whose inputs' size that package's own contract may fix (unit points).
 func (r *Reader) importedDegree(fn *types.Func) float64 {
-	if _, ok := r.importedAs(fn, Unit); ok {
-		return 0
-	}
-	if _, ok := r.importedAs(fn, Cosine); ok {
+	if s, ok := r.summary(fn); ok && (s.Shape == Unit || s.Shape == Cosine) {
 		return 0
 	}
 	return math.NaN()

@@ -864,10 +864,7 @@ func (r *Reader) Import(summary func(*types.Func) (Summary, bool)) { r.imported 
 // importedAs returns the summary of fn, a function of another package,
 // when it has shape p.
 func (r *Reader) importedAs(fn *types.Func, p Shape) (Summary, bool) {
-	if fn == nil || r.imported == nil {
-		return Summary{}, false
-	}
-	s, ok := r.imported(fn)
+	s, ok := r.summary(fn)
 	return s, ok && s.Shape == p
 }
 
@@ -1033,13 +1030,12 @@ func identOf(e ast.Expr) *ast.Ident {
 
 // summary returns the summary of fn, of the package or another.
 func (r *Reader) summary(fn *types.Func) (Summary, bool) {
-	if fn == nil {
+	switch {
+	case fn == nil:
 		return Summary{}, false
-	}
-	if r.funcs[fn] != nil {
+	case r.funcs[fn] != nil:
 		return r.Summarize(fn)
-	}
-	if r.imported == nil {
+	case r.imported == nil:
 		return Summary{}, false
 	}
 	return r.imported(fn)

@@ -236,16 +236,10 @@ func (r Reader) width(e ast.Expr) bool {
 		e = r.follow(x)
 	}
 	if d, ok := e.(*ast.BinaryExpr); ok && d.Op == token.SUB {
-		return r.varOf(identOf(d.X)) != nil && r.varOf(identOf(d.Y)) != nil
+		return VarOf(r.Info, d.X) != nil && VarOf(r.Info, d.Y) != nil
 	}
 	id, ok := e.(*ast.Ident)
 	return ok && r.Widths[r.varOf(id)]
-}
-
-// identOf returns e as an identifier, or nil.
-func identOf(e ast.Expr) *ast.Ident {
-	id, _ := ast.Unparen(e).(*ast.Ident)
-	return id
 }
 
 // measure reads |a-b|, |a-b|/s, |(a-b)/s|, |x|, a known width, and any of

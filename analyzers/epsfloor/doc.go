@@ -91,7 +91,13 @@
 //     as facts), also through a local copy (tol := o.Tol, with or
 //     without a default): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
-//     is reported;
+//     is reported; where the parameter or field is the tolerance of a
+//     computed quantity whose size grows with the data, |a-b| < tol or a
+//     threshold |x| < tol (or x < tol) on an x that cancels (a determinant
+//     (x0-x1)·(x1-x2)·(x2-x0) < o.Pivot in a parabola fit), a constant
+//     given to it is judged at the data size as the same constant written
+//     in the test would be (below), in a file that is not a test; the
+//     highest degree among its tests decides;
 //   - a tolerance of 0 given to such a parameter or field whose test is
 //     strict, |a-b| < tol (or |a-b| >= tol for "not within"), where the
 //     function does not take 0 apart (if tol == 0 { return a == b }):

@@ -58,14 +58,22 @@ type use struct {
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
 	At      string // file:line of that comparison, for messages
+	// A threshold |x| < tol on a quantity x that cancels (see scaleUse):
+	// its degree in the data (0 for a tolerance of a difference), the
+	// test as written, and the data size of the package that tests it.
+	Degree   float64
+	Quantity string
+	Size     float64
+	Declared bool
 }
 
 func (u use) String() string {
-	article := "a"
-	if u.Kind == tolerance.Absolute {
-		article = "an"
+	s := map[tolerance.Kind]string{tolerance.Absolute: "an absolute tolerance", tolerance.Relative: "a relative tolerance", tolerance.Magnitude: "a threshold"}[u.Kind]
+	s += " of " + u.format().Name
+	if u.Degree > 0 {
+		s += fmt.Sprintf(" on %s, of degree %s in the data,", u.Quantity, numeric.Short(u.Degree))
 	}
-	s := fmt.Sprintf("%s %s tolerance of %s in %s", article, u.Kind, u.format().Name, u.Where)
+	s += " in " + u.Where
 	if u.At != "" {
 		s += ", tested at " + u.At
 	}
@@ -150,16 +158,25 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	posn := c.pass.Fset.Position(n.Pos())
 	decl := enclosingDecl(cur)
 	u := use{Kind: t.Kind, Strict: strictTest(t) && !zeroHandled(c.pass.TypesInfo, decl, t.Tol), Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
-	c.tested[u] = n.Pos()
-	if t.Kind == tolerance.Magnitude || t.Kind == tolerance.RelativeMagnitude {
+	if !c.scaleUse(decl, t, &u) && t.Kind != tolerance.Absolute && t.Kind != tolerance.Relative {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
+	c.learn(decl, t, u)
+}
+
+// learn records the parameter or field that t's tolerance comes from as a
+// tolerance of use u, and reports the defaults the function gives it.
+func (c *checker) learn(decl *ast.FuncDecl, t tolerance.Test, u use) {
+	c.tested[u] = t.Cmp.Pos()
 	origin := t.Tol
 	if decl != nil {
 		origin = c.uses.Origin(decl, t.Tol) // tol := o.Tol: the field is the tolerance
 	}
+	known := c.uses.Lookup()
 	if field := tolerance.FieldOf(c.pass.TypesInfo, origin); field != nil && field.Pkg() == c.pass.Pkg {
-		c.uses.Field(field, u)
+		if prev, ok := known.Field(field); !ok || replaces(u, prev) {
+			c.uses.Field(field, u)
+		}
 	}
 	id, ok := ast.Unparen(t.Tol).(*ast.Ident)
 	if !ok || decl == nil {
@@ -167,10 +184,20 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	}
 	if param, ok := ast.Unparen(origin).(*ast.Ident); ok {
 		if fn, i, ok := tolerance.ParamOf(c.pass.TypesInfo, decl, param); ok {
-			c.uses.Param(fn, i, u)
+			if prev, ok := known.Params(fn)[i]; !ok || replaces(u, prev) {
+				c.uses.Param(fn, i, u)
+			}
 		}
 	}
 	c.defaults(decl, id, u)
+}
+
+// replaces reports whether use u of a tolerance replaces prev, learnt from
+// another test: a threshold on a cancelling quantity neither replaces a
+// tolerance of a difference nor one of a higher degree, which fails at a
+// smaller data size.
+func replaces(u, prev use) bool {
+	return u.Degree == 0 || prev.Degree > 0 && u.Degree > prev.Degree
 }
 
 // wrappers learns the parameters and fields a function passes on, as they

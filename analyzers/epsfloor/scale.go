@@ -7,6 +7,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"path/filepath"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/inspector"
@@ -65,7 +66,7 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if c.learnHelper(cur, fd, t) {
 		return
 	}
-	k, eps := t.f.EpsMultiple(t.tol)
+	_, eps := t.f.EpsMultiple(t.tol)
 	if !eps && !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
 		return // values read as given: their difference is exact when they are close
 	}
@@ -78,11 +79,8 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 		return // unknown, or of a size fixed by constants
 	}
 	size, declared := dataSize(c.pass.Pkg.Path())
-	if d < 2 && !declared && !eps {
-		return // may be a pure number (an angle, a fraction): its size is the author's to state
-	}
-	breaks := math.Pow(t.tol/t.f.Eps, 1/d)
-	if breaks >= size {
+	why := scaleWhy(t.tol, t.f, d, size, declared)
+	if why == "" {
 		return
 	}
 	var fs []fixes.Fix
@@ -91,17 +89,110 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	}
 	remedy := fmt.Sprintf("make it relative to the compared values, such as tol + %s·max(|a|,|b|)", t.f.FewUlpsLiteral())
 	if t.test == nil || t.test.Kind != tolerance.Absolute {
-		remedy = fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
-	}
-	why := fmt.Sprintf("is below its rounding error eps·s^%s (eps = %.3g) once the data reach s = %.2g", numeric.Short(d), t.f.Eps, breaks)
-	if eps {
-		why = fmt.Sprintf("is %s·eps (eps = %.3g), a relative precision used as an absolute one: %[1]s ulps at magnitude 1, less than one once the data exceed s = %.2[3]g", numeric.Short(k), t.f.Eps, breaks)
+		remedy = growsAs(d)
 	}
 	fixes.Report(c.pass, analysis.Diagnostic{
 		Pos: t.node.Pos(), End: t.node.End(), Category: catScale,
-		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, %s, under the %.2g assumed for data of unknown size; %s",
-			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), why, size, remedy),
+		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, %s; %s",
+			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), why, remedy),
 	}, fs...)
+}
+
+// scaleWhy judges an absolute tolerance tol on a quantity of degree d > 0
+// at the data size (declared by roundoff.yaml or not): it returns why the
+// tolerance fails there, or "" when it holds. A quantity of degree below 2
+// may be a pure number (an angle, a fraction), whose size is the author's
+// to state, unless the tolerance is a whole multiple of eps, a relative
+// precision at magnitude 1.
+func scaleWhy(tol float64, f numeric.Format, d, size float64, declared bool) string {
+	k, eps := f.EpsMultiple(tol)
+	if d < 2 && !declared && !eps {
+		return ""
+	}
+	breaks := math.Pow(tol/f.Eps, 1/d)
+	if breaks >= size {
+		return ""
+	}
+	why := fmt.Sprintf("is below its rounding error eps·s^%s (eps = %.3g) once the data reach s = %.2g", numeric.Short(d), f.Eps, breaks)
+	if eps {
+		why = fmt.Sprintf("is %s·eps (eps = %.3g), a relative precision used as an absolute one: %[1]s ulps at magnitude 1, less than one once the data exceed s = %.2[3]g", numeric.Short(k), f.Eps, breaks)
+	}
+	if declared {
+		return fmt.Sprintf("%s, under the data size %.2g that roundoff.yaml declares", why, size)
+	}
+	return fmt.Sprintf("%s, under the %.2g assumed for data of unknown size", why, size)
+}
+
+// scaleUse completes u for an absolute test |a-b| < tol or a threshold
+// |x| < tol (or x < tol) whose tolerance is no constant but a parameter or
+// field: when the compared quantity is computed in a file that is not a
+// test, cancels and has a known positive degree, the constants given to
+// that tolerance are judged at the data size as a constant written in the
+// test would be (see atScale, scaleSite). It reports whether the
+// quantity is such.
+func (c *checker) scaleUse(decl *ast.FuncDecl, t tolerance.Test, u *use) bool {
+	if decl == nil || t.Factor != 1 || provenance.InTestFile(c.pass.Fset, t.Cmp.Pos()) {
+		return false
+	}
+	deg := c.degrees()
+	a, b := t.A, t.B
+	switch t.Kind {
+	case tolerance.Absolute:
+	case tolerance.Magnitude:
+		if !deg.Cancels(decl, t.A) {
+			return false
+		}
+		a, b = c.operands(t.A)
+	default:
+		return false
+	}
+	d, rounds := 0.0, false
+	for _, e := range []ast.Expr{a, b} {
+		if e == nil {
+			continue
+		}
+		de, ok := deg.Of(decl, e)
+		if !ok {
+			return false
+		}
+		d, rounds = max(d, de), rounds || deg.Rounds(decl, e)
+	}
+	if d <= 0 || !rounds {
+		return false // of a size fixed by constants, or values read as given, whose difference is exact when they are close
+	}
+	u.Degree, u.Quantity = d, fixes.Source(c.pass.Fset, t.Cmp)
+	u.Size, u.Declared = dataSize(c.pass.Pkg.Path())
+	return true
+}
+
+// scaleSite judges a constant val at least eps given, as how says, to a
+// tolerance of use u (see scaleUse) at the data size of the package that
+// tests it. A test file supplies its own data, whose size it fixes: its
+// constants are left alone.
+func (c *checker) scaleSite(val ast.Expr, u use, how string) {
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val)
+	if !ok || provenance.InTestFile(c.pass.Fset, val.Pos()) {
+		return
+	}
+	f := u.format()
+	tol := f.Value(v)
+	why := scaleWhy(tol, f, u.Degree, u.Size, u.Declared)
+	if why == "" {
+		return
+	}
+	d := analysis.Diagnostic{
+		Pos: val.Pos(), End: val.End(), Category: catScale,
+		Message: fmt.Sprintf("%s, %s (%s), %s; %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, why, growsAs(u.Degree)),
+	}
+	if pos, ok := c.tested[u]; ok {
+		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
+	}
+	fixes.Report(c.pass, d)
+}
+
+// growsAs is the remedy for a threshold on a quantity of degree d.
+func growsAs(d float64) string {
+	return fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
 }
 
 // degrees returns the package's degree reader, made on first use: only
@@ -259,13 +350,31 @@ func (c *checker) bare(cur inspector.Cursor, n *ast.BinaryExpr) {
 	default:
 		return
 	}
-	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tolE)
-	if !ok || v.Kind() != constant.Int && v.Kind() != constant.Float || constant.Sign(v) <= 0 || !provenance.IsFloat(c.pass.TypesInfo.TypeOf(x)) {
+	if !provenance.IsFloat(c.pass.TypesInfo.TypeOf(x)) {
 		return
 	}
 	f := provenance.FormatOf(c.pass.TypesInfo.TypeOf(x))
 	x, k := c.unscaled(x)
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, tolE)
+	if !ok && k == 1 {
+		c.bareUse(cur, n, x, tolE, f)
+	}
+	if !ok || v.Kind() != constant.Int && v.Kind() != constant.Float || constant.Sign(v) <= 0 {
+		return
+	}
 	c.cancelled(cur, x, f.Value(v)/k, f, n)
+}
+
+// bareUse learns the parameter or field tol of a threshold x < tol on a
+// cancelling quantity x (see scaleUse).
+func (c *checker) bareUse(cur inspector.Cursor, n *ast.BinaryExpr, x, tol ast.Expr, f numeric.Format) {
+	decl := enclosingDecl(cur)
+	posn := c.pass.Fset.Position(n.Pos())
+	t := tolerance.Test{Cmp: n, Kind: tolerance.Magnitude, A: x, Tol: tol, Factor: 1}
+	u := use{Kind: tolerance.Magnitude, Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
+	if c.scaleUse(decl, t, &u) {
+		c.learn(decl, t, u)
+	}
 }
 
 // cancelled judges x < tol, or |x| < tol, at the data size when x
@@ -277,14 +386,22 @@ func (c *checker) cancelled(cur inspector.Cursor, x ast.Expr, tol float64, f num
 	if fd := enclosingDecl(cur); fd == nil || !c.degrees().Cancels(fd, x) {
 		return // a plain threshold: no rounding of its own to drown it
 	}
-	t := scaleTest{node: n, a: x, tol: tol, f: f}
-	if id, ok := ast.Unparen(x).(*ast.Ident); ok && c.decls[c.pass.TypesInfo.Uses[id]] != nil {
-		x = c.decls[c.pass.TypesInfo.Uses[id]] // r := hi - lo; r < tol: the difference itself
-	}
-	if d, ok := ast.Unparen(x).(*ast.BinaryExpr); ok && d.Op == token.SUB {
-		t.a, t.b = d.X, d.Y // a predicate comparing two parameters is then seen as one
-	}
+	t := scaleTest{node: n, tol: tol, f: f}
+	t.a, t.b = c.operands(x) // a predicate comparing two parameters is then seen as one
 	c.atScale(cur, t)
+}
+
+// operands returns the two sides of x when it is a difference, also held
+// in a variable (r := hi - lo; r < tol), else x and nil.
+func (c *checker) operands(x ast.Expr) (a, b ast.Expr) {
+	e := x
+	if id, ok := ast.Unparen(x).(*ast.Ident); ok && c.decls[c.pass.TypesInfo.Uses[id]] != nil {
+		e = c.decls[c.pass.TypesInfo.Uses[id]]
+	}
+	if d, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && d.Op == token.SUB {
+		return d.X, d.Y
+	}
+	return x, nil
 }
 
 // unscaled strips constant factors and divisors from x.

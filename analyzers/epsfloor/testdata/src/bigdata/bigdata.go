@@ -7,7 +7,7 @@ import "math"
 
 func Same(a, b, c float64) bool {
 	d := (a+b)/2 - c
-	if math.Abs(d) < 1e-11 { // want `absolute tolerance 1e-11 on .*, of degree 1 in the data, .* once the data reach s = 4.5e\+04, under the 1e\+06 assumed`
+	if math.Abs(d) < 1e-11 { // want `absolute tolerance 1e-11 on .*, of degree 1 in the data, .* once the data reach s = 4.5e\+04, under the data size 1e\+06 that roundoff.yaml declares`
 		return true
 	}
 	return false

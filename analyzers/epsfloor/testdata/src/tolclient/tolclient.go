@@ -30,3 +30,23 @@ func same(a, b float64) bool {
 		tolapi.Refine(tolapi.Settings{RelTol: 0}, a, b) ||
 		tolapi.Match(a, b, 0)
 }
+
+// survey passes thresholds to tolapi's fits of its own readings.
+func survey(t, y [3]float64, ax, ay, bx, by, cx, cy float64) bool {
+	k := tolapi.NewKiln()
+	k.Pivot = 1e-14 // want `1e-14, assigned to field Pivot \(a threshold of float64 on .* tested at tolapi.go:59\), is below its rounding error eps·s\^3 \(eps = 2.22e-16\) once the data reach s = 3.6`
+	_, ok := k.Curvature(t[0], y[0], t[1], y[1], t[2], y[2])
+	return ok &&
+		tolapi.Collinear(ax, ay, bx, by, cx, cy, 1e-12) && // want `1e-12, passed as tol to Collinear \(an absolute tolerance of float64 on math.Abs\(cross\) < tol, of degree 2 in the data, in Collinear, tested at tolapi.go:69\), is below its rounding error eps·s\^2 \(eps = 2.22e-16\) once the data reach s = 67`
+		tolapi.Collinear(ax, ay, bx, by, cx, cy, 1e-6) && // 6.7e4: above the data size
+		tolapi.Collinear(ax, ay, bx, by, cx, cy, 1e-20) && // want `1e-20, passed as tol to Collinear \(an absolute tolerance .*\), is below float64 epsilon`
+		tolapi.Settled(ax, bx, 1e-15) // a difference of two readings: exact when they are close
+}
+
+// kilnFloor keeps the kiln's fit off a zero denominator only: a threshold
+// below eps asks whether the quantity vanished, not whether it is noise.
+func kilnFloor() *tolapi.Kiln {
+	k := tolapi.NewKiln()
+	k.Pivot = 1e-20
+	return k
+}

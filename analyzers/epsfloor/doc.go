@@ -174,7 +174,16 @@
 // states a relative precision instead, k ulps at magnitude 1; it is judged
 // at degree 1 too, and even on a difference of two values read as given,
 // whose exactness does not help: once the data exceed k it is an exact
-// equality test (r := hi - lo; r < 100*eps). A product of two data values squares whatever
+// equality test (r := hi - lo; r < 100*eps). A running sum over a loop of
+// the data's length (s += x in a range over a slice or up to a variable
+// count, also read through the package's functions that return one)
+// rounds at about √n·eps times the size of its terms for n terms (Higham
+// 2002, §2.8, from memory), so its count is data too, at the same size:
+// 1e-9 on the difference of two areas each summed over a parcel's corners
+// (degree 2) fails from 460 where one product would last to 2100, and a
+// sum of fractions (degree 0) is judged by its count alone, 1e-15 failing
+// from 20 terms; a loop of fixed count (i < 3, a range over an array)
+// adds nothing. A product of two data values squares whatever
 // size they have, so one tolerance used for lengths and for their
 // products (1e-10 on a point's offset and on a cross product) breaks at
 // sizes as modest as 670. It judges |a-b| < t, |x| < t and a bare

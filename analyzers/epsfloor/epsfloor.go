@@ -58,20 +58,24 @@ type use struct {
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
 	At      string // file:line of that comparison, for messages
-	// A threshold |x| < tol on a quantity x that cancels (see scaleUse):
-	// its degree in the data (0 for a tolerance of a difference), the
-	// test as written, and the data size of the package that tests it.
-	Degree   float64
+	// A tolerance of a computed quantity whose size grows with the data
+	// (see scaleUse): the test as written ("" for other uses), the
+	// quantity's grade, and the data size of the package that tests it.
 	Quantity string
+	Degree   float64
+	Summed   bool
 	Size     float64
 	Declared bool
 }
 
+// scaled reports whether u is judged at the data size (see scaleUse).
+func (u use) scaled() bool { return u.Quantity != "" }
+
 func (u use) String() string {
 	s := map[tolerance.Kind]string{tolerance.Absolute: "an absolute tolerance", tolerance.Relative: "a relative tolerance", tolerance.Magnitude: "a threshold"}[u.Kind]
 	s += " of " + u.format().Name
-	if u.Degree > 0 {
-		s += fmt.Sprintf(" on %s, of degree %s in the data,", u.Quantity, numeric.Short(u.Degree))
+	if u.scaled() {
+		s += fmt.Sprintf(" on %s, %s,", u.Quantity, grade{u.Degree, u.Summed})
 	}
 	s += " in " + u.Where
 	if u.At != "" {
@@ -197,7 +201,7 @@ func (c *checker) learn(decl *ast.FuncDecl, t tolerance.Test, u use) {
 // tolerance of a difference nor one of a higher degree, which fails at a
 // smaller data size.
 func replaces(u, prev use) bool {
-	return u.Degree == 0 || prev.Degree > 0 && u.Degree > prev.Degree
+	return !u.scaled() || prev.scaled() && u.Degree > prev.Degree
 }
 
 // wrappers learns the parameters and fields a function passes on, as they

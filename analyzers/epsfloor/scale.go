@@ -70,52 +70,109 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 	if !eps && !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
 		return // values read as given: their difference is exact when they are close
 	}
-	d, ok := c.degrees().Of(fd, t.a)
-	if t.b != nil {
-		db, okb := c.degrees().Of(fd, t.b)
-		d, ok = max(d, db), ok && okb
-	}
-	if !ok || d <= 0 {
+	g, sum, ok := c.gradeOf(fd, t.a, t.b)
+	if !ok {
 		return // unknown, or of a size fixed by constants
 	}
 	size, declared := dataSize(c.pass.Pkg.Path())
-	why := scaleWhy(t.tol, t.f, d, size, declared)
+	why := scaleWhy(t.tol, t.f, g, size, declared)
 	if why == "" {
 		return
 	}
 	var fs []fixes.Fix
-	if t.test != nil && t.test.Kind == tolerance.Absolute && t.test.Factor == 1 {
-		fs = c.relativeFix(cur, *t.test, t.f, true)
+	if t.test != nil && t.test.Kind == tolerance.Absolute && t.test.Factor == 1 && !g.summed {
+		fs = c.relativeFix(cur, *t.test, t.f, true) // a few ulps of the result do not cover n terms' rounding
 	}
 	remedy := fmt.Sprintf("make it relative to the compared values, such as tol + %s·max(|a|,|b|)", t.f.FewUlpsLiteral())
-	if t.test == nil || t.test.Kind != tolerance.Absolute {
-		remedy = growsAs(d)
+	if g.summed || t.test == nil || t.test.Kind != tolerance.Absolute {
+		remedy = g.remedy()
 	}
-	fixes.Report(c.pass, analysis.Diagnostic{
+	d := analysis.Diagnostic{
 		Pos: t.node.Pos(), End: t.node.End(), Category: catScale,
-		Message: fmt.Sprintf("absolute tolerance %.3g on %s, of degree %s in the data, %s; %s",
-			t.tol, fixes.Source(c.pass.Fset, quantity(t)), numeric.Short(d), why, remedy),
-	}, fs...)
+		Message: fmt.Sprintf("absolute tolerance %.3g on %s, %s, %s; %s",
+			t.tol, fixes.Source(c.pass.Fset, quantity(t)), g, why, remedy),
+	}
+	if sum != nil {
+		d.Related = []analysis.RelatedInformation{{Pos: sum.Pos(), End: sum.End(), Message: "the running sum"}}
+	}
+	fixes.Report(c.pass, d, fs...)
 }
 
-// scaleWhy judges an absolute tolerance tol on a quantity of degree d > 0
-// at the data size (declared by roundoff.yaml or not): it returns why the
-// tolerance fails there, or "" when it holds. A quantity of degree below 2
-// may be a pure number (an angle, a fraction), whose size is the author's
-// to state, unless the tolerance is a whole multiple of eps, a relative
-// precision at magnitude 1.
-func scaleWhy(tol float64, f numeric.Format, d, size float64, declared bool) string {
+// grade is what the data size judges a quantity by: its degree in the
+// data, and whether it reads a running sum over a loop of the data's
+// length, whose rounding grows with the number of terms as well (see
+// degree.Reader.Summed).
+type grade struct {
+	d      float64
+	summed bool
+}
+
+func (g grade) String() string {
+	s := "of degree " + numeric.Short(g.d) + " in the data"
+	if g.summed {
+		s += ", a running sum over the data"
+	}
+	return s
+}
+
+// gradeOf reads the grade of the difference a-b (b nil: of a) in fd and
+// the statement adding to its running sum, if any; ok when both degrees
+// are known and the data size bears on it: a degree above 0, or 0 with a
+// running sum, whose count is data.
+func (c *checker) gradeOf(fd *ast.FuncDecl, a, b ast.Expr) (g grade, sum ast.Node, ok bool) {
+	g.d = math.Inf(-1)
+	for _, e := range []ast.Expr{a, b} {
+		if e == nil {
+			continue
+		}
+		d, ok := c.degrees().Of(fd, e)
+		if !ok {
+			return g, nil, false
+		}
+		g.d = max(g.d, d)
+		if sum == nil {
+			sum, g.summed = c.degrees().Summed(fd, e)
+		}
+	}
+	return g, sum, g.d > 0 || g.d == 0 && g.summed
+}
+
+// scaleWhy judges an absolute tolerance tol on a quantity of grade g at
+// the data size (declared by roundoff.yaml or not): it returns why the
+// tolerance fails there, or "" when it holds. The rounding error of a
+// quantity of degree d is about eps·s^d at data size s, and √n times that
+// for a running sum of n terms (Higham 2002, §2.8, from memory), with n
+// the data size too. A quantity of degree below 2 may be a pure number (an
+// angle, a fraction), whose size is the author's to state, unless the
+// tolerance is a whole multiple of eps, a relative precision at magnitude
+// 1: only its count of terms, if it is a sum, is then data.
+func scaleWhy(tol float64, f numeric.Format, g grade, size float64, declared bool) string {
 	k, eps := f.EpsMultiple(tol)
-	if d < 2 && !declared && !eps {
+	pure := g.d < 2 && !declared && !eps
+	power := g.d
+	if pure {
+		power = 0
+	}
+	if g.summed {
+		power += 0.5
+	}
+	if power <= 0 {
 		return ""
 	}
-	breaks := math.Pow(tol/f.Eps, 1/d)
+	breaks := math.Pow(tol/f.Eps, 1/power)
 	if breaks >= size {
 		return ""
 	}
-	why := fmt.Sprintf("is below its rounding error eps·s^%s (eps = %.3g) once the data reach s = %.2g", numeric.Short(d), f.Eps, breaks)
-	if eps {
+	var why string
+	switch {
+	case g.summed && pure:
+		why = fmt.Sprintf("is below the rounding error of a sum of n terms, about √n·eps (eps = %.3g), once the sum has n = %.2g terms", f.Eps, breaks)
+	case g.summed:
+		why = fmt.Sprintf("is below the rounding error of a sum of n terms of size s^%s, about √n·eps·s^%[1]s (eps = %.3[2]g), once n and s reach %.2[3]g", numeric.Short(g.d), f.Eps, breaks)
+	case eps:
 		why = fmt.Sprintf("is %s·eps (eps = %.3g), a relative precision used as an absolute one: %[1]s ulps at magnitude 1, less than one once the data exceed s = %.2[3]g", numeric.Short(k), f.Eps, breaks)
+	default:
+		why = fmt.Sprintf("is below its rounding error eps·s^%s (eps = %.3g) once the data reach s = %.2g", numeric.Short(g.d), f.Eps, breaks)
 	}
 	if declared {
 		return fmt.Sprintf("%s, under the data size %.2g that roundoff.yaml declares", why, size)
@@ -146,21 +203,15 @@ func (c *checker) scaleUse(decl *ast.FuncDecl, t tolerance.Test, u *use) bool {
 	default:
 		return false
 	}
-	d, rounds := 0.0, false
+	rounds := false
 	for _, e := range []ast.Expr{a, b} {
-		if e == nil {
-			continue
-		}
-		de, ok := deg.Of(decl, e)
-		if !ok {
-			return false
-		}
-		d, rounds = max(d, de), rounds || deg.Rounds(decl, e)
+		rounds = rounds || e != nil && deg.Rounds(decl, e)
 	}
-	if d <= 0 || !rounds {
-		return false // of a size fixed by constants, or values read as given, whose difference is exact when they are close
+	g, _, ok := c.gradeOf(decl, a, b)
+	if !ok || !rounds {
+		return false // unknown, of a size fixed by constants, or values read as given, whose difference is exact when they are close
 	}
-	u.Degree, u.Quantity = d, fixes.Source(c.pass.Fset, t.Cmp)
+	u.Degree, u.Summed, u.Quantity = g.d, g.summed, fixes.Source(c.pass.Fset, t.Cmp)
 	u.Size, u.Declared = dataSize(c.pass.Pkg.Path())
 	return true
 }
@@ -176,13 +227,14 @@ func (c *checker) scaleSite(val ast.Expr, u use, how string) {
 	}
 	f := u.format()
 	tol := f.Value(v)
-	why := scaleWhy(tol, f, u.Degree, u.Size, u.Declared)
+	why := scaleWhy(tol, f, grade{u.Degree, u.Summed}, u.Size, u.Declared)
 	if why == "" {
 		return
 	}
+	g := grade{u.Degree, u.Summed}
 	d := analysis.Diagnostic{
 		Pos: val.Pos(), End: val.End(), Category: catScale,
-		Message: fmt.Sprintf("%s, %s (%s), %s; %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, why, growsAs(u.Degree)),
+		Message: fmt.Sprintf("%s, %s (%s), %s; %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, why, g.remedy()),
 	}
 	if pos, ok := c.tested[u]; ok {
 		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
@@ -190,9 +242,12 @@ func (c *checker) scaleSite(val ast.Expr, u use, how string) {
 	fixes.Report(c.pass, d)
 }
 
-// growsAs is the remedy for a threshold on a quantity of degree d.
-func growsAs(d float64) string {
-	return fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(d))
+// remedy says how a tolerance on a quantity of grade g should grow.
+func (g grade) remedy() string {
+	if g.summed {
+		return "make it grow with the sum, such as tol + √n·eps·Σ|x_i| over its n terms x_i"
+	}
+	return fmt.Sprintf("scale it with the size of the terms the quantity is computed from (it grows as s^%s)", numeric.Short(g.d))
 }
 
 // degrees returns the package's degree reader, made on first use: only

@@ -94,7 +94,7 @@ func (c *checker) apiMagnitude(cur inspector.Cursor, call *ast.CallExpr, p apiPa
 // in n, the call or literal that gives it (nil: a default), whose other
 // arguments or fields are among them the compared values.
 func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node) {
-	if u.Degree > 0 {
+	if u.scaled() {
 		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && u.format().Value(v) >= u.format().Eps {
 			c.scaleSite(val, u, how)
 			return

@@ -36,6 +36,7 @@ type Reader struct {
 	plain  map[*types.Var][]plainSet   // v = e, v := e, v *= e and v /= e as statements of the block declaring v
 	elems  map[*types.Var]bool         // slices and arrays given values by element stores (s[i] = e)
 	self   map[*types.Var]bool         // variables multiplied or divided in a loop body that declares them (see plainSets)
+	sums   map[*types.Var]ast.Node     // running sums over loops of data-dependent length, by the statement adding to them (see noteSum)
 	factor map[string]bool             // entries of fixed-size arrays used as pure factors (see factors)
 	units  map[*types.Func]bool        // functions of the package read for returning a direction (see unit)
 	vias   map[viaKey]bool             // functions read for returning a dot product or a length (see via)
@@ -52,7 +53,7 @@ type Reader struct {
 // New returns a Reader for the package of files.
 func New(fset *token.FileSet, info *types.Info, files []*ast.File) *Reader {
 	r := &Reader{fset: fset, info: info, funcs: map[*types.Func]*ast.FuncDecl{}, sets: map[*types.Var][]ast.Expr{}, poison: map[*types.Var]bool{}, tuples: map[*types.Var][]result{}, scales: map[*types.Var][]scaling{},
-		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{},
+		params: map[*types.Var]bool{}, done: map[*ast.FuncDecl]bool{}, memo: map[string]float64{}, busy: map[*types.Var]bool{}, cancel: map[cancelKey]bool{}, files: files, plain: map[*types.Var][]plainSet{}, elems: map[*types.Var]bool{}, self: map[*types.Var]bool{}, sums: map[*types.Var]ast.Node{},
 		units: map[*types.Func]bool{}, vias: map[viaKey]bool{}, dirs: map[*types.Var]bool{}, kept: map[*types.Func]bool{}, aiming: map[*types.Var]bool{}, shapes: map[*types.Func]shape{}, top: &frame{known: map[*types.Var]float64{}}}
 	for _, f := range files {
 		for _, d := range f.Decls {
@@ -459,6 +460,9 @@ func (r *Reader) assign(as *ast.AssignStmt, plain bool) {
 			r.spoil(id)
 		case as.Tok == token.ASSIGN || as.Tok == token.DEFINE || as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN:
 			r.set(id, as.Rhs[i])
+			if v := r.varOf(id); v != nil {
+				r.noteSum(as, i, v)
+			}
 		case plain && r.inLoop(as):
 			r.set(id, selfOp(as, i)) // x := a - b; x *= x in a loop body: a fresh square each pass
 			r.self[r.varOf(id)] = true

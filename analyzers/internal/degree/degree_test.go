@@ -366,3 +366,86 @@ func TestDirections(t *testing.T) {
 		}
 	}
 }
+
+// srcSum is an invented package of a flock counter: running sums over
+// sightings, over a fixed week, through helpers, in nested loops and in
+// ratios.
+const srcSum = `package flock
+
+import "math"
+
+type day [7]float64
+
+func total(xs []float64) float64 {
+	s := 0.0
+	for _, x := range xs {
+		s += x
+	}
+	return s
+}
+
+func mean(xs []float64) float64 { return total(xs) / float64(len(xs)) }
+
+func count(xs []float64, w day, n int) {
+	seen := total(xs)
+	avg := mean(xs)
+	week := 0.0
+	for i := 0; i < 7; i++ {
+		week += w[i]
+	}
+	days := 0.0
+	for _, v := range w {
+		days = days + v
+	}
+	late := 0.0
+	for i := 0; i < n; i++ {
+		late = late - xs[i]
+	}
+	last := 0.0
+	for _, x := range xs {
+		fresh := 0.0
+		fresh += x
+		last = fresh
+	}
+	pairs := 0.0
+	for i := range xs {
+		for j := 0; j < 2; j++ {
+			pairs += xs[i] * float64(j)
+		}
+	}
+	limit := 100
+	series := 0.0
+	for k := 1; k < limit; k++ {
+		series += 1 / float64(k*k)
+	}
+	share := xs[0] / (xs[0] + math.Abs(seen))
+	per := seen / float64(len(xs))
+	_, _, _, _, _, _, _, _, _, _ = seen, avg, week, days, late, last, pairs, series, share, per
+}
+`
+
+// TestSummed checks which values read a running sum over a loop of the
+// data's length: the rounding error of a sum of n terms grows with n, up
+// to (n-1)·u times the sum of their sizes and about √n·u for independent
+// roundings (Higham 2002, §2.8 and §4.2, from memory).
+func TestSummed(t *testing.T) {
+	info, r, fd := loadSrc(t, srcSum)
+	want := map[string]bool{
+		"seen":   true,  // a helper's running sum, through its return
+		"avg":    true,  // through a helper of a helper
+		"week":   false, // seven terms: the count is fixed
+		"days":   false, // a range over an array: the count is fixed
+		"late":   true,  // late = late - x, in a loop bounded by a variable
+		"last":   false, // fresh starts afresh on each pass: one term
+		"pairs":  true,  // an inner loop of fixed count inside one over the data
+		"series": false, // a loop that runs to a count of its own, not the data's
+		"share":  false, // a sum in a divisor: the ratio's error is relative, as small as the ratio
+		"per":    true,  // a sum divided by a count: its error scales with it
+	}
+	for id, obj := range info.Defs {
+		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {
+			_, got := r.Summed(fd, id)
+			assert.Equal(t, w, got, id.Name)
+		}
+	}
+}

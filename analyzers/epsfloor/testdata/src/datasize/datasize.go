@@ -52,7 +52,7 @@ func Steady(readings []float64) bool {
 		sq += r * r
 	}
 	spread := sq - sum*sum/float64(len(readings))
-	return spread < 1e-12 // want `absolute tolerance 1e-12 on spread < 1e-12, of degree 2 in the data, .* once the data reach s = 67,`
+	return spread < 1e-12 // want `absolute tolerance 1e-12 on spread < 1e-12, of degree 2 in the data, a running sum over the data, .* once n and s reach 29,`
 }
 
 // Extent guards a division by the range of two readings as given: their
@@ -66,15 +66,17 @@ func Extent(lo, hi float64) float64 {
 }
 
 // OnTarget compares a mean power, volts times amperes (computed, degree
-// 2), with a target: its rounding, eps·s², passes 1e-14 once the
-// readings reach 6.7.
+// 2), with a target: its rounding, eps·s² for one product, passes 1e-14
+// once the readings reach 6.7, and as a sum of n of them, √n·eps·s², once
+// n and the readings reach 4.6. A few ulps of the mean added to the
+// tolerance would not cover n terms' rounding: no fix is offered.
 func OnTarget(volts, amps []float64, target float64) bool {
 	sum := 0.0
 	for i, v := range volts {
 		sum += v * amps[i]
 	}
 	mean := sum / float64(len(volts))
-	if math.Abs(mean-target) < 1e-14 { // want `absolute tolerance 1e-14 on math.Abs\(mean-target\) < 1e-14, of degree 2 in the data, .* once the data reach s = 6.7,`
+	if math.Abs(mean-target) < 1e-14 { // want `absolute tolerance 1e-14 on math.Abs\(mean-target\) < 1e-14, of degree 2 in the data, a running sum over the data, .* once n and s reach 4.6,`
 		return true
 	}
 	return false
@@ -190,13 +192,14 @@ func windowSpread(heights []float64, w int) []float64 {
 
 // LevelGround reads the spreads from windowSpread: for a flat window
 // their residue is eps times the sum of squares, 2.2e-16·1e6 at heights
-// of 1e3, far above 1e-13, which holds only below heights of 21.
+// of 1e3, far above 1e-13, which holds only below heights of 21, and
+// below 12 for windows of as many readings (the sums' √n).
 func LevelGround(heights []float64, w int) []bool {
 	spreads := windowSpread(heights, w)
 	flat := make([]bool, len(spreads))
 	for i := range spreads {
 		s := spreads[i]
-		flat[i] = s < 1e-13 // want `absolute tolerance 1e-13 on s < 1e-13, of degree 2 in the data, .* once the data reach s = 21,`
+		flat[i] = s < 1e-13 // want `absolute tolerance 1e-13 on s < 1e-13, of degree 2 in the data, a running sum over the data, .* once n and s reach 12,`
 	}
 	return flat
 }
@@ -337,4 +340,75 @@ func (s shadow) tilted(n station) shadow { return shadow{s.spot, n.settle()} }
 // an area, whose rounding at 1e3 is about 2.2e-16·1e6.
 func Square(a, b shadow) bool {
 	return level(a.lean.dot(b.lean), 0) // want `absolute tolerance 1e-11 on level\(a.lean.dot\(b.lean\), 0\), of degree 2 in the data, .* once the data reach s = 2.1e\+02`
+}
+
+// Parcel is a plot surveyed by its corners, in order.
+type Parcel []station
+
+// fan sums the doubled areas of the triangles from the first corner: a
+// running sum with as many terms as corners.
+func (p Parcel) fan() float64 {
+	total := 0.0
+	for i := 2; i < len(p); i++ {
+		total += p[0].to(p[i-1]).cross(p[0].to(p[i]))
+	}
+	return total
+}
+
+// shoelace sums the doubled area around the boundary.
+func (p Parcel) shoelace() float64 {
+	total := 0.0
+	for i := range p {
+		total += p[i].cross(p[(i+1)%len(p)])
+	}
+	return total
+}
+
+// Verdict compares the two areas (degree 2): 1e-9 on one product of
+// coordinates would last up to 2.1e3, but each area sums n terms, whose
+// rounding grows as √n too: with n and s at 1e3 it fails from 4.6e2.
+func (p Parcel) Verdict() string {
+	if math.Abs(p.fan()-p.shoelace()) > 1e-9 { // want `absolute tolerance 1e-09 on math.Abs\(p.fan\(\)-p.shoelace\(\)\) > 1e-9, of degree 2 in the data, a running sum over the data, is below the rounding error of a sum of n terms of size s\^2, about √n·eps·s\^2 \(eps = 2.22e-16\), once n and s reach 4.6e\+02, under the 1e\+03 assumed`
+		return "the areas disagree"
+	}
+	return ""
+}
+
+// Shares checks that the owners' shares of a parcel, fractions of the
+// whole (degree 0), add up alike by rows and by columns: each sum rounds
+// at about √n·eps, above 1e-15 once it has 20 terms.
+func Shares(rows, cols []float64, whole float64) bool {
+	byRow, byCol := 0.0, 0.0
+	for _, r := range rows {
+		byRow += r / whole
+	}
+	for _, c := range cols {
+		byCol += c / whole
+	}
+	return math.Abs(byRow-byCol) < 1e-15 // want `absolute tolerance 1e-15 on math.Abs\(byRow-byCol\) < 1e-15, of degree 0 in the data, a running sum over the data, is below the rounding error of a sum of n terms, about √n·eps \(eps = 2.22e-16\), once the sum has n = 20 terms`
+}
+
+// Corners sums over the three corners of two triangles: a loop whose
+// count no data raise, so 1e-9 on the doubled areas lasts up to 2.1e3.
+func Corners(t, u [3]station) bool {
+	a, b := 0.0, 0.0
+	for i := 0; i < 3; i++ {
+		a += t[i].cross(t[(i+1)%3])
+		b += u[i].cross(u[(i+1)%3])
+	}
+	return math.Abs(a-b) < 1e-9
+}
+
+// Tally compares the shares of a parcel's owners kept in a register with
+// those in a list, to within 1e-12: sums of values whose size their author
+// states round at about √n·eps, which reaches 1e-12 only past 2e7 terms.
+func Tally(register map[string]float64, list []float64) bool {
+	var kept, listed float64
+	for _, v := range register {
+		kept += v
+	}
+	for i := 0; i < len(list); i++ {
+		listed = listed + list[i]
+	}
+	return math.Abs(kept-listed) < 1e-12
 }

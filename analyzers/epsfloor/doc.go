@@ -118,9 +118,11 @@
 // the source fixes it exactly:
 //
 //   - a constant operand;
-//   - a value read from a table of constants (tc.want): the largest of them
-//     that reach the test (not a sentinel row an enclosing condition sends
-//     elsewhere: the else branch of if tc.want == fail);
+//   - a value read from a table of constants (tc.want) whose type a test
+//     file or test support code (a file of the package that imports
+//     testing) declares: the largest of them that reach the test (not a
+//     sentinel row an enclosing condition sends elsewhere: the else branch
+//     of if tc.want == fail);
 //   - inside a loop over a literal table of cases, a value worked out from
 //     each case's constants (want := tc.mu + tc.k*(tc.x[0]-tc.x[1])),
 //     evaluated exactly for every case: the largest (the program's value
@@ -195,7 +197,10 @@
 // are close by Sterbenz's lemma, and an integrality test x - math.Round(x),
 // whose x is a count or a pure number), and the calls
 // of a predicate that compares two of its parameters (Equal(a, b float64)
-// bool), where the arguments give the degree: Equal(p.Cross(q), 0). The
+// bool), where the arguments give the degree: Equal(p.Cross(q), 0), or,
+// when an argument has a size the source fixes (above), that size: a
+// helper's 1e-12 at a call with tc.want up to 1.2e7, where floats are
+// 1.86e-9 apart, is exact equality, reported at the call. The
 // fix, where the test is |a-b| < t, adds 4 ulps of max(|a|,|b|) to t (for
 // b*b - 4*a*c that is b² and 4ac, the size of its rounding). A test file
 // supplies its own data, whose size it fixes: there only a size the code

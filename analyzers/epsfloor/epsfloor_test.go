@@ -36,6 +36,17 @@ func TestAcrossPackages(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), epsfloor.Analyzer, "tolapi", "tolclient")
 }
 
+// TestHelperAtSize checks calls of a comparison helper whose compared
+// values have a known size: the expected values of a table declared in
+// test support code, or constants. The spacing of binary64 values in
+// [2^23, 2^24) is 2^-29 ≈ 1.86e-9 (IEEE 754-2019 §3.3), half of it
+// 9.31e-10, and in [2^21, 2^22) 2^-31 ≈ 4.66e-10, half of it 2.33e-10.
+func TestHelperAtSize(t *testing.T) {
+	analysistest.Run(t, analysistest.TestData(), epsfloor.Analyzer, "heatcheck")
+	assert.Equal(t, math.Ldexp(1, -29), math.Nextafter(1.194354902e7, math.Inf(1))-1.194354902e7)
+	assert.Equal(t, math.Ldexp(1, -31), math.Nextafter(3.9960019993e6, math.Inf(1))-3.9960019993e6)
+}
+
 // TestFormats checks the quantities epsfloor judges by against the IEEE
 // 754-2019 binary formats: eps = 2^(1-p) and u = 2^-p for precision p
 // (53 bits for binary64, 24 for binary32), and the smallest subnormal

@@ -110,7 +110,7 @@ func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) flo
 		return m
 	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
-	if field == nil || !provenance.InTestFile(c.pass.Fset, field.Pos()) {
+	if field == nil || !c.testCode(field.Pos()) {
 		return 0 // only a test's own table of cases says what values reach the test
 	}
 	if c.fields == nil {
@@ -124,6 +124,21 @@ func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) flo
 		}
 	}
 	return size
+}
+
+// testCode reports whether pos lies in a test file or in test support
+// code: a file of the package that imports testing, whose tables of cases
+// are the tests'.
+func (c *checker) testCode(pos token.Pos) bool {
+	if provenance.InTestFile(c.pass.Fset, pos) {
+		return true
+	}
+	for _, f := range c.pass.Files {
+		if f.FileStart <= pos && pos < f.FileEnd {
+			return slices.ContainsFunc(f.Imports, func(s *ast.ImportSpec) bool { return s.Path.Value == `"testing"` })
+		}
+	}
+	return false
 }
 
 // excluded returns a test of the constants that e cannot hold at cur: an

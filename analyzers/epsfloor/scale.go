@@ -384,6 +384,10 @@ func (c *checker) helperCall(cur inspector.Cursor, call *ast.CallExpr, fn *types
 		return
 	}
 	a, b := call.Args[h.a], call.Args[h.b]
+	if mag := max(c.sizeOf(cur, a, h.f), c.sizeOf(cur, b, h.f)); mag > 0 {
+		c.helperAtSize(call, h, mag)
+		return
+	}
 	for _, pair := range [][2]ast.Expr{{a, b}, {b, a}} {
 		if c.isConst(pair[1]) && !c.isConst(pair[0]) {
 			c.cancelled(cur, pair[0], h.tol, h.f, call) // Equal(x, 0): x's own rounding
@@ -391,6 +395,25 @@ func (c *checker) helperCall(cur inspector.Cursor, call *ast.CallExpr, fn *types
 		}
 	}
 	c.atScale(cur, scaleTest{node: call, a: a, b: b, tol: h.tol, f: h.f})
+}
+
+// helperAtSize judges a call of a helper whose compared values have a
+// size the source fixes (a constant, the expected values of a table of
+// cases): the helper's tolerance against the gap between floats there, as
+// if its test were written at the call (see judge), unless the values are
+// computed alike on every platform (see sameEverywhere).
+func (c *checker) helperAtSize(call *ast.CallExpr, h helper, mag float64) {
+	res := judge(tolerance.Absolute, h.tol, h.f, mag)
+	if res == tolerance.Resolvable || c.sameEverywhere(call, nil) {
+		return
+	}
+	posn := c.pass.Fset.Position(h.at)
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: call.Pos(), End: call.End(), Category: category(res),
+		Message: fmt.Sprintf("%s compares within the absolute tolerance %.3g (%s:%d), which %s",
+			fixes.Source(c.pass.Fset, call.Fun), h.tol, filepath.Base(posn.Filename), posn.Line, explain(res, h.tol, h.f, mag)),
+		Related: []analysis.RelatedInformation{{Pos: h.at, End: h.at, Message: "the tolerance test"}},
+	})
 }
 
 // bare reads x < tol (or tol > x) with tol a positive constant and x a

@@ -91,7 +91,14 @@
 //     as facts), also through a local copy (tol := o.Tol, with or
 //     without a default): the call argument, composite-literal field or
 //     assignment (such as the defaulting idiom if s.Tol == 0 { s.Tol = c })
-//     is reported; where the parameter or field is the tolerance of a
+//     is reported, at the size of the compared values where the call's
+//     arguments for them have one the source fixes (expectNear(t, got,
+//     1.19e7, 1e-9): see below). A tolerance one operand of || hands on
+//     beside others that test otherwise (EqualWithinAbs(a, b, atol) ||
+//     EqualWithinRel(a, b, rtol)) is not learnt, since the other test may
+//     pass where it cannot; when every operand hands on the same one
+//     (near(p, q, tol) || near(q, r, tol)), each is the same test of other
+//     values, and it is. Where the parameter or field is the tolerance of a
 //     computed quantity whose size grows with the data, |a-b| < tol or a
 //     threshold |x| < tol (or x < tol) on an x that cancels (a determinant
 //     (x0-x1)·(x1-x2)·(x2-x0) < o.Pivot in a parabola fit), a constant
@@ -118,6 +125,8 @@
 // the source fixes it exactly:
 //
 //   - a constant operand;
+//   - an element of a local slice or array of constants that its function
+//     only reads (zs[i] of zs := []float64{360, 720, 6.2e23}): the largest;
 //   - a value read from a table of constants (tc.want) whose type a test
 //     file or test support code (a file of the package that imports
 //     testing) declares: the largest of them that reach the test (not a

@@ -8,6 +8,7 @@ import (
 	"go/token"
 	"go/types"
 	"path/filepath"
+	"slices"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -58,6 +59,10 @@ type use struct {
 	Float32 bool   // judged against float32
 	Where   string // the function or type that compares with it, for messages
 	At      string // file:line of that comparison, for messages
+	// Values holds 1 + the index of each parameter that the function
+	// compares (got and want of a test helper), 0 for a compared value
+	// that is no parameter: a call's arguments there tell their size.
+	Values [2]int
 	// A tolerance of a computed quantity whose size grows with the data
 	// (see scaleUse): the test as written ("" for other uses), the
 	// quantity's grade, and the data size of the package that tests it.
@@ -66,6 +71,13 @@ type use struct {
 	Summed   bool
 	Size     float64
 	Declared bool
+}
+
+// key returns u without the compared values, which a wrapper that hands
+// the tolerance on names by its own parameters: the test is the same.
+func (u use) key() use {
+	u.Values = [2]int{}
+	return u
 }
 
 // scaled reports whether u is judged at the data size (see scaleUse).
@@ -92,7 +104,7 @@ type checker struct {
 	decls  map[types.Object]ast.Expr
 	read   tolerance.Reader
 	uses   *tolerance.Uses[use]
-	tested map[use]token.Pos // this package's tolerance tests, by use
+	tested map[use]token.Pos // this package's tolerance tests, by use (see key)
 	fields map[types.Object][]ast.Expr
 
 	deg     *degree.Reader         // made on first use (see degrees)
@@ -120,7 +132,7 @@ func run(pass *analysis.Pass) (any, error) {
 		n := cur.Node()
 		if sites {
 			tolerance.Sites(c.pass.TypesInfo, n, known, func(val ast.Expr, u use, how string) {
-				c.site(val, u, 0, how, n)
+				c.site(val, u, c.argSize(cur, n, u), how, n)
 			})
 		}
 		switch n := n.(type) {
@@ -162,6 +174,14 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	posn := c.pass.Fset.Position(n.Pos())
 	decl := enclosingDecl(cur)
 	u := use{Kind: t.Kind, Strict: strictTest(t) && !zeroHandled(c.pass.TypesInfo, decl, t.Tol), Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
+	if t.Kind == tolerance.Absolute && decl != nil {
+		fn, _ := c.pass.TypesInfo.Defs[decl.Name].(*types.Func)
+		for k, e := range []ast.Expr{t.A, t.B} {
+			if i, ok := paramIndex(c.pass.TypesInfo, fn, e); ok {
+				u.Values[k] = i + 1
+			}
+		}
+	}
 	if !c.scaleUse(decl, t, &u) && t.Kind != tolerance.Absolute && t.Kind != tolerance.Relative {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
 	}
@@ -171,7 +191,7 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 // learn records the parameter or field that t's tolerance comes from as a
 // tolerance of use u, and reports the defaults the function gives it.
 func (c *checker) learn(decl *ast.FuncDecl, t tolerance.Test, u use) {
-	c.tested[u] = t.Cmp.Pos()
+	c.tested[u.key()] = t.Cmp.Pos()
 	origin := t.Tol
 	if decl != nil {
 		origin = c.uses.Origin(decl, t.Tol) // tol := o.Tol: the field is the tolerance
@@ -216,11 +236,10 @@ func (c *checker) wrappers(root inspector.Cursor) {
 	for range 4 {
 		grew := false
 		for cur := range root.Preorder((*ast.CallExpr)(nil)) {
-			if eitherOr(cur) {
-				continue // one of several tests that pass on their own: its tolerance cannot make the whole exact
-			}
 			tolerance.Sites(c.pass.TypesInfo, cur.Node(), known, func(val ast.Expr, u use, _ string) {
-				grew = c.uses.Forward(cur, val, u, known) || grew
+				if !eitherOr(cur, val) {
+					grew = c.uses.Forward(cur, val, c.handedOn(cur, u), known) || grew
+				}
 			})
 		}
 		if !grew {
@@ -229,23 +248,87 @@ func (c *checker) wrappers(root inspector.Cursor) {
 	}
 }
 
-// eitherOr reports whether the call at cur is an operand of ||, as in
-// EqualWithinAbs(a, b, atol) || EqualWithinRel(a, b, rtol): the other test
-// may pass where this one cannot.
-func eitherOr(cur inspector.Cursor) bool {
+// argSize returns the size of the values compared by a call n that gives
+// a tolerance of use u, when the arguments for them have one the source
+// fixes (see sizeOf), else 0.
+func (c *checker) argSize(cur inspector.Cursor, n ast.Node, u use) float64 {
+	call, ok := n.(*ast.CallExpr)
+	size := 0.0
+	for _, v := range u.Values {
+		if ok && v > 0 && v <= len(call.Args) {
+			size = max(size, c.sizeOf(cur, call.Args[v-1], u.format()))
+		}
+	}
+	return size
+}
+
+// handedOn returns u as the function around the call at cur learns it
+// when it hands on its tolerance: the compared values become its own
+// parameters that it passes for them, or none.
+func (c *checker) handedOn(cur inspector.Cursor, u use) use {
+	call := cur.Node().(*ast.CallExpr)
+	fd := enclosingDecl(cur)
+	var fn *types.Func
+	if fd != nil {
+		fn, _ = c.pass.TypesInfo.Defs[fd.Name].(*types.Func)
+	}
+	for k, v := range u.Values {
+		u.Values[k] = 0
+		if v > 0 && v <= len(call.Args) {
+			if i, ok := paramIndex(c.pass.TypesInfo, fn, call.Args[v-1]); ok {
+				u.Values[k] = i + 1
+			}
+		}
+	}
+	return u
+}
+
+// eitherOr reports whether the call at cur, which hands on val as a
+// tolerance, is an operand of || whose other operands may pass where it
+// cannot, as in EqualWithinAbs(a, b, atol) || EqualWithinRel(a, b, rtol):
+// its tolerance cannot make the whole exact. When every operand hands on
+// val (near(p, q, tol) || near(q, r, tol)), each is the same test of other
+// values, exact with the others.
+func eitherOr(cur inspector.Cursor, val ast.Expr) bool {
+	var top *ast.BinaryExpr
+walk:
 	for p := cur.Parent(); ; p = p.Parent() {
 		switch b := p.Node().(type) {
 		case *ast.ParenExpr:
-			continue
-		case *ast.BinaryExpr:
-			return b.Op == token.LOR
 		case *ast.UnaryExpr:
-			if b.Op == token.NOT {
-				continue
+			if b.Op != token.NOT {
+				break walk
 			}
+		case *ast.BinaryExpr:
+			if b.Op != token.LOR {
+				break walk
+			}
+			top = b
+		default:
+			break walk
 		}
-		return false
 	}
+	return top != nil && slices.ContainsFunc(operands(top), func(x ast.Expr) bool { return !writes(x, val) })
+}
+
+// operands returns the operands of a chain of ||.
+func operands(e ast.Expr) []ast.Expr {
+	if b, ok := ast.Unparen(e).(*ast.BinaryExpr); ok && b.Op == token.LOR {
+		return append(operands(b.X), operands(b.Y)...)
+	}
+	return []ast.Expr{e}
+}
+
+// writes reports whether e holds an expression written as x is.
+func writes(e, x ast.Expr) bool {
+	want, found := types.ExprString(ast.Unparen(x)), false
+	ast.Inspect(e, func(n ast.Node) bool {
+		if y, ok := n.(ast.Expr); ok && !found {
+			found = types.ExprString(y) == want
+		}
+		return !found
+	})
+	return found
 }
 
 // defaults reports constants given to the tolerance id in the defaulting

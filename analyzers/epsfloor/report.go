@@ -12,6 +12,7 @@ import (
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/ast/edge"
 	"golang.org/x/tools/go/ast/inspector"
+	"golang.org/x/tools/go/types/typeutil"
 
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -109,6 +110,9 @@ func (c *checker) sizeOf(cur inspector.Cursor, e ast.Expr, f numeric.Format) flo
 	if m := c.rowSize(cur, e, f); m > 0 {
 		return m
 	}
+	if m := c.elemSize(cur, e, f); m > 0 {
+		return m
+	}
 	field := tolerance.FieldOf(c.pass.TypesInfo, e)
 	if field == nil || !c.testCode(field.Pos()) {
 		return 0 // only a test's own table of cases says what values reach the test
@@ -137,6 +141,75 @@ func (c *checker) testCode(pos token.Pos) bool {
 		if f.FileStart <= pos && pos < f.FileEnd {
 			return slices.ContainsFunc(f.Imports, func(s *ast.ImportSpec) bool { return s.Path.Value == `"testing"` })
 		}
+	}
+	return false
+}
+
+// elemSize returns the largest |element| of a local slice or array of
+// constants that e indexes (zs[i] of zs := []float64{360, 720, 6.2e23}),
+// when its function only reads its elements, ranges over it or takes its
+// length (nothing stores into it, passes it on, slices it or takes its
+// address), else 0.
+func (c *checker) elemSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
+	info := c.pass.TypesInfo
+	ix, ok := ast.Unparen(e).(*ast.IndexExpr)
+	if !ok {
+		return 0
+	}
+	id, ok := ast.Unparen(ix.X).(*ast.Ident)
+	v, _ := info.Uses[id].(*types.Var)
+	if !ok || v == nil {
+		return 0
+	}
+	lit, ok := ast.Unparen(c.decls[v]).(*ast.CompositeLit)
+	if !ok || !c.readOnly(cur, v) {
+		return 0
+	}
+	size := 0.0
+	for _, elt := range lit.Elts {
+		if kv, ok := elt.(*ast.KeyValueExpr); ok {
+			elt = kv.Value
+		}
+		val, ok := constval.Exact(info, c.decls, elt)
+		if !ok || val.Kind() == constant.Complex {
+			return 0
+		}
+		size = max(size, math.Abs(f.Value(val)))
+	}
+	return size
+}
+
+// readOnly reports whether the function around cur uses v only to read
+// its elements or length or to range over it.
+func (c *checker) readOnly(cur inspector.Cursor, v *types.Var) bool {
+	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		for use := range fd.Preorder((*ast.Ident)(nil)) {
+			if c.pass.TypesInfo.Uses[use.Node().(*ast.Ident)] == v && !readsOnly(c.pass.TypesInfo, use) {
+				return false
+			}
+		}
+		return true
+	}
+	return false
+}
+
+// readsOnly reports whether the identifier at use is read for an element
+// (not stored into, incremented or addressed), a length, or a range.
+func readsOnly(info *types.Info, use inspector.Cursor) bool {
+	switch k, _ := use.ParentEdge(); k {
+	case edge.RangeStmt_X:
+		return true
+	case edge.CallExpr_Args:
+		b, ok := typeutil.Callee(info, use.Parent().Node().(*ast.CallExpr)).(*types.Builtin)
+		return ok && b.Name() == "len"
+	case edge.IndexExpr_X:
+		switch k, _ := use.Parent().ParentEdge(); k {
+		case edge.AssignStmt_Lhs, edge.IncDecStmt_X:
+			return false
+		case edge.UnaryExpr_X:
+			return use.Parent().Parent().Node().(*ast.UnaryExpr).Op != token.AND
+		}
+		return true
 	}
 	return false
 }

@@ -236,7 +236,7 @@ func (c *checker) scaleSite(val ast.Expr, u use, how string) {
 		Pos: val.Pos(), End: val.End(), Category: catScale,
 		Message: fmt.Sprintf("%s, %s (%s), %s; %s", numeric.WithValue(fixes.Source(c.pass.Fset, val), tol), how, u, why, g.remedy()),
 	}
-	if pos, ok := c.tested[u]; ok {
+	if pos, ok := c.tested[u.key()]; ok {
 		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
 	}
 	fixes.Report(c.pass, d)

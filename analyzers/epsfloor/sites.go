@@ -128,7 +128,7 @@ func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node)
 		Pos: val.Pos(), End: val.End(), Category: category(res),
 		Message: fmt.Sprintf("%s, %s (%s), %s", numeric.WithValue(src, tol), how, u, explain(res, tol, f, mag)),
 	}
-	if pos, ok := c.tested[u]; ok {
+	if pos, ok := c.tested[u.key()]; ok {
 		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
 	}
 	var fs []fixes.Fix
@@ -149,7 +149,7 @@ func (c *checker) neverHolds(val ast.Expr, u use, how string) {
 		Message: fmt.Sprintf("%s, %s (%s), makes a strict test, a difference below the tolerance, that no pair of values passes, equal ones included (|a-b| < 0 is always false); use a positive tolerance, or test a tolerance of 0 as exact equality (<=)",
 			fixes.Source(c.pass.Fset, val), how, u),
 	}
-	if pos, ok := c.tested[u]; ok {
+	if pos, ok := c.tested[u.key()]; ok {
 		d.Related = []analysis.RelatedInformation{{Pos: pos, End: pos, Message: "the tolerance test"}}
 	}
 	fixes.Report(c.pass, d)

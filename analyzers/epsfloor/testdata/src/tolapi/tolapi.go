@@ -75,3 +75,21 @@ func Collinear(ax, ay, bx, by, cx, cy, tol float64) bool { // want Collinear:"pa
 func Settled(lo, hi, tol float64) bool {
 	return hi-lo < tol
 }
+
+// Degenerate reports whether two corners of a float32 mesh triangle
+// coincide to within tol: the same test of three pairs, each exact when
+// tol is, so tol is learnt through the || as through one call.
+func Degenerate(a, b, c [2]float32, tol float32) bool { // want Degenerate:"parameter 3 is an absolute tolerance of float32 in within"
+	return within(a, b, tol) || within(b, c, tol) || within(c, a, tol)
+}
+
+func within(p, q [2]float32, tol float32) bool { // want within:"parameter 2 is an absolute tolerance of float32 in within"
+	return abs32(p[0]-q[0]) <= tol && abs32(p[1]-q[1]) <= tol
+}
+
+func abs32(x float32) float32 {
+	if x < 0 {
+		return -x
+	}
+	return x
+}

@@ -50,3 +50,9 @@ func kilnFloor() *tolapi.Kiln {
 	k.Pivot = 1e-20
 	return k
 }
+
+// mesh asks whether a float32 triangle is degenerate to within 1e-12,
+// below the spacing of float32 values near 1 (1.19e-7).
+func mesh(a, b, c [2]float32) bool {
+	return tolapi.Degenerate(a, b, c, 1e-12) // want `1e-12, passed as tol to Degenerate \(an absolute tolerance of float32 in within, tested at tolapi.go:\d+\), is below float32 epsilon`
+}

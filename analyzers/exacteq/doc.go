@@ -43,7 +43,11 @@
 //   - a zero test of a difference of computed values (the cross product
 //     x1*y2 - x2*y1 == 0, a line residual a*x + b*y + c whose c is such a
 //     difference, a sum of such differences accumulated over a loop, as a
-//     signed area summed edge by edge, also through a package function,
+//     signed area summed edge by edge, or of terms the loop itself knows
+//     to take either sign (it compares them with 0 or takes their absolute
+//     value: the weights of a stencil normalised by their sum, or by
+//     their positive part when they cancel, where eight of -0.1 around a
+//     centre of 0.8 sum to 2^-55 ≈ 2.8e-17), also through a package function,
 //     and a cross product of plane vectors computed by another package,
 //     r.Cross(s), known by its shape from package vecshape):
 //     the difference is 0

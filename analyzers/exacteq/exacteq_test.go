@@ -243,3 +243,21 @@ func TestRangeQuotient(t *testing.T) {
 func TestCrossAcrossPackages(t *testing.T) {
 	analysistest.Run(t, analysistest.TestData(), exacteq.Analyzer, "example.com/plane/clip")
 }
+
+// TestCancellingStencil checks the residue the either-sign rule rests on:
+// the nine weights of a 3×3 edge stencil, -0.1 around a centre of 0.8,
+// sum to exactly 0 as stored (float64(0.8) is 8·float64(0.1), scaled by a
+// power of two; math/big at 200 bits), yet summed row by row in float64
+// they give 2^-55 ≈ 2.8e-17 (IEEE 754-2019 binary64, round to nearest), so
+// a test sum != 0 takes the branch that divides by the residue.
+func TestCancellingStencil(t *testing.T) {
+	w := []float64{-0.1, -0.1, -0.1, -0.1, 0.8, -0.1, -0.1, -0.1, -0.1}
+	exact := new(big.Float).SetPrec(200)
+	sum := 0.0
+	for _, x := range w {
+		exact.Add(exact, big.NewFloat(x))
+		sum += x
+	}
+	assert.Equal(t, 0, exact.Sign())
+	assert.Equal(t, math.Ldexp(1, -55), sum)
+}

@@ -224,13 +224,14 @@ func (c *checker) cancels(v ssa.Value, depth int) bool {
 		return c.returnsCancelling(v.Common(), depth-1)
 	case *ssa.Phi:
 		// A sum accumulated over a loop (s += t, a signed area summed
-		// edge by edge) cancels where a term does.
+		// edge by edge) cancels where a term does, or where its terms
+		// take either sign (see eitherSign).
 		for _, e := range v.Edges {
 			b, ok := provenance.Strip(e).(*ssa.BinOp)
 			if !ok || b.Op != token.ADD && b.Op != token.SUB {
 				continue
 			}
-			if t := accumulated(b, v); t != nil && c.cancels(t, depth-1) {
+			if t := accumulated(b, v); t != nil && (c.cancels(t, depth-1) || c.eitherSign(b)) {
 				return true
 			}
 		}

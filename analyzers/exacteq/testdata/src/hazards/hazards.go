@@ -273,3 +273,24 @@ func standardise(xs []float64) []float64 {
 	}
 	return out
 }
+
+// normalizeStencil scales a smoothing stencil to unit sum, or, when its
+// weights cancel (an edge finder), to unit positive part: the loop knows
+// the weights take either sign, and eight weights of -0.1 beside 0.8 sum
+// to 2.8e-17, not 0, so such a stencil is divided by the residue.
+func normalizeStencil(weights []float64) {
+	var sum, pos float64
+	for _, w := range weights {
+		sum += w
+		if w > 0 {
+			pos += w
+		}
+	}
+	div := pos
+	if sum != 0 { // want `exact != 0 on sum, a difference of computed float64 values`
+		div = sum
+	}
+	for i := range weights {
+		weights[i] /= div
+	}
+}

@@ -491,3 +491,34 @@ func bracketDoubling(f func(float64) float64, y float64) float64 {
 	}
 	return x
 }
+
+// unitStencil scales weights to unit sum: nothing in the loop says they
+// take either sign (a smoothing stencil's are positive), and a sum of
+// terms of one sign is 0 only when every term is, exactly.
+func unitStencil(weights []float64) {
+	sum := 0.0
+	for _, w := range weights {
+		sum += w
+	}
+	if sum != 0 {
+		for i := range weights {
+			weights[i] /= sum
+		}
+	}
+}
+
+// checkedLoad sums the loads of a beam's supports, rejecting a negative
+// one: the loop keeps one sign, so the total is 0 only when every load is.
+func checkedLoad(loads []float64) float64 {
+	total := 0.0
+	for _, l := range loads {
+		if l < 0 {
+			panic("negative load")
+		}
+		total += l
+	}
+	if total == 0 {
+		return 0
+	}
+	return loads[0] / total
+}

@@ -95,7 +95,8 @@
 //     them. A complement only returned or stored is left alone, as for
 //     the squares;
 //   - a*a - b*b, 1 - x*x and x*x - 1 (a square also held in a variable
-//     never reassigned: x2 := x*x; 1 - x2) where the difference is consumed
+//     never reassigned: x2 := x*x; 1 - x2, or written math.Pow(x, 2))
+//     where the difference is consumed
 //     to relative accuracy: under a square root (a radicand near
 //     tangency, where sqrt turns an absolute error d into sqrt(d)), in a
 //     logarithm, as a divisor, or in a test of its sign against 0, also
@@ -165,6 +166,10 @@
 //     subtraction; math.Log(math.Cos(x)) likewise, about -x²/2 for small
 //     x, where math.Log1p(-2*math.Sin(x/2)*math.Sin(x/2)) keeps the digits,
 //     and 1/math.Cos(x) - 1, where the same square over math.Cos(x) does;
+//     and 1 - math.Cos(x)*math.Cos(x) (also through a variable holding the
+//     cosine, or as a power), which is sin²x and comes out 0 where the
+//     cosine rounds to 1, however it is factorised: math.Sin(x)*math.Sin(x)
+//     is within about 3 ulps of it (TestFixesSafe);
 //   - math.Sqrt(x*x+y*y) and math.Sqrt(x*x+y*y+z*z), the same operands
 //     squared, where an operand is computed by an operation that reaches
 //     such magnitudes from ordinary inputs (a quotient by a variable that

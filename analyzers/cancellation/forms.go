@@ -731,6 +731,9 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	if c.isConst(a) && c.isConst(b) || c.wholeNumber(a) || c.wholeNumber(b) || c.fixedLoss(a, b) {
 		return true // known, or whole numbers whose squares are exact
 	}
+	if c.sineSquared(cur, n, a, b) {
+		return true
+	}
 	if c.computedOrSquare(cur, a) || c.computedOrSquare(cur, b) {
 		return true // the operand's own rounding error already costs what the factorisation would save
 	}
@@ -756,6 +759,32 @@ func (c *checker) squares(cur inspector.Cursor, n *ast.BinaryExpr) bool {
 	// Needs review: far from |a| = |b| both forms round about equally, in
 	// different last bits.
 	fixes.Report(c.pass, d, fixes.Judgement("Replace with "+text, fixes.Replace(n, text)))
+	return true
+}
+
+// sineSquared reports 1 - c*c and c*c - 1 where c is math.Cos(x),
+// directly or through a variable that holds it, and reports whether n had
+// that form: cos(x) rounds to 1 for |x| below 1.05e-8, so 1 - cos²x, which
+// is sin²x, comes out 0 there and loses about 2·log10(1/|x|) digits
+// above, however it is factorised (c carries its own rounding);
+// math.Sin(x)*math.Sin(x) is the same quantity without a subtraction.
+func (c *checker) sineSquared(cur inspector.Cursor, n *ast.BinaryExpr, a, b ast.Expr) bool {
+	x, sign := b, ""
+	if !c.isOne(a) {
+		x, sign = a, "-"
+	}
+	e, indirect := c.through(x)
+	cos, ok := e.(*ast.CallExpr)
+	if !ok || c.mathFunc(cos) != "Cos" || !c.isOne(a) && !c.isOne(b) {
+		return false
+	}
+	arg := fixes.Source(c.pass.Fset, ast.Unparen(cos.Args[0]))
+	f := halfAngle{form: "1-math.Cos(x)*math.Cos(x)", use: "math.Sin(x)*math.Sin(x)", safe: true,
+		fix: func(q, _ string) string { return sign + q + ".Sin(" + arg + ")*" + q + ".Sin(" + arg + ")" }}
+	if sign != "" {
+		f.form, f.use = "math.Cos(x)*math.Cos(x)-1", "-math.Sin(x)*math.Sin(x)"
+	}
+	c.cosineLoss(cur, n, cos, indirect, f)
 	return true
 }
 

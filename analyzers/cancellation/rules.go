@@ -318,8 +318,13 @@ func (c *checker) squaresOf(e ast.Expr) ([]ast.Expr, bool) {
 	return []ast.Expr{x, w, y}, okx && okw
 }
 
-// square returns x when e is x*x for a side-effect-free float64 x.
+// square returns x when e is x*x, or math.Pow(x, 2), for a
+// side-effect-free float64 x.
 func (c *checker) square(e ast.Expr) (ast.Expr, bool) {
+	if call, ok := ast.Unparen(e).(*ast.CallExpr); ok && c.mathFuncOf(call, 2) == "Pow" && isFloat64(c.pass.TypesInfo.TypeOf(call.Args[0])) {
+		v := c.pass.TypesInfo.Types[call.Args[1]].Value
+		return call.Args[0], v != nil && constant.Compare(constant.ToFloat(v), token.EQL, constant.MakeFloat64(2)) && fixes.Pure(c.pass.TypesInfo, call.Args[0])
+	}
 	m, ok := ast.Unparen(e).(*ast.BinaryExpr)
 	if !ok || m.Op != token.MUL || !isFloat64(c.pass.TypesInfo.TypeOf(m.X)) {
 		return nil, false

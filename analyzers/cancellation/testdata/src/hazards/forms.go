@@ -242,3 +242,21 @@ func coneFactor(x, mu float64) float64 {
 func millibels(q int) float64 {
 	return math.Pow(10, float64(q)/1000) - 1 // want `math.Pow\(a, b\)-1 with a = 10, b = float64\(q\) / 1000`
 }
+
+// halfChord is the half-chord of a pond of radius r cut by a fence at
+// distance d from its centre, the squares written as powers.
+func halfChord(r, d float64) float64 {
+	return math.Sqrt(math.Pow(r, 2) - math.Pow(d, 2)) // want `a\*a - b\*b with a = r, b = d loses about log10`
+}
+
+// sweep recovers the sine of a small sweep angle from its cosine: cos t
+// rounds to 1 for |t| below 1.05e-8, where the root comes out 0.
+func sweep(t float64) float64 {
+	return math.Sqrt(1 - math.Cos(t)*math.Cos(t)) // want `1-math.Cos\(x\)\*math.Cos\(x\) with x = t returns 0 for \|x\| below 1.05e-08, where math.Cos\(x\) rounds to 1.*use math.Sin\(x\)\*math.Sin\(x\)`
+}
+
+// sweepHeld does the same through a variable holding the cosine.
+func sweepHeld(t float64) float64 {
+	h := math.Cos(t)
+	return math.Sqrt(1 - h*h) // want `1-math.Cos\(x\)\*math.Cos\(x\) with x = t returns 0`
+}

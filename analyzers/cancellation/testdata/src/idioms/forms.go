@@ -739,3 +739,15 @@ func seriesChoice(y float64) int {
 	}
 	return 2
 }
+
+// cubeGap differs two cubes written as powers: not squares, and no
+// factorisation of them is offered.
+func cubeGap(a, b float64) float64 {
+	return math.Sqrt(math.Pow(a, 3) - math.Pow(b, 3))
+}
+
+// heldSine squares a cosine that carries no subtraction of 1.
+func heldSine(t float64) float64 {
+	h := math.Cos(t)
+	return math.Sqrt(2 - h*h)
+}

@@ -73,6 +73,8 @@ type checker struct {
 	// saysExact holds, for each test function asked about, whether it
 	// says it checks exactness (deliberate).
 	saysExact map[ast.Node]bool
+	// signed caches eitherSign, by the statement adding to a sum.
+	signed map[*ssa.BinOp]bool
 }
 
 func run(pass *analysis.Pass) (any, error) {
@@ -100,6 +102,7 @@ func run(pass *analysis.Pass) (any, error) {
 
 		storedVals: make(map[*types.Var][]ssa.Value),
 		saysExact:  make(map[ast.Node]bool),
+		signed:     make(map[*ssa.BinOp]bool),
 	}
 	c.index(ssainfo.SrcFuncs)
 	for _, cur := range work {

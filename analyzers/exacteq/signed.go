@@ -19,6 +19,16 @@ import (
 // 2^-55, not 0. A loop that rejects one sign (if t < 0 { panic(...) })
 // keeps one, and its sums are left alone.
 func (c *checker) eitherSign(b *ssa.BinOp) bool {
+	either, ok := c.signed[b]
+	if !ok {
+		either = c.readSigns(b)
+		c.signed[b] = either
+	}
+	return either
+}
+
+// readSigns is eitherSign, uncached.
+func (c *checker) readSigns(b *ssa.BinOp) bool {
 	root := c.pass.ResultOf[inspect.Analyzer].(*inspector.Inspector).Root()
 	at, ok := root.FindByPos(b.Pos(), b.Pos())
 	if !ok {

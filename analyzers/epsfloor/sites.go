@@ -92,9 +92,12 @@ func (c *checker) apiMagnitude(cur inspector.Cursor, call *ast.CallExpr, p apiPa
 
 // site reports a constant val that reaches a tolerance of the given use
 // in n, the call or literal that gives it (nil: a default), whose other
-// arguments or fields are among them the compared values.
+// arguments or fields are among them the compared values, of size mag
+// where the source fixes it (else 0). A tolerance of a quantity whose
+// size grows with the data is judged at the data size where nothing
+// fixes the size (see scaleSite).
 func (c *checker) site(val ast.Expr, u use, mag float64, how string, n ast.Node) {
-	if u.scaled() {
+	if u.scaled() && mag == 0 {
 		if v, ok := constval.Exact(c.pass.TypesInfo, c.decls, val); ok && u.format().Value(v) >= u.format().Eps {
 			c.scaleSite(val, u, how)
 			return

@@ -174,13 +174,8 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	posn := c.pass.Fset.Position(n.Pos())
 	decl := enclosingDecl(cur)
 	u := use{Kind: t.Kind, Strict: strictTest(t) && !zeroHandled(c.pass.TypesInfo, decl, t.Tol), Float32: f == numeric.Float32, Where: enclosingName(cur), At: fmt.Sprintf("%s:%d", filepath.Base(posn.Filename), posn.Line)}
-	if t.Kind == tolerance.Absolute && decl != nil {
-		fn, _ := c.pass.TypesInfo.Defs[decl.Name].(*types.Func)
-		for k, e := range []ast.Expr{t.A, t.B} {
-			if i, ok := paramIndex(c.pass.TypesInfo, fn, e); ok {
-				u.Values[k] = i + 1
-			}
-		}
+	if t.Kind == tolerance.Absolute {
+		u.Values = c.valuesOf(decl, t.A, t.B)
 	}
 	if !c.scaleUse(decl, t, &u) && t.Kind != tolerance.Absolute && t.Kind != tolerance.Relative {
 		return // steps and residuals: stoptol's, or no tolerance of a difference
@@ -267,20 +262,30 @@ func (c *checker) argSize(cur inspector.Cursor, n ast.Node, u use) float64 {
 // parameters that it passes for them, or none.
 func (c *checker) handedOn(cur inspector.Cursor, u use) use {
 	call := cur.Node().(*ast.CallExpr)
-	fd := enclosingDecl(cur)
-	var fn *types.Func
-	if fd != nil {
-		fn, _ = c.pass.TypesInfo.Defs[fd.Name].(*types.Func)
-	}
+	var args [2]ast.Expr
 	for k, v := range u.Values {
-		u.Values[k] = 0
 		if v > 0 && v <= len(call.Args) {
-			if i, ok := paramIndex(c.pass.TypesInfo, fn, call.Args[v-1]); ok {
-				u.Values[k] = i + 1
-			}
+			args[k] = call.Args[v-1]
 		}
 	}
+	u.Values = c.valuesOf(enclosingDecl(cur), args[0], args[1])
 	return u
+}
+
+// valuesOf returns, for a and b, 1 + the index of the parameter of decl
+// that each names (through conversions), 0 where it names none.
+func (c *checker) valuesOf(decl *ast.FuncDecl, a, b ast.Expr) [2]int {
+	var vs [2]int
+	if decl == nil {
+		return vs
+	}
+	fn, _ := c.pass.TypesInfo.Defs[decl.Name].(*types.Func)
+	for k, e := range []ast.Expr{a, b} {
+		if i, ok := paramIndex(c.pass.TypesInfo, fn, e); ok {
+			vs[k] = i + 1
+		}
+	}
+	return vs
 }
 
 // eitherOr reports whether the call at cur, which hands on val as a

@@ -179,10 +179,13 @@ func (c *checker) elemSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) f
 	return size
 }
 
-// readOnly reports whether the function around cur uses v only to read
-// its elements or length or to range over it.
+// readOnly reports whether v is local to the function around cur, which
+// uses it only to read its elements or length or to range over it.
 func (c *checker) readOnly(cur inspector.Cursor, v *types.Var) bool {
 	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
+		if v.Pos() < fd.Node().Pos() || v.Pos() >= fd.Node().End() {
+			return false // a package variable, which other functions may change
+		}
 		for use := range fd.Preorder((*ast.Ident)(nil)) {
 			if c.pass.TypesInfo.Uses[use.Node().(*ast.Ident)] == v && !readsOnly(c.pass.TypesInfo, use) {
 				return false

@@ -75,3 +75,14 @@ func TestRescaled(t *testing.T) {
 		expectNear(t, "rescaled", Energy(2, 400), -joules[i], 1e-9)
 	}
 }
+
+// reference holds expected energies that another function may change.
+var reference = []float64{6.4998452e8, 1.194354902e10}
+
+// TestShared reads a package variable: its elements are what the last
+// change left, not the literal's.
+func TestShared(t *testing.T) {
+	for i := range reference {
+		expectNear(t, "shared", Energy(2, 400), reference[i], 1e-9)
+	}
+}

@@ -67,7 +67,7 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 		return
 	}
 	_, eps := t.f.EpsMultiple(t.tol)
-	if !eps && !c.degrees().Rounds(fd, t.a) && (t.b == nil || !c.degrees().Rounds(fd, t.b)) {
+	if !eps && !c.rounds(fd, t.a, t.b) {
 		return // values read as given: their difference is exact when they are close
 	}
 	g, sum, ok := c.gradeOf(fd, t.a, t.b)
@@ -96,6 +96,12 @@ func (c *checker) atScale(cur inspector.Cursor, t scaleTest) {
 		d.Related = []analysis.RelatedInformation{{Pos: sum.Pos(), End: sum.End(), Message: "the running sum"}}
 	}
 	fixes.Report(c.pass, d, fs...)
+}
+
+// rounds reports whether a or b (b may be nil) carries a rounding error
+// of its own (see degree.Reader.Rounds).
+func (c *checker) rounds(fd *ast.FuncDecl, a, b ast.Expr) bool {
+	return c.degrees().Rounds(fd, a) || b != nil && c.degrees().Rounds(fd, b)
 }
 
 // grade is what the data size judges a quantity by: its degree in the
@@ -203,12 +209,8 @@ func (c *checker) scaleUse(decl *ast.FuncDecl, t tolerance.Test, u *use) bool {
 	default:
 		return false
 	}
-	rounds := false
-	for _, e := range []ast.Expr{a, b} {
-		rounds = rounds || e != nil && deg.Rounds(decl, e)
-	}
 	g, _, ok := c.gradeOf(decl, a, b)
-	if !ok || !rounds {
+	if !ok || !c.rounds(decl, a, b) {
 		return false // unknown, of a size fixed by constants, or values read as given, whose difference is exact when they are close
 	}
 	u.Degree, u.Summed, u.Quantity = g.d, g.summed, fixes.Source(c.pass.Fset, t.Cmp)

@@ -63,31 +63,19 @@ func added(n ast.Node) (string, bool) {
 }
 
 // underSignTest reports whether the statement at cur lies in a branch of
-// an if whose condition compares the expression written so with 0.
+// an if whose condition compares the expression written so with 0 by <
+// or > (see signTest).
 func (c *checker) underSignTest(cur inspector.Cursor, written string) bool {
 	for ifc := range cur.Enclosing((*ast.IfStmt)(nil)) {
 		found := false
 		ast.Inspect(ifc.Node().(*ast.IfStmt).Cond, func(n ast.Node) bool {
-			found = found || c.comparesWithZero(n, written)
+			if cmp, ok := n.(*ast.BinaryExpr); ok && !found {
+				x, _, ok := c.signTest(cmp)
+				found = ok && types.ExprString(ast.Unparen(x)) == written
+			}
 			return !found
 		})
 		if found {
-			return true
-		}
-	}
-	return false
-}
-
-// comparesWithZero reports whether n is an ordered comparison of the
-// expression written so with 0 (w > 0, 0 <= w).
-func (c *checker) comparesWithZero(n ast.Node, written string) bool {
-	cmp, ok := n.(*ast.BinaryExpr)
-	if !ok || cmp.Op != token.GTR && cmp.Op != token.LSS && cmp.Op != token.GEQ && cmp.Op != token.LEQ {
-		return false
-	}
-	for _, xy := range [][2]ast.Expr{{cmp.X, cmp.Y}, {cmp.Y, cmp.X}} {
-		tv := c.pass.TypesInfo.Types[xy[1]]
-		if tv.Value != nil && tv.Value.String() == "0" && types.ExprString(ast.Unparen(xy[0])) == written {
 			return true
 		}
 	}

@@ -89,6 +89,9 @@ func run(pass *analysis.Pass) (any, error) {
 		names:    make(map[ast.Node]map[string]bool),
 		src:      make(map[*token.File][]byte),
 	}
+	if len(pass.Files) == 0 || provenance.InStd(pass.Fset, pass.Files[0].Pos(), pass.Pkg) {
+		return nil, nil // the standard library takes no step to difference with: no fact to learn, and nothing of it is reported
+	}
 	if !c.hasQuotients() && !c.importsSteps() && !importsFD(pass) {
 		return nil, nil // no quotient here, no step elsewhere: no SSA needed (most dependencies)
 	}

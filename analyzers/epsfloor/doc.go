@@ -105,6 +105,13 @@
 //     given to it is judged at the data size as the same constant written
 //     in the test would be (below), in a file that is not a test; the
 //     highest degree among its tests decides;
+//   - a tolerance positive as written that rounds to 0 in the type, as a
+//     product or quotient of constants or of variables holding them does
+//     (1e-6*math.SmallestNonzeroFloat64 is 4.9e-330, below half the
+//     smallest positive float64): |a-b| < 0 holds for no pair of values,
+//     equal ones included, and |a-b| <= 0 is exact equality (category
+//     empty); a product of two constants is a tolerance of its own,
+//     never a relative one with a constant scale;
 //   - a tolerance of 0 given to such a parameter or field whose test is
 //     strict, |a-b| < tol (or |a-b| >= tol for "not within"), where the
 //     function does not take 0 apart (if tol == 0 { return a == b }):

@@ -167,6 +167,9 @@ func (c *checker) comparison(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if !ok {
 		v, ok = c.assignedBefore(cur, t.Tol) // a tolerance variable set again: tol = 1e-20 before the next check
 	}
+	if c.vanished(t, f, v, ok) {
+		return
+	}
 	if ok {
 		c.constantTol(cur, t, f, f.Value(v))
 		return

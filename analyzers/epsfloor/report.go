@@ -58,6 +58,35 @@ func (c *checker) constantTol(cur inspector.Cursor, t tolerance.Test, f numeric.
 	fixes.Report(c.pass, d, fix...)
 }
 
+// vanished reports a tolerance of a difference that is positive as
+// written but rounds to 0 in format f (1e-6*math.SmallestNonzeroFloat64
+// is 4.9e-330, below half the smallest positive float64): the strict test
+// |a-b| < 0 holds for no values, equal ones included, and |a-b| <= 0 is
+// exact equality. It reports whether the tolerance was such.
+func (c *checker) vanished(t tolerance.Test, f numeric.Format, v constant.Value, known bool) bool {
+	if m, ok := ast.Unparen(t.Tol).(*ast.BinaryExpr); ok && (m.Op == token.MUL || m.Op == token.QUO) {
+		x, okx := constval.Exact(c.pass.TypesInfo, c.decls, m.X)
+		y, oky := constval.Exact(c.pass.TypesInfo, c.decls, m.Y)
+		if okx && oky && x.Kind() != constant.Complex && y.Kind() != constant.Complex && (m.Op == token.MUL || constant.Sign(y) != 0) {
+			v, known = constant.BinaryOp(x, m.Op, y), true // as written: of variables holding constants, it rounds once, at run time
+		}
+	}
+	if !known || t.Kind != tolerance.Absolute && t.Kind != tolerance.Relative || v.Kind() == constant.Complex || constant.Sign(v) <= 0 || f.Value(v) != 0 {
+		return false
+	}
+	what := "so the test holds for no pair of values, equal ones included (|a-b| < 0 is always false)"
+	if !strictTest(t) {
+		what = "so the test is exact equality"
+	}
+	fixes.Report(c.pass, analysis.Diagnostic{
+		Pos: t.Cmp.Pos(), End: t.Cmp.End(), Category: catEmpty,
+		Message: fmt.Sprintf("tolerance %s is %s as written but rounds to 0 in %s, being at most half its smallest positive value (%.2g), %s; use a tolerance the type holds, such as %s relative",
+			fixes.Source(c.pass.Fset, t.Tol), constant.ToFloat(v), f.Name, f.Smallest, what, f.FewUlpsLiteral()),
+		Related: c.declaredAt(t.Tol),
+	})
+	return true
+}
+
 // judge is tolerance.Judge with an absolute tolerance at a known magnitude
 // mag held to the gap between mag and the next float toward zero, not to
 // half the spacing: two floats near mag are both multiples of that gap, so

@@ -16,6 +16,7 @@ import (
 	"go/token"
 	"go/types"
 	"math"
+	"roundoff/analyzers/internal/constval"
 
 	"golang.org/x/tools/go/ast/inspector"
 
@@ -346,6 +347,11 @@ func (r Reader) split(e ast.Expr) (coef, scale ast.Expr) {
 			return e, nil
 		}
 		return nil, nil
+	}
+	_, xk := constval.Exact(r.Info, r.Decls, m.X)
+	_, yk := constval.Exact(r.Info, r.Decls, m.Y)
+	if xk && yk {
+		return e, nil // k·c is a constant: an absolute tolerance, however small (1e-6*math.SmallestNonzeroFloat64 is 0 in float64)
 	}
 	switch {
 	case r.coefficient(m.X) && !r.coefficient(m.Y):

@@ -405,3 +405,18 @@ func clockStep(t, h float64) float64 {
 func absorbedInQuotient() float64 {
 	return (1e16 + 1) / 2e16 // want `1 has no effect on \(1e16 \+ 1\) / 2e16: the constant is evaluated exactly and rounded once to float64, to 0.5, the value it has without 1`
 }
+
+// sameReading compares two gauge readings within a millionth of the
+// smallest positive float64: 4.9e-330 as written, 0 in float64, so no
+// pair passes, equal readings included.
+func sameReading(a, b float64) bool {
+	const fraction = 0.000001
+	return math.Abs(a-b) < fraction*math.SmallestNonzeroFloat64 // want `tolerance fraction \* math.SmallestNonzeroFloat64 is 4.94066e-330 as written but rounds to 0 in float64.*holds for no pair of values, equal ones included`
+}
+
+// sameReadingHeld holds the fraction in a variable: the product rounds
+// to 0 at run time, and a non-strict test is exact equality.
+func sameReadingHeld(a, b float64) bool {
+	fraction := 0.000001
+	return math.Abs(a-b) <= fraction*math.SmallestNonzeroFloat64 // want `rounds to 0 in float64, being at most half its smallest positive value \(4.9e-324\), so the test is exact equality`
+}

@@ -382,3 +382,10 @@ const nudgedHalf = (2 + 1e-15) / 4
 // A table written for every row: the first row's factor 0 removes the
 // addend exactly, not by rounding.
 const firstRow = (1.0-1.0/30)*0/4 + 1.0/30
+
+// closeReading scales a tiny constant by another: 1e-6·1e-300 is 1e-306,
+// a normal float64, so the product keeps its value.
+func closeReading(a, b float64) bool {
+	const fraction, floor = 0.000001, 1e-300
+	return math.Abs(a-b) < fraction*floor
+}

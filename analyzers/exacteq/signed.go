@@ -8,6 +8,8 @@ import (
 	"golang.org/x/tools/go/analysis/passes/inspect"
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // eitherSign reports whether b, the statement s += t of a sum accumulated
@@ -42,7 +44,7 @@ func (c *checker) readSigns(b *ssa.BinOp) bool {
 		for loop := range stmt.Enclosing((*ast.ForStmt)(nil), (*ast.RangeStmt)(nil)) {
 			for other := range loop.Preorder((*ast.AssignStmt)(nil)) {
 				t, ok := added(other.Node())
-				if ok && other != stmt && (t == term && c.underSignTest(other, term) || t == "math.Abs("+term+")") {
+				if ok && other != stmt && (t == term && c.underSignTest(other, term) || c.absOf(other.Node(), term)) {
 					return true
 				}
 			}
@@ -60,6 +62,13 @@ func added(n ast.Node) (string, bool) {
 		return "", false
 	}
 	return types.ExprString(ast.Unparen(as.Rhs[0])), true
+}
+
+// absOf reports whether the assignment n adds the absolute value of the
+// expression written so (abs += math.Abs(t)).
+func (c *checker) absOf(n ast.Node, written string) bool {
+	call, ok := ast.Unparen(n.(*ast.AssignStmt).Rhs[0]).(*ast.CallExpr)
+	return ok && len(call.Args) == 1 && provenance.MathCallee(c.pass.TypesInfo, call) == "Abs" && types.ExprString(ast.Unparen(call.Args[0])) == written
 }
 
 // underSignTest reports whether the statement at cur lies in a branch of

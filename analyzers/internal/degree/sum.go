@@ -6,6 +6,8 @@ import (
 	"go/types"
 
 	"golang.org/x/tools/go/types/typeutil"
+
+	"roundoff/analyzers/internal/provenance"
 )
 
 // Summed returns the statement that adds to a running sum e reads, inside
@@ -49,7 +51,7 @@ func (r *Reader) summed(e ast.Expr, depth int) ast.Node {
 			return r.summed(x.Y, depth+1)
 		}
 	case *ast.CallExpr:
-		if len(x.Args) == 1 && (r.info.Types[x.Fun].IsType() || isMath(r.info, x, "Abs")) {
+		if len(x.Args) == 1 && (r.info.Types[x.Fun].IsType() || provenance.MathCallee(r.info, x) == "Abs") {
 			return r.summed(x.Args[0], depth+1)
 		}
 		return r.summedCall(x, 0, depth)
@@ -72,8 +74,11 @@ func (r *Reader) count(e ast.Expr) bool {
 		return true
 	}
 	id, ok := e.(*ast.Ident)
+	if !ok {
+		return false
+	}
 	v := r.varOf(id)
-	if !ok || v == nil || r.params[v] || r.busy[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 {
+	if v == nil || r.params[v] || r.busy[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 {
 		return false
 	}
 	r.busy[v] = true
@@ -84,12 +89,6 @@ func (r *Reader) count(e ast.Expr) bool {
 		}
 	}
 	return true
-}
-
-// isMath reports whether call calls the function name of package math.
-func isMath(info *types.Info, call *ast.CallExpr, name string) bool {
-	fn, ok := typeutil.Callee(info, call).(*types.Func)
-	return ok && fn.Pkg() != nil && fn.Pkg().Path() == "math" && fn.Name() == name
 }
 
 // summedVar returns the running sum v is, or that a value given to it

@@ -294,3 +294,17 @@ func normalizeStencil(weights []float64) {
 		weights[i] /= div
 	}
 }
+
+// balance scales a stencil by its sum, or by its total magnitude when the
+// sum is 0: summing |w| beside w shows the weights take either sign.
+func balance(weights []float64) float64 {
+	var sum, mass float64
+	for _, w := range weights {
+		sum += w
+		mass += math.Abs(w)
+	}
+	if sum == 0 { // want `exact == 0 on sum, a difference of computed float64 values`
+		return mass
+	}
+	return sum
+}

@@ -14,6 +14,7 @@ import (
 	"golang.org/x/tools/go/ssa"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/absval"
 	"roundoff/analyzers/internal/analyzerdoc"
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
@@ -32,7 +33,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:     "exacteq",
 	Doc:      analyzerdoc.Extract(doc, "exacteq"),
 	URL:      "docs/exacteq.md",
-	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer, vecshape.Analyzer},
+	Requires: []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, lazyssa.Analyzer, portable.Analyzer, vecshape.Analyzer, absval.Analyzer},
 	Run:      run,
 }
 

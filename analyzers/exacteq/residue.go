@@ -5,7 +5,6 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
-	"roundoff/analyzers/internal/degree"
 	"strings"
 
 	"golang.org/x/tools/go/analysis"
@@ -14,6 +13,7 @@ import (
 	"golang.org/x/tools/go/ssa"
 	"golang.org/x/tools/go/types/typeutil"
 
+	"roundoff/analyzers/internal/degree"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
 )

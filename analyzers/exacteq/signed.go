@@ -9,7 +9,7 @@ import (
 	"golang.org/x/tools/go/ast/inspector"
 	"golang.org/x/tools/go/ssa"
 
-	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/absval"
 )
 
 // eitherSign reports whether b, the statement s += t of a sum accumulated
@@ -65,10 +65,15 @@ func added(n ast.Node) (string, bool) {
 }
 
 // absOf reports whether the assignment n adds the absolute value of the
-// expression written so (abs += math.Abs(t)).
+// expression written so (mass += math.Abs(t), or through any absolute
+// value: see package absval).
 func (c *checker) absOf(n ast.Node, written string) bool {
 	call, ok := ast.Unparen(n.(*ast.AssignStmt).Rhs[0]).(*ast.CallExpr)
-	return ok && len(call.Args) == 1 && provenance.MathCallee(c.pass.TypesInfo, call) == "Abs" && types.ExprString(ast.Unparen(call.Args[0])) == written
+	if !ok {
+		return false
+	}
+	x, ok := absval.Of(c.pass).Arg(c.pass.TypesInfo, c.decls, call)
+	return ok && types.ExprString(ast.Unparen(x)) == written
 }
 
 // underSignTest reports whether the statement at cur lies in a branch of

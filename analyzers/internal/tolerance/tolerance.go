@@ -16,11 +16,11 @@ import (
 	"go/token"
 	"go/types"
 	"math"
-	"roundoff/analyzers/internal/constval"
 
 	"golang.org/x/tools/go/ast/inspector"
 
 	"roundoff/analyzers/internal/absval"
+	"roundoff/analyzers/internal/constval"
 	"roundoff/internal/numeric"
 )
 

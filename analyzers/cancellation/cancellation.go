@@ -179,7 +179,7 @@ func (c *checker) difference(cur inspector.Cursor, n *ast.BinaryExpr) {
 	if c.isOne(n.X) {
 		call, one = n.Y, n.X
 	}
-	if c.gram(cur, n) || c.residual(cur, n) || c.squares(cur, n) || c.variance(n) || c.covariance(n) || c.share(cur, n) || c.logRatio(cur, n) || c.overlapComplement(cur, n) {
+	if c.gram(cur, n) || c.residual(cur, n) || c.squares(cur, n) || c.variance(n) || c.covariance(n) || c.share(cur, n) || c.logRatio(cur, n) || c.overlapComplement(cur, n) || c.scaledLogistic(cur, n) {
 		return
 	}
 	e, indirect := c.through(call)

@@ -215,6 +215,13 @@
 //     a value (y - m), also in place before it is taken (lp[i] -= m),
 //     not positive (-|z|) or constant is left alone, as
 //     is a use under a condition that checks the sum (math.IsInf(s, 1));
+//   - 2σ(z) - 1 and 1 - 2σ(z) of the logistic σ(z) = 1/(1+e^-z)
+//     (2/(1+math.Exp(-z)) - 1, or twice the package's own logistic):
+//     they are ±tanh(z/2), about ±z/2 near 0, where 2σ(z) is near 1 and
+//     carries an absolute error of about u, so only log10(|z|/u) digits
+//     are left, none below |z| ≈ 2.2e-16, where 1+e^-z rounds to 2;
+//     math.Tanh(z/2) has no subtraction (TestScaledLogistic, against
+//     math/big);
 //   - math.Log(σ(z)) and math.Log(1 - σ(z)) of the logistic σ(z) =
 //     1/(1+math.Exp(-z)) or math.Exp(z)/(1+math.Exp(z)), written out, held
 //     in a variable or returned by the package's own function (the

@@ -2,6 +2,7 @@ package cancellation_test
 
 import (
 	"math"
+	"math/big"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -24,4 +25,22 @@ func TestLogisticLoss(t *testing.T) {
 	assert.InDelta(t, -40, -softplus(40), 1e-15*40, "softplus form at z = 40")
 	assert.True(t, math.IsInf(math.Log(sigma(-800)), -1), "plain log σ(-800)")
 	assert.InDelta(t, -800, -softplus(800), 1e-15*800, "softplus form at z = -800")
+}
+
+// TestScaledLogistic checks the premise and the remedy of the doubled
+// logistic rule: 2σ(z) - 1 = tanh(z/2) = expm1(z)/(expm1(z)+2) (algebra,
+// common practice; the reference from expm1Ref, math/big). At z = 1e-16
+// the plain form is 0 (1+e^-z rounds to 2); at z = 1e-8 it keeps about 8
+// digits; math.Tanh(z/2) is within 2 ulps of the reference at both.
+func TestScaledLogistic(t *testing.T) {
+	plain := func(z float64) float64 { return 2/(1+math.Exp(-z)) - 1 }
+	assert.Equal(t, 0.0, plain(1e-16))
+	for _, z := range []float64{1e-16, 1e-8, 0.5} {
+		e := expm1Ref(bf(z))
+		ref := newF().Quo(e, newF().Add(e, big.NewFloat(2)))
+		assert.LessOrEqual(t, ulps(math.Tanh(z/2), ref), 2.0, "tanh at z = %g", z)
+	}
+	rel := math.Abs(plain(1e-8)/f64(newF().Quo(expm1Ref(bf(1e-8)), newF().Add(expm1Ref(bf(1e-8)), big.NewFloat(2))))-1)
+	assert.Greater(t, rel, 1e-10, "the plain form loses about half its digits at z = 1e-8")
+	assert.Less(t, rel, 1e-7)
 }

@@ -309,3 +309,9 @@ func shiftedFailure(mu, s, q float64) float64 {
 func logShape(alpha, beta, t float64) float64 {
 	return (alpha-1)*math.Log(t) + (beta-1)*math.Log(1-t)
 }
+
+// tilt scales a logistic by 3: 3σ(z) - 1 is near 1/2 at z = 0, where
+// nothing cancels.
+func tilt(z float64) float64 {
+	return 3/(1+math.Exp(-z)) - 1
+}

@@ -40,7 +40,7 @@ func TestScaledLogistic(t *testing.T) {
 		ref := newF().Quo(e, newF().Add(e, big.NewFloat(2)))
 		assert.LessOrEqual(t, ulps(math.Tanh(z/2), ref), 2.0, "tanh at z = %g", z)
 	}
-	rel := math.Abs(plain(1e-8)/f64(newF().Quo(expm1Ref(bf(1e-8)), newF().Add(expm1Ref(bf(1e-8)), big.NewFloat(2))))-1)
+	rel := math.Abs(plain(1e-8)/f64(newF().Quo(expm1Ref(bf(1e-8)), newF().Add(expm1Ref(bf(1e-8)), big.NewFloat(2)))) - 1)
 	assert.Greater(t, rel, 1e-10, "the plain form loses about half its digits at z = 1e-8")
 	assert.Less(t, rel, 1e-7)
 }

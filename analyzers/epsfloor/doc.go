@@ -194,8 +194,10 @@
 // whose exactness does not help: once the data exceed k it is an exact
 // equality test (r := hi - lo; r < 100*eps). A running sum over a loop of
 // the data's length (s += x in a range over a slice or up to a variable
-// count, also read through the package's functions that return one)
-// rounds at about √n·eps times the size of its terms for n terms (Higham
+// count, also into a field of a local struct, w.in += x, and read through
+// the package's functions that return one, and through products and
+// quotients with other values, whose degrees scale its error as they scale
+// it) rounds at about √n·eps times the size of its terms for n terms (Higham
 // 2002, §2.8, from memory), so its count is data too, at the same size:
 // 1e-9 on the difference of two areas each summed over a parcel's corners
 // (degree 2) fails from 460 where one product would last to 2100, and a
@@ -205,7 +207,7 @@
 // size they have, so one tolerance used for lengths and for their
 // products (1e-10 on a point's offset and on a cross product) breaks at
 // sizes as modest as 670. It judges |a-b| < t, |x| < t and a bare
-// x < t where x can cancel (a difference or sum of non-constant values, a
+// x < t (or its negation x > t) where x can cancel (a difference or sum of non-constant values, a
 // remainder, a product with such a factor; a product that does not cancel,
 // w*h, keeps a relative error, eps·|w*h|, and is left alone, as is a sum
 // of squares, x*x + y*y + z*z, whose terms cannot cancel; so is a

@@ -418,14 +418,17 @@ func (c *checker) helperAtSize(call *ast.CallExpr, h helper, mag float64) {
 	})
 }
 
-// bare reads x < tol (or tol > x) with tol a positive constant and x a
-// cancelling quantity, possibly scaled by a constant: a difference of two
-// non-constant values, a remainder, or a product of such.
+// bare reads x < tol (or tol > x, or x > tol, the same test's negation)
+// with tol a positive constant and x a cancelling quantity, possibly
+// scaled by a constant: a difference of two non-constant values, a
+// remainder, or a product of such.
 func (c *checker) bare(cur inspector.Cursor, n *ast.BinaryExpr) {
 	x, tolE := n.X, n.Y
 	switch n.Op {
 	case token.GTR, token.GEQ:
-		x, tolE = n.Y, n.X
+		if c.pass.TypesInfo.Types[n.Y].Value == nil {
+			x, tolE = n.Y, n.X
+		}
 	case token.LSS, token.LEQ:
 	default:
 		return

@@ -216,7 +216,22 @@ func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 
 // binary reads a product, quotient, sum or difference.
 func (r *Reader) binary(b *ast.BinaryExpr, bind env, depth int) float64 {
-	return combine(b.Op, r.of(b.X, bind, depth+1), r.of(b.Y, bind, depth+1))
+	x, y := r.of(b.X, bind, depth+1), r.of(b.Y, bind, depth+1)
+	if (b.Op == token.ADD || b.Op == token.SUB) && x != y && !math.IsInf(x, 0) && !math.IsInf(y, 0) && !r.fixed(b.X) && !r.fixed(b.Y) {
+		return min(x, y) // terms of one unit read apart: a factor read as data is a pure number
+	}
+	return combine(b.Op, x, y)
+}
+
+// fixed reports whether e is a constant or an integer (a count, also
+// converted to float), of degree 0 by type.
+func (r *Reader) fixed(e ast.Expr) bool {
+	e = ast.Unparen(e)
+	if call, ok := e.(*ast.CallExpr); ok && len(call.Args) == 1 && r.info.Types[call.Fun].IsType() {
+		e = call.Args[0]
+	}
+	tv := r.info.Types[e]
+	return tv.Value != nil || tv.Type != nil && isInteger(tv.Type)
 }
 
 // combine returns the degree of x op y from theirs.
@@ -266,6 +281,9 @@ func (r *Reader) call(call *ast.CallExpr, i int, bind env, depth int) float64 {
 	}
 	fn, ok := typeutil.Callee(r.info, call).(*types.Func)
 	if !ok {
+		if r.fromParam(call.Fun) {
+			return 1 // a function the caller gives: its values are the caller's data
+		}
 		return math.NaN()
 	}
 	if fn.Pkg() != nil && fn.Pkg().Path() == "math" {
@@ -476,31 +494,49 @@ func (r *Reader) assign(as *ast.AssignStmt, plain bool) {
 }
 
 // store records as's i-th target when it is an element of a local slice
-// or array s (s[i] = e, s[i][j] += e), and reports whether it is.
+// or array s, or a field of a local struct (s[i] = e, s[i][j] += e, w.in
+// += e), and reports whether it is: the variable's values are those of
+// its parts.
 func (r *Reader) store(as *ast.AssignStmt, i int) bool {
-	ix, ok := ast.Unparen(as.Lhs[i]).(*ast.IndexExpr)
-	if !ok {
-		return false
-	}
-	for {
-		inner, ok := ast.Unparen(ix.X).(*ast.IndexExpr)
-		if !ok {
-			break
-		}
-		ix = inner
-	}
-	id, ok := ast.Unparen(ix.X).(*ast.Ident)
-	if !ok || r.varOf(id) == nil || r.params[r.varOf(id)] {
+	id, ok := r.partOf(as.Lhs[i])
+	if !ok || id == nil || r.varOf(id) == nil || r.params[r.varOf(id)] {
 		return ok
 	}
 	switch {
 	case len(as.Lhs) == len(as.Rhs) && (as.Tok == token.ASSIGN || as.Tok == token.ADD_ASSIGN || as.Tok == token.SUB_ASSIGN):
 		r.set(id, as.Rhs[i])
 		r.elems[r.varOf(id)] = true
+		r.noteSum(as, i, r.varOf(id))
 	default:
 		r.spoil(id)
 	}
 	return true
+}
+
+// partOf returns the variable whose element or field e is, through
+// elements and fields held by value, and whether e is such a part; the
+// identifier is nil where the root is not a variable (a call, a field
+// reached through a pointer).
+func (r *Reader) partOf(e ast.Expr) (*ast.Ident, bool) {
+	part := false
+	for {
+		switch x := ast.Unparen(e).(type) {
+		case *ast.IndexExpr:
+			e, part = x.X, true
+			continue
+		case *ast.SelectorExpr:
+			if sel, ok := r.info.Selections[x]; ok && sel.Kind() == types.FieldVal {
+				if sel.Indirect() {
+					return nil, true
+				}
+				e, part = x.X, true
+				continue
+			}
+		case *ast.Ident:
+			return x, part
+		}
+		return nil, part
+	}
 }
 
 // selfOp returns v *= e or v /= e, the i-th of as, as the value v*e or v/e.

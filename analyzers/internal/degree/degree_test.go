@@ -65,7 +65,7 @@ func along(p0, p1 vec, t float64) vec {
 	return p0.plus(p1)
 }
 
-func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
+func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine, f func(float64) float64, k float64) {
 	area := a1.minus(a0).wedge(b1.minus(b0))
 	self := a1.minus(a0).inner(a1.minus(a0))
 	r, _ := roots(area, self, area)
@@ -109,7 +109,13 @@ func sites(a0, a1, b0, b1 vec, n int, xs []float64, m affine) {
 	gap := gaps[1]
 	power := a0.x*a0.x + a0.y*a0.y + b0.x*b0.x
 	split, _ := cross(a0, b0)
-	_, _, _, _, _, _ = jac, shift, sqdev, gap, power, split
+	rise := f(a1.x) - f(a0.x)
+	square := func(x float64) float64 { return x * x }
+	own := square(a0.x)
+	gain := area - k*a0.x*b0.x*b0.y/a0.y
+	lifted := area - 1
+	counted := area + float64(n)
+	_, _, _, _, _, _, _, _, _, _, _ = jac, shift, sqdev, gap, power, split, rise, own, gain, lifted, counted
 	_, _, _, _, _, _, _, _, _, _ = area, self, turn, spread, scaled, far, length, mid, r, ratio
 }
 `
@@ -170,6 +176,11 @@ func TestDegrees(t *testing.T) {
 		{"sqdev", 2, true, false},   // elements stored from a square made afresh in each pass: an area-like square, whose error is relative
 		{"power", 2, true, false},   // a sum of three squares: non-negative terms never cancel, its error is relative (Higham 2002 §4.2)
 		{"split", 2, true, true},    // the first of two results, a cross product
+		{"rise", 1, true, true},     // values of a function the caller gives: the caller's data, as a parameter is
+		{"own", 0, false, false},    // a function value made here: its body, not the caller, decides
+		{"gain", 2, true, true},     // terms of one unit read as degrees 2 and 3: k, read as data, is a pure number, and the lower degree stands (dimensional consistency)
+		{"lifted", 2, true, false},  // a constant takes the unit of the term beside it
+		{"counted", 2, true, true},  // so does a count
 	} {
 		d, ok, cancels := read(c.name)
 		require.Equal(t, c.ok, ok, c.name)
@@ -420,7 +431,21 @@ func count(xs []float64, w day, n int) {
 	}
 	share := xs[0] / (xs[0] + math.Abs(seen))
 	per := seen / float64(len(xs))
+	frac := seen / xs[0]
+	weighed := xs[0] * seen
+	var flow struct{ in, out float64 }
+	for _, x := range xs {
+		flow.in += x
+	}
+	inflow := flow.in
+	fresh2 := 0.0
+	for _, x := range xs {
+		var once struct{ in float64 }
+		once.in += x
+		fresh2 = once.in
+	}
 	_, _, _, _, _, _, _, _, _, _ = seen, avg, week, days, late, last, pairs, series, share, per
+	_, _, _, _ = frac, weighed, inflow, fresh2
 }
 `
 
@@ -431,16 +456,20 @@ func count(xs []float64, w day, n int) {
 func TestSummed(t *testing.T) {
 	info, r, fd := loadSrc(t, srcSum)
 	want := map[string]bool{
-		"seen":   true,  // a helper's running sum, through its return
-		"avg":    true,  // through a helper of a helper
-		"week":   false, // seven terms: the count is fixed
-		"days":   false, // a range over an array: the count is fixed
-		"late":   true,  // late = late - x, in a loop bounded by a variable
-		"last":   false, // fresh starts afresh on each pass: one term
-		"pairs":  true,  // an inner loop of fixed count inside one over the data
-		"series": false, // a loop that runs to a count of its own, not the data's
-		"share":  false, // a sum in a divisor: the ratio's error is relative, as small as the ratio
-		"per":    true,  // a sum divided by a count: its error scales with it
+		"seen":    true,  // a helper's running sum, through its return
+		"avg":     true,  // through a helper of a helper
+		"week":    false, // seven terms: the count is fixed
+		"days":    false, // a range over an array: the count is fixed
+		"late":    true,  // late = late - x, in a loop bounded by a variable
+		"last":    false, // fresh starts afresh on each pass: one term
+		"pairs":   true,  // an inner loop of fixed count inside one over the data
+		"series":  false, // a loop that runs to a count of its own, not the data's
+		"share":   false, // a sum in a divisor: the ratio's error is relative, as small as the ratio
+		"per":     true,  // a sum divided by a count: its error scales with it
+		"frac":    true,  // a sum divided by data: its error is divided with it
+		"weighed": true,  // a sum times data: its error is multiplied with it
+		"inflow":  true,  // a field of a local struct that a loop over the data adds to
+		"fresh2":  false, // a field of a struct made afresh on each pass: one term
 	}
 	for id, obj := range info.Defs {
 		if w, ok := want[id.Name]; ok && obj != nil && fd.Pos() <= id.Pos() && id.End() <= fd.End() {

@@ -1,12 +1,18 @@
 // Package degree reads the degree of a float expression in the data its
 // function receives: how its size grows when every value the caller
 // passes in grows by a factor s. A parameter, a field or element of one,
-// and whatever else arrives from outside is of degree 1 (it scales with
-// the data); constants and integers (counts, indices) are of degree 0, and
+// the values of a function held in one (a weight function the caller
+// gives), and whatever else arrives from outside is of degree 1 (it
+// scales with the data); constants and integers (counts, indices) are of degree 0, and
 // so are the entries of a fixed-size array that the package multiplies by
 // data beside another entry as it is (m[0][0]*p.x + m[0][2]); a
 // product adds degrees, a quotient subtracts them, a sum or difference
-// takes the larger, a square root halves. The rounding error of a value of
+// takes the larger, a square root halves. The terms of a sum share a unit
+// (dimensional consistency): where two terms that are not constants or
+// counts read as different degrees, some factor read as data is a pure
+// number (a resolution, a layer weight), and the sum takes the lower
+// degree, the reading that claims the smaller error (k_in -
+// gamma*k*sigma/m is a weight, not a weight squared). The rounding error of a value of
 // degree d is about eps·s^d at data size s, which is what an absolute
 // tolerance on it has to exceed.
 //

@@ -28,7 +28,7 @@ func (r *Reader) Summed(fd *ast.FuncDecl, e ast.Expr) (ast.Node, bool) {
 }
 
 func (r *Reader) summed(e ast.Expr, depth int) ast.Node {
-	if depth > 8 {
+	if depth > 16 {
 		return nil
 	}
 	switch x := ast.Unparen(e).(type) {
@@ -38,6 +38,10 @@ func (r *Reader) summed(e ast.Expr, depth int) ast.Node {
 		return r.summed(x.X, depth+1)
 	case *ast.IndexExpr:
 		return r.summed(x.X, depth+1) // the elements stored into a local slice
+	case *ast.SelectorExpr:
+		if sel, ok := r.info.Selections[x]; ok && sel.Kind() == types.FieldVal && !sel.Indirect() {
+			return r.summed(x.X, depth+1) // the fields stored into a local struct
+		}
 	case *ast.BinaryExpr:
 		switch {
 		case x.Op == token.ADD || x.Op == token.SUB:
@@ -45,9 +49,12 @@ func (r *Reader) summed(e ast.Expr, depth int) ast.Node {
 				return s
 			}
 			return r.summed(x.Y, depth+1)
-		case (x.Op == token.MUL || x.Op == token.QUO) && r.count(x.Y):
+		case x.Op == token.QUO:
 			return r.summed(x.X, depth+1)
-		case x.Op == token.MUL && r.count(x.X):
+		case x.Op == token.MUL:
+			if s := r.summed(x.X, depth+1); s != nil {
+				return s
+			}
 			return r.summed(x.Y, depth+1)
 		}
 	case *ast.CallExpr:
@@ -57,38 +64,6 @@ func (r *Reader) summed(e ast.Expr, depth int) ast.Node {
 		return r.summedCall(x, 0, depth)
 	}
 	return nil
-}
-
-// count reports whether e is a constant or an integer (a count of terms,
-// also converted to float): scaling a sum by it scales its rounding error
-// with its value. A float factor of other size, or a divisor that is
-// itself data, leaves the error relative instead (the ratio
-// d/(d+|sum|) of a series' convergence test is as small as d).
-func (r *Reader) count(e ast.Expr) bool {
-	e = ast.Unparen(e)
-	if call, ok := e.(*ast.CallExpr); ok && len(call.Args) == 1 && r.info.Types[call.Fun].IsType() {
-		e = call.Args[0]
-	}
-	tv := r.info.Types[e]
-	if tv.Value != nil || tv.Type != nil && isInteger(tv.Type) {
-		return true
-	}
-	id, ok := e.(*ast.Ident)
-	if !ok {
-		return false
-	}
-	v := r.varOf(id)
-	if v == nil || r.params[v] || r.busy[v] || len(r.sets[v]) == 0 || len(r.tuples[v]) > 0 {
-		return false
-	}
-	r.busy[v] = true
-	defer delete(r.busy, v)
-	for _, s := range r.sets[v] {
-		if s == nil || !r.count(s) {
-			return false // a local holding a count (n := float64(len(xs)))
-		}
-	}
-	return true
 }
 
 // summedVar returns the running sum v is, or that a value given to it

@@ -49,7 +49,35 @@ func (c *checker) absorbed(cur inspector.Cursor, n *ast.BinaryExpr) {
 		c.absorbedConstant(cur, n, terms, f)
 		return
 	}
-	c.absorbedMixed(n, terms, f)
+	if !c.absorbedElement(cur, n, terms, f) {
+		c.absorbedMixed(n, terms, f)
+	}
+}
+
+// absorbedElement reports k ± c, k an element of a local slice of
+// constants at an index the source fixes (see elemValue) and c a constant
+// below half the spacing at it: the one rounding of the sum gives k back
+// (xs[m] - tol/1000 with xs[m] = 3 and tol = 1e-14). It reports whether
+// the sum was such.
+func (c *checker) absorbedElement(cur inspector.Cursor, n *ast.BinaryExpr, terms []term, f numeric.Format) bool {
+	if len(terms) != 2 || terms[0].neg {
+		return false
+	}
+	kv, ok := c.elemValue(cur, terms[0].expr)
+	v, okc := c.value(terms[1])
+	if !ok || !okc || constant.Sign(v) == 0 {
+		return false
+	}
+	k, d := f.Value(kv), f.Value(v)
+	same := k+d == k // the sum as the program rounds it
+	if f == numeric.Float32 {
+		same = float32(k)+float32(d) == float32(k)
+	}
+	if k == 0 || d == 0 || !same {
+		return false
+	}
+	c.reportAbsorbed(n, terms[1].expr, fixes.Source(c.pass.Fset, terms[0].expr), k, f, c.nextafterFix(cur, n, terms[0].expr, d > 0, f))
+	return true
 }
 
 // inSum reports whether cur's node is an operand of a larger sum, which

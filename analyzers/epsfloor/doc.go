@@ -72,7 +72,9 @@
 //     either: absorbed while the sum stays near that term, and below the
 //     other terms' rounding errors when they cancel it. A plain variable
 //     can cancel the term exactly (Sterbenz), so 1 - p + 1e-16 is left
-//     alone;
+//     alone. An element of a local slice of constants at an index the
+//     source fixes holds a known value at run time (see below), so
+//     hours[last] - 1e-17 with hours[last] = 8 is 8 after its one rounding;
 //   - math.Nextafter(x, y) and math.Nextafter32 whose direction y is x
 //     itself (equal constants, or the same variable): the call returns x
 //     unchanged (IEEE 754-2019 §5.3.1 steps toward a direction), so
@@ -133,7 +135,10 @@
 //
 //   - a constant operand;
 //   - an element of a local slice or array of constants that its function
-//     only reads (zs[i] of zs := []float64{360, 720, 6.2e23}): the largest;
+//     only reads (zs[i] of zs := []float64{360, 720, 6.2e23}): the largest,
+//     or the element itself at an index the source fixes (zs[m] after m :=
+//     len(zs) - 1); handing the slice to a parameter that only reads it
+//     (package readonly, a fact across packages) keeps it so;
 //   - a value read from a table of constants (tc.want) whose type a test
 //     file or test support code (a file of the package that imports
 //     testing) declares: the largest of them that reach the test (not a

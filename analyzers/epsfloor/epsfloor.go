@@ -22,6 +22,7 @@ import (
 	"roundoff/analyzers/internal/lazyssa"
 	"roundoff/analyzers/internal/portable"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/readonly"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/analyzers/internal/vecshape"
 	"roundoff/internal/numeric"
@@ -35,7 +36,7 @@ var Analyzer = &analysis.Analyzer{
 	Name:      "epsfloor",
 	Doc:       analyzerdoc.Extract(doc, "epsfloor"),
 	URL:       "docs/epsfloor.md",
-	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer, lazyssa.Analyzer, portable.Analyzer, vecshape.Analyzer},
+	Requires:  []*analysis.Analyzer{inspect.Analyzer, constval.Analyzer, absval.Analyzer, lazyssa.Analyzer, portable.Analyzer, vecshape.Analyzer, readonly.Analyzer},
 	Run:       run,
 	FactTypes: []analysis.Fact{new(tolerance.ParamsFact[use]), new(tolerance.FieldFact[use])},
 }

@@ -17,6 +17,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/fixes"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/readonly"
 	"roundoff/analyzers/internal/span"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
@@ -174,32 +175,29 @@ func (c *checker) testCode(pos token.Pos) bool {
 	return false
 }
 
-// elemSize returns the largest |element| of a local slice or array of
-// constants that e indexes (zs[i] of zs := []float64{360, 720, 6.2e23}),
-// when its function only reads its elements, ranges over it or takes its
-// length (nothing stores into it, passes it on, slices it or takes its
-// address), else 0.
+// elemSize returns |e| when e is an element of a local slice or array of
+// constants at an index the source fixes (see elemValue), else the
+// largest |element| of such a slice or array that e indexes (zs[i] of zs
+// := []float64{360, 720, 6.2e23}), when its function only reads it (see
+// readOnly), else 0.
 func (c *checker) elemSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) float64 {
-	info := c.pass.TypesInfo
+	if v, ok := c.elemValue(cur, e); ok {
+		return math.Abs(f.Value(v))
+	}
 	ix, ok := ast.Unparen(e).(*ast.IndexExpr)
 	if !ok {
 		return 0
 	}
-	id, ok := ast.Unparen(ix.X).(*ast.Ident)
-	v, _ := info.Uses[id].(*types.Var)
-	if !ok || v == nil {
-		return 0
-	}
-	lit, ok := ast.Unparen(c.decls[v]).(*ast.CompositeLit)
-	if !ok || !c.readOnly(cur, v) {
+	elts, ok := c.constElems(cur, ix.X)
+	if !ok {
 		return 0
 	}
 	size := 0.0
-	for _, elt := range lit.Elts {
+	for _, elt := range elts {
 		if kv, ok := elt.(*ast.KeyValueExpr); ok {
 			elt = kv.Value
 		}
-		val, ok := constval.Exact(info, c.decls, elt)
+		val, ok := constval.Exact(c.pass.TypesInfo, c.decls, elt)
 		if !ok || val.Kind() == constant.Complex {
 			return 0
 		}
@@ -208,40 +206,87 @@ func (c *checker) elemSize(cur inspector.Cursor, e ast.Expr, f numeric.Format) f
 	return size
 }
 
+// constElems returns the elements of the slice or array literal that
+// initialises x, a local variable its function only reads.
+func (c *checker) constElems(cur inspector.Cursor, x ast.Expr) ([]ast.Expr, bool) {
+	id, ok := ast.Unparen(x).(*ast.Ident)
+	if !ok {
+		return nil, false
+	}
+	v, _ := c.pass.TypesInfo.Uses[id].(*types.Var)
+	lit, ok := ast.Unparen(c.decls[v]).(*ast.CompositeLit)
+	if v == nil || !ok || !c.readOnly(cur, v) {
+		return nil, false
+	}
+	return lit.Elts, true
+}
+
+// elemValue returns the exact value of e when it is an element of a local
+// slice or array of constants (see constElems), none of them keyed, at
+// an index the source fixes (see index): xs[m] after m := len(xs) - 1.
+func (c *checker) elemValue(cur inspector.Cursor, e ast.Expr) (constant.Value, bool) {
+	ix, ok := ast.Unparen(e).(*ast.IndexExpr)
+	if !ok {
+		return nil, false
+	}
+	elts, ok := c.constElems(cur, ix.X)
+	if !ok || slices.ContainsFunc(elts, func(e ast.Expr) bool { _, kv := e.(*ast.KeyValueExpr); return kv }) {
+		return nil, false
+	}
+	k, ok := c.index(cur, ix.Index, 0)
+	if !ok || k < 0 || k >= int64(len(elts)) {
+		return nil, false
+	}
+	v, ok := constval.Exact(c.pass.TypesInfo, c.decls, elts[k])
+	return v, ok && v.Kind() != constant.Complex
+}
+
+// index evaluates an integer the source fixes: a constant, the length of
+// a local slice of constants (see constElems), a local initialised once
+// from such values, and their sums, differences and products.
+func (c *checker) index(cur inspector.Cursor, e ast.Expr, depth int) (int64, bool) {
+	e = ast.Unparen(e)
+	if tv := c.pass.TypesInfo.Types[e]; tv.Value != nil {
+		return constant.Int64Val(constant.ToInt(tv.Value))
+	}
+	if depth > 8 {
+		return 0, false
+	}
+	switch x := e.(type) {
+	case *ast.CallExpr:
+		if b, ok := typeutil.Callee(c.pass.TypesInfo, x).(*types.Builtin); ok && b.Name() == "len" && len(x.Args) == 1 {
+			elts, ok := c.constElems(cur, x.Args[0])
+			return int64(len(elts)), ok
+		}
+	case *ast.BinaryExpr:
+		a, oka := c.index(cur, x.X, depth+1)
+		b, okb := c.index(cur, x.Y, depth+1)
+		switch {
+		case !oka || !okb:
+		case x.Op == token.ADD:
+			return a + b, true
+		case x.Op == token.SUB:
+			return a - b, true
+		case x.Op == token.MUL:
+			return a * b, true
+		}
+	case *ast.Ident:
+		if v, ok := c.pass.TypesInfo.Uses[x].(*types.Var); ok && c.decls[v] != nil {
+			return c.index(cur, c.decls[v], depth+1)
+		}
+	}
+	return 0, false
+}
+
 // readOnly reports whether v is local to the function around cur, which
-// uses it only to read its elements or length or to range over it.
+// only reads it (package readonly: its elements, its length, a range, or
+// a parameter that only reads it in turn).
 func (c *checker) readOnly(cur inspector.Cursor, v *types.Var) bool {
 	for fd := range cur.Enclosing((*ast.FuncDecl)(nil)) {
 		if v.Pos() < fd.Node().Pos() || v.Pos() >= fd.Node().End() {
 			return false // a package variable, which other functions may change
 		}
-		for use := range fd.Preorder((*ast.Ident)(nil)) {
-			if c.pass.TypesInfo.Uses[use.Node().(*ast.Ident)] == v && !readsOnly(c.pass.TypesInfo, use) {
-				return false
-			}
-		}
-		return true
-	}
-	return false
-}
-
-// readsOnly reports whether the identifier at use is read for an element
-// (not stored into, incremented or addressed), a length, or a range.
-func readsOnly(info *types.Info, use inspector.Cursor) bool {
-	switch k, _ := use.ParentEdge(); k {
-	case edge.RangeStmt_X:
-		return true
-	case edge.CallExpr_Args:
-		b, ok := typeutil.Callee(info, use.Parent().Node().(*ast.CallExpr)).(*types.Builtin)
-		return ok && b.Name() == "len"
-	case edge.IndexExpr_X:
-		switch k, _ := use.Parent().ParentEdge(); k {
-		case edge.AssignStmt_Lhs, edge.IncDecStmt_X:
-			return false
-		case edge.UnaryExpr_X:
-			return use.Parent().Parent().Node().(*ast.UnaryExpr).Op != token.AND
-		}
-		return true
+		return readonly.Of(c.pass).Only(fd, v)
 	}
 	return false
 }

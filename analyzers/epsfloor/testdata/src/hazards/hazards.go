@@ -420,3 +420,25 @@ func sameReadingHeld(a, b float64) bool {
 	fraction := 0.000001
 	return math.Abs(a-b) <= fraction*math.SmallestNonzeroFloat64 // want `rounds to 0 in float64, being at most half its smallest positive value \(4.9e-324\), so the test is exact equality`
 }
+
+// fitKnots stands for a spline fit over a kiln's firing schedule: it
+// only reads the hours and set points it is given.
+func fitKnots(hours, temps []float64) float64 {
+	total := 0.0
+	for i := range hours {
+		total += hours[i] * temps[i]
+	}
+	return total
+}
+
+func slopeAt(h float64) float64 { return 2 * h }
+
+// lastSlope evaluates just before the last knot, hours[len(hours)-1] =
+// 8: floats there are 1.8e-15 apart, so 8 - 1e-17 is 8 itself.
+func lastSlope() float64 {
+	hours := []float64{0, 2.5, 8}
+	temps := []float64{20, 600, 1200}
+	_ = fitKnots(hours, temps)
+	last := len(hours) - 1
+	return slopeAt(hours[last] - 1e-17) // want `1e-17 has no effect on hours\[last\]: it is below half the spacing of float64 values there \(8.88e-16\), so the sum rounds back to exactly 8`
+}

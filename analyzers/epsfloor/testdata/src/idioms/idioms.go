@@ -389,3 +389,43 @@ func closeReading(a, b float64) bool {
 	const fraction, floor = 0.000001, 1e-300
 	return math.Abs(a-b) < fraction*floor
 }
+
+// readKnots stands for a spline fit that only reads its knots; shiftKnots
+// moves them in place.
+func readKnots(hours []float64) float64 { return hours[len(hours)-1] - hours[0] }
+
+func shiftKnots(hours []float64) {
+	for i := range hours {
+		hours[i] += 0.5
+	}
+}
+
+func slopeNear(h float64) float64 { return 2 * h }
+
+// firstSlope steps 1e-17 off the first knot, 0, where floats are far
+// denser than that: the offset counts.
+func firstSlope() float64 {
+	hours := []float64{0, 2.5, 8}
+	_ = readKnots(hours)
+	return slopeNear(hours[0] + 1e-17)
+}
+
+// shiftedSlope hands the knots to a function that stores into them: the
+// last one need no longer be the 8 written, so nothing is claimed.
+func shiftedSlope() float64 {
+	hours := []float64{0, 2.5, 8}
+	shiftKnots(hours)
+	last := len(hours) - 1
+	return slopeNear(hours[last] - 1e-17)
+}
+
+// eachSlope steps off every knot: the index is the loop's, so the element
+// is not known.
+func eachSlope() float64 {
+	hours := []float64{0, 2.5, 8}
+	s := 0.0
+	for i := range hours {
+		s += slopeNear(hours[i] - 1e-17)
+	}
+	return s
+}

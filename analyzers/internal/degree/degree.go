@@ -217,8 +217,8 @@ func (r *Reader) ident(id *ast.Ident, bind env, depth int) float64 {
 // binary reads a product, quotient, sum or difference.
 func (r *Reader) binary(b *ast.BinaryExpr, bind env, depth int) float64 {
 	x, y := r.of(b.X, bind, depth+1), r.of(b.Y, bind, depth+1)
-	if (b.Op == token.ADD || b.Op == token.SUB) && x != y && !math.IsInf(x, 0) && !math.IsInf(y, 0) && !r.fixed(b.X) && !r.fixed(b.Y) {
-		return min(x, y) // terms of one unit read apart: a factor read as data is a pure number
+	if (b.Op == token.ADD || b.Op == token.SUB) && !math.IsInf(x, 0) && !math.IsInf(y, 0) && !r.fixed(b.X) && !r.fixed(b.Y) {
+		return min(x, y) // terms of one unit; read apart, a factor read as data is a pure number
 	}
 	return combine(b.Op, x, y)
 }

@@ -18,6 +18,7 @@ import (
 	"roundoff/analyzers/internal/constval"
 	"roundoff/analyzers/internal/noiselevel"
 	"roundoff/analyzers/internal/provenance"
+	"roundoff/analyzers/internal/span"
 	"roundoff/analyzers/internal/tolerance"
 	"roundoff/internal/numeric"
 )
@@ -75,6 +76,7 @@ type checker struct {
 	tests  map[use]ast.Node                    // the tests of the tolerances learned here
 	later  func(types.Object) (ast.Expr, bool) // locals declared first and assigned once (constval.SetOnce), made on first use
 	movers map[*types.Func][][2]int            // helpers that store through pointers (tolerance.Movers), read on first use
+	span   *span.Reader                        // intervals of the package's values (see spans), made on first use
 }
 
 // reader returns the tolerance reader for a loop of the function body.

@@ -61,8 +61,12 @@ func (c *checker) unbounded(l *loop) {
 				analysis.RelatedInformation{Pos: r.Pos(), End: r.End(), Message: "the scaled value starts here and can be 0"})
 			return
 		}
+		scaled := !d.recedes(v) && (d.scaled(v, true) || !nanRuns && d.scaled(v, false))
+		if scaled && c.zeroTolerance(d, v) {
+			return
+		}
 		switch {
-		case !d.recedes(v) && (d.scaled(v, true) || !nanRuns && d.scaled(v, false)), !nanRuns && d.series(v):
+		case scaled, !nanRuns && d.series(v):
 			return // it reaches 0 or ±Inf, or it is a term and NaN ends the loop
 		case !d.effects && d.fresh(v, 4), d.counted(v):
 			return // it is drawn anew, or read at a new integer each pass
@@ -149,7 +153,12 @@ type exitTest struct {
 // reportLoop reports a loop at its first float exit test, naming the
 // loop as the related place, and any other places given.
 func (c *checker) reportLoop(d *deps, cat, msg string, related ...analysis.RelatedInformation) {
-	exit, stmt := d.tests[0].e, d.l.stmt
+	c.reportLoopAt(d, d.tests[0].e, cat, msg, related...)
+}
+
+// reportLoopAt reports a loop at the exit test given.
+func (c *checker) reportLoopAt(d *deps, exit ast.Expr, cat, msg string, related ...analysis.RelatedInformation) {
+	stmt := d.l.stmt
 	if c.pass.Fset.Position(exit.Pos()).Line != c.pass.Fset.Position(stmt.For).Line {
 		related = append([]analysis.RelatedInformation{{Pos: stmt.For, End: stmt.For + 3, Message: "the loop it ends"}}, related...)
 	}

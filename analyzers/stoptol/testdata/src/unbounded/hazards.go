@@ -460,3 +460,40 @@ func Expand(x float64) []int {
 	}
 	return terms
 }
+
+// invGolden is the golden-section factor, (√5 - 1)/2 ≈ 0.618.
+var invGolden = (math.Sqrt(5) - 1) / 2
+
+// Brightest searches a lamp's dimmer curve for its peak by golden
+// section, tracking the bracket's width h analytically. A caller asking
+// for full precision passes tol = 0: h shrinks to 4.9e-324, where
+// 0.618·h rounds back to h (IEEE 754-2019 round to nearest), and
+// h < 0 never holds.
+func Brightest(glow func(float64) float64, lo, hi, tol float64) float64 {
+	h := hi - lo
+	c, d := lo+(1-invGolden)*h, lo+invGolden*h
+	for {
+		if h < tol { // want `loop scales h by a positive factor each pass and ends only when h < tol: a positive h stays positive \(it stops at 4.9e-324, where the product rounds back to it\), so the test never holds when a caller gives tol = 0, nor when h starts infinite or NaN, and nothing caps the passes`
+			return (lo + hi) / 2
+		}
+		if glow(c) > glow(d) {
+			hi = d
+		} else {
+			lo = c
+		}
+		h *= invGolden
+		c, d = lo+(1-invGolden)*h, lo+invGolden*h
+	}
+}
+
+// Settle halves a valve's travel until it is within the caller's
+// tolerance, as the loop condition: halving reaches exactly 0, and
+// 0 >= 0 keeps the loop going when tol = 0.
+func Settle(travel, tol float64) float64 {
+	n := 0.0
+	for travel >= tol { // want `loop scales travel by a positive factor each pass and ends only when travel >= tol: a positive travel stays positive \(it reaches exactly 0\), so the test never holds when a caller gives tol = 0`
+		travel /= 2
+		n++
+	}
+	return n
+}

@@ -410,3 +410,35 @@ func axpy(x []float64, a float64, y []float64) {
 		x[i] += a * y[i]
 	}
 }
+
+// dimmest is a golden-section search whose tolerance the function
+// floors before the loop: a caller's 0 never reaches the test.
+func dimmest(glow func(float64) float64, lo, hi, tol float64) float64 { // want dimmest:"parameter 3 is an absolute x-tolerance of a minimization in dimmest"
+	if tol <= 0 {
+		tol = 1e-6
+	}
+	h := hi - lo
+	for {
+		if h < tol {
+			return (lo + hi) / 2
+		}
+		if glow(lo+h/3) < glow(hi-h/3) {
+			hi -= h / 3
+		} else {
+			lo += h / 3
+		}
+		h *= 2.0 / 3
+	}
+}
+
+// decade looks for the power of ten below a caller's value: the loop
+// condition cursor > 0 ends it where tenths underflow to 0, whatever the
+// value given.
+func decade(delta float64) float64 {
+	for cursor := 1e10; cursor > 0; cursor /= 10 {
+		if delta > cursor {
+			return cursor
+		}
+	}
+	return 0
+}

@@ -188,7 +188,10 @@
 // m := (a+b)/2, also with the ends in fields read twice, m == b.lo, the
 // overflow test x*c == x, x == math.Floor(x) for an x
 // that is not a product or quotient); a value
-// against a merge that has it as an input (did the branch change it?);
+// against a merge that has it as an input (did the branch change it?),
+// also a field read twice in a function that stores into no such field
+// (a running maximum started at c.floor, then best == c.floor: did any
+// value exceed the start?);
 // copies of the same value shuffled through branches (the points a and c of
 // Brent's zero finder); a variable against its own earlier value; a pair
 // whose difference the same function also tests against a tolerance (the

@@ -325,6 +325,10 @@ func (t *Tracker) resultComputed(fn *ssa.Function) []bool {
 // among its inputs, where w is defined before the merge: as in
 // s := t; if cond { s = t*k }; if s == t, a test of whether the branch
 // changed s. A loop-carried input from a later iteration does not count.
+// An input that reads the same field as w, through the same value, in a
+// function that stores into no such field (see unstored), counts as w: a running
+// maximum started at o.floor and tested max == o.floor after the loop
+// asks whether any value exceeded the start.
 func MergedFrom(v, w ssa.Value) bool {
 	return mergedFrom(Strip(v), Strip(w), 4)
 }
@@ -336,11 +340,35 @@ func mergedFrom(v, w ssa.Value, depth int) bool {
 	}
 	for _, e := range phi.Edges {
 		e = Strip(e)
-		if e == w && definedBefore(w, phi.Block()) || mergedFrom(e, w, depth-1) {
+		if e == w && definedBefore(w, phi.Block()) || sameField(e, w) && unstored(e) && definedBefore(e, phi.Block()) || mergedFrom(e, w, depth-1) {
 			return true
 		}
 	}
 	return false
+}
+
+// unstored reports whether v, a load of a field through a pointer, reads
+// a field that its function stores into nowhere (through any pointer to
+// the same struct type): every such load in it reads the same value.
+func unstored(v ssa.Value) bool {
+	load, ok := v.(*ssa.UnOp)
+	if !ok {
+		return true // a field of a struct value, which nothing changes
+	}
+	fa, ok := load.X.(*ssa.FieldAddr)
+	if !ok || fa.Parent() == nil {
+		return false
+	}
+	for _, blk := range fa.Parent().Blocks {
+		for _, instr := range blk.Instrs {
+			if st, ok := instr.(*ssa.Store); ok {
+				if f, ok := st.Addr.(*ssa.FieldAddr); ok && f.Field == fa.Field && types.Identical(f.X.Type(), fa.X.Type()) {
+					return false
+				}
+			}
+		}
+	}
+	return true
 }
 
 // definedBefore reports whether w is available on entry to block b.

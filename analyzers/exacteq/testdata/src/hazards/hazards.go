@@ -308,3 +308,20 @@ func balance(weights []float64) float64 {
 	}
 	return sum
 }
+
+// cloud is an invented point-cloud hull builder whose floor the package
+// fills with a computed value.
+type cloud struct{ floor float64 }
+
+// flatAfterRescale seeds a running maximum with the floor, then rescales
+// the floor before comparing: the two reads no longer hold the same value.
+func (c *cloud) flatAfterRescale(d []float64, extent float64) bool {
+	best := c.floor
+	for _, d := range d {
+		if sq := d * d; sq > best {
+			best = sq
+		}
+	}
+	c.floor = 1e-12 * extent * extent
+	return best == c.floor // want `exact == between a computed float64 value and field floor, which this package fills with computed values`
+}

@@ -522,3 +522,22 @@ func checkedLoad(loads []float64) float64 {
 	}
 	return loads[0] / total
 }
+
+// cloud is an invented point-cloud hull builder; its floor scales with
+// the cloud's extent, so the package fills it with a computed value.
+type cloud struct{ floor float64 }
+
+func (c *cloud) setup(extent float64) { c.floor = 1e-12 * extent * extent }
+
+// flat seeds a running maximum of squared offsets with the floor and
+// asks, after the loop, whether any exceeded it: the maximum is the floor
+// itself, bit for bit, until a larger value replaces it.
+func (c *cloud) flat(d []float64) bool {
+	best := c.floor
+	for _, d := range d {
+		if sq := d * d; sq > best {
+			best = sq
+		}
+	}
+	return best == c.floor
+}

@@ -129,6 +129,66 @@ func (d *deps) carried(v *types.Var) bool {
 	return c
 }
 
+// shuffled reports whether every cycle of assignments that v lies on or
+// reads from is made of plain copies (xA, xB, xC = xB, xC, xA): the loop
+// only rearranges a fixed set of values, and what it tests is worked out
+// afresh from them, so it visits finitely many states and rounding can
+// make none of them stall or drift.
+func (d *deps) shuffled(v *types.Var) bool {
+	seen := map[*types.Var]bool{}
+	var reach func(w *types.Var)
+	reach = func(w *types.Var) {
+		for _, u := range d.from[w] {
+			if !seen[u] {
+				seen[u] = true
+				reach(u)
+			}
+		}
+	}
+	reach(v)
+	for w := range seen {
+		if d.onCycle(w) && !d.copies(w) {
+			return false
+		}
+	}
+	return len(seen) > 0
+}
+
+// onCycle reports whether w's assignments in the loop read w back.
+func (d *deps) onCycle(w *types.Var) bool {
+	seen := map[*types.Var]bool{}
+	var reaches func(u *types.Var) bool
+	reaches = func(u *types.Var) bool {
+		for _, x := range d.from[u] {
+			if x == w {
+				return true
+			}
+			if !seen[x] {
+				seen[x] = true
+				if reaches(x) {
+					return true
+				}
+			}
+		}
+		return false
+	}
+	return reaches(w)
+}
+
+// copies reports whether every assignment to w in the loop copies another
+// variable as it is.
+func (d *deps) copies(w *types.Var) bool {
+	for i, r := range d.rhs[w] {
+		if tok := d.tokens[w][i]; tok != token.ASSIGN && tok != token.DEFINE || tolerance.VarOf(d.info, r) == nil {
+			return false
+		}
+		if _, ok := ast.Unparen(r).(*ast.Ident); !ok {
+			return false
+		}
+	}
+	return len(d.rhs[w]) > 0
+}
+
 // tested returns the variables and fields the exits read, through the
 // flags that hold tests.
 func (d *deps) tested() map[*types.Var]bool {

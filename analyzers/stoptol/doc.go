@@ -173,6 +173,10 @@
 //     shrinking leads anyway);
 //     series terms scaled by a changing factor and series that test the
 //     term, when a NaN ends the loop (|t| > tol as the loop condition);
+//   - loops that only rearrange their values (xa, xb, xc = xb, xc, xa)
+//     and test values worked out afresh from them: they visit a fixed,
+//     finite set of states, none of which rounding can make stall or
+//     drift, so whether one passes is settled within the first passes;
 //   - tests on values drawn anew each pass (rejection sampling, polling)
 //     when no call acts by side effect: the loop ends with probability 1,
 //     not by convergence; tests read at a new integer each pass (an

@@ -71,7 +71,7 @@ func (c *checker) unbounded(l *loop) {
 		case !d.effects && d.fresh(v, 4), d.counted(v):
 			return // it is drawn anew, or read at a new integer each pass
 		}
-		carried = carried || d.carried(v)
+		carried = carried || d.carried(v) && !d.shuffled(v)
 		series = series || d.series(v)
 	}
 	if !carried {

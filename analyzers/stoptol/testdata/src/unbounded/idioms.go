@@ -442,3 +442,16 @@ func decade(delta float64) float64 {
 	}
 	return 0
 }
+
+// throughThree turns three survey points until neither of the first two
+// steps is vertical: the loop only rearranges the same six values and
+// works the steps out afresh from them, so it visits at most three
+// arrangements, and rounding can make none of them drift.
+func throughThree(xa, ya, xb, yb, xc, yc float64) (float64, float64) {
+	da, db := xb-xa, xc-xb
+	for da == 0 || db == 0 {
+		xa, ya, xb, yb, xc, yc = xb, yb, xc, yc, xa, ya
+		da, db = xb-xa, xc-xb
+	}
+	return (yb - ya) / da, (yc - yb) / db
+}

@@ -157,10 +157,11 @@
 //     b *= 1/safmin): they reach 0 or ±Inf in at most about 2100 passes
 //     (a factor between 1/2 and 1 stops at a subnormal value instead,
 //     0.618 at 4.9e-324, where the product rounds back to it), unless
-//     their only exits test v < tol with tol a parameter or a field of one
-//     that the function neither assigns nor compares with a constant: a
-//     positive v never falls below a caller's tol = 0, and the loop is
-//     reported (category nocap, the golden-section width tracked as h *=
+//     their only exits test v < tol (or v <= tol, for a factor between
+//     1/2 and 1) with tol a parameter or a field of one that the function
+//     neither assigns nor compares with a constant: a positive v never
+//     falls below a caller's tol = 0 (nor, stopped at a subnormal, reaches
+//     it), and the loop is reported (category nocap, the golden-section width tracked as h *=
 //     0.618 with no cap); or unless the factor is a constant that moves the value away from
 //     passing (a tolerance halved each pass or at each level of a
 //     recursion, tested as |s2-s| <= 15*tol: as tol goes to 0 the test

@@ -21,24 +21,34 @@ import (
 // that the function takes as the caller gives it: a positive v stays
 // positive under such scaling, or reaches exactly 0, and never falls
 // below 0, so the loop never ends when a caller passes tol = 0 (a
-// common way of asking for full precision). A factor above 1/2 stops v
-// at a subnormal value, where the product rounds back to v (0.618 stops
-// at 4.9e-324). It reports whether the loop was such.
+// common way of asking for full precision). A factor between 1/2 and 1
+// stops v at a subnormal value, where the product rounds back to v
+// (0.618 stops at 4.9e-324), so v <= tol never holds for tol = 0
+// either. It reports whether the loop was such.
 func (c *checker) zeroTolerance(d *deps, v *types.Var) bool {
-	tol, exit := c.strictBelow(d, v)
+	tol, exit, strict := c.below(d, v)
 	if tol == nil || !c.positiveFactors(d, v) {
 		return false
 	}
-	floor := "reaches exactly 0"
-	if m, ok := c.onlyFactor(d, v); ok && m > 0.5 && m < 1 {
+	floor, op := "reaches exactly 0", "<"
+	m, ok := c.onlyFactor(d, v)
+	stalls := ok && m > 0.5 && m < 1
+	if stalls {
 		floor = fmt.Sprintf("stops at %.2g, where the product rounds back to it", stall(m))
+	}
+	if !strict {
+		if !stalls {
+			return false // v reaches 0, where v <= 0 holds
+		}
+		op = "<="
 	}
 	at := tol.Pos()
 	if p := c.paramOf(tol); p != nil {
 		at = p.Pos()
 	}
-	c.reportLoopAt(d, exit, catNoCap, fmt.Sprintf("loop scales %s by a positive factor each pass and ends only when %s: a positive %s stays positive (it %s), so the test never holds when a caller gives %s = 0, nor when %s starts infinite or NaN, and %s; add an iteration limit",
-		v.Name(), fixes.Source(c.pass.Fset, exit), v.Name(), floor, fixes.Source(c.pass.Fset, tol), v.Name(), c.uncapped(d.l, "passes")),
+	t := fixes.Source(c.pass.Fset, tol)
+	c.reportLoopAt(d, exit, catNoCap, fmt.Sprintf("loop scales %s by a positive factor each pass and ends only when %s %s %s: a positive %s stays positive (it %s), so the test never holds when a caller gives %s = 0, nor when %s starts infinite or NaN, and %s; add an iteration limit",
+		v.Name(), v.Name(), op, t, v.Name(), floor, t, v.Name(), c.uncapped(d.l, "passes")),
 		analysis.RelatedInformation{Pos: at, End: at, Message: "the tolerance the caller gives"})
 	return true
 }
@@ -57,33 +67,38 @@ func stall(m float64) float64 {
 	return h
 }
 
-// strictBelow returns the tolerance tol and the exit test when every exit
-// of the loop holds exactly when v < tol (an if v < tol that leaves, or a
-// loop condition v >= tol), with tol taken as the caller gives it (see
-// asGiven): another exit, such as v > 0 as the loop condition, may end
-// the loop where v reaches 0.
-func (c *checker) strictBelow(d *deps, v *types.Var) (tol, exit ast.Expr) {
-	for _, t := range d.tests {
+// below returns the tolerance tol and the exit test when every exit of
+// the loop holds exactly when v < tol, or every one when v <= tol (an if
+// v < tol that leaves, a loop condition v >= tol or v > tol), with tol
+// taken as the caller gives it (see asGiven), and whether the tests are
+// strict: another exit, such as v > 0 as the loop condition, may end the
+// loop where v reaches 0.
+func (c *checker) below(d *deps, v *types.Var) (tol, exit ast.Expr, strict bool) {
+	for i, t := range d.tests {
 		b, ok := ast.Unparen(t.e).(*ast.BinaryExpr)
 		if !ok {
-			return nil, nil
+			return nil, nil, false
 		}
-		small, large := b.X, b.Y
+		small, large, lt := b.X, b.Y, false
 		switch {
 		case !t.cond && b.Op == token.LSS, t.cond && b.Op == token.GEQ:
+			lt = true
+		case !t.cond && b.Op == token.LEQ, t.cond && b.Op == token.GTR:
 		case !t.cond && b.Op == token.GTR, t.cond && b.Op == token.LEQ:
+			small, large, lt = b.Y, b.X, true
+		case !t.cond && b.Op == token.GEQ, t.cond && b.Op == token.LSS:
 			small, large = b.Y, b.X
 		default:
-			return nil, nil
+			return nil, nil, false
 		}
-		if tolerance.VarOf(c.pass.TypesInfo, small) != v || !c.asGiven(d.l, large) {
-			return nil, nil
+		if tolerance.VarOf(c.pass.TypesInfo, small) != v || !c.asGiven(d.l, large) || i > 0 && lt != strict {
+			return nil, nil, false
 		}
-		if tol == nil {
-			tol, exit = large, t.e
+		if i == 0 {
+			tol, exit, strict = large, t.e, lt
 		}
 	}
-	return tol, exit
+	return tol, exit, strict
 }
 
 // asGiven reports whether e is a parameter of the loop's function, or a

@@ -491,9 +491,25 @@ func Brightest(glow func(float64) float64, lo, hi, tol float64) float64 {
 // 0 >= 0 keeps the loop going when tol = 0.
 func Settle(travel, tol float64) float64 {
 	n := 0.0
-	for travel >= tol { // want `loop scales travel by a positive factor each pass and ends only when travel >= tol: a positive travel stays positive \(it reaches exactly 0\), so the test never holds when a caller gives tol = 0`
+	for travel >= tol { // want `loop scales travel by a positive factor each pass and ends only when travel < tol: a positive travel stays positive \(it reaches exactly 0\), so the test never holds when a caller gives tol = 0`
 		travel /= 2
 		n++
 	}
 	return n
+}
+
+// Dullest runs a golden-section search while the width exceeds the
+// caller's tolerance: it ends when h <= tol, but a width scaled by 0.618
+// stops at 4.9e-324, where the product rounds back to it, never at 0.
+func Dullest(glow func(float64) float64, lo, hi, tol float64) float64 {
+	h := hi - lo
+	for h > tol { // want `loop scales h by a positive factor each pass and ends only when h <= tol: a positive h stays positive \(it stops at 4.9e-324, where the product rounds back to it\), so the test never holds when a caller gives tol = 0`
+		if glow(lo+(1-invGolden)*h) < glow(lo+invGolden*h) {
+			hi = lo + invGolden*h
+		} else {
+			lo = hi - invGolden*h
+		}
+		h *= invGolden
+	}
+	return (lo + hi) / 2
 }

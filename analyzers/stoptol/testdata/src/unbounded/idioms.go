@@ -455,3 +455,16 @@ func throughThree(xa, ya, xb, yb, xc, yc float64) (float64, float64) {
 	}
 	return (yb - ya) / da, (yc - yb) / db
 }
+
+// narrow halves a valve's travel while it exceeds the caller's
+// tolerance: halving reaches exactly 0 (IEEE 754-2019: half the smallest
+// subnormal rounds to 0 under ties to even), where travel <= 0 holds, so
+// even tol = 0 ends it.
+func narrow(travel, tol float64) int {
+	n := 0
+	for travel > tol {
+		travel /= 2
+		n++
+	}
+	return n
+}

@@ -5,7 +5,6 @@ import (
 	"go/ast"
 	"go/token"
 	"go/types"
-	"math"
 
 	"golang.org/x/tools/go/analysis"
 	"golang.org/x/tools/go/analysis/passes/inspect"
@@ -154,7 +153,7 @@ func (c *checker) positiveFactors(d *deps, v *types.Var) bool {
 			return false
 		}
 		for _, f := range fs {
-			if in, ok := c.spans().Of(f); !ok || !(in.Lo > 0) {
+			if in, ok := c.spans().Of(f.e); !ok || !(in.Lo > 0) {
 				return false
 			}
 		}
@@ -162,42 +161,45 @@ func (c *checker) positiveFactors(d *deps, v *types.Var) bool {
 	return len(d.rhs[v]) > 0
 }
 
-// onlyFactor returns the one factor every update of v multiplies it by,
-// when span bounds it to a single value.
+// onlyFactor returns the factor every update of v scales it by (the
+// reciprocal of a divisor), written alike in each, when span bounds it to
+// a single value.
 func (c *checker) onlyFactor(d *deps, v *types.Var) (float64, bool) {
-	m, seen := 0.0, false
+	var first *factor
 	for i, r := range d.rhs[v] {
 		fs, ok := factorsBeside(c.pass.TypesInfo, d.tokens[v][i], r, v)
-		if !ok || len(fs) != 1 {
+		if !ok || len(fs) != 1 || first != nil && (fs[0].div != first.div || fixes.Source(c.pass.Fset, fs[0].e) != fixes.Source(c.pass.Fset, first.e)) {
 			return 0, false
 		}
-		in, ok := c.spans().Of(fs[0])
-		if !ok || in.Lo != in.Hi || seen && in.Lo != m {
-			return 0, false
-		}
-		m, seen = in.Lo, true
-		if d.tokens[v][i] == token.QUO_ASSIGN || isQuotient(r, v) {
-			m = 1 / m
-		}
+		first = &fs[0]
 	}
-	return m, seen && !math.IsInf(m, 0)
+	if first == nil {
+		return 0, false
+	}
+	in, ok := c.spans().Of(first.e)
+	if !ok || in.Lo < in.Hi || !(in.Lo > 0) {
+		return 0, false
+	}
+	if first.div {
+		return 1 / in.Lo, true
+	}
+	return in.Lo, true
 }
 
-// isQuotient reports whether r is v/f.
-func isQuotient(r ast.Expr, v *types.Var) bool {
-	b, ok := ast.Unparen(r).(*ast.BinaryExpr)
-	return ok && b.Op == token.QUO
+// factor is an operand an update multiplies by, or divides by (div).
+type factor struct {
+	e   ast.Expr
+	div bool
 }
 
-// factorsBeside returns the factors an update of v multiplies or divides
-// it by: f of v *= f and v /= f, the other operands of v = v*f*g or
-// v = v/f.
-func factorsBeside(info *types.Info, tok token.Token, r ast.Expr, v *types.Var) ([]ast.Expr, bool) {
+// factorsBeside returns the factors an update of v scales it by: f of
+// v *= f and v /= f, the other operands of v = v*f*g or v = v/f.
+func factorsBeside(info *types.Info, tok token.Token, r ast.Expr, v *types.Var) ([]factor, bool) {
 	switch tok {
 	case token.MUL_ASSIGN, token.QUO_ASSIGN:
-		return []ast.Expr{r}, true
+		return []factor{{r, tok == token.QUO_ASSIGN}}, true
 	case token.ASSIGN:
-		var out []ast.Expr
+		var out []factor
 		var walk func(e ast.Expr) bool
 		walk = func(e ast.Expr) bool {
 			e = ast.Unparen(e)
@@ -209,10 +211,10 @@ func factorsBeside(info *types.Info, tok token.Token, r ast.Expr, v *types.Var) 
 			case !ok || b.Op != token.MUL && b.Op != token.QUO:
 				return false
 			case walk(b.X):
-				out = append(out, b.Y)
+				out = append(out, factor{b.Y, b.Op == token.QUO})
 				return true
 			case b.Op == token.MUL && walk(b.Y):
-				out = append(out, b.X)
+				out = append(out, factor{b.X, false})
 				return true
 			}
 			return false
